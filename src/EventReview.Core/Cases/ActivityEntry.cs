@@ -1,0 +1,87 @@
+using System.Globalization;
+using EventReview.Core.Evidence;
+
+namespace EventReview.Core.Cases;
+
+/// <summary>
+/// One entry of a case's timeline. Entries form a hash chain per case: <see cref="Hash"/> is the SHA-256 of the
+/// canonical content (see <see cref="CanonicalContent"/>), which includes the previous entry's hash, so any later
+/// edit, deletion or reordering breaks the chain from that entry on. Entries are never updated or deleted.
+/// </summary>
+public sealed class ActivityEntry
+{
+    /// <summary>Hash that stands before the first entry of every case (64 zeros).</summary>
+    public const string GenesisHash = "0000000000000000000000000000000000000000000000000000000000000000";
+
+    private ActivityEntry()
+    {
+        CandidateId = string.Empty;
+        ActorId = string.Empty;
+        ActorName = string.Empty;
+        Kind = string.Empty;
+        Text = string.Empty;
+        PreviousHash = string.Empty;
+        Hash = string.Empty;
+    }
+
+    internal ActivityEntry(string candidateId, int sequence, DateTimeOffset at, Actor actor, string kind, string? itemKey, string text, string previousHash)
+    {
+        CandidateId = candidateId;
+        Sequence = sequence;
+        At = at;
+        ActorId = actor.UserId;
+        ActorName = actor.DisplayName;
+        Kind = kind;
+        ItemKey = itemKey;
+        Text = text;
+        PreviousHash = previousHash;
+        Hash = Hashing.Sha256Hex(CanonicalContent());
+    }
+
+    public long Id { get; private set; }
+
+    public int ReviewCaseId { get; private set; }
+
+    /// <summary>The case's candidate identifier (part of the hashed content, so entries cannot move between cases).</summary>
+    public string CandidateId { get; private set; }
+
+    /// <summary>1, 2, 3, ... within the case.</summary>
+    public int Sequence { get; private set; }
+
+    public DateTimeOffset At { get; private set; }
+
+    public string ActorId { get; private set; }
+
+    public string ActorName { get; private set; }
+
+    /// <summary>Dotted kind ("case.opened", "item.state", "evidence.note", "signoff", ...).</summary>
+    public string Kind { get; private set; }
+
+    public string? ItemKey { get; private set; }
+
+    public string Text { get; private set; }
+
+    public string PreviousHash { get; private set; }
+
+    public string Hash { get; private set; }
+
+    /// <summary>
+    /// Canonical content, version 1: the lines <c>eventreview-activity-v1</c>, candidate id, sequence, UTC time as
+    /// round-trip ISO 8601 with 7 fractional digits, actor id, actor name, kind, item key (empty if none), text,
+    /// previous hash; joined by '\n'.
+    /// </summary>
+    public string CanonicalContent() => string.Join('\n',
+        "eventreview-activity-v1",
+        CandidateId,
+        Sequence.ToString(CultureInfo.InvariantCulture),
+        At.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fffffff'Z'", CultureInfo.InvariantCulture),
+        ActorId,
+        ActorName,
+        Kind,
+        ItemKey ?? string.Empty,
+        Text,
+        PreviousHash);
+
+    /// <summary>True when the stored hash matches the content.</summary>
+    public bool HashMatches() => string.Equals(Hash, Hashing.Sha256Hex(CanonicalContent()), StringComparison.Ordinal);
+}

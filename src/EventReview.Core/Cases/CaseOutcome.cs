@@ -1,0 +1,10 @@
+namespace EventReview.Core.Cases;
+
+/// <summary>The committee's conclusion when a case is closed.</summary>
+public enum CaseOutcome
+{
+    Astrophysical,
+    Instrumental,
+    Injection,
+    Inconclusive,
+}

@@ -1,0 +1,17 @@
+namespace EventReview.Core.Cases;
+
+/// <summary>Where a case stands. Closed cases carry a <see cref="CaseOutcome"/>.</summary>
+public enum CaseState
+{
+    /// <summary>Opened, no work recorded yet.</summary>
+    Open,
+
+    /// <summary>The team is working through the checklist.</summary>
+    InReview,
+
+    /// <summary>Every required item is signed; the committee is to decide.</summary>
+    AwaitingDecision,
+
+    /// <summary>Decided; nothing more can change.</summary>
+    Closed,
+}

@@ -1,0 +1,315 @@
+using EventReview.Core.Checklists;
+using EventReview.Core.Evidence;
+using EventReview.Core.Time;
+
+namespace EventReview.Core.Cases;
+
+/// <summary>
+/// The case file of one candidate: its times, arrivals, checklist, evidence, sign-offs and timeline. This is the
+/// aggregate root: every change goes through a method here, which checks the rule, applies the change and appends
+/// a timeline entry. A refused change throws <see cref="DomainRuleException"/> and leaves everything as it was.
+/// </summary>
+public sealed class ReviewCase
+{
+    private readonly List<CaseArrival> _arrivals = [];
+    private readonly List<ChecklistItem> _items = [];
+    private readonly List<ActivityEntry> _activity = [];
+
+    private ReviewCase()
+    {
+        CandidateId = string.Empty;
+        Search = string.Empty;
+        Summary = string.Empty;
+        CoordinatorId = string.Empty;
+        CoordinatorName = string.Empty;
+        ChecklistName = string.Empty;
+    }
+
+    public int Id { get; private set; }
+
+    /// <summary>The identifier given by the search that raised the candidate (unique).</summary>
+    public string CandidateId { get; private set; }
+
+    /// <summary>Candidate time, GPS nanoseconds (see <see cref="Gps"/>).</summary>
+    public long GpsNanoseconds { get; private set; }
+
+    public GpsTime Gps => new(GpsNanoseconds);
+
+    public string Search { get; private set; }
+
+    public string Summary { get; private set; }
+
+    public CaseState State { get; private set; }
+
+    public CaseOutcome? Outcome { get; private set; }
+
+    public string? ClosingStatement { get; private set; }
+
+    public string CoordinatorId { get; private set; }
+
+    public string CoordinatorName { get; private set; }
+
+    /// <summary>Template the checklist was made from, and its version.</summary>
+    public string ChecklistName { get; private set; }
+
+    public int ChecklistVersion { get; private set; }
+
+    public DateTimeOffset CreatedAt { get; private set; }
+
+    public DateTimeOffset UpdatedAt { get; private set; }
+
+    /// <summary>Optimistic-concurrency version of the whole case, bumped on every change (serialises the timeline).</summary>
+    public int Version { get; private set; }
+
+    public IReadOnlyList<CaseArrival> Arrivals => _arrivals;
+
+    public IReadOnlyList<ChecklistItem> Items => _items;
+
+    public IReadOnlyList<ActivityEntry> Activity => _activity;
+
+    /// <summary>Network SNR: root sum of squares of the per-site SNRs.</summary>
+    public double NetworkSnr => Math.Sqrt(_arrivals.Sum(a => a.Snr * a.Snr));
+
+    public int SignedItemCount => _items.Count(i => i.State == ItemState.SignedOff);
+
+    public int StaleItemCount => _items.Count(i => i.HasStaleSignOffs);
+
+    /// <summary>Opens a case with its checklist made from <paramref name="template"/>.</summary>
+    /// <exception cref="ArgumentException">When a field is invalid (the message names it).</exception>
+    public static ReviewCase Open(string candidateId, GpsTime gps, string search, string summary,
+        IEnumerable<CaseArrival> arrivals, ChecklistTemplate template, Actor coordinator, DateTimeOffset now)
+    {
+        candidateId = (candidateId ?? string.Empty).Trim();
+        if (candidateId.Length is < 1 or > 128 || candidateId.Any(char.IsControl))
+        {
+            throw new ArgumentException("candidateId must be 1-128 printable characters.", nameof(candidateId));
+        }
+
+        if (gps.Nanoseconds <= 0)
+        {
+            throw new ArgumentException("gpsTime must be a positive number of GPS seconds.", "gpsTime");
+        }
+
+        var list = arrivals.ToList();
+        var duplicate = list.GroupBy(a => a.SiteCode).FirstOrDefault(g => g.Count() > 1);
+        if (duplicate is not null)
+        {
+            throw new ArgumentException($"arrivals: site {duplicate.Key} appears more than once.", nameof(arrivals));
+        }
+
+        var far = list.FirstOrDefault(a => Math.Abs(a.Arrival.SecondsSince(gps)) > 1.0);
+        if (far is not null)
+        {
+            throw new ArgumentException($"arrivals: the arrival at {far.SiteCode} is {far.Arrival.SecondsSince(gps):F3} s from the case time; arrivals must be within 1 s of it.", nameof(arrivals));
+        }
+
+        var c = new ReviewCase
+        {
+            CandidateId = candidateId,
+            GpsNanoseconds = gps.Nanoseconds,
+            Search = (search ?? string.Empty).Trim(),
+            Summary = summary ?? string.Empty,
+            State = CaseState.Open,
+            CoordinatorId = coordinator.UserId,
+            CoordinatorName = coordinator.DisplayName,
+            ChecklistName = template.Name,
+            ChecklistVersion = template.Version,
+            CreatedAt = now,
+            UpdatedAt = now,
+        };
+        c._arrivals.AddRange(list);
+        var sectionOrder = 0;
+        foreach (var section in template.Sections)
+        {
+            sectionOrder++;
+            var order = 0;
+            foreach (var item in section.Items)
+            {
+                order++;
+                DateOnly? due = item.DueDays is { } days ? DateOnly.FromDateTime(now.UtcDateTime.AddDays(days)) : null;
+                c._items.Add(new ChecklistItem(section, sectionOrder, item, order, due));
+            }
+        }
+
+        c.Record(coordinator, now, "case.opened", null,
+            $"Opened case {candidateId} at GPS {gps} from search '{c.Search}' with checklist '{template.Name}' v{template.Version} ({c._items.Count} items).");
+        return c;
+    }
+
+    /// <summary>Finds an item by key.</summary>
+    /// <exception cref="KeyNotFoundException">When the case has no such item.</exception>
+    public ChecklistItem Item(string key) =>
+        _items.FirstOrDefault(i => i.Key == key) ?? throw new KeyNotFoundException($"Case {CandidateId} has no checklist item '{key}'.");
+
+    public void AssignItem(string key, string? ownerId, string? ownerName, Actor by, DateTimeOffset now)
+    {
+        var item = Mutable(key);
+        item.Assign(ownerId, ownerName);
+        Record(by, now, "item.assigned", key, ownerId is null ? $"Item '{key}' unassigned." : $"Item '{key}' assigned to {ownerName}.");
+    }
+
+    public void SetItemDue(string key, DateOnly? due, Actor by, DateTimeOffset now)
+    {
+        var item = Mutable(key);
+        item.SetDue(due);
+        Record(by, now, "item.due", key, due is null ? $"Due date of '{key}' cleared." : $"Item '{key}' due {due:yyyy-MM-dd}.");
+    }
+
+    public void StartItem(string key, Actor by, DateTimeOffset now)
+    {
+        Mutable(key).Start();
+        BeginReviewIfOpen();
+        Record(by, now, "item.state", key, $"Item '{key}' started (in progress).");
+    }
+
+    public void MarkItemReady(string key, Actor by, DateTimeOffset now)
+    {
+        Mutable(key).MarkReady();
+        BeginReviewIfOpen();
+        Record(by, now, "item.state", key, $"Item '{key}' marked ready for sign-off.");
+    }
+
+    public void WithdrawItem(string key, Actor by, DateTimeOffset now)
+    {
+        Mutable(key).Withdraw();
+        Record(by, now, "item.state", key, $"Item '{key}' returned to in progress.");
+    }
+
+    /// <summary>Adds a note, attachment or link; current sign-offs of the item become stale.</summary>
+    public void AddEvidence(string key, EvidenceItem evidence, Actor by, DateTimeOffset now)
+    {
+        var item = Mutable(key);
+        var stale = item.AddEvidence(evidence, now);
+        BeginReviewIfOpen();
+        var what = evidence.Kind switch
+        {
+            EvidenceKind.Note => $"Note added to '{key}' (sha256 {evidence.ContentSha256[..12]}).",
+            EvidenceKind.Attachment => $"File '{evidence.FileName}' ({evidence.SizeBytes} bytes, sha256 {evidence.ContentSha256}) attached to '{key}'.",
+            _ => $"Link {evidence.Url} added to '{key}'.",
+        };
+        Record(by, now, "evidence." + evidence.Kind.ToString().ToLowerInvariant(), key, what);
+        AfterStale(key, stale, by, now);
+    }
+
+    /// <summary>Attaches a computation record; current sign-offs of the item become stale.</summary>
+    public void AddComputation(string key, ComputationRecord record, Actor by, DateTimeOffset now)
+    {
+        var item = Mutable(key);
+        var stale = item.AddComputation(record, now);
+        BeginReviewIfOpen();
+        Record(by, now, "computation." + record.Kind, key, $"Check '{record.Kind}' run on '{key}': {record.Verdict}. {record.Summary}");
+        AfterStale(key, stale, by, now);
+    }
+
+    /// <summary>Signs an item against the evidence fingerprint the signer saw.</summary>
+    public SignOff SignItem(string key, Actor signer, SignOffMeaning meaning, string statement, string seenFingerprint, DateTimeOffset atUtc, GpsTime atGps)
+    {
+        var item = Mutable(key);
+        var s = item.Sign(signer, meaning, statement, seenFingerprint, atUtc, atGps);
+        Record(signer, atUtc, "signoff", key,
+            $"{signer.DisplayName} signed '{key}' as {meaning.ToString().ToLowerInvariant()} against evidence {s.EvidenceFingerprint[..12]}: {s.Statement}" +
+            (item.State == ItemState.SignedOff ? " Item signed off." : $" ({item.CurrentSignOffs.Count()} of {item.RequiredSignOffs})."));
+        return s;
+    }
+
+    /// <summary>Moves the case to "awaiting decision"; every item must be signed off with current signatures.</summary>
+    public void SubmitForDecision(Actor by, DateTimeOffset now)
+    {
+        EnsureNotClosed();
+        if (State is not (CaseState.Open or CaseState.InReview))
+        {
+            throw new DomainRuleException("invalid-transition", $"Case is '{StateNames.Of(State)}'; only an open or in-review case can go to the committee.");
+        }
+
+        EnsureAllSigned("submit it for decision");
+        State = CaseState.AwaitingDecision;
+        Record(by, now, "case.state", null, "Case submitted for decision: every item signed off.");
+    }
+
+    /// <summary>Sends a case awaiting decision back to review.</summary>
+    public void ReturnToReview(string reason, Actor by, DateTimeOffset now)
+    {
+        if (State != CaseState.AwaitingDecision)
+        {
+            throw new DomainRuleException("invalid-transition", $"Case is '{StateNames.Of(State)}'; only a case awaiting decision can return to review.");
+        }
+
+        State = CaseState.InReview;
+        Record(by, now, "case.state", null, $"Case returned to review: {reason}");
+    }
+
+    /// <summary>Closes the case with an outcome; every item must be signed off and no sign-off stale.</summary>
+    public void Close(CaseOutcome outcome, string statement, Actor by, DateTimeOffset now)
+    {
+        EnsureNotClosed();
+        if (string.IsNullOrWhiteSpace(statement))
+        {
+            throw new DomainRuleException("statement-required", "Closing a case needs a statement of the decision.");
+        }
+
+        EnsureAllSigned("close it");
+        State = CaseState.Closed;
+        Outcome = outcome;
+        ClosingStatement = statement.Trim();
+        Record(by, now, "case.closed", null, $"Case closed as {StateNames.Of(outcome)}: {ClosingStatement}");
+    }
+
+    private void EnsureAllSigned(string action)
+    {
+        var stale = _items.Where(i => i.HasStaleSignOffs).Select(i => i.Key).ToList();
+        if (stale.Count > 0)
+        {
+            throw new DomainRuleException("stale-signoff", $"Cannot {action}: {stale.Count} item(s) have stale sign-offs ({string.Join(", ", stale.Take(5))}).");
+        }
+
+        var unsigned = _items.Where(i => i.State != ItemState.SignedOff).Select(i => i.Key).ToList();
+        if (unsigned.Count > 0)
+        {
+            throw new DomainRuleException("unsigned-items", $"Cannot {action}: {unsigned.Count} required item(s) are not signed off ({string.Join(", ", unsigned.Take(5))}{(unsigned.Count > 5 ? ", ..." : string.Empty)}).");
+        }
+    }
+
+    private ChecklistItem Mutable(string key)
+    {
+        EnsureNotClosed();
+        return Item(key);
+    }
+
+    private void EnsureNotClosed()
+    {
+        if (State == CaseState.Closed)
+        {
+            throw new DomainRuleException("case-closed", $"Case {CandidateId} is closed; nothing in it can change.");
+        }
+    }
+
+    private void BeginReviewIfOpen()
+    {
+        if (State == CaseState.Open)
+        {
+            State = CaseState.InReview;
+        }
+    }
+
+    private void AfterStale(string key, bool stale, Actor by, DateTimeOffset now)
+    {
+        if (stale)
+        {
+            Record(by, now, "signoff.stale", key, $"Evidence of '{key}' changed after signing: its sign-offs are now stale and the item is back to ready for sign-off.");
+        }
+
+        if (stale && State == CaseState.AwaitingDecision)
+        {
+            State = CaseState.InReview;
+            Record(by, now, "case.state", null, "Case returned to review because a sign-off became stale.");
+        }
+    }
+
+    private void Record(Actor by, DateTimeOffset now, string kind, string? itemKey, string text)
+    {
+        var last = _activity.Count == 0 ? null : _activity.MaxBy(a => a.Sequence);
+        _activity.Add(new ActivityEntry(CandidateId, (last?.Sequence ?? 0) + 1, now, by, kind, itemKey, text, last?.Hash ?? ActivityEntry.GenesisHash));
+        UpdatedAt = now;
+        Version++;
+    }
+}

@@ -1,0 +1,77 @@
+namespace EventReview.Core.Evidence;
+
+/// <summary>
+/// The stored run of a built-in check on a checklist item: kind, parameters, fingerprints of its inputs,
+/// tool version, result (JSON), verdict, pictures (SVG), who ran it and when. Records are append-only:
+/// re-running with changed inputs makes a new record; the newest record of a kind is the current one.
+/// </summary>
+public sealed class ComputationRecord
+{
+    private ComputationRecord()
+    {
+        Kind = string.Empty;
+        ParametersJson = "{}";
+        InputFingerprint = string.Empty;
+        ToolVersion = string.Empty;
+        ResultJson = "{}";
+        Verdict = string.Empty;
+        Summary = string.Empty;
+        RunBy = string.Empty;
+        RunByName = string.Empty;
+        PicturesSvg = string.Empty;
+    }
+
+    /// <summary>Creates a record; <paramref name="inputFingerprint"/> is the SHA-256 over the canonical inputs.</summary>
+    public ComputationRecord(string kind, string parametersJson, string inputFingerprint, string toolVersion, string resultJson,
+        string verdict, string summary, string picturesSvg, Cases.Actor by, DateTimeOffset at)
+    {
+        if (!Checklists.CheckKind.IsKnown(kind))
+        {
+            throw new ArgumentException($"Unknown check kind '{kind}'.", nameof(kind));
+        }
+
+        Kind = kind;
+        ParametersJson = parametersJson;
+        InputFingerprint = inputFingerprint;
+        ToolVersion = toolVersion;
+        ResultJson = resultJson;
+        Verdict = verdict;
+        Summary = summary;
+        PicturesSvg = picturesSvg;
+        RunBy = by.UserId;
+        RunByName = by.DisplayName;
+        RunAt = at;
+    }
+
+    public int Id { get; private set; }
+
+    public int ChecklistItemId { get; private set; }
+
+    public string Kind { get; private set; }
+
+    public string ParametersJson { get; private set; }
+
+    public string InputFingerprint { get; private set; }
+
+    public string ToolVersion { get; private set; }
+
+    public string ResultJson { get; private set; }
+
+    /// <summary>One plain word of our own: "consistent", "inconsistent", "clear", "concern", ...</summary>
+    public string Verdict { get; private set; }
+
+    /// <summary>One line for tables: the key number with units and tolerance.</summary>
+    public string Summary { get; private set; }
+
+    /// <summary>Pictures as SVG documents, concatenated with a separator line "&lt;!--next--&gt;".</summary>
+    public string PicturesSvg { get; private set; }
+
+    public string RunBy { get; private set; }
+
+    public string RunByName { get; private set; }
+
+    public DateTimeOffset RunAt { get; private set; }
+
+    /// <summary>SHA-256 over kind, parameters, input fingerprint, tool version and result (what the sign-off binds to).</summary>
+    public string ContentSha256 => Hashing.Sha256Hex($"{Kind}\n{ParametersJson}\n{InputFingerprint}\n{ToolVersion}\n{ResultJson}\n{Verdict}");
+}

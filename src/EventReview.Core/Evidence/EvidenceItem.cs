@@ -1,0 +1,101 @@
+namespace EventReview.Core.Evidence;
+
+/// <summary>
+/// One piece of evidence on a checklist item: a note, an attachment or a link. Evidence is append-only:
+/// it is never edited; a correction is a new piece. The content hash feeds the item's evidence fingerprint.
+/// </summary>
+public sealed class EvidenceItem
+{
+    private EvidenceItem()
+    {
+        Text = string.Empty;
+        AddedBy = string.Empty;
+        AddedByName = string.Empty;
+        ContentSha256 = string.Empty;
+    }
+
+    private EvidenceItem(EvidenceKind kind, string text, string contentSha256, string? fileName, string? contentType, long? sizeBytes, string? url, Cases.Actor by, DateTimeOffset at)
+    {
+        Kind = kind;
+        Text = text;
+        ContentSha256 = contentSha256;
+        FileName = fileName;
+        ContentType = contentType;
+        SizeBytes = sizeBytes;
+        Url = url;
+        AddedBy = by.UserId;
+        AddedByName = by.DisplayName;
+        AddedAt = at;
+    }
+
+    public int Id { get; private set; }
+
+    public int ChecklistItemId { get; private set; }
+
+    public EvidenceKind Kind { get; private set; }
+
+    /// <summary>Note text (Markdown), link title, or attachment description.</summary>
+    public string Text { get; private set; }
+
+    /// <summary>Lowercase hex SHA-256 of the content: the note's UTF-8 text, the file's bytes, or the link's URL.</summary>
+    public string ContentSha256 { get; private set; }
+
+    /// <summary>Original file name as uploaded (display only; the file is stored by hash, never by this name).</summary>
+    public string? FileName { get; private set; }
+
+    public string? ContentType { get; private set; }
+
+    public long? SizeBytes { get; private set; }
+
+    public string? Url { get; private set; }
+
+    public string AddedBy { get; private set; }
+
+    public string AddedByName { get; private set; }
+
+    public DateTimeOffset AddedAt { get; private set; }
+
+    /// <summary>A Markdown note. Empty notes and notes over 100,000 characters are refused.</summary>
+    public static EvidenceItem Note(string markdown, Cases.Actor by, DateTimeOffset at)
+    {
+        if (string.IsNullOrWhiteSpace(markdown))
+        {
+            throw new ArgumentException("The note text is empty.", nameof(markdown));
+        }
+
+        if (markdown.Length > 100_000)
+        {
+            throw new ArgumentException("The note is longer than 100,000 characters; attach it as a file instead.", nameof(markdown));
+        }
+
+        return new EvidenceItem(EvidenceKind.Note, markdown, Hashing.Sha256Hex(markdown), null, null, null, null, by, at);
+    }
+
+    /// <summary>An attachment already stored under its SHA-256; <paramref name="fileName"/> is kept for display only.</summary>
+    public static EvidenceItem Attachment(string fileName, string contentType, long sizeBytes, string sha256, string description, Cases.Actor by, DateTimeOffset at)
+    {
+        if (!Hashing.IsSha256Hex(sha256))
+        {
+            throw new ArgumentException("The attachment hash must be 64 lowercase hex digits.", nameof(sha256));
+        }
+
+        var safeName = Path.GetFileName(fileName?.Replace('\\', '/') ?? string.Empty);
+        if (string.IsNullOrWhiteSpace(safeName))
+        {
+            safeName = "attachment";
+        }
+
+        return new EvidenceItem(EvidenceKind.Attachment, description ?? string.Empty, sha256, safeName, contentType, sizeBytes, null, by, at);
+    }
+
+    /// <summary>A link; only absolute http(s) URLs are accepted.</summary>
+    public static EvidenceItem Link(string url, string title, Cases.Actor by, DateTimeOffset at)
+    {
+        if (!Uri.TryCreate(url, UriKind.Absolute, out var uri) || (uri.Scheme != Uri.UriSchemeHttp && uri.Scheme != Uri.UriSchemeHttps))
+        {
+            throw new ArgumentException("The link must be an absolute http or https URL.", nameof(url));
+        }
+
+        return new EvidenceItem(EvidenceKind.Link, string.IsNullOrWhiteSpace(title) ? uri.ToString() : title.Trim(), Hashing.Sha256Hex(uri.ToString()), null, null, null, uri.ToString(), by, at);
+    }
+}

@@ -1,0 +1,48 @@
+namespace EventReview.Core.Network;
+
+/// <summary>A named set of detector sites. Site codes are unique within a network.</summary>
+public sealed class DetectorNetwork
+{
+    private readonly List<Site> _sites = [];
+
+    private DetectorNetwork()
+    {
+        Name = string.Empty;
+    }
+
+    /// <summary>Creates an empty network.</summary>
+    public DetectorNetwork(string name)
+    {
+        Name = string.IsNullOrWhiteSpace(name) ? throw new ArgumentException("Network name must not be empty.", nameof(name)) : name.Trim();
+    }
+
+    public int Id { get; private set; }
+
+    public string Name { get; private set; }
+
+    public IReadOnlyList<Site> Sites => _sites;
+
+    /// <summary>The site with the given code (case-insensitive), or null.</summary>
+    public Site? Find(string code) => _sites.FirstOrDefault(s => string.Equals(s.Code, code?.Trim(), StringComparison.OrdinalIgnoreCase));
+
+    /// <summary>Adds a site; refuses a duplicate code.</summary>
+    public void Add(Site site)
+    {
+        if (Find(site.Code) is not null)
+        {
+            throw new ArgumentException($"Site code {site.Code} is already in network {Name}.", nameof(site));
+        }
+
+        _sites.Add(site);
+    }
+
+    /// <summary>Removes a site by code; returns false when there is none.</summary>
+    public bool Remove(string code)
+    {
+        var s = Find(code);
+        return s is not null && _sites.Remove(s);
+    }
+
+    public void Rename(string name) =>
+        Name = string.IsNullOrWhiteSpace(name) ? throw new ArgumentException("Network name must not be empty.", nameof(name)) : name.Trim();
+}

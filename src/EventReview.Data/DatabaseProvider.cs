@@ -1,0 +1,7 @@
+namespace EventReview.Data;
+
+public enum DatabaseProvider
+{
+    Sqlite,
+    Postgres,
+}

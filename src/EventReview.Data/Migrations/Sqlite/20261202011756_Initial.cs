@@ -1,0 +1,565 @@
+﻿using System;
+using Microsoft.EntityFrameworkCore.Migrations;
+
+#nullable disable
+
+namespace EventReview.Data.Migrations.Sqlite
+{
+    /// <inheritdoc />
+    public partial class Initial : Migration
+    {
+        /// <inheritdoc />
+        protected override void Up(MigrationBuilder migrationBuilder)
+        {
+            migrationBuilder.CreateTable(
+                name: "ApiTokens",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    Name = table.Column<string>(type: "TEXT", maxLength: 100, nullable: false),
+                    Hash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Role = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    CreatedBy = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    CreatedAt = table.Column<long>(type: "INTEGER", nullable: false),
+                    LastUsedAt = table.Column<long>(type: "INTEGER", nullable: true),
+                    RevokedAt = table.Column<long>(type: "INTEGER", nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_ApiTokens", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "AspNetRoles",
+                columns: table => new
+                {
+                    Id = table.Column<string>(type: "TEXT", nullable: false),
+                    Name = table.Column<string>(type: "TEXT", maxLength: 256, nullable: true),
+                    NormalizedName = table.Column<string>(type: "TEXT", maxLength: 256, nullable: true),
+                    ConcurrencyStamp = table.Column<string>(type: "TEXT", nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_AspNetRoles", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "AspNetUsers",
+                columns: table => new
+                {
+                    Id = table.Column<string>(type: "TEXT", nullable: false),
+                    DisplayName = table.Column<string>(type: "TEXT", nullable: false),
+                    UserName = table.Column<string>(type: "TEXT", maxLength: 256, nullable: true),
+                    NormalizedUserName = table.Column<string>(type: "TEXT", maxLength: 256, nullable: true),
+                    Email = table.Column<string>(type: "TEXT", maxLength: 256, nullable: true),
+                    NormalizedEmail = table.Column<string>(type: "TEXT", maxLength: 256, nullable: true),
+                    EmailConfirmed = table.Column<bool>(type: "INTEGER", nullable: false),
+                    PasswordHash = table.Column<string>(type: "TEXT", nullable: true),
+                    SecurityStamp = table.Column<string>(type: "TEXT", nullable: true),
+                    ConcurrencyStamp = table.Column<string>(type: "TEXT", nullable: true),
+                    PhoneNumber = table.Column<string>(type: "TEXT", nullable: true),
+                    PhoneNumberConfirmed = table.Column<bool>(type: "INTEGER", nullable: false),
+                    TwoFactorEnabled = table.Column<bool>(type: "INTEGER", nullable: false),
+                    LockoutEnd = table.Column<long>(type: "INTEGER", nullable: true),
+                    LockoutEnabled = table.Column<bool>(type: "INTEGER", nullable: false),
+                    AccessFailedCount = table.Column<int>(type: "INTEGER", nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_AspNetUsers", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "Cases",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    CandidateId = table.Column<string>(type: "TEXT", maxLength: 128, nullable: false),
+                    GpsNanoseconds = table.Column<long>(type: "INTEGER", nullable: false),
+                    Search = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    Summary = table.Column<string>(type: "TEXT", maxLength: 20000, nullable: false),
+                    State = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    Outcome = table.Column<string>(type: "TEXT", maxLength: 32, nullable: true),
+                    ClosingStatement = table.Column<string>(type: "TEXT", nullable: true),
+                    CoordinatorId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    CoordinatorName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    ChecklistName = table.Column<string>(type: "TEXT", maxLength: 100, nullable: false),
+                    ChecklistVersion = table.Column<int>(type: "INTEGER", nullable: false),
+                    CreatedAt = table.Column<long>(type: "INTEGER", nullable: false),
+                    UpdatedAt = table.Column<long>(type: "INTEGER", nullable: false),
+                    Version = table.Column<int>(type: "INTEGER", nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_Cases", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "Networks",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    Name = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_Networks", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "AspNetRoleClaims",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    RoleId = table.Column<string>(type: "TEXT", nullable: false),
+                    ClaimType = table.Column<string>(type: "TEXT", nullable: true),
+                    ClaimValue = table.Column<string>(type: "TEXT", nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_AspNetRoleClaims", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_AspNetRoleClaims_AspNetRoles_RoleId",
+                        column: x => x.RoleId,
+                        principalTable: "AspNetRoles",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Cascade);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "AspNetUserClaims",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    UserId = table.Column<string>(type: "TEXT", nullable: false),
+                    ClaimType = table.Column<string>(type: "TEXT", nullable: true),
+                    ClaimValue = table.Column<string>(type: "TEXT", nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_AspNetUserClaims", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_AspNetUserClaims_AspNetUsers_UserId",
+                        column: x => x.UserId,
+                        principalTable: "AspNetUsers",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Cascade);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "AspNetUserLogins",
+                columns: table => new
+                {
+                    LoginProvider = table.Column<string>(type: "TEXT", nullable: false),
+                    ProviderKey = table.Column<string>(type: "TEXT", nullable: false),
+                    ProviderDisplayName = table.Column<string>(type: "TEXT", nullable: true),
+                    UserId = table.Column<string>(type: "TEXT", nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_AspNetUserLogins", x => new { x.LoginProvider, x.ProviderKey });
+                    table.ForeignKey(
+                        name: "FK_AspNetUserLogins_AspNetUsers_UserId",
+                        column: x => x.UserId,
+                        principalTable: "AspNetUsers",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Cascade);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "AspNetUserRoles",
+                columns: table => new
+                {
+                    UserId = table.Column<string>(type: "TEXT", nullable: false),
+                    RoleId = table.Column<string>(type: "TEXT", nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_AspNetUserRoles", x => new { x.UserId, x.RoleId });
+                    table.ForeignKey(
+                        name: "FK_AspNetUserRoles_AspNetRoles_RoleId",
+                        column: x => x.RoleId,
+                        principalTable: "AspNetRoles",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Cascade);
+                    table.ForeignKey(
+                        name: "FK_AspNetUserRoles_AspNetUsers_UserId",
+                        column: x => x.UserId,
+                        principalTable: "AspNetUsers",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Cascade);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "AspNetUserTokens",
+                columns: table => new
+                {
+                    UserId = table.Column<string>(type: "TEXT", nullable: false),
+                    LoginProvider = table.Column<string>(type: "TEXT", nullable: false),
+                    Name = table.Column<string>(type: "TEXT", nullable: false),
+                    Value = table.Column<string>(type: "TEXT", nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_AspNetUserTokens", x => new { x.UserId, x.LoginProvider, x.Name });
+                    table.ForeignKey(
+                        name: "FK_AspNetUserTokens_AspNetUsers_UserId",
+                        column: x => x.UserId,
+                        principalTable: "AspNetUsers",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Cascade);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "Activity",
+                columns: table => new
+                {
+                    Id = table.Column<long>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    ReviewCaseId = table.Column<int>(type: "INTEGER", nullable: false),
+                    CandidateId = table.Column<string>(type: "TEXT", maxLength: 128, nullable: false),
+                    Sequence = table.Column<int>(type: "INTEGER", nullable: false),
+                    At = table.Column<long>(type: "INTEGER", nullable: false),
+                    ActorId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    ActorName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    Kind = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    ItemKey = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
+                    Text = table.Column<string>(type: "TEXT", nullable: false),
+                    PreviousHash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Hash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_Activity", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_Activity_Cases_ReviewCaseId",
+                        column: x => x.ReviewCaseId,
+                        principalTable: "Cases",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Restrict);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "CaseArrivals",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    SiteCode = table.Column<string>(type: "TEXT", maxLength: 8, nullable: false),
+                    ArrivalNanoseconds = table.Column<long>(type: "INTEGER", nullable: false),
+                    Snr = table.Column<double>(type: "REAL", nullable: false),
+                    ReviewCaseId = table.Column<int>(type: "INTEGER", nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_CaseArrivals", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_CaseArrivals_Cases_ReviewCaseId",
+                        column: x => x.ReviewCaseId,
+                        principalTable: "Cases",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Cascade);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "ChecklistItems",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    ReviewCaseId = table.Column<int>(type: "INTEGER", nullable: false),
+                    Key = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    SectionKey = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    SectionTitle = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    SectionOrder = table.Column<int>(type: "INTEGER", nullable: false),
+                    Order = table.Column<int>(type: "INTEGER", nullable: false),
+                    Title = table.Column<string>(type: "TEXT", maxLength: 300, nullable: false),
+                    Guidance = table.Column<string>(type: "TEXT", nullable: false),
+                    CheckKind = table.Column<string>(type: "TEXT", maxLength: 32, nullable: true),
+                    OwnerId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
+                    OwnerName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: true),
+                    DueDate = table.Column<DateOnly>(type: "TEXT", nullable: true),
+                    State = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    RequiredSignOffs = table.Column<int>(type: "INTEGER", nullable: false),
+                    OwnerMaySign = table.Column<bool>(type: "INTEGER", nullable: false),
+                    Version = table.Column<int>(type: "INTEGER", nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_ChecklistItems", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_ChecklistItems_Cases_ReviewCaseId",
+                        column: x => x.ReviewCaseId,
+                        principalTable: "Cases",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Restrict);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "Sites",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    Code = table.Column<string>(type: "TEXT", maxLength: 8, nullable: false),
+                    Name = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    LatitudeDegrees = table.Column<double>(type: "REAL", nullable: false),
+                    LongitudeDegrees = table.Column<double>(type: "REAL", nullable: false),
+                    HeightMeters = table.Column<double>(type: "REAL", nullable: false),
+                    XArmAzimuthDegrees = table.Column<double>(type: "REAL", nullable: false),
+                    YArmAzimuthDegrees = table.Column<double>(type: "REAL", nullable: false),
+                    TimingUncertaintySeconds = table.Column<double>(type: "REAL", nullable: false),
+                    NetworkId = table.Column<int>(type: "INTEGER", nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_Sites", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_Sites_Networks_NetworkId",
+                        column: x => x.NetworkId,
+                        principalTable: "Networks",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Cascade);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "Computations",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    ChecklistItemId = table.Column<int>(type: "INTEGER", nullable: false),
+                    Kind = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    ParametersJson = table.Column<string>(type: "TEXT", nullable: false),
+                    InputFingerprint = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    ToolVersion = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    ResultJson = table.Column<string>(type: "TEXT", nullable: false),
+                    Verdict = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    Summary = table.Column<string>(type: "TEXT", maxLength: 1000, nullable: false),
+                    PicturesSvg = table.Column<string>(type: "TEXT", nullable: false),
+                    RunBy = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    RunByName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    RunAt = table.Column<long>(type: "INTEGER", nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_Computations", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_Computations_ChecklistItems_ChecklistItemId",
+                        column: x => x.ChecklistItemId,
+                        principalTable: "ChecklistItems",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Restrict);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "Evidence",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    ChecklistItemId = table.Column<int>(type: "INTEGER", nullable: false),
+                    Kind = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    Text = table.Column<string>(type: "TEXT", nullable: false),
+                    ContentSha256 = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    FileName = table.Column<string>(type: "TEXT", maxLength: 255, nullable: true),
+                    ContentType = table.Column<string>(type: "TEXT", maxLength: 200, nullable: true),
+                    SizeBytes = table.Column<long>(type: "INTEGER", nullable: true),
+                    Url = table.Column<string>(type: "TEXT", maxLength: 2000, nullable: true),
+                    AddedBy = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    AddedByName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    AddedAt = table.Column<long>(type: "INTEGER", nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_Evidence", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_Evidence_ChecklistItems_ChecklistItemId",
+                        column: x => x.ChecklistItemId,
+                        principalTable: "ChecklistItems",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Restrict);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "SignOffs",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    ChecklistItemId = table.Column<int>(type: "INTEGER", nullable: false),
+                    UserId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    SignerName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    SignedAtUtc = table.Column<long>(type: "INTEGER", nullable: false),
+                    SignedAtGpsNanoseconds = table.Column<long>(type: "INTEGER", nullable: false),
+                    Meaning = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    Statement = table.Column<string>(type: "TEXT", maxLength: 4000, nullable: false),
+                    EvidenceFingerprint = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    IsStale = table.Column<bool>(type: "INTEGER", nullable: false),
+                    StaleSince = table.Column<long>(type: "INTEGER", nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_SignOffs", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_SignOffs_ChecklistItems_ChecklistItemId",
+                        column: x => x.ChecklistItemId,
+                        principalTable: "ChecklistItems",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Restrict);
+                });
+
+            migrationBuilder.CreateIndex(
+                name: "IX_Activity_ReviewCaseId_Sequence",
+                table: "Activity",
+                columns: new[] { "ReviewCaseId", "Sequence" },
+                unique: true);
+
+            migrationBuilder.CreateIndex(
+                name: "IX_ApiTokens_Hash",
+                table: "ApiTokens",
+                column: "Hash",
+                unique: true);
+
+            migrationBuilder.CreateIndex(
+                name: "IX_AspNetRoleClaims_RoleId",
+                table: "AspNetRoleClaims",
+                column: "RoleId");
+
+            migrationBuilder.CreateIndex(
+                name: "RoleNameIndex",
+                table: "AspNetRoles",
+                column: "NormalizedName",
+                unique: true);
+
+            migrationBuilder.CreateIndex(
+                name: "IX_AspNetUserClaims_UserId",
+                table: "AspNetUserClaims",
+                column: "UserId");
+
+            migrationBuilder.CreateIndex(
+                name: "IX_AspNetUserLogins_UserId",
+                table: "AspNetUserLogins",
+                column: "UserId");
+
+            migrationBuilder.CreateIndex(
+                name: "IX_AspNetUserRoles_RoleId",
+                table: "AspNetUserRoles",
+                column: "RoleId");
+
+            migrationBuilder.CreateIndex(
+                name: "EmailIndex",
+                table: "AspNetUsers",
+                column: "NormalizedEmail");
+
+            migrationBuilder.CreateIndex(
+                name: "UserNameIndex",
+                table: "AspNetUsers",
+                column: "NormalizedUserName",
+                unique: true);
+
+            migrationBuilder.CreateIndex(
+                name: "IX_CaseArrivals_ReviewCaseId",
+                table: "CaseArrivals",
+                column: "ReviewCaseId");
+
+            migrationBuilder.CreateIndex(
+                name: "IX_Cases_CandidateId",
+                table: "Cases",
+                column: "CandidateId",
+                unique: true);
+
+            migrationBuilder.CreateIndex(
+                name: "IX_ChecklistItems_ReviewCaseId_Key",
+                table: "ChecklistItems",
+                columns: new[] { "ReviewCaseId", "Key" },
+                unique: true);
+
+            migrationBuilder.CreateIndex(
+                name: "IX_Computations_ChecklistItemId",
+                table: "Computations",
+                column: "ChecklistItemId");
+
+            migrationBuilder.CreateIndex(
+                name: "IX_Evidence_ChecklistItemId",
+                table: "Evidence",
+                column: "ChecklistItemId");
+
+            migrationBuilder.CreateIndex(
+                name: "IX_SignOffs_ChecklistItemId",
+                table: "SignOffs",
+                column: "ChecklistItemId");
+
+            migrationBuilder.CreateIndex(
+                name: "IX_Sites_Code",
+                table: "Sites",
+                column: "Code",
+                unique: true);
+
+            migrationBuilder.CreateIndex(
+                name: "IX_Sites_NetworkId",
+                table: "Sites",
+                column: "NetworkId");
+        }
+
+        /// <inheritdoc />
+        protected override void Down(MigrationBuilder migrationBuilder)
+        {
+            migrationBuilder.DropTable(
+                name: "Activity");
+
+            migrationBuilder.DropTable(
+                name: "ApiTokens");
+
+            migrationBuilder.DropTable(
+                name: "AspNetRoleClaims");
+
+            migrationBuilder.DropTable(
+                name: "AspNetUserClaims");
+
+            migrationBuilder.DropTable(
+                name: "AspNetUserLogins");
+
+            migrationBuilder.DropTable(
+                name: "AspNetUserRoles");
+
+            migrationBuilder.DropTable(
+                name: "AspNetUserTokens");
+
+            migrationBuilder.DropTable(
+                name: "CaseArrivals");
+
+            migrationBuilder.DropTable(
+                name: "Computations");
+
+            migrationBuilder.DropTable(
+                name: "Evidence");
+
+            migrationBuilder.DropTable(
+                name: "SignOffs");
+
+            migrationBuilder.DropTable(
+                name: "Sites");
+
+            migrationBuilder.DropTable(
+                name: "AspNetRoles");
+
+            migrationBuilder.DropTable(
+                name: "AspNetUsers");
+
+            migrationBuilder.DropTable(
+                name: "ChecklistItems");
+
+            migrationBuilder.DropTable(
+                name: "Networks");
+
+            migrationBuilder.DropTable(
+                name: "Cases");
+        }
+    }
+}
