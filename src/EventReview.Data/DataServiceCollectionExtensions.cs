@@ -1,3 +1,4 @@
+using Microsoft.AspNetCore.Identity;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.DependencyInjection;
 
@@ -13,6 +14,23 @@ public static class DataServiceCollectionExtensions
         services.AddSingleton(factory);
         services.AddSingleton<IDbContextFactory<AppDbContext>>(factory);
         services.AddScoped(sp => sp.GetRequiredService<IDbContextFactory<AppDbContext>>().CreateDbContext());
+        services.AddSingleton<AttachmentStore>();
+        services.AddScoped<Auth.AccountAdmin>();
         return services;
+    }
+
+    /// <summary>Identity without cookies or UI (the CLI); the web app adds its own sign-in on top.</summary>
+    public static IdentityBuilder AddEventReviewIdentityCore(this IServiceCollection services) =>
+        services.AddIdentityCore<Auth.AppUser>(ConfigureIdentity)
+            .AddRoles<IdentityRole>()
+            .AddEntityFrameworkStores<AppDbContext>();
+
+    /// <summary>Password and lockout rules shared by every host.</summary>
+    public static void ConfigureIdentity(IdentityOptions o)
+    {
+        o.Password.RequiredLength = 10;
+        o.Password.RequireNonAlphanumeric = false;
+        o.User.RequireUniqueEmail = true;
+        o.Lockout.MaxFailedAccessAttempts = 10;
     }
 }

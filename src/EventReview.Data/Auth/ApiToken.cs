@@ -5,7 +5,7 @@ namespace EventReview.Data.Auth;
 
 /// <summary>
 /// A bearer token for pipelines. Only the SHA-256 of the secret is stored; the secret is shown once at creation.
-/// Tokens act with the role given at creation (reviewer by default) and can be revoked.
+/// Tokens act as a search pipeline (<see cref="Roles.Pipeline"/>: read, open cases, add evidence; never sign) and can be revoked.
 /// </summary>
 public sealed class ApiToken
 {
@@ -16,7 +16,7 @@ public sealed class ApiToken
     {
         Name = string.Empty;
         Hash = string.Empty;
-        Role = Roles.Reviewer;
+        Role = Roles.Pipeline;
         CreatedBy = string.Empty;
     }
 
@@ -39,7 +39,7 @@ public sealed class ApiToken
     public bool IsActive => RevokedAt is null;
 
     /// <summary>Makes a new token and its secret (the only time the secret exists).</summary>
-    public static (ApiToken Token, string Secret) Create(string name, string role, string createdBy, DateTimeOffset now)
+    public static (ApiToken Token, string Secret) Create(string name, string createdBy, DateTimeOffset now)
     {
         name = (name ?? string.Empty).Trim();
         if (name.Length is < 1 or > 100)
@@ -47,13 +47,8 @@ public sealed class ApiToken
             throw new ArgumentException("Token name must be 1-100 characters.", nameof(name));
         }
 
-        if (role is not (Roles.Reviewer or Roles.Observer or Roles.Coordinator))
-        {
-            throw new ArgumentException($"Unknown role '{role}'.", nameof(role));
-        }
-
         var secret = Prefix + Convert.ToHexStringLower(RandomNumberGenerator.GetBytes(24));
-        return (new ApiToken { Name = name, Hash = HashOf(secret), Role = role, CreatedBy = createdBy, CreatedAt = now }, secret);
+        return (new ApiToken { Name = name, Hash = HashOf(secret), Role = Roles.Pipeline, CreatedBy = createdBy, CreatedAt = now }, secret);
     }
 
     public static string HashOf(string secret) => Hashing.Sha256Hex(secret);

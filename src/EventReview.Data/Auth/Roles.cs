@@ -7,6 +7,9 @@ public static class Roles
     public const string Reviewer = "reviewer";
     public const string Observer = "observer";
 
+    /// <summary>Role claim carried by API tokens (search pipelines): read, open cases, add evidence; never sign.</summary>
+    public const string Pipeline = "pipeline";
+
     public static IReadOnlyList<string> All { get; } = [Coordinator, Reviewer, Observer];
 
     /// <summary>Roles allowed to add evidence and sign (comma list for [Authorize(Roles=...)]).</summary>
