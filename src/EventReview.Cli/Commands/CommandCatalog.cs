@@ -7,6 +7,7 @@ public static class CommandCatalog
 {
     public static IEnumerable<Command> All()
     {
-        yield break;
+        yield return TimingCommand.Build();
+        yield return TimeCommand.Build();
     }
 }

@@ -11,7 +11,7 @@ namespace EventReview.Core.Antenna;
 /// is |z| and its phase arg z. The amplitude ratio is |z_b| / |z_a|. The relative sign is that of
 /// Re(z_b conj(z_a)) = F+b F+a A+² + F×b F×a A×², i.e. of the zero-lag correlation of the two waveforms, which is
 /// what an overlap check that allows a sign flip reports (the dominant-phase term). Samples where |z_a| &lt; 1e-6
-/// (site a blind) are skipped.</para>
+/// (site a blind) are skipped. Between neighbouring ψ samples the ratio is taken as continuous (intermediate values count).</para>
 /// </summary>
 public static class AntennaConsistency
 {
@@ -79,32 +79,49 @@ public static class AntennaConsistency
         var low = observation.AmplitudeRatio / (1 + options.RatioTolerance);
         var high = observation.AmplitudeRatio * (1 + options.RatioTolerance);
         var scan = new DirectionScan { MinRatio = double.PositiveInfinity };
-        for (var i = 0; i < options.PsiSamples; i++)
+        var ratios = new double[options.PsiSamples];
+        var signs = new int[options.PsiSamples];
+        for (var j = 0; j < options.InclinationSamples; j++)
         {
-            var psi = Math.PI * i / options.PsiSamples;
-            var fa = a0.RotatePolarisation(psi);
-            var fb = b0.RotatePolarisation(psi);
-            for (var j = 0; j < options.InclinationSamples; j++)
+            var cosIota = options.InclinationSamples == 1 ? 1.0 : j / (double)(options.InclinationSamples - 1);
+            var aPlus = 0.5 * (1 + (cosIota * cosIota));
+            var aCross = cosIota;
+            for (var i = 0; i < options.PsiSamples; i++)
             {
-                var cosIota = options.InclinationSamples == 1 ? 1.0 : j / (double)(options.InclinationSamples - 1);
-                var aPlus = 0.5 * (1 + (cosIota * cosIota));
-                var aCross = cosIota;
+                var psi = Math.PI * i / options.PsiSamples;
+                var fa = a0.RotatePolarisation(psi);
+                var fb = b0.RotatePolarisation(psi);
                 var ampA = Math.Sqrt(Square(fa.FPlus * aPlus) + Square(fa.FCross * aCross));
-                if (ampA < 1e-6)
+                var ampB = Math.Sqrt(Square(fb.FPlus * aPlus) + Square(fb.FCross * aCross));
+                var correlation = (fa.FPlus * fb.FPlus * aPlus * aPlus) + (fa.FCross * fb.FCross * aCross * aCross);
+                ratios[i] = ampA < 1e-6 ? double.NaN : ampB / ampA;
+                signs[i] = ampA < 1e-6 ? 0 : Math.Sign(correlation);
+                if (double.IsNaN(ratios[i]))
                 {
                     continue;
                 }
 
-                var ampB = Math.Sqrt(Square(fb.FPlus * aPlus) + Square(fb.FCross * aCross));
-                var ratio = ampB / ampA;
-                var correlation = (fa.FPlus * fb.FPlus * aPlus * aPlus) + (fa.FCross * fb.FCross * aCross * aCross);
-                var signOk = Math.Sign(correlation) == observation.Sign;
-                var ratioOk = ratio >= low && ratio <= high;
-                scan.MinRatio = Math.Min(scan.MinRatio, ratio);
-                scan.MaxRatio = Math.Max(scan.MaxRatio, ratio);
-                scan.Sign |= signOk;
-                scan.Ratio |= ratioOk;
-                scan.Both |= signOk && ratioOk;
+                scan.MinRatio = Math.Min(scan.MinRatio, ratios[i]);
+                scan.MaxRatio = Math.Max(scan.MaxRatio, ratios[i]);
+                scan.Sign |= signs[i] == observation.Sign;
+                scan.Ratio |= ratios[i] >= low && ratios[i] <= high;
+            }
+
+            // Between neighbouring ψ samples (period 180°) the ratio is continuous: a crossing of [low, high] by two
+            // samples of the observed sign counts as a match even when neither sample lies inside.
+            for (var i = 0; i < options.PsiSamples; i++)
+            {
+                var next = (i + 1) % options.PsiSamples;
+                if (double.IsNaN(ratios[i]) || double.IsNaN(ratios[next]))
+                {
+                    continue;
+                }
+
+                var lo = Math.Min(ratios[i], ratios[next]);
+                var hi = Math.Max(ratios[i], ratios[next]);
+                var overlaps = hi >= low && lo <= high;
+                scan.Ratio |= overlaps;
+                scan.Both |= overlaps && signs[i] == observation.Sign && signs[next] == observation.Sign;
             }
         }
 

@@ -32,4 +32,15 @@ public static class SkyRing
 
         return result;
     }
+
+    /// <summary>
+    /// Ring opening angle in degrees between the source direction and r_a - r_b for arrival difference Δt = t_b - t_a (seconds):
+    /// cos θ = c Δt / |r_a - r_b|. Null when |c Δt / d| &gt; 1 (outside the light-travel window), never NaN.
+    /// </summary>
+    public static double? AngleDegrees(Vector3 positionAMeters, Vector3 positionBMeters, double arrivalDifferenceSeconds)
+    {
+        var d = (positionAMeters - positionBMeters).Length;
+        var cosine = PhysicalConstants.SpeedOfLightMetersPerSecond * arrivalDifferenceSeconds / d;
+        return d > 0 && Math.Abs(cosine) <= 1 ? double.RadiansToDegrees(Math.Acos(cosine)) : null;
+    }
 }

@@ -1,0 +1,90 @@
+using System.CommandLine;
+using EventReview.Core.Time;
+
+namespace EventReview.Cli.Commands;
+
+/// <summary>
+/// <c>eventreview time --gps X</c> or <c>eventreview time --utc T</c> [--json]: GPS &lt;-&gt; UTC with the bundled leap-second table,
+/// showing a leap second as 23:59:60. A stale table or an instant beyond its expiry gives a warning on stderr (exit still 0).
+/// </summary>
+public static class TimeCommand
+{
+    public static Command Build()
+    {
+        var gps = new Option<string>("--gps") { Description = "GPS seconds (decimal, up to nanoseconds)." };
+        var utc = new Option<string>("--utc") { Description = "UTC as ISO 8601, e.g. 2017-01-01T00:00:00Z (23:59:60 allowed on a leap-second day)." };
+        var json = new Option<bool>("--json") { Description = "Write the result as camelCase JSON." };
+        var command = new Command("time", "Convert between GPS seconds and UTC (leap seconds from the bundled table).");
+        command.Options.Add(gps);
+        command.Options.Add(utc);
+        command.Options.Add(json);
+        command.SetAction(parseResult => Run(parseResult.GetValue(gps), parseResult.GetValue(utc), parseResult.GetValue(json)));
+        return command;
+    }
+
+    private static int Run(string? gpsText, string? utcText, bool json)
+    {
+        if ((gpsText is null) == (utcText is null))
+        {
+            return CliOutput.Fail("give exactly one of --gps or --utc.");
+        }
+
+        var table = LeapSecondTable.Bundled;
+        GpsTime gps;
+        UtcInstant utc;
+        if (gpsText is not null)
+        {
+            if (!GpsTime.TryParse(gpsText, out gps))
+            {
+                return CliOutput.Fail($"--gps '{gpsText}': expected decimal GPS seconds.");
+            }
+
+            utc = GpsUtc.ToUtc(gps, table);
+        }
+        else
+        {
+            if (!UtcInstant.TryParse(utcText, out utc))
+            {
+                return CliOutput.Fail($"--utc '{utcText}': expected an ISO 8601 UTC date-time such as 2017-01-01T00:00:00Z.");
+            }
+
+            try
+            {
+                gps = GpsUtc.FromUtc(utc, table);
+            }
+            catch (ArgumentException ex)
+            {
+                return CliOutput.Fail($"--utc '{utcText}': {ex.Message.Split(" (Parameter", 2)[0]}");
+            }
+        }
+
+        var offset = table.EntryAtUtc(utc.DateTimeUtc).GpsMinusUtcSeconds;
+        var stale = table.IsStale(DateTime.UtcNow);
+        var beyond = !table.Covers(utc.DateTimeUtc);
+        if (json)
+        {
+            CliOutput.WriteJson(new
+            {
+                gps = gps.ToString(),
+                utc = utc.ToString(6),
+                isLeapSecond = utc.IsLeapSecond,
+                gpsMinusUtcSeconds = offset,
+                gmstDegrees = Sidereal.GreenwichMeanSiderealDegrees(utc),
+                leapSecondTableExpires = table.ExpiresUtc.ToString("yyyy-MM-dd"),
+                leapSecondTableStale = stale,
+                beyondTableExpiry = beyond,
+            });
+        }
+        else
+        {
+            Console.Out.WriteLine($"GPS {gps} = UTC {utc.ToString(6)}{(utc.IsLeapSecond ? " (leap second)" : string.Empty)}; GPS - UTC = {offset} s");
+        }
+
+        if (stale || beyond)
+        {
+            Console.Error.WriteLine($"warning: the leap-second table expires {table.ExpiresUtc:yyyy-MM-dd}; conversions after it may miss a leap second (update src/EventReview.Core/Time/leap-seconds.txt).");
+        }
+
+        return CliOutput.Success;
+    }
+}

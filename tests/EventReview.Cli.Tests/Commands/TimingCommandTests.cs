@@ -1,0 +1,106 @@
+using System.CommandLine;
+using System.Text.Json;
+using EventReview.Cli.Commands;
+
+namespace EventReview.Cli.Tests.Commands;
+
+[CollectionDefinition("Console", DisableParallelization = true)]
+public class ConsoleCollection;
+
+[Collection("Console")]
+public sealed class TimingCommandTests : IDisposable
+{
+    private readonly string _network = Path.Combine(Path.GetTempPath(), $"network-{Guid.NewGuid():N}.json");
+
+    public TimingCommandTests()
+    {
+        File.WriteAllText(_network, """
+            {"name": "Demo net", "sites": [
+              {"code": "K1", "name": "Site K1", "latitudeDegrees": 46, "longitudeDegrees": -119, "heightMeters": 100,
+               "xArmAzimuthDegrees": 36, "yArmAzimuthDegrees": 126, "timingUncertaintySeconds": 0.0001},
+              {"code": "M2", "name": "Site M2", "latitudeDegrees": 30, "longitudeDegrees": -90, "heightMeters": 0,
+               "xArmAzimuthDegrees": 252, "yArmAzimuthDegrees": 342, "timingUncertaintySeconds": 0.0001},
+              {"code": "T3", "name": "Site T3", "latitudeDegrees": 43, "longitudeDegrees": 10, "heightMeters": 50,
+               "xArmAzimuthDegrees": 19, "yArmAzimuthDegrees": 109, "timingUncertaintySeconds": 0.0002}]}
+            """);
+    }
+
+    public void Dispose() => File.Delete(_network);
+
+    internal static (int ExitCode, string Out, string Error) Invoke(Command command, params string[] args)
+    {
+        var root = new RootCommand("test");
+        root.Subcommands.Add(command);
+        var (oldOut, oldError) = (Console.Out, Console.Error);
+        using var output = new StringWriter();
+        using var error = new StringWriter();
+        Console.SetOut(output);
+        Console.SetError(error);
+        try
+        {
+            var code = root.Parse(args).Invoke();
+            return (code, output.ToString(), error.ToString());
+        }
+        finally
+        {
+            Console.SetOut(oldOut);
+            Console.SetError(oldError);
+        }
+    }
+
+    [Fact]
+    public void Timing_json_has_the_contract_shape()
+    {
+        var (code, output, _) = Invoke(TimingCommand.Build(), "timing", "--network", _network,
+            "--arrival", "K1=1400000000.000", "--arrival", "M2=1400000000.005", "--arrival", "T3=1400000000.012", "--json");
+
+        Assert.Equal(0, code);
+        using var doc = JsonDocument.Parse(output);
+        var root = doc.RootElement;
+        var pairs = root.GetProperty("pairs");
+        Assert.Equal(3, pairs.GetArrayLength());
+        var first = pairs[0];
+        string[] keys = ["a", "b", "baselineMeters", "lightTravelSeconds", "allowedSeconds", "observedSeconds", "marginSeconds", "consistent", "ringAngleDegrees"];
+        Assert.All(keys, k => Assert.True(first.TryGetProperty(k, out _), k));
+        Assert.Equal("K1", first.GetProperty("a").GetString());
+        Assert.Equal("M2", first.GetProperty("b").GetString());
+        Assert.Equal(0.005, first.GetProperty("observedSeconds").GetDouble(), 1e-12);
+        var sky = root.GetProperty("sky");
+        Assert.Equal(2, sky.GetArrayLength());
+        Assert.All(new[] { "raDegrees", "decDegrees", "residualSeconds" }, k => Assert.True(sky[0].TryGetProperty(k, out _), k));
+        Assert.True(sky[0].GetProperty("residualSeconds").GetDouble() <= sky[1].GetProperty("residualSeconds").GetDouble());
+        Assert.Equal("2024-05-17T16:53:02.000000Z", root.GetProperty("utc").GetString());
+    }
+
+    [Fact]
+    public void Ring_angle_is_null_outside_the_light_travel_window()
+    {
+        var (code, output, _) = Invoke(TimingCommand.Build(), "timing", "--network", _network,
+            "--arrival", "K1=1400000000.000", "--arrival", "M2=1400000000.030", "--json");
+
+        Assert.Equal(1, code);
+        using var doc = JsonDocument.Parse(output);
+        Assert.Equal(JsonValueKind.Null, doc.RootElement.GetProperty("pairs")[0].GetProperty("ringAngleDegrees").ValueKind);
+    }
+
+    [Fact]
+    public void Unknown_site_code_exits_2_with_a_one_line_message()
+    {
+        var (code, output, error) = Invoke(TimingCommand.Build(), "timing", "--network", _network,
+            "--arrival", "K1=1400000000.000", "--arrival", "Z9=1400000000.005", "--json");
+
+        Assert.Equal(2, code);
+        Assert.Equal(string.Empty, output);
+        Assert.Contains("Z9", error);
+        Assert.Single(error.Split('\n', StringSplitOptions.RemoveEmptyEntries));
+    }
+
+    [Fact]
+    public void A_malformed_arrival_exits_2()
+    {
+        var (code, _, error) = Invoke(TimingCommand.Build(), "timing", "--network", _network, "--arrival", "K1:12", "--arrival", "M2=1");
+
+        Assert.Equal(2, code);
+        Assert.Contains("--arrival", error);
+    }
+}
