@@ -1,0 +1,37 @@
+namespace EventReview.Core.Cases;
+
+/// <summary>Verifies a case's timeline hash chain.</summary>
+public static class ActivityChain
+{
+    /// <summary>
+    /// Checks sequence numbers (1, 2, 3, ... without gaps), each entry's link to the previous hash and each entry's own hash.
+    /// Returns null when the chain is intact, otherwise a sentence naming the first entry that does not match.
+    /// </summary>
+    public static string? FirstProblem(IEnumerable<ActivityEntry> entries)
+    {
+        var prev = ActivityEntry.GenesisHash;
+        var expected = 1;
+        foreach (var e in entries.OrderBy(e => e.Sequence))
+        {
+            if (e.Sequence != expected)
+            {
+                return $"Entry {expected} is missing (entry {e.Sequence} follows entry {expected - 1}).";
+            }
+
+            if (!string.Equals(e.PreviousHash, prev, StringComparison.Ordinal))
+            {
+                return $"Entry {e.Sequence} ({e.Kind}) does not link to entry {e.Sequence - 1}: previous-hash mismatch.";
+            }
+
+            if (!e.HashMatches())
+            {
+                return $"Entry {e.Sequence} ({e.Kind}, {e.At.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC by {e.ActorName}) was altered: its content no longer matches its hash.";
+            }
+
+            prev = e.Hash;
+            expected++;
+        }
+
+        return null;
+    }
+}

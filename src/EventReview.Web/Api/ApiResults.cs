@@ -1,0 +1,109 @@
+using System.Text.Json;
+using EventReview.Core.Cases;
+using EventReview.Data;
+using EventReview.Web.Services;
+
+namespace EventReview.Web.Api;
+
+/// <summary>Turns failures into JSON problems that name what was wrong; a failed request has changed nothing.</summary>
+public static class ApiResults
+{
+    public static readonly JsonSerializerOptions Json = new(JsonSerializerDefaults.Web)
+    {
+        AllowTrailingCommas = false,
+        UnmappedMemberHandling = System.Text.Json.Serialization.JsonUnmappedMemberHandling.Skip,
+    };
+
+    /// <summary>Runs an endpoint body, mapping known exceptions to problems.</summary>
+    public static async Task<IResult> Guard(Func<Task<IResult>> body)
+    {
+        try
+        {
+            return await body();
+        }
+        catch (KeyNotFoundException ex)
+        {
+            return Problem(StatusCodes.Status404NotFound, "Not found", ex.Message);
+        }
+        catch (DomainRuleException ex)
+        {
+            return Problem(StatusCodes.Status409Conflict, "Refused by a review rule", ex.Message, ex.Rule);
+        }
+        catch (ConflictException ex)
+        {
+            return Problem(StatusCodes.Status409Conflict, "Conflicting change", ex.Message, "concurrent-change");
+        }
+        catch (UnauthorizedAccessException ex)
+        {
+            return Problem(StatusCodes.Status403Forbidden, "Not allowed", ex.Message);
+        }
+        catch (AttachmentTooLargeException ex)
+        {
+            return Problem(StatusCodes.Status413PayloadTooLarge, "File too large", ex.Message);
+        }
+        catch (BadHttpRequestException ex) when (ex.StatusCode == StatusCodes.Status413PayloadTooLarge)
+        {
+            return Problem(StatusCodes.Status413PayloadTooLarge, "File too large", "The request body is larger than the upload limit.");
+        }
+        catch (ArgumentException ex)
+        {
+            return Problem(StatusCodes.Status422UnprocessableEntity, "Invalid value", ex.Message.Split(" (Parameter", 2)[0], field: ex.ParamName);
+        }
+    }
+
+    /// <summary>Reads a JSON body; a malformed body gives a 400 naming the field and what was expected.</summary>
+    public static async Task<(T? Value, IResult? Error)> ReadJson<T>(HttpRequest request)
+        where T : class
+    {
+        if (request.ContentType is null || !request.ContentType.Contains("json", StringComparison.OrdinalIgnoreCase))
+        {
+            return (null, Problem(StatusCodes.Status415UnsupportedMediaType, "JSON expected", "Send the body as application/json."));
+        }
+
+        try
+        {
+            var value = await JsonSerializer.DeserializeAsync<T>(request.Body, Json);
+            return value is null ? (null, Problem(StatusCodes.Status400BadRequest, "Malformed JSON", "The body is empty or null.")) : (value, null);
+        }
+        catch (JsonException ex)
+        {
+            var field = string.IsNullOrEmpty(ex.Path) || ex.Path == "$" ? "(body)" : ex.Path.TrimStart('$', '.');
+            return (null, Problem(StatusCodes.Status400BadRequest, "Malformed JSON",
+                $"Malformed JSON at '{field}' (line {ex.LineNumber + 1}): {Explain(ex)}", field: field));
+        }
+    }
+
+    public static IResult Problem(int status, string title, string detail, string? rule = null, string? field = null)
+    {
+        var extensions = new Dictionary<string, object?>();
+        if (rule is not null)
+        {
+            extensions["rule"] = rule;
+        }
+
+        if (field is not null)
+        {
+            extensions["field"] = field;
+        }
+
+        return Results.Problem(detail: detail, statusCode: status, title: title, extensions: extensions);
+    }
+
+    private static string Explain(JsonException ex)
+    {
+        var m = ex.Message;
+        if (m.Contains("could not be converted to System.Nullable`1[System.Decimal]", StringComparison.Ordinal) ||
+            m.Contains("could not be converted to System.Nullable`1[System.Double]", StringComparison.Ordinal))
+        {
+            return "expected a number.";
+        }
+
+        if (m.Contains("could not be converted to System.String", StringComparison.Ordinal))
+        {
+            return "expected a string.";
+        }
+
+        var cut = m.IndexOf(" Path:", StringComparison.Ordinal);
+        return cut > 0 ? m[..cut] : m;
+    }
+}

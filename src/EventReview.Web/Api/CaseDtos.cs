@@ -1,0 +1,44 @@
+using EventReview.Core.Cases;
+using EventReview.Core.Checklists;
+using EventReview.Core.Network;
+using EventReview.Core.Time;
+
+namespace EventReview.Web.Api;
+
+/// <summary>JSON shapes of the HTTP API (camelCase). GPS times are decimal seconds; UTC strings are ISO 8601.</summary>
+public static class CaseDtos
+{
+    public sealed record CaseSummary(int Id, string CandidateId, decimal GpsTime, string Utc, string Search, string State, string? Outcome,
+        double NetworkSnr, int SignedItems, int TotalItems, int StaleItems, string Coordinator, string Checklist, DateTimeOffset CreatedAt, DateTimeOffset UpdatedAt);
+
+    public sealed record Arrival(string Site, decimal GpsTime, double Snr);
+
+    public sealed record Item(string Key, string Section, string Title, string State, string? Owner, DateOnly? DueDate, string? CheckKind,
+        int RequiredSignOffs, int CurrentSignOffs, bool StaleSignOffs, int EvidenceCount, string Fingerprint, int Version);
+
+    public sealed record CaseDetail(int Id, string CandidateId, decimal GpsTime, string Utc, string Search, string Summary, string State, string? Outcome,
+        double NetworkSnr, string Coordinator, string Checklist, DateTimeOffset CreatedAt, DateTimeOffset UpdatedAt, IReadOnlyList<Arrival> Arrivals, IReadOnlyList<Item> Items);
+
+    public sealed record SiteDto(string Code, string Name, double LatitudeDegrees, double LongitudeDegrees, double HeightMeters,
+        double XArmAzimuthDegrees, double YArmAzimuthDegrees, double TimingUncertaintySeconds);
+
+    public static decimal Seconds(GpsTime t) => t.Nanoseconds / 1_000_000_000m;
+
+    public static string Utc(GpsTime t) => GpsUtc.ToUtc(t).ToString(3);
+
+    public static CaseSummary Summary(ReviewCase c) => new(c.Id, c.CandidateId, Seconds(c.Gps), Utc(c.Gps), c.Search, Api(c.State), c.Outcome?.ToString().ToLowerInvariant(),
+        Math.Round(c.NetworkSnr, 2), c.SignedItemCount, c.Items.Count, c.StaleItemCount, c.CoordinatorName, c.ChecklistName, c.CreatedAt, c.UpdatedAt);
+
+    public static CaseDetail Detail(ReviewCase c) => new(c.Id, c.CandidateId, Seconds(c.Gps), Utc(c.Gps), c.Search, c.Summary, Api(c.State), c.Outcome?.ToString().ToLowerInvariant(),
+        Math.Round(c.NetworkSnr, 2), c.CoordinatorName, c.ChecklistName, c.CreatedAt, c.UpdatedAt,
+        c.Arrivals.OrderBy(a => a.SiteCode).Select(a => new Arrival(a.SiteCode, Seconds(a.Arrival), a.Snr)).ToList(),
+        c.Items.OrderBy(i => i.SectionOrder).ThenBy(i => i.Order).Select(i => new Item(i.Key, i.SectionKey, i.Title, Api(i.State), i.OwnerName, i.DueDate, i.CheckKind,
+            i.RequiredSignOffs, i.CurrentSignOffs.Count(), i.HasStaleSignOffs, i.Evidence.Count + i.Computations.Count, i.Fingerprint(), i.Version)).ToList());
+
+    public static SiteDto Site(Site s) => new(s.Code, s.Name, s.LatitudeDegrees, s.LongitudeDegrees, s.HeightMeters, s.XArmAzimuthDegrees, s.YArmAzimuthDegrees, s.TimingUncertaintySeconds);
+
+    /// <summary>API spelling of states: lower-case with dashes ("ready-for-sign-off", "awaiting-decision").</summary>
+    public static string Api(ItemState s) => StateNames.Of(s).Replace(' ', '-');
+
+    public static string Api(CaseState s) => StateNames.Of(s).Replace(' ', '-');
+}

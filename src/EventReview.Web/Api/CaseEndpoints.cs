@@ -1,0 +1,130 @@
+using System.Security.Claims;
+using EventReview.Core.Cases;
+using EventReview.Web.Auth;
+using EventReview.Web.Services;
+using Microsoft.Extensions.Options;
+
+namespace EventReview.Web.Api;
+
+/// <summary>The JSON HTTP API under /api (documented at /openapi/v1.json).</summary>
+public static class CaseEndpoints
+{
+    public static IEndpointRouteBuilder MapEventReviewApi(this IEndpointRouteBuilder app)
+    {
+        var api = app.MapGroup("/api").RequireAuthorization(Policies.Read).DisableAntiforgery();
+
+        api.MapPost("/cases", async (HttpRequest request, ClaimsPrincipal user, CaseService cases) =>
+        {
+            var (body, error) = await ApiResults.ReadJson<OpenCaseRequest>(request);
+            if (error is not null)
+            {
+                return error;
+            }
+
+            return await ApiResults.Guard(async () =>
+            {
+                var (c, created) = await cases.OpenAsync(user, body!);
+                var dto = CaseDtos.Detail(c);
+                return created ? Results.Created($"/api/cases/{c.Id}", dto) : Results.Ok(dto);
+            });
+        }).RequireAuthorization(Policies.OpenCases)
+          .WithSummary("Open a case for a candidate (idempotent on candidateId: 201 new, 200 existing).")
+          .Accepts<OpenCaseRequest>("application/json")
+          .Produces<CaseDtos.CaseDetail>(StatusCodes.Status201Created)
+          .Produces<CaseDtos.CaseDetail>()
+          .ProducesProblem(StatusCodes.Status400BadRequest)
+          .ProducesProblem(StatusCodes.Status422UnprocessableEntity);
+
+        api.MapGet("/cases", (ClaimsPrincipal user, CaseService cases, string? state, string? q) => ApiResults.Guard(async () =>
+        {
+            CaseState? s = null;
+            if (!string.IsNullOrWhiteSpace(state))
+            {
+                s = Enum.GetValues<CaseState>().Cast<CaseState?>().FirstOrDefault(x => CaseDtos.Api(x!.Value) == state.Trim().ToLowerInvariant())
+                    ?? throw new ArgumentException($"state '{state}' is not one of open, in-review, awaiting-decision, closed.", nameof(state));
+            }
+
+            var list = await cases.ListAsync(user, s, q);
+            return Results.Ok(list.Select(CaseDtos.Summary).ToList());
+        })).WithSummary("List cases, newest first; filter by state and text.").Produces<List<CaseDtos.CaseSummary>>();
+
+        api.MapGet("/cases/{id:int}", (int id, ClaimsPrincipal user, CaseService cases) => ApiResults.Guard(async () =>
+            Results.Ok(CaseDtos.Detail(await cases.GetAsync(user, id)))))
+            .WithSummary("One case with its arrivals and checklist item states.").Produces<CaseDtos.CaseDetail>().ProducesProblem(404);
+
+        api.MapGet("/sites", async (NetworkService network) =>
+        {
+            var n = await network.GetAsync();
+            return Results.Ok(n.Sites.OrderBy(s => s.Code).Select(CaseDtos.Site).ToList());
+        }).WithSummary("The network's sites (same fields as the network page and network.json).").Produces<List<CaseDtos.SiteDto>>();
+
+        api.MapPost("/cases/{id:int}/items/{key}/notes", async (int id, string key, HttpRequest request, ClaimsPrincipal user, CaseService cases) =>
+        {
+            var (body, error) = await ApiResults.ReadJson<NoteRequest>(request);
+            if (error is not null)
+            {
+                return error;
+            }
+
+            return await ApiResults.Guard(async () =>
+            {
+                if (string.IsNullOrWhiteSpace(body!.Text))
+                {
+                    throw new ArgumentException("text is required (Markdown).", "text");
+                }
+
+                var c = await cases.AddNoteAsync(user, id, key, body.Text);
+                var item = c.Item(key);
+                var note = item.Evidence.OrderByDescending(e => e.Id).First();
+                return Results.Created($"/api/cases/{id}/items/{key}", new { id = note.Id, sha256 = note.ContentSha256, itemState = CaseDtos.Api(item.State), fingerprint = item.Fingerprint() });
+            });
+        }).RequireAuthorization(Policies.AddEvidence).Accepts<NoteRequest>("application/json")
+          .WithSummary("Add a Markdown note to a checklist item (current sign-offs become stale).");
+
+        api.MapPost("/cases/{id:int}/items/{key}/attachments", (int id, string key, HttpRequest request, ClaimsPrincipal user, CaseService cases, IOptions<EventReviewOptions> options) =>
+            ApiResults.Guard(async () =>
+            {
+                if (!request.HasFormContentType)
+                {
+                    throw new ArgumentException("Send the file as multipart/form-data with a field named 'file'.", "file");
+                }
+
+                var max = options.Value.MaxUploadBytes;
+                if (request.ContentLength > max + (1024 * 1024))
+                {
+                    return ApiResults.Problem(StatusCodes.Status413PayloadTooLarge, "File too large", $"The upload limit is {max / (1024 * 1024)} MB.");
+                }
+
+                var form = await request.ReadFormAsync();
+                var file = form.Files.GetFile("file") ?? form.Files.FirstOrDefault()
+                    ?? throw new ArgumentException("The form has no file; send it in a field named 'file'.", "file");
+                await using var stream = file.OpenReadStream();
+                var c = await cases.AddAttachmentAsync(user, id, key, stream, file.FileName, string.IsNullOrWhiteSpace(file.ContentType) ? "application/octet-stream" : file.ContentType,
+                    form["description"].ToString(), max);
+                var item = c.Item(key);
+                var added = item.Evidence.OrderByDescending(e => e.Id).First();
+                return Results.Created($"/api/cases/{id}/items/{key}", new { id = added.Id, sha256 = added.ContentSha256, sizeBytes = added.SizeBytes, fileName = added.FileName, fingerprint = item.Fingerprint() });
+            })).RequireAuthorization(Policies.AddEvidence).DisableAntiforgery()
+              .WithSummary("Attach a file (multipart field 'file', optional 'description'); stored by SHA-256.");
+
+        app.MapGet("/files/{sha}", (string sha, EventReview.Data.AttachmentStore store, string? name) =>
+        {
+            if (!EventReview.Core.Evidence.Hashing.IsSha256Hex(sha))
+            {
+                return Results.NotFound();
+            }
+
+            var s = store.Open(sha);
+            return s is null ? Results.NotFound() : Results.File(s, "application/octet-stream", string.IsNullOrWhiteSpace(name) ? sha : Path.GetFileName(name));
+        }).RequireAuthorization(Policies.Read);
+
+        app.MapGet("/network.json", async (NetworkService network) =>
+        {
+            var n = await network.GetAsync();
+            var json = EventReview.Core.Network.NetworkFile.Write(new EventReview.Core.Network.NetworkDefinition(n.Name, n.Sites.OrderBy(s => s.Code).ToList()));
+            return Results.File(System.Text.Encoding.UTF8.GetBytes(json), "application/json", "network.json");
+        }).RequireAuthorization(Policies.Read);
+
+        return app;
+    }
+}

@@ -1,0 +1,110 @@
+using System.Security.Claims;
+using EventReview.Core.Cases;
+using EventReview.Core.Evidence;
+using EventReview.Core.Network;
+using EventReview.Core.Time;
+using EventReview.Data;
+using EventReview.Data.Auth;
+using EventReview.Web.Auth;
+using EventReview.Web.Services;
+using Microsoft.AspNetCore.Identity;
+using Microsoft.EntityFrameworkCore;
+
+namespace EventReview.Web.Demo;
+
+/// <summary>
+/// Fills an empty database with the invented demo: the network, four accounts and three candidate cases at
+/// different stages. Arrival times are made from an invented sky direction with the network's own geometry.
+/// </summary>
+public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, AccountAdmin accounts, UserManager<AppUser> users, CaseService cases, TemplateCatalog templates, TimeProvider clock)
+{
+    public async Task SeedIfEmptyAsync(CancellationToken ct = default)
+    {
+        await using (var db = await dbFactory.CreateDbContextAsync(ct))
+        {
+            if (await db.Cases.AnyAsync(ct) || await db.Users.AnyAsync(ct) || await db.Networks.AnyAsync(ct))
+            {
+                return;
+            }
+
+            var network = new DetectorNetwork(DemoNetwork.Name);
+            foreach (var s in DemoNetwork.Sites())
+            {
+                network.Add(s);
+            }
+
+            db.Networks.Add(network);
+            await db.SaveChangesAsync(ct);
+        }
+
+        var principals = new Dictionary<string, ClaimsPrincipal>();
+        foreach (var a in DemoAccounts.All)
+        {
+            var (user, _, _) = await accounts.CreateUserAsync(a.Email, a.Role, a.Password, a.DisplayName);
+            principals[a.Role + ":" + a.DisplayName] = Principal(user, a.Role);
+        }
+
+        var coordinator = principals.First(p => p.Key.StartsWith(Roles.Coordinator, StringComparison.Ordinal)).Value;
+        var reviewerA = principals["reviewer:Demo Reviewer A"];
+        var reviewerB = principals["reviewer:Demo Reviewer B"];
+        var sites = DemoNetwork.Sites();
+        var now = clock.GetUtcNow();
+        var gpsNow = GpsUtc.FromUtc(now.UtcDateTime);
+
+        // Case 1: a loud three-site candidate, well into its review.
+        var t1 = new GpsTime(gpsNow.Nanoseconds - (6L * 86400 * GpsTime.NanosecondsPerSecond) + 417_250_000);
+        var (c1, _) = await cases.OpenAsync(coordinator, Request("ER-C-0142", t1, sites, 41.0, -23.0, 0.7, [14.2, 16.8, 9.1],
+            "Loud short chirp-like transient seen at all three sites; raised by the demo matched-filter search.", "candidate-review"), ct);
+        var rA = users.Users.First(u => u.DisplayName == "Demo Reviewer A");
+        await cases.AssignAsync(coordinator, c1.Id, "timing.arrival", rA.Id, rA.DisplayName, c1.Item("timing.arrival").Version, ct);
+        var first = templates.Find("candidate-review")!.Items().First().Item.Key;
+        await cases.AddNoteAsync(reviewerA, c1.Id, first,
+            "Checked the injection schedule of every site for ±10 s around the candidate: **no injection** scheduled or logged. Screenshots of the three schedules to follow.", ct);
+        var c = await cases.TransitionAsync(reviewerA, c1.Id, first, "ready", null, ct);
+        await cases.SignAsync(reviewerB, c1.Id, first, SignOffMeaning.Reviewed,
+            "Read the three schedules myself; nothing within ±10 s.", c.Item(first).Fingerprint(), ct);
+        await cases.AddNoteAsync(reviewerA, c1.Id, "timing.arrival",
+            "Arrival times taken from the search's trigger record; the built-in timing check is to be run on this item.", ct);
+
+        // Case 2: a fresh two-site candidate from a pipeline, first-hour triage.
+        var t2 = new GpsTime(gpsNow.Nanoseconds - (2L * 3600 * GpsTime.NanosecondsPerSecond) + 88_125_000);
+        await cases.OpenAsync(coordinator, Request("ER-C-0157", t2, sites.Take(2).ToList(), -12.0, 140.0, 1.9, [8.4, 7.6],
+            "Two-site coincidence just above threshold; third site was not observing.", "rapid-triage"), ct);
+
+        // Case 3: a rapid triage that ended as instrumental (a glitch at one site).
+        var t3 = new GpsTime(gpsNow.Nanoseconds - (20L * 86400 * GpsTime.NanosecondsPerSecond) + 503_000_000);
+        var (c3, _) = await cases.OpenAsync(coordinator, Request("ER-C-0121", t3, sites, 63.0, 80.0, 0.2, [11.0, 6.2, 5.9],
+            "Loud at one site, marginal elsewhere; suspected blip glitch.", "rapid-triage"), ct);
+        var current = c3;
+        foreach (var item in c3.Items)
+        {
+            await cases.AddNoteAsync(reviewerA, c3.Id, item.Key, $"Triage note for *{item.Title}*: done; see the attached reasoning in the timeline.", ct);
+            current = await cases.TransitionAsync(reviewerA, c3.Id, item.Key, "ready", null, ct);
+            for (var k = 0; k < current.Item(item.Key).RequiredSignOffs; k++)
+            {
+                var signer = k == 0 ? reviewerB : coordinator;
+                current = await cases.SignAsync(signer, c3.Id, item.Key, SignOffMeaning.Approved, "Agreed on the evidence shown.", current.Item(item.Key).Fingerprint(), ct);
+            }
+        }
+
+        await cases.CloseAsync(coordinator, c3.Id, CaseOutcome.Instrumental,
+            "A blip glitch at one site explains the trigger; no consistent signal at the other sites.", ct);
+    }
+
+    private static OpenCaseRequest Request(string id, GpsTime t, IReadOnlyList<Site> sites, double raDeg, double decDeg, double psi, double[] snrs, string summary, string checklist)
+    {
+        var gmst = Sidereal.GreenwichMeanSiderealDegrees(GpsUtc.ToUtc(t).DateTimeUtc);
+        var n = SkyFrame.ToEcef(raDeg, decDeg, gmst);
+        var projection = NetworkProjection.Project(sites, n, psi);
+        var arrivals = projection.Select((p, i) => new ArrivalRequest(p.Code, (decimal)t.AddSeconds(p.DelaySeconds).Seconds, snrs[i])).ToList();
+        return new OpenCaseRequest(id, (decimal)t.Seconds, "demo-matched-filter", summary, arrivals, checklist);
+    }
+
+    private static ClaimsPrincipal Principal(AppUser user, string role) => new(new ClaimsIdentity(
+    [
+        new Claim(ClaimTypes.NameIdentifier, user.Id),
+        new Claim(ClaimTypes.Name, user.Email!),
+        new Claim(UserClaims.DisplayName, user.DisplayName),
+        new Claim(ClaimTypes.Role, role),
+    ], "demo-seed"));
+}

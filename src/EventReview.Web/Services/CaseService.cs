@@ -1,0 +1,259 @@
+using System.Security.Claims;
+using EventReview.Core.Cases;
+using EventReview.Core.Evidence;
+using EventReview.Core.Time;
+using EventReview.Data;
+using EventReview.Web.Auth;
+using Microsoft.EntityFrameworkCore;
+
+namespace EventReview.Web.Services;
+
+/// <summary>
+/// Every read and change of cases, for the UI and the API alike. Roles are checked here on the server.
+/// Changes load the case aggregate, apply one domain method and save; the case's version token serialises
+/// concurrent changes, and append-only changes (evidence, notes) are retried so that nothing is lost.
+/// </summary>
+public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, TemplateCatalog templates, TimeProvider clock, AttachmentStore store)
+{
+    private const int MaxAttempts = 6;
+
+    /// <summary>All cases, newest candidate first, optionally filtered by state and text.</summary>
+    public async Task<IReadOnlyList<ReviewCase>> ListAsync(ClaimsPrincipal user, CaseState? state = null, string? search = null, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Read, "read cases");
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        IQueryable<ReviewCase> q = db.Cases.AsNoTracking()
+            .Include(c => c.Arrivals)
+            .Include(c => c.Items).ThenInclude(i => i.SignOffs)
+            .AsSplitQuery();
+        if (state is not null)
+        {
+            q = q.Where(c => c.State == state);
+        }
+
+        if (!string.IsNullOrWhiteSpace(search))
+        {
+            var s = search.Trim().ToLower();
+            q = q.Where(c => c.CandidateId.ToLower().Contains(s) || c.Summary.ToLower().Contains(s) || c.Search.ToLower().Contains(s));
+        }
+
+        return await q.OrderByDescending(c => c.GpsNanoseconds).ToListAsync(ct);
+    }
+
+    /// <summary>One case with everything in it.</summary>
+    /// <exception cref="KeyNotFoundException">When there is no such case.</exception>
+    public async Task<ReviewCase> GetAsync(ClaimsPrincipal user, int id, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Read, "read cases");
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        return await db.CasesWithEverything().AsNoTracking().FirstOrDefaultAsync(c => c.Id == id, ct)
+            ?? throw new KeyNotFoundException($"There is no case with id {id}.");
+    }
+
+    /// <summary>Opens a case, or returns the existing one with the same candidate id (created = false).</summary>
+    /// <exception cref="ArgumentException">When a field is missing or invalid (message names it; nothing stored).</exception>
+    public async Task<(ReviewCase Case, bool Created)> OpenAsync(ClaimsPrincipal user, OpenCaseRequest request, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.OpenCases, "open cases");
+        if (string.IsNullOrWhiteSpace(request.CandidateId))
+        {
+            throw new ArgumentException("candidateId is required.", "candidateId");
+        }
+
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        var existing = await db.CasesWithEverything().AsNoTracking().FirstOrDefaultAsync(c => c.CandidateId == request.CandidateId.Trim(), ct);
+        if (existing is not null)
+        {
+            return (existing, false);
+        }
+
+        if (request.GpsTime is null)
+        {
+            throw new ArgumentException("gpsTime is required (GPS seconds).", "gpsTime");
+        }
+
+        var template = templates.Find(string.IsNullOrWhiteSpace(request.Checklist) ? "candidate-review" : request.Checklist.Trim())
+            ?? throw new ArgumentException($"checklist '{request.Checklist}' is not a known template (known: {string.Join(", ", templates.All.Select(t => t.Name))}).", "checklist");
+        var network = await db.Networks.Include(n => n.Sites).AsNoTracking().FirstOrDefaultAsync(ct);
+        var arrivals = new List<CaseArrival>();
+        var index = 0;
+        foreach (var a in request.Arrivals ?? [])
+        {
+            var field = $"arrivals[{index++}]";
+            if (string.IsNullOrWhiteSpace(a.Site))
+            {
+                throw new ArgumentException($"{field}.site is required.", field);
+            }
+
+            if (network?.Find(a.Site) is null)
+            {
+                throw new ArgumentException($"{field}.site: the network has no site '{a.Site}' (known: {string.Join(", ", network?.Sites.Select(s => s.Code) ?? [])}).", field);
+            }
+
+            if (a.GpsTime is null)
+            {
+                throw new ArgumentException($"{field}.gpsTime is required.", field);
+            }
+
+            arrivals.Add(new CaseArrival(a.Site, GpsTime.FromSeconds(a.GpsTime.Value), a.Snr ?? 0));
+        }
+
+        var c = ReviewCase.Open(request.CandidateId, GpsTime.FromSeconds(request.GpsTime.Value), request.Search ?? string.Empty,
+            request.Summary ?? string.Empty, arrivals, template, user.ToActor(), clock.GetUtcNow());
+        db.Cases.Add(c);
+        try
+        {
+            await db.SaveChangesAsync(ct);
+            return (c, true);
+        }
+        catch (DbUpdateException)
+        {
+            // Another request opened the same candidate at the same moment: return that one (idempotent).
+            await using var again = await dbFactory.CreateDbContextAsync(ct);
+            var winner = await again.CasesWithEverything().AsNoTracking().FirstOrDefaultAsync(x => x.CandidateId == c.CandidateId, ct);
+            return winner is not null ? (winner, false) : throw new ConflictException("The case could not be stored; try again.");
+        }
+    }
+
+    public Task<ReviewCase> AddNoteAsync(ClaimsPrincipal user, int caseId, string itemKey, string markdown, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.AddEvidence, "add evidence");
+        var actor = user.ToActor();
+        return MutateAsync(caseId, itemKey, null, (c, now) => c.AddEvidence(itemKey, EvidenceItem.Note(markdown, actor, now), actor, now), ct);
+    }
+
+    public Task<ReviewCase> AddLinkAsync(ClaimsPrincipal user, int caseId, string itemKey, string url, string title, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.AddEvidence, "add evidence");
+        var actor = user.ToActor();
+        return MutateAsync(caseId, itemKey, null, (c, now) => c.AddEvidence(itemKey, EvidenceItem.Link(url, title, actor, now), actor, now), ct);
+    }
+
+    /// <summary>Stores a file content-addressed and attaches it to the item.</summary>
+    /// <exception cref="AttachmentTooLargeException">When the file exceeds <paramref name="maxBytes"/>.</exception>
+    public async Task<ReviewCase> AddAttachmentAsync(ClaimsPrincipal user, int caseId, string itemKey, Stream content, string fileName, string contentType,
+        string description, long maxBytes, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.AddEvidence, "add evidence");
+        await EnsureItemExistsAsync(caseId, itemKey, ct);
+        var (sha, length) = await store.SaveAsync(content, maxBytes, ct);
+        var actor = user.ToActor();
+        return await MutateAsync(caseId, itemKey, null,
+            (c, now) => c.AddEvidence(itemKey, EvidenceItem.Attachment(fileName, contentType, length, sha, description, actor, now), actor, now), ct);
+    }
+
+    /// <summary>Attaches a computation record made by a built-in check.</summary>
+    public Task<ReviewCase> AddComputationAsync(ClaimsPrincipal user, int caseId, string itemKey, Func<DateTimeOffset, ComputationRecord> record, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Work, "run checks");
+        var actor = user.ToActor();
+        return MutateAsync(caseId, itemKey, null, (c, now) => c.AddComputation(itemKey, record(now), actor, now), ct);
+    }
+
+    public Task<ReviewCase> AssignAsync(ClaimsPrincipal user, int caseId, string itemKey, string? ownerId, string? ownerName, int expectedVersion, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Coordinate, "assign items");
+        var actor = user.ToActor();
+        return MutateAsync(caseId, itemKey, expectedVersion, (c, now) => c.AssignItem(itemKey, ownerId, ownerName, actor, now), ct);
+    }
+
+    public Task<ReviewCase> SetDueAsync(ClaimsPrincipal user, int caseId, string itemKey, DateOnly? due, int expectedVersion, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Coordinate, "set due dates");
+        var actor = user.ToActor();
+        return MutateAsync(caseId, itemKey, expectedVersion, (c, now) => c.SetItemDue(itemKey, due, actor, now), ct);
+    }
+
+    /// <summary>Item transitions: "start", "ready" or "withdraw".</summary>
+    public Task<ReviewCase> TransitionAsync(ClaimsPrincipal user, int caseId, string itemKey, string action, int? expectedVersion, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Work, "change item states");
+        var actor = user.ToActor();
+        Action<ReviewCase, DateTimeOffset> change = action switch
+        {
+            "start" => (c, now) => c.StartItem(itemKey, actor, now),
+            "ready" => (c, now) => c.MarkItemReady(itemKey, actor, now),
+            "withdraw" => (c, now) => c.WithdrawItem(itemKey, actor, now),
+            _ => throw new ArgumentException($"action '{action}' is not one of start, ready, withdraw.", nameof(action)),
+        };
+        return MutateAsync(caseId, itemKey, expectedVersion, change, ct);
+    }
+
+    /// <summary>Signs an item. The caller must have re-checked the signer's password.</summary>
+    public Task<ReviewCase> SignAsync(ClaimsPrincipal user, int caseId, string itemKey, SignOffMeaning meaning, string statement, string seenFingerprint, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Work, "sign items");
+        var actor = user.ToActor();
+        return MutateAsync(caseId, itemKey, null, (c, now) => c.SignItem(itemKey, actor, meaning, statement, seenFingerprint, now, GpsUtc.FromUtc(now.UtcDateTime)), ct);
+    }
+
+    public Task<ReviewCase> SubmitAsync(ClaimsPrincipal user, int caseId, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Coordinate, "submit cases for decision");
+        var actor = user.ToActor();
+        return MutateAsync(caseId, null, null, (c, now) => c.SubmitForDecision(actor, now), ct);
+    }
+
+    public Task<ReviewCase> ReturnAsync(ClaimsPrincipal user, int caseId, string reason, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Coordinate, "return cases to review");
+        var actor = user.ToActor();
+        return MutateAsync(caseId, null, null, (c, now) => c.ReturnToReview(reason, actor, now), ct);
+    }
+
+    public Task<ReviewCase> CloseAsync(ClaimsPrincipal user, int caseId, CaseOutcome outcome, string statement, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Coordinate, "close cases");
+        var actor = user.ToActor();
+        return MutateAsync(caseId, null, null, (c, now) => c.Close(outcome, statement, actor, now), ct);
+    }
+
+    private async Task EnsureItemExistsAsync(int caseId, string itemKey, CancellationToken ct)
+    {
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        if (!await db.Cases.AnyAsync(c => c.Id == caseId, ct))
+        {
+            throw new KeyNotFoundException($"There is no case with id {caseId}.");
+        }
+
+        if (!await db.Items.AnyAsync(i => i.ReviewCaseId == caseId && i.Key == itemKey, ct))
+        {
+            throw new KeyNotFoundException($"Case {caseId} has no checklist item '{itemKey}'.");
+        }
+    }
+
+    private async Task<ReviewCase> MutateAsync(int caseId, string? itemKey, int? expectedItemVersion, Action<ReviewCase, DateTimeOffset> change, CancellationToken ct)
+    {
+        for (var attempt = 1; ; attempt++)
+        {
+            await using var db = await dbFactory.CreateDbContextAsync(ct);
+            var c = await db.CasesWithEverything().FirstOrDefaultAsync(x => x.Id == caseId, ct)
+                ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
+            if (itemKey is not null)
+            {
+                var item = c.Item(itemKey);
+                if (expectedItemVersion is not null && item.Version != expectedItemVersion)
+                {
+                    var last = c.Activity.Where(a => a.ItemKey == itemKey).MaxBy(a => a.Sequence);
+                    throw new ConflictException($"Item '{itemKey}' was changed by {last?.ActorName ?? "someone else"} while you were editing it ({last?.Text}). Your change was not applied; the item has been reloaded — check it and apply your change again.");
+                }
+            }
+
+            change(c, clock.GetUtcNow());
+            try
+            {
+                await db.SaveChangesAsync(ct);
+                return c;
+            }
+            catch (DbUpdateException) when (attempt < MaxAttempts)
+            {
+                // Someone else changed the case in between (version token or timeline sequence): reload and re-apply.
+                await Task.Delay(Random.Shared.Next(5, 40) * attempt, ct);
+            }
+            catch (DbUpdateException)
+            {
+                throw new ConflictException("The case is being changed by others right now and your change could not be saved; nothing was applied. Try again.");
+            }
+        }
+    }
+}

@@ -1,0 +1,79 @@
+using EventReview.Data;
+using EventReview.Data.Auth;
+using EventReview.Web.Auth;
+using EventReview.Web.Demo;
+using EventReview.Web.Services;
+using Microsoft.AspNetCore.Authentication;
+using Microsoft.AspNetCore.Identity;
+using MudBlazor.Services;
+
+namespace EventReview.Web;
+
+public static class WebServiceCollectionExtensions
+{
+    /// <summary>Everything the web app needs: data, identity with cookie and token sign-in, services, UI.</summary>
+    public static IServiceCollection AddEventReviewWeb(this IServiceCollection services, IConfiguration configuration)
+    {
+        services.Configure<EventReviewOptions>(configuration.GetSection(EventReviewOptions.Section));
+        var options = configuration.GetSection(EventReviewOptions.Section).Get<EventReviewOptions>() ?? new EventReviewOptions();
+        var settings = DatabaseSettings.From(configuration["Database:Provider"], configuration.GetConnectionString("Default"), options.DataDirectory);
+        services.AddEventReviewData(settings);
+        services.AddSingleton(TimeProvider.System);
+
+        services.AddIdentityCore<AppUser>(DataServiceCollectionExtensions.ConfigureIdentity)
+            .AddRoles<IdentityRole>()
+            .AddEntityFrameworkStores<AppDbContext>()
+            .AddSignInManager()
+            .AddClaimsPrincipalFactory<AppClaimsFactory>()
+            .AddDefaultTokenProviders();
+
+        services.AddAuthentication(o =>
+            {
+                o.DefaultScheme = "smart";
+                o.DefaultChallengeScheme = "smart";
+            })
+            .AddPolicyScheme("smart", "cookie or token", o => o.ForwardDefaultSelector = ctx =>
+                ctx.Request.Headers.Authorization.ToString().StartsWith("Bearer ", StringComparison.OrdinalIgnoreCase)
+                    ? ApiTokenAuthenticationHandler.SchemeName
+                    : IdentityConstants.ApplicationScheme)
+            .AddScheme<AuthenticationSchemeOptions, ApiTokenAuthenticationHandler>(ApiTokenAuthenticationHandler.SchemeName, null)
+            .AddIdentityCookies();
+        services.ConfigureApplicationCookie(o =>
+        {
+            o.LoginPath = "/signin";
+            o.AccessDeniedPath = "/denied";
+            o.Cookie.Name = "eventreview.auth";
+            o.ExpireTimeSpan = TimeSpan.FromHours(12);
+            o.SlidingExpiration = true;
+            o.Events.OnRedirectToLogin = ctx => ApiAware(ctx, StatusCodes.Status401Unauthorized);
+            o.Events.OnRedirectToAccessDenied = ctx => ApiAware(ctx, StatusCodes.Status403Forbidden);
+        });
+        services.AddAuthorization(Policies.Configure);
+        services.AddCascadingAuthenticationState();
+
+        services.AddSingleton<TemplateCatalog>();
+        services.AddSingleton<MarkdownRenderer>();
+        services.AddScoped<CaseService>();
+        services.AddScoped<NetworkService>();
+        services.AddScoped<DemoSeeder>();
+
+        services.AddRazorComponents().AddInteractiveServerComponents();
+        services.AddMudServices();
+        services.AddOpenApi();
+        services.AddProblemDetails();
+        services.ConfigureHttpJsonOptions(o => o.SerializerOptions.NumberHandling = System.Text.Json.Serialization.JsonNumberHandling.Strict);
+        return services;
+    }
+
+    private static Task ApiAware(Microsoft.AspNetCore.Authentication.RedirectContext<Microsoft.AspNetCore.Authentication.Cookies.CookieAuthenticationOptions> ctx, int status)
+    {
+        if (ctx.Request.Path.StartsWithSegments("/api"))
+        {
+            ctx.Response.StatusCode = status;
+            return Task.CompletedTask;
+        }
+
+        ctx.Response.Redirect(ctx.RedirectUri);
+        return Task.CompletedTask;
+    }
+}
