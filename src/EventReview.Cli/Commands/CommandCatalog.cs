@@ -9,5 +9,8 @@ public static class CommandCatalog
     {
         yield return TimingCommand.Build();
         yield return TimeCommand.Build();
+        yield return UsersCommand.Build();
+        yield return TokensCommand.Build();
+        yield return CasesCommand.Build();
     }
 }

@@ -1,0 +1,44 @@
+using System.CommandLine;
+using EventReview.Data;
+using EventReview.Data.Auth;
+using Microsoft.Extensions.DependencyInjection;
+using Microsoft.Extensions.Logging;
+
+namespace EventReview.Cli;
+
+/// <summary>The options every database verb takes (<c>--data DIR</c>, or <c>--connection</c> with <c>--provider</c>) and the services they open.</summary>
+public sealed class DataOptions
+{
+    public Option<string> Data { get; } = new("--data") { Description = "Data folder (SQLite file eventreview.db and attachments). Default: ./data or EventReview__DataDirectory." };
+
+    public Option<string> Connection { get; } = new("--connection") { Description = "Connection string (instead of --data), e.g. a PostgreSQL server." };
+
+    public Option<string> Provider { get; } = new("--provider") { Description = "Sqlite (default) or Postgres, for --connection." };
+
+    public Option<bool> Json { get; } = new("--json") { Description = "Write the result as camelCase JSON." };
+
+    public void AddTo(Command command)
+    {
+        command.Options.Add(Data);
+        command.Options.Add(Connection);
+        command.Options.Add(Provider);
+        command.Options.Add(Json);
+    }
+
+    /// <summary>Opens the database (applying migrations) and returns a service provider for it.</summary>
+    public async Task<ServiceProvider> OpenAsync(ParseResult parse)
+    {
+        var data = parse.GetValue(Data) ?? Environment.GetEnvironmentVariable("EventReview__DataDirectory") ?? "./data";
+        var settings = DatabaseSettings.From(parse.GetValue(Provider), parse.GetValue(Connection), data);
+        var services = new ServiceCollection();
+        services.AddLogging(b => b.SetMinimumLevel(LogLevel.Warning));
+        services.AddSingleton(TimeProvider.System);
+        services.AddEventReviewData(settings);
+        services.AddEventReviewIdentityCore();
+        var provider = services.BuildServiceProvider();
+        await DatabaseInitializer.MigrateAsync(provider.GetRequiredService<AppDbContextFactory>());
+        await using var scope = provider.CreateAsyncScope();
+        await scope.ServiceProvider.GetRequiredService<AccountAdmin>().EnsureRolesAsync();
+        return provider;
+    }
+}
