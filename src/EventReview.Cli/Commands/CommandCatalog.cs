@@ -7,6 +7,10 @@ public static class CommandCatalog
 {
     public static IEnumerable<Command> All()
     {
-        yield break;
+        yield return EnvironmentCommand.Build();
+        yield return SafetyCommand.Build();
+        yield return SealCommand.Build();
+        yield return UnsealCommand.Build();
+        yield return ChainCommand.Build();
     }
 }
