@@ -13,6 +13,10 @@ namespace EventReview.Core.Chain;
 /// <param name="PrewarpHz">Pre-warp frequency used, Hz, or null for none.</param>
 /// <param name="DelaySeconds">Pure delay applied, seconds.</param>
 /// <param name="Verdict">"something added" or "nothing added".</param>
+/// <param name="SamplesTested">Number of samples whose excursion was tested (record minus the skipped ends).</param>
+/// <param name="NoiseFalseAlarmProbability">Probability that Gaussian noise alone crosses the threshold somewhere in the tested
+/// samples: 1 - (1 - 2 Q(N))^samples, Q the one-sided normal tail (the threshold is applied per sample, so long records
+/// carry a trials factor).</param>
 public sealed record ChainStageResult(
     int Stage,
     double ResidualRms,
@@ -25,4 +29,6 @@ public sealed record ChainStageResult(
     double SkippedEndSeconds,
     double? PrewarpHz,
     double DelaySeconds,
-    string Verdict);
+    string Verdict,
+    int SamplesTested,
+    double NoiseFalseAlarmProbability);

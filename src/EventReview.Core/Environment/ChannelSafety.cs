@@ -10,4 +10,5 @@ namespace EventReview.Core.Environment;
 /// <param name="Safe">False when <paramref name="Probability"/> is below the threshold (the channel responds to injections),
 /// true otherwise, null when the site had no performed injection to test with.</param>
 /// <param name="RateHz">Channel trigger rate used, triggers per second.</param>
-public sealed record ChannelSafety(string Site, string Channel, int Injections, int Coincident, double Expected, double Probability, bool? Safe, double RateHz);
+/// <param name="Note">Why the channel could not be tested, or null.</param>
+public sealed record ChannelSafety(string Site, string Channel, int Injections, int Coincident, double Expected, double Probability, bool? Safe, double RateHz, string? Note = null);

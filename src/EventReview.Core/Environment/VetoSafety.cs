@@ -45,12 +45,20 @@ public static class VetoSafety
             foreach (var channel in siteGroup.GroupBy(t => t.Channel).OrderBy(g => g.Key, StringComparer.Ordinal))
             {
                 var times = channel.Select(t => t.Time).Order().ToArray();
-                var rate = liveTime > 0 ? times.Length / liveTime : 0.0;
                 var coincident = performed.Count(inj => AnyWithin(times, inj.Start.AddSeconds(-w), inj.End.AddSeconds(w)));
+                if (!(liveTime > 0))
+                {
+                    results.Add(new ChannelSafety(siteGroup.Key, channel.Key, performed.Count, coincident, 0, 1, null, 0,
+                        "rate unknown: the site's triggers span no time; give the live time"));
+                    continue;
+                }
+
+                var rate = times.Length / liveTime;
                 var expected = rate * performed.Sum(inj => (2 * w) + inj.DurationSeconds);
                 var probability = Poisson.AtLeast(coincident, expected);
                 bool? safe = performed.Count == 0 ? null : probability >= options.ProbabilityThreshold;
-                results.Add(new ChannelSafety(siteGroup.Key, channel.Key, performed.Count, coincident, expected, probability, safe, rate));
+                var note = performed.Count == 0 ? "no performed injection at this site" : null;
+                results.Add(new ChannelSafety(siteGroup.Key, channel.Key, performed.Count, coincident, expected, probability, safe, rate, note));
             }
         }
 

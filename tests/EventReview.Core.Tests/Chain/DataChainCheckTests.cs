@@ -51,6 +51,9 @@ public class DataChainCheckTests
         Assert.Equal(1.0, s.RobustSigma / NoiseSigma, 0.05);
         Assert.Equal(1.0, s.ResidualRms / s.OffSourceRms, 0.2);
         Assert.True(s.SkippedStartSeconds > 0.1 && s.SkippedStartSeconds < 1);
+        Assert.Equal(N - (2 * (int)Math.Round(s.SkippedStartSeconds * Fs)), s.SamplesTested);
+        // Q(5) = 2.86651571879e-7, Abramowitz & Stegun table 26.1 (from memory): 1 - (1 - 2 Q)^n
+        Assert.Equal(1 - Math.Pow(1 - (2 * 2.86651571879e-7), s.SamplesTested), s.NoiseFalseAlarmProbability, 1e-9);
     }
 
     [Fact]

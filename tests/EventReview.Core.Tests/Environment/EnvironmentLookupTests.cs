@@ -153,4 +153,25 @@ public class EnvironmentLookupTests
         Assert.Equal(1.0, c.Probability);
         Assert.True(c.Safe);
     }
+
+    [Fact]
+    public void Veto_safety_leaves_a_channel_untested_when_its_rate_cannot_be_measured()
+    {
+        var t0 = GpsTime.FromSeconds(1000m);
+        var triggers = new[] { new AuxiliaryTrigger("K1", "C", t0, 5, null, null) };
+        var injections = new[] { new InjectionRecord("K1", t0, t0, "b", "w", InjectionStatus.Performed) };
+        var c = Assert.Single(VetoSafety.Evaluate(triggers, injections).Channels);
+        Assert.Equal(1, c.Coincident);
+        Assert.Null(c.Safe);
+        Assert.Contains("live time", c.Note);
+    }
+
+    [Fact]
+    public void Hits_outside_the_observing_segments_are_reported_as_warnings()
+    {
+        var triggers = new[] { Trig("K1", "SEIS_X", 0.2) };
+        var observing = new[] { new DataQualitySegment("K1", "OBSERVING", Case.AddSeconds(-100), Case.AddSeconds(0.1), null) };
+        var input = new EnvironmentLookupInput(Case, new Dictionary<string, GpsTime>(), ["K1"], [], triggers, Sensors, ObservingSegments: observing);
+        Assert.Contains(EnvironmentLookup.Run(input).Warnings, w => w.Contains("outside every observing segment"));
+    }
 }
