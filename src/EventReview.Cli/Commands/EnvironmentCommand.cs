@@ -16,13 +16,14 @@ public static class EnvironmentCommand
         var triggers = new Option<string>("--triggers") { Description = "Triggers CSV: site,channel,gps_time,snr[,frequency_hz,duration_s].", Required = true };
         var inventory = new Option<string?>("--inventory") { Description = "Sensor inventory CSV: site,channel,kind,location[,coupling_file]." };
         var injections = new Option<string?>("--injections") { Description = "Injection log CSV; used to mark channels that respond to injections as unsafe." };
+        var observing = new Option<string?>("--observing") { Description = "Observing (analysable data) segments CSV, same columns as --segments; hits outside them are reported." };
         var sites = new Option<string?>("--sites") { Description = "Comma-separated known site codes; rows naming other sites are rejected." };
         var window = new Option<double>("--window-s") { Description = "Half window around each arrival, seconds.", DefaultValueFactory = _ => 1.0 };
         var rateWindow = new Option<double>("--rate-window-s") { Description = "Window for channel trigger rates, seconds.", DefaultValueFactory = _ => 3600.0 };
         var lightTravel = new Option<double>("--light-travel-s") { Description = "Cross-site coincidence window, seconds.", DefaultValueFactory = _ => 0.01 };
         var json = new Option<bool>("--json") { Description = "Write the result as JSON." };
         var command = new Command("environment", "Look up environmental and auxiliary triggers and data-quality segments around a candidate.");
-        foreach (var o in new Option[] { caseGps, arrival, segments, triggers, inventory, injections, sites, window, rateWindow, lightTravel, json })
+        foreach (var o in new Option[] { caseGps, arrival, segments, triggers, inventory, injections, observing, sites, window, rateWindow, lightTravel, json })
         {
             command.Options.Add(o);
         }
@@ -43,8 +44,9 @@ public static class EnvironmentCommand
                 safety = VetoSafety.Evaluate(trig, log, new VetoSafetyOptions(WindowSeconds: w));
             }
 
+            var obs = parse.GetValue(observing) is { } op ? LocalCausesInput.Read(op, "--observing", r => DataQualitySegmentCsv.Parse(r, known)).Segments : null;
             var siteList = (known ?? []).Concat(seg.Segments.Select(x => x.Site)).Concat(trig.Select(x => x.Site)).Distinct().ToList();
-            var input = new EnvironmentLookupInput(t0, arrivals, siteList, seg.Segments, trig, sensors, safety);
+            var input = new EnvironmentLookupInput(t0, arrivals, siteList, seg.Segments, trig, sensors, safety, ObservingSegments: obs);
             var report = EnvironmentLookup.Run(input, new EnvironmentLookupOptions(w, null, parse.GetValue(rateWindow), parse.GetValue(lightTravel)));
             if (parse.GetValue(json))
             {

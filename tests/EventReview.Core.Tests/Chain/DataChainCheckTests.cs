@@ -70,6 +70,18 @@ public class DataChainCheckTests
     }
 
     [Fact]
+    public void Stage_picture_is_well_formed_svg_with_three_traces_and_the_caption()
+    {
+        var (input, output, _) = Simulate(seed: 11, burstAmplitudeSigma: 12);
+        var (report, traces) = DataChainCheck.RunWithTraces(input, [output], [Stage], Start.AddSeconds(10));
+        var svg = DataChainSvg.Render(traces[0], report.Stages[0], report.CenterGps, report.SigmaThreshold);
+        var doc = System.Xml.Linq.XDocument.Parse(svg);
+        Assert.Equal(3, doc.Descendants("{http://www.w3.org/2000/svg}polyline").Count());
+        Assert.Contains("something added", svg);
+        Assert.Equal(N, traces[0].Residual.Length);
+    }
+
+    [Fact]
     public void In_a_chain_only_the_stage_that_added_something_is_flagged()
     {
         var (input, output1, _) = Simulate(seed: 3, burstAmplitudeSigma: 0);
