@@ -15,7 +15,7 @@ public static class EnvironmentCommand
         var segments = new Option<string>("--segments") { Description = "Data-quality segments CSV: site,flag,start_gps,end_gps[,comment].", Required = true };
         var triggers = new Option<string>("--triggers") { Description = "Triggers CSV: site,channel,gps_time,snr[,frequency_hz,duration_s].", Required = true };
         var inventory = new Option<string?>("--inventory") { Description = "Sensor inventory CSV: site,channel,kind,location[,coupling_file]." };
-        var injections = new Option<string?>("--injections") { Description = "Injection log CSV; used to mark channels that respond to injections as unsafe." };
+        var injections = new Option<string?>("--injections") { Description = "Injection log CSV; channels that respond to performed injections (coincidence within --window-s) are marked unsafe." };
         var observing = new Option<string?>("--observing") { Description = "Observing (analysable data) segments CSV, same columns as --segments; hits outside them are reported." };
         var sites = new Option<string?>("--sites") { Description = "Comma-separated known site codes; rows naming other sites are rejected." };
         var window = new Option<double>("--window-s") { Description = "Half window around each arrival, seconds.", DefaultValueFactory = _ => 1.0 };
