@@ -12,5 +12,10 @@ public static class CommandCatalog
         yield return UsersCommand.Build();
         yield return TokensCommand.Build();
         yield return CasesCommand.Build();
+        yield return EnvironmentCommand.Build();
+        yield return SafetyCommand.Build();
+        yield return SealCommand.Build();
+        yield return UnsealCommand.Build();
+        yield return ChainCommand.Build();
     }
 }

@@ -1,0 +1,87 @@
+using MathNet.Numerics;
+
+namespace EventReview.Core.Statistics;
+
+/// <summary>Poisson counting probabilities used by the coincidence and veto-safety checks.</summary>
+public static class Poisson
+{
+    /// <summary>
+    /// P(N &gt;= k) for N ~ Poisson(mean). Computed as the regularised lower incomplete gamma function P(k, mean)
+    /// (Abramowitz and Stegun 6.5.1 and 26.4.21), which stays accurate in the far tail where 1 - CDF would cancel.
+    /// Returns 1 for k &lt;= 0 and 0 for k &gt; 0 when the mean is 0.
+    /// </summary>
+    /// <param name="k">Threshold count.</param>
+    /// <param name="mean">Expected count, finite and &gt;= 0.</param>
+    public static double AtLeast(int k, double mean)
+    {
+        if (!double.IsFinite(mean) || mean < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(mean), mean, "Poisson mean must be finite and >= 0.");
+        }
+
+        if (k <= 0)
+        {
+            return 1.0;
+        }
+
+        if (mean == 0)
+        {
+            return 0.0;
+        }
+
+        return Math.Clamp(SpecialFunctions.GammaLowerRegularized(k, mean), 0.0, 1.0);
+    }
+
+    /// <summary>
+    /// Probability that at least one event of a Poisson stream of rate <paramref name="rateHz"/> falls inside a window
+    /// of +-<paramref name="halfWindowSeconds"/>: 1 - exp(-2 w R), computed with expm1 so tiny values keep their digits.
+    /// </summary>
+    public static double ChanceCoincidence(double halfWindowSeconds, double rateHz)
+    {
+        if (!double.IsFinite(halfWindowSeconds) || halfWindowSeconds < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(halfWindowSeconds), halfWindowSeconds, "Half window must be finite and >= 0 s.");
+        }
+
+        if (!double.IsFinite(rateHz) || rateHz < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(rateHz), rateHz, "Rate must be finite and >= 0 Hz.");
+        }
+
+        return -ExpM1(-2.0 * halfWindowSeconds * rateHz);
+    }
+
+    /// <summary>
+    /// Rate of accidental coincidences between two independent Poisson streams of rates R1, R2 (Hz) with a
+    /// coincidence window of +-tau seconds: 2 tau R1 R2 (Knoll, "Radiation Detection and Measurement", coincidence chapter).
+    /// Valid when 2 tau R2 &lt;&lt; 1; the exact event form is R1 (1 - exp(-2 tau R2)).
+    /// </summary>
+    public static double AccidentalRateHz(double tauSeconds, double rate1Hz, double rate2Hz)
+    {
+        if (!double.IsFinite(tauSeconds) || tauSeconds < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(tauSeconds), tauSeconds, "Coincidence half window must be finite and >= 0 s.");
+        }
+
+        if (!double.IsFinite(rate1Hz) || rate1Hz < 0 || !double.IsFinite(rate2Hz) || rate2Hz < 0)
+        {
+            throw new ArgumentOutOfRangeException(nameof(rate1Hz), rate1Hz, "Rates must be finite and >= 0 Hz.");
+        }
+
+        return 2.0 * tauSeconds * rate1Hz * rate2Hz;
+    }
+
+    // exp(x) - 1 without cancellation near 0 (Kahan's trick, as in Higham, "Accuracy and Stability of Numerical Algorithms", 1.14.1);
+    // double.ExpM1 is evaluated as Exp(x) - 1 and loses the digits of small arguments.
+    private static double ExpM1(double x)
+    {
+        var u = Math.Exp(x);
+        if (u == 1.0)
+        {
+            return x;
+        }
+
+        var um1 = u - 1.0;
+        return um1 == -1.0 ? -1.0 : um1 * x / Math.Log(u);
+    }
+}

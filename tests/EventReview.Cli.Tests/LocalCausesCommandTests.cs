@@ -1,0 +1,139 @@
+using System.Globalization;
+using System.Text;
+using System.Text.Json;
+using EventReview.Cli.Commands;
+
+namespace EventReview.Cli.Tests;
+
+[Collection("Console")]
+public class LocalCausesCommandTests
+{
+    private static readonly string Segments = CliRunner.TempFile("site,flag,start_gps,end_gps\nK1,WIND,1000000000,1000000000.5\n");
+    private static readonly string Triggers = CliRunner.TempFile("site,channel,gps_time,snr\nK1,SEIS_X,1000000000.3,12\nK1,SEIS_X,1000000900,5\nM2,MAG_Z,1000000050,9\n");
+    private static readonly string Injections = CliRunner.TempFile("site,start_gps,end_gps,kind,waveform_ref,status\nK1,1000000500,1000000500.1,burst,w1,performed\n");
+
+    [Fact]
+    public void Environment_json_has_hits_segments_and_verdict()
+    {
+        var (exit, output, _) = CliRunner.Run(EnvironmentCommand.Build(), "environment", "--case-gps", "1000000000", "--arrival", "K1=1000000000.1",
+            "--segments", Segments, "--triggers", Triggers, "--injections", Injections, "--json");
+        Assert.Equal(0, exit);
+        using var doc = JsonDocument.Parse(output);
+        var hit = Assert.Single(doc.RootElement.GetProperty("hits").EnumerateArray());
+        Assert.Equal("K1", hit.GetProperty("site").GetString());
+        Assert.Equal("SEIS_X", hit.GetProperty("channel").GetString());
+        Assert.Equal("other", hit.GetProperty("kind").GetString());
+        Assert.Equal(0.2, hit.GetProperty("offsetSeconds").GetDouble(), 1e-9);
+        Assert.Equal(12, hit.GetProperty("snr").GetDouble());
+        Assert.True(hit.GetProperty("chanceProbability").GetDouble() > 0);
+        Assert.Equal(JsonValueKind.True, hit.GetProperty("safe").ValueKind);
+        var seg = Assert.Single(doc.RootElement.GetProperty("segments").EnumerateArray());
+        Assert.Equal("WIND", seg.GetProperty("flag").GetString());
+        Assert.Equal(1000000000.5, seg.GetProperty("endGps").GetDouble());
+        Assert.Equal("concern", doc.RootElement.GetProperty("verdict").GetString());
+    }
+
+    [Fact]
+    public void Environment_rejects_a_bad_segment_with_exit_2_and_one_line_naming_it()
+    {
+        var bad = CliRunner.TempFile("site,flag,start_gps,end_gps\nK1,WIND,1000000001,1000000000\n");
+        var (exit, _, err) = CliRunner.Run(EnvironmentCommand.Build(), "environment", "--case-gps", "1000000000", "--segments", bad, "--triggers", Triggers, "--json");
+        Assert.Equal(2, exit);
+        Assert.Single(err.Trim().Split('\n'));
+        Assert.Contains("line 2", err);
+        Assert.Contains("end_gps", err);
+    }
+
+    [Fact]
+    public void Safety_json_lists_channels_with_counts_and_flags()
+    {
+        var (exit, output, _) = CliRunner.Run(SafetyCommand.Build(), "safety", "--triggers", Triggers, "--injections", Injections, "--window-s", "1", "--json");
+        Assert.Equal(0, exit);
+        using var doc = JsonDocument.Parse(output);
+        var channels = doc.RootElement.GetProperty("channels").EnumerateArray().ToList();
+        Assert.Equal(2, channels.Count);
+        var k1 = channels.Single(c => c.GetProperty("site").GetString() == "K1");
+        Assert.Equal("SEIS_X", k1.GetProperty("channel").GetString());
+        Assert.Equal(0, k1.GetProperty("coincident").GetInt32());
+        Assert.True(k1.GetProperty("expected").GetDouble() > 0);
+        Assert.Equal(1.0, k1.GetProperty("probability").GetDouble());
+        Assert.True(k1.GetProperty("safe").GetBoolean());
+        Assert.Equal(JsonValueKind.Null, channels.Single(c => c.GetProperty("site").GetString() == "M2").GetProperty("safe").ValueKind);
+    }
+
+    [Fact]
+    public void Seal_then_unseal_is_valid_and_an_altered_record_is_not()
+    {
+        var record = CliRunner.TempFile("site,start_gps,end_gps,kind,waveform_ref,status\nK1,1000000000,1000000001,cbc,blind.txt,performed\n");
+        var (exit, output, _) = CliRunner.Run(SealCommand.Build(), "seal", "--record", record, "--json");
+        Assert.Equal(0, exit);
+        using var doc = JsonDocument.Parse(output);
+        var commitment = doc.RootElement.GetProperty("commitment").GetString()!;
+        var salt = doc.RootElement.GetProperty("salt").GetString()!;
+        Assert.Matches("^[0-9a-f]{64}$", commitment);
+        Assert.Matches("^[0-9a-f]{64}$", salt);
+
+        var ok = CliRunner.Run(UnsealCommand.Build(), "unseal", "--commitment", commitment, "--record", record, "--salt", salt);
+        Assert.Equal(0, ok.Exit);
+        Assert.Equal("valid", ok.Out.Trim());
+
+        File.AppendAllText(record, " ");
+        var bad = CliRunner.Run(UnsealCommand.Build(), "unseal", "--commitment", commitment, "--record", record, "--salt", salt, "--json");
+        Assert.Equal(1, bad.Exit);
+        using var badDoc = JsonDocument.Parse(bad.Out);
+        Assert.False(badDoc.RootElement.GetProperty("valid").GetBoolean());
+
+        var badSalt = CliRunner.Run(UnsealCommand.Build(), "unseal", "--commitment", commitment, "--record", record, "--salt", "not-hex");
+        Assert.Equal(2, badSalt.Exit);
+    }
+
+    [Fact]
+    public void Unseal_matches_the_documented_commitment_of_salt_then_file()
+    {
+        // FIPS 180-2 example (from memory): SHA-256("abc"); salt 0x61 ("a"), file "bc".
+        var record = CliRunner.TempFile("bc", ".txt");
+        var (exit, output, _) = CliRunner.Run(UnsealCommand.Build(), "unseal", "--commitment",
+            "ba7816bf8f01cfea414140de5dae2223b00361a396177a9cb410ff61f20015ad", "--record", record, "--salt", "61", "--json");
+        Assert.Equal(0, exit);
+        Assert.Contains("\"valid\": true", output);
+    }
+
+    [Fact]
+    public void Chain_json_lists_each_stage_with_residuals_and_verdict()
+    {
+        const double fs = 256;
+        var x = new StringBuilder("# gps value\n");
+        var y = new StringBuilder();
+        var random = new Random(1);
+        double state = 0;
+        var a = Math.Exp(-2 * Math.PI * 20 / fs);
+        for (var i = 0; i < 16 * 256; i++)
+        {
+            var t = i / fs;
+            var input = Math.Sin(2 * Math.PI * 3 * t) + (0.5 * Math.Sin(2 * Math.PI * 11 * t));
+            state = (a * state) + ((1 - a) * input); // an unrelated one-pole smoother: the model will not match it exactly
+            var gps = (1000000000m + (i / (decimal)fs)).ToString(CultureInfo.InvariantCulture);
+            x.Append(CultureInfo.InvariantCulture, $"{gps} {input:R}\n");
+            y.Append(CultureInfo.InvariantCulture, $"{gps} {state + (1e-3 * (random.NextDouble() - 0.5)):R}\n");
+        }
+
+        var inPath = CliRunner.TempFile(x.ToString(), ".txt");
+        var outPath = CliRunner.TempFile(y.ToString(), ".txt");
+        var model = CliRunner.TempFile("""{"stages": [{"zerosHz": [], "polesHz": [[-20, 0]], "gain": 125.66370614359172, "delaySeconds": 0, "prewarpHz": null}]}""", ".json");
+        var (exit, output, err) = CliRunner.Run(ChainCommand.Build(), "chain", "--input", inPath, "--output", outPath, "--zpk", model, "--center", "1000000008", "--json");
+        Assert.True(exit == 0, err);
+        using var doc = JsonDocument.Parse(output);
+        var stage = Assert.Single(doc.RootElement.GetProperty("stages").EnumerateArray());
+        foreach (var name in new[] { "residualRms", "offSourceRms", "maxExcessSigma", "maxExcessGps" })
+        {
+            Assert.Equal(JsonValueKind.Number, stage.GetProperty(name).ValueKind);
+        }
+
+        Assert.Contains(stage.GetProperty("added").ValueKind, new[] { JsonValueKind.True, JsonValueKind.False });
+
+        var unstable = CliRunner.TempFile("""{"stages": [{"polesHz": [[5, 0]], "gain": 1}]}""", ".json");
+        var bad = CliRunner.Run(ChainCommand.Build(), "chain", "--input", inPath, "--output", outPath, "--zpk", unstable, "--center", "1000000008");
+        Assert.Equal(2, bad.Exit);
+        Assert.Contains("unstable", bad.Err);
+    }
+}

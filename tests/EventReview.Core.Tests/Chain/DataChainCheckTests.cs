@@ -1,0 +1,174 @@
+using System.Numerics;
+using EventReview.Core.Chain;
+using EventReview.Core.Signal;
+using EventReview.Core.Signal.Filters;
+using EventReview.Core.Time;
+
+namespace EventReview.Core.Tests.Chain;
+
+public class DataChainCheckTests
+{
+    private const double Fs = 1024;
+    private const int N = 16 * 1024;
+    private static readonly GpsTime Start = GpsTime.FromSeconds(1_000_000_000m);
+    private static readonly double[] Freqs = [13.7, 41.3, 87.1, 150.9];
+
+    // Invented stage: a resonant pair at 30 +- 40i Hz, a real pole at 200 Hz, a zero at 5 Hz, 1.26-sample delay.
+    private static readonly ChainStageModel Stage = new(
+        [new Complex(-5, 0)],
+        [new Complex(-30, 40), new Complex(-30, -40), new Complex(-200, 0)],
+        Gain: 5e5,
+        DelaySeconds: 1.26 / Fs);
+
+    [Fact]
+    public void Stage_discretisation_reproduces_the_bilinear_check_values()
+    {
+        // H(s) = wc / (s + wc), wc = 2 pi 10 rad/s: pole at -10 Hz, gain wc; prewarpHz 0 = no pre-warp.
+        var model = new ChainStageModel([], [new Complex(-10, 0)], 2 * Math.PI * 10, 0, PrewarpHz: 0);
+        var d = DataChainCheck.Discretise(model, 100);
+        // ref (scipy.signal.bilinear_zpk), CHECKS.md bilinear row
+        Assert.Equal(-1.0, Assert.Single(d.Zeros).Real, 12);
+        Assert.Equal(0.521885552779, Assert.Single(d.Poles).Real, 12);
+        Assert.Equal(0.239057223611, d.Gain, 12);
+        Assert.Equal(0.6951024153, FrequencyResponse.Magnitude(d, 10, 100), 10);
+
+        // Default pre-warp: the geometric mean of the root magnitudes, 10 Hz, where the digital response equals the analogue 1/sqrt(2).
+        var warped = model with { PrewarpHz = null };
+        Assert.Equal(10, warped.EffectivePrewarpHz(100)!.Value, 12);
+        Assert.Equal(1 / Math.Sqrt(2), FrequencyResponse.Magnitude(DataChainCheck.Discretise(warped, 100), 10, 100), 12);
+    }
+
+    [Fact]
+    public void A_simulated_stage_with_nothing_added_passes()
+    {
+        var (input, output, _) = Simulate(seed: 11, burstAmplitudeSigma: 0);
+        var report = DataChainCheck.Run(input, [output], [Stage], Start.AddSeconds(10));
+        var s = Assert.Single(report.Stages);
+        Assert.False(s.Added);
+        Assert.Equal("nothing added", report.Verdict);
+        Assert.InRange(s.MaxExcessSigma, 2, 5);
+        // Residual is the measurement noise: robust sigma within 5 % of it (statistical).
+        Assert.Equal(1.0, s.RobustSigma / NoiseSigma, 0.05);
+        Assert.Equal(1.0, s.ResidualRms / s.OffSourceRms, 0.2);
+        Assert.True(s.SkippedStartSeconds > 0.1 && s.SkippedStartSeconds < 1);
+        Assert.Equal(N - (2 * (int)Math.Round(s.SkippedStartSeconds * Fs)), s.SamplesTested);
+        // Q(5) = 2.86651571879e-7, Abramowitz & Stegun table 26.1 (from memory): 1 - (1 - 2 Q)^n
+        Assert.Equal(1 - Math.Pow(1 - (2 * 2.86651571879e-7), s.SamplesTested), s.NoiseFalseAlarmProbability, 1e-9);
+    }
+
+    [Fact]
+    public void A_small_added_chirp_is_caught_at_the_right_time()
+    {
+        var (input, output, burstGps) = Simulate(seed: 11, burstAmplitudeSigma: 12);
+        var report = DataChainCheck.Run(input, [output], [Stage], Start.AddSeconds(10), new DataChainOptions(WindowSeconds: 0.5));
+        var s = Assert.Single(report.Stages);
+        Assert.True(s.Added);
+        Assert.Equal("something added", s.Verdict);
+        Assert.InRange(s.MaxExcessSigma, 8, 14);
+        Assert.InRange(s.MaxExcessGps, burstGps - 0.05, burstGps + 0.05);
+        Assert.True(s.ResidualRms > 1.5 * s.OffSourceRms);
+    }
+
+    [Fact]
+    public void Stage_picture_is_well_formed_svg_with_three_traces_and_the_caption()
+    {
+        var (input, output, _) = Simulate(seed: 11, burstAmplitudeSigma: 12);
+        var (report, traces) = DataChainCheck.RunWithTraces(input, [output], [Stage], Start.AddSeconds(10));
+        var svg = DataChainSvg.Render(traces[0], report.Stages[0], report.CenterGps, report.SigmaThreshold);
+        var doc = System.Xml.Linq.XDocument.Parse(svg);
+        Assert.Equal(3, doc.Descendants("{http://www.w3.org/2000/svg}polyline").Count());
+        Assert.Contains("something added", svg);
+        Assert.Equal(N, traces[0].Residual.Length);
+    }
+
+    [Fact]
+    public void In_a_chain_only_the_stage_that_added_something_is_flagged()
+    {
+        var (input, output1, _) = Simulate(seed: 3, burstAmplitudeSigma: 0);
+        var stage2 = new ChainStageModel([], [new Complex(-100, 0)], 2 * Math.PI * 100, DelaySeconds: 3 / Fs);
+        var d2 = SecondOrderSections.FromZpk(DataChainCheck.Discretise(stage2, Fs));
+        var filtered = SosFilter.Apply(d2, output1.Samples);
+        var random = new Random(5);
+        var y2 = new double[N];
+        for (var i = 0; i < N; i++)
+        {
+            var t = i / Fs;
+            y2[i] = (i >= 3 ? filtered[i - 3] : 0) + (1e-4 * Gauss(random)) + (2e-3 * Chirp(t - 12.0));
+        }
+
+        var report = DataChainCheck.Run(input, [output1, new TimeSeries(Start, Fs, y2)], [Stage, stage2], Start.AddSeconds(12));
+        Assert.Equal(2, report.Stages.Count);
+        Assert.False(report.Stages[0].Added);
+        Assert.True(report.Stages[1].Added);
+        Assert.InRange(report.Stages[1].MaxExcessGps, Start.Seconds + 11.95, Start.Seconds + 12.05);
+        Assert.Equal("something added", report.Verdict);
+    }
+
+    [Fact]
+    public void Model_file_with_an_unstable_pole_is_rejected_with_a_clear_message()
+    {
+        const string json = """{"stages": [{"zerosHz": [], "polesHz": [[-10, 0]], "gain": 1}, {"polesHz": [[0.5, 3], [0.5, -3]], "gain": 2}]}""";
+        var ex = Assert.Throws<FormatException>(() => ChainModelJson.Parse(json));
+        Assert.Contains("stage 2: pole 1", ex.Message);
+        Assert.Contains("unstable", ex.Message);
+        Assert.Throws<FormatException>(() => ChainModelJson.Parse("""{"stages": [{"polesHz": [[-1, 2]], "gain": 1}]}""")); // unpaired
+        Assert.Throws<FormatException>(() => ChainModelJson.Parse("""{"stages": [{"polesHz": [[-1]], "gain": 1}]}"""));
+        Assert.Throws<FormatException>(() => ChainModelJson.Parse("""{"stages": [{"polesHz": [[-1, 0]]}]}"""));
+        Assert.Throws<FormatException>(() => ChainModelJson.Parse("not json"));
+    }
+
+    [Fact]
+    public void Model_file_reads_roots_gain_delay_and_prewarp()
+    {
+        const string json = """{"stages": [{"zerosHz": [[-5, 0]], "polesHz": [[-30, 40], [-30, -40]], "gain": 3.5, "delaySeconds": 0.001, "prewarpHz": 50}]}""";
+        var s = Assert.Single(ChainModelJson.Parse(json));
+        Assert.Equal(new Complex(-30, -40), s.PolesHz[1]);
+        Assert.Equal(3.5, s.Gain);
+        Assert.Equal(0.001, s.DelaySeconds);
+        Assert.Equal(50, s.PrewarpHz);
+    }
+
+    [Fact]
+    public void Fractional_delay_shifts_a_slow_sine_by_the_right_time()
+    {
+        var x = Enumerable.Range(0, 512).Select(i => Math.Sin(2 * Math.PI * 0.05 * i)).ToArray();
+        var y = FractionalDelay.Apply(x, 2.3);
+        for (var i = 40; i < 470; i++)
+        {
+            Assert.Equal(Math.Sin(2 * Math.PI * 0.05 * (i - 2.3)), y[i], 1e-4); // identity: y[n] = x(n - d)
+        }
+    }
+
+    private const double NoiseSigma = 1e-3;
+
+    // Recorded output = exact steady-state response of the digital stage to each input sine (|H| and arg H from the
+    // ZPK, the delay as a phase), computed independently of the filtering code, plus white measurement noise.
+    private static (TimeSeries Input, TimeSeries Output, double BurstGps) Simulate(int seed, double burstAmplitudeSigma)
+    {
+        var digital = DataChainCheck.Discretise(Stage, Fs);
+        var scale = Freqs.Select(f => FrequencyResponse.Digital(digital, f, Fs).Magnitude).Max();
+        var random = new Random(seed);
+        var x = new double[N];
+        var y = new double[N];
+        const double burstAt = 10.2;
+        for (var i = 0; i < N; i++)
+        {
+            var t = i / Fs;
+            foreach (var f in Freqs)
+            {
+                var h = FrequencyResponse.Digital(digital, f, Fs) / scale;
+                x[i] += Math.Sin(2 * Math.PI * f * t) / scale;
+                y[i] += h.Magnitude * Math.Sin((2 * Math.PI * f * (t - Stage.DelaySeconds)) + h.Phase);
+            }
+
+            y[i] += (NoiseSigma * Gauss(random)) + (burstAmplitudeSigma * NoiseSigma * Chirp(t - burstAt));
+        }
+
+        return (new TimeSeries(Start, Fs, x), new TimeSeries(Start, Fs, y), Start.Seconds + burstAt);
+    }
+
+    // Chirp-like burst: 60 Hz rising at 400 Hz/s under a Gaussian envelope of 40 ms, unit peak.
+    private static double Chirp(double t) => Math.Exp(-(t * t) / (2 * 0.04 * 0.04)) * Math.Cos(2 * Math.PI * ((60 * t) + (200 * t * t)));
+
+    private static double Gauss(Random r) => Math.Sqrt(-2 * Math.Log(1 - r.NextDouble())) * Math.Cos(2 * Math.PI * r.NextDouble());
+}
