@@ -93,7 +93,7 @@ public static class NetworkFile
         }
         catch (ArgumentOutOfRangeException ex)
         {
-            var message = ex.Message.Split(" (Parameter", 2)[0].Split(Environment.NewLine)[0];
+            var message = ex.Message.Split(" (Parameter", 2)[0].Split(System.Environment.NewLine)[0];
             throw new FormatException($"sites[{index}].{ex.ParamName}: {message}", ex);
         }
     }
