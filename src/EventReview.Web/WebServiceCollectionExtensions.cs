@@ -55,6 +55,8 @@ public static class WebServiceCollectionExtensions
         services.AddSingleton<MarkdownRenderer>();
         services.AddScoped<CaseService>();
         services.AddScoped<NetworkService>();
+        services.AddScoped<Services.Checks.TimingCheckService>();
+        Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Timing, typeof(Components.Checks.TimingRunner));
         services.AddScoped<DemoSeeder>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
