@@ -32,7 +32,7 @@ public static class SkyMapSvg
         var byCode = sites.ToDictionary(s => s.Code, StringComparer.OrdinalIgnoreCase);
         var svg = new StringBuilder();
         var width = Left + PlotWidth + 20;
-        var height = Top + PlotHeight + 60;
+        var height = Top + PlotHeight + 92;
         svg.Append(F($"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{width}\" height=\"{height}\" viewBox=\"0 0 {width} {height}\" font-family=\"sans-serif\" font-size=\"11\">"));
         svg.Append(F($"<rect x=\"{Left}\" y=\"{Top}\" width=\"{PlotWidth}\" height=\"{PlotHeight}\" fill=\"#ffffff\" stroke=\"#000000\"/>"));
         foreach (var cell in allowedCells ?? [])
@@ -44,6 +44,7 @@ public static class SkyMapSvg
 
         Graticule(svg);
         var ringIndex = 0;
+        var legend = new List<(string Colour, string Label)>();
         foreach (var pair in result.Pairs)
         {
             if (pair.RingAngleDegrees is null || !byCode.TryGetValue(pair.A, out var a) || !byCode.TryGetValue(pair.B, out var b))
@@ -56,6 +57,7 @@ public static class SkyMapSvg
             var points = SkyRing.Directions(axis, pair.RingCosine, RingSamples).Append(SkyRing.Directions(axis, pair.RingCosine, RingSamples)[0])
                 .Select(n => SkyFrame.ToEquatorial(n, result.GmstDegrees)).ToList();
             Curve(svg, points, colour, $"ring {pair.A}-{pair.B}");
+            legend.Add((colour, F($"ring {pair.A}-{pair.B} ({pair.RingAngleDegrees:0.0}° about the baseline)")));
         }
 
         foreach (var (solution, i) in result.Sky.Select((s, i) => (s, i)))
@@ -66,9 +68,18 @@ public static class SkyMapSvg
             svg.Append(F($"<text x=\"{x + 7:0.##}\" y=\"{y - 7:0.##}\">{i + 1}</text></g>"));
         }
 
-        var caption = F($"All-sky map, RA/Dec mean-of-date (GMST {result.GmstDegrees:0.000}°, UT1 = UTC) at {result.Utc}; RA increases to the left; {ringIndex} ring(s), {result.Sky.Count} solution(s) numbered best first");
-        caption += allowedCells is null ? "." : "; shaded: directions the antenna patterns allow.";
-        svg.Append(F($"<text x=\"{Left}\" y=\"{Top + PlotHeight + 48}\">{WebUtility.HtmlEncode(caption)}</text>"));
+        var legendX = (double)Left;
+        foreach (var (colour, label) in legend)
+        {
+            svg.Append(F($"<line x1=\"{legendX:0.#}\" y1=\"{Top + PlotHeight + 42}\" x2=\"{legendX + 18:0.#}\" y2=\"{Top + PlotHeight + 42}\" stroke=\"{colour}\" stroke-width=\"2\"/>"));
+            svg.Append(F($"<text x=\"{legendX + 22:0.#}\" y=\"{Top + PlotHeight + 46}\">{WebUtility.HtmlEncode(label)}</text>"));
+            legendX += 40 + (label.Length * 5.6);
+        }
+
+        var caption = F($"All-sky map, RA/Dec mean-of-date (GMST {result.GmstDegrees:0.000}°, UT1 = UTC) at {result.Utc}; RA increases to the left.");
+        var caption2 = F($"{ringIndex} ring(s); {result.Sky.Count} solution(s) circled, numbered best first") + (allowedCells is null ? "." : "; shaded: directions the antenna patterns allow.");
+        svg.Append(F($"<text x=\"{Left}\" y=\"{Top + PlotHeight + 64}\">{WebUtility.HtmlEncode(caption)}</text>"));
+        svg.Append(F($"<text x=\"{Left}\" y=\"{Top + PlotHeight + 78}\">{WebUtility.HtmlEncode(caption2)}</text>"));
         svg.Append("</svg>");
         return svg.ToString();
     }
