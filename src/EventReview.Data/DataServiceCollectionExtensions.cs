@@ -15,6 +15,7 @@ public static class DataServiceCollectionExtensions
         services.AddSingleton<IDbContextFactory<AppDbContext>>(factory);
         services.AddScoped(sp => sp.GetRequiredService<IDbContextFactory<AppDbContext>>().CreateDbContext());
         services.AddSingleton<AttachmentStore>();
+        services.AddSingleton<IntegrityVerifier>();
         services.AddScoped<Auth.AccountAdmin>();
         return services;
     }

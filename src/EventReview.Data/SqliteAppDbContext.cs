@@ -1,5 +1,4 @@
 using Microsoft.EntityFrameworkCore;
-using Microsoft.EntityFrameworkCore.Storage.ValueConversion;
 
 namespace EventReview.Data;
 
@@ -8,7 +7,8 @@ public sealed class SqliteAppDbContext(DbContextOptions<SqliteAppDbContext> opti
 {
     protected override void ConfigureConventions(ModelConfigurationBuilder configurationBuilder)
     {
-        // SQLite has no native date-time-offset type: store UTC ticks-with-offset as a sortable integer.
-        configurationBuilder.Properties<DateTimeOffset>().HaveConversion<DateTimeOffsetToBinaryConverter>();
+        // SQLite has no native date-time-offset type: store exact UTC ticks as a sortable integer (all times are UTC),
+        // so that hashed timestamps round-trip exactly.
+        configurationBuilder.Properties<DateTimeOffset>().HaveConversion<UtcTicksConverter>();
     }
 }

@@ -12,6 +12,7 @@ public static class CommandCatalog
         yield return UsersCommand.Build();
         yield return TokensCommand.Build();
         yield return CasesCommand.Build();
+        yield return VerifyCommand.Build();
         yield return EnvironmentCommand.Build();
         yield return SafetyCommand.Build();
         yield return SealCommand.Build();

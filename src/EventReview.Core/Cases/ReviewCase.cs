@@ -183,10 +183,11 @@ public sealed class ReviewCase
         BeginReviewIfOpen();
         var what = evidence.Kind switch
         {
-            EvidenceKind.Note => $"Note added to '{key}' (sha256 {evidence.ContentSha256[..12]}).",
+            EvidenceKind.Note => $"Note added to '{key}' (sha256 {evidence.ContentSha256}).",
             EvidenceKind.Attachment => $"File '{evidence.FileName}' ({evidence.SizeBytes} bytes, sha256 {evidence.ContentSha256}) attached to '{key}'.",
             _ => $"Link {evidence.Url} added to '{key}'.",
         };
+        what += $" Seal {evidence.Seal()}.";
         Record(by, now, "evidence." + evidence.Kind.ToString().ToLowerInvariant(), key, what);
         AfterStale(key, stale, by, now);
     }
@@ -197,7 +198,7 @@ public sealed class ReviewCase
         var item = Mutable(key);
         var stale = item.AddComputation(record, now);
         BeginReviewIfOpen();
-        Record(by, now, "computation." + record.Kind, key, $"Check '{record.Kind}' run on '{key}': {record.Verdict}. {record.Summary}");
+        Record(by, now, "computation." + record.Kind, key, $"Check '{record.Kind}' run on '{key}': {record.Verdict}. {record.Summary} Seal {record.Seal()}.");
         AfterStale(key, stale, by, now);
     }
 
@@ -208,7 +209,7 @@ public sealed class ReviewCase
         var s = item.Sign(signer, meaning, statement, seenFingerprint, atUtc, atGps);
         Record(signer, atUtc, "signoff", key,
             $"{signer.DisplayName} signed '{key}' as {meaning.ToString().ToLowerInvariant()} against evidence {s.EvidenceFingerprint[..12]}: {s.Statement}" +
-            (item.State == ItemState.SignedOff ? " Item signed off." : $" ({item.CurrentSignOffs.Count()} of {item.RequiredSignOffs})."));
+            (item.State == ItemState.SignedOff ? " Item signed off." : $" ({item.CurrentSignOffs.Count()} of {item.RequiredSignOffs}).") + $" Seal {s.Seal()}.");
         return s;
     }
 

@@ -72,6 +72,10 @@ public sealed class ComputationRecord
 
     public DateTimeOffset RunAt { get; private set; }
 
+    /// <summary>SHA-256 over the content hash, pictures, summary, who ran it and when: recorded in the case timeline.</summary>
+    public string Seal() => Hashing.Sha256Hex(string.Join('\n', "eventreview-computation-row-v1", ContentSha256, Hashing.Sha256Hex(PicturesSvg), Summary, RunBy, RunByName,
+        RunAt.UtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture)));
+
     /// <summary>SHA-256 over kind, parameters, input fingerprint, tool version and result (what the sign-off binds to).</summary>
     public string ContentSha256 => Hashing.Sha256Hex($"{Kind}\n{ParametersJson}\n{InputFingerprint}\n{ToolVersion}\n{ResultJson}\n{Verdict}");
 }

@@ -55,6 +55,18 @@ public sealed class EvidenceItem
 
     public DateTimeOffset AddedAt { get; private set; }
 
+    /// <summary>
+    /// SHA-256 over this row's canonical content (version 1: kind, content hash, file name, size, URL, who added it and
+    /// the UTC ticks of when), recorded in the case timeline when the evidence is added, so that a later edit of the row
+    /// is caught by verification.
+    /// </summary>
+    public string Seal() => Hashing.Sha256Hex(string.Join('\n', "eventreview-evidence-row-v1", Kind.ToString(), ContentSha256, FileName ?? string.Empty,
+        SizeBytes?.ToString(System.Globalization.CultureInfo.InvariantCulture) ?? string.Empty, Url ?? string.Empty, AddedBy, AddedByName,
+        AddedAt.UtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture)));
+
+    /// <summary>True when a note's stored hash matches its text (other kinds: always true here; files are checked on disk).</summary>
+    public bool NoteHashMatches() => Kind != EvidenceKind.Note || ContentSha256 == Hashing.Sha256Hex(Text);
+
     /// <summary>A Markdown note. Empty notes and notes over 100,000 characters are refused.</summary>
     public static EvidenceItem Note(string markdown, Cases.Actor by, DateTimeOffset at)
     {

@@ -55,6 +55,15 @@ public sealed class SignOff
 
     public DateTimeOffset? StaleSince { get; private set; }
 
+    /// <summary>
+    /// SHA-256 over the signature's canonical content (version 1: signer id and name, UTC ticks, GPS nanoseconds,
+    /// meaning, statement, evidence fingerprint). Recorded in the case timeline when signing; the stale mark is not part
+    /// of it (staleness is recorded by its own timeline entry).
+    /// </summary>
+    public string Seal() => Hashing.Sha256Hex(string.Join('\n', "eventreview-signoff-row-v1", UserId, SignerName,
+        SignedAtUtc.UtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture),
+        SignedAtGpsNanoseconds.ToString(System.Globalization.CultureInfo.InvariantCulture), Meaning.ToString(), Statement, EvidenceFingerprint));
+
     internal void MarkStale(DateTimeOffset at)
     {
         if (!IsStale)

@@ -99,7 +99,7 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
         }
 
         var c = ReviewCase.Open(request.CandidateId, GpsTime.FromSeconds(request.GpsTime.Value), request.Search ?? string.Empty,
-            request.Summary ?? string.Empty, arrivals, template, user.ToActor(), clock.GetUtcNow());
+            request.Summary ?? string.Empty, arrivals, template, user.ToActor(), RecordClock.Normalize(clock.GetUtcNow()));
         db.Cases.Add(c);
         try
         {
@@ -239,7 +239,7 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
                 }
             }
 
-            change(c, clock.GetUtcNow());
+            change(c, RecordClock.Normalize(clock.GetUtcNow()));
             try
             {
                 await db.SaveChangesAsync(ct);

@@ -1,0 +1,79 @@
+namespace EventReview.Data;
+
+/// <summary>
+/// Database triggers that make the record append-only even for direct SQL: timeline entries, evidence and computation
+/// records can never be updated or deleted; a sign-off can only change from current to stale (nothing else), never be
+/// deleted. Used by the AppendOnlyRecords migrations of both providers.
+/// </summary>
+public static class AppendOnlySql
+{
+    private static readonly string[] AppendOnlyTables = ["Activity", "Evidence", "Computations"];
+
+    private const string SignOffColumns = "UserId, SignerName, SignedAtUtc, SignedAtGpsNanoseconds, Meaning, Statement, EvidenceFingerprint, ChecklistItemId";
+
+    public static IEnumerable<string> SqliteUp()
+    {
+        foreach (var t in AppendOnlyTables)
+        {
+            yield return $"CREATE TRIGGER er_{t}_no_update BEFORE UPDATE ON \"{t}\" BEGIN SELECT RAISE(ABORT, '{t} rows are append-only: they cannot be updated'); END;";
+            yield return $"CREATE TRIGGER er_{t}_no_delete BEFORE DELETE ON \"{t}\" BEGIN SELECT RAISE(ABORT, '{t} rows are append-only: they cannot be deleted'); END;";
+        }
+
+        var changed = string.Join(" OR ", SignOffColumns.Split(", ").Select(c => $"NEW.\"{c}\" IS NOT OLD.\"{c}\""));
+        yield return $"CREATE TRIGGER er_SignOffs_guard BEFORE UPDATE ON \"SignOffs\" WHEN OLD.\"IsStale\" = 1 OR NEW.\"IsStale\" = 0 OR {changed} BEGIN SELECT RAISE(ABORT, 'A sign-off can only be marked stale; nothing else about it can change'); END;";
+        yield return "CREATE TRIGGER er_SignOffs_no_delete BEFORE DELETE ON \"SignOffs\" BEGIN SELECT RAISE(ABORT, 'Sign-offs cannot be deleted'); END;";
+    }
+
+    public static IEnumerable<string> SqliteDown()
+    {
+        foreach (var t in AppendOnlyTables)
+        {
+            yield return $"DROP TRIGGER IF EXISTS er_{t}_no_update;";
+            yield return $"DROP TRIGGER IF EXISTS er_{t}_no_delete;";
+        }
+
+        yield return "DROP TRIGGER IF EXISTS er_SignOffs_guard;";
+        yield return "DROP TRIGGER IF EXISTS er_SignOffs_no_delete;";
+    }
+
+    public static IEnumerable<string> PostgresUp()
+    {
+        yield return """
+            CREATE FUNCTION er_append_only() RETURNS trigger AS $$
+            BEGIN
+              RAISE EXCEPTION '% rows are append-only: they cannot be %d', TG_TABLE_NAME, lower(TG_OP);
+            END $$ LANGUAGE plpgsql;
+            """;
+        foreach (var t in AppendOnlyTables)
+        {
+            yield return $"CREATE TRIGGER er_{t}_append_only BEFORE UPDATE OR DELETE ON \"{t}\" FOR EACH ROW EXECUTE FUNCTION er_append_only();";
+        }
+
+        var cols = string.Join(", ", SignOffColumns.Split(", ").Select(c => $"\"{c}\""));
+        yield return $$"""
+            CREATE FUNCTION er_signoff_guard() RETURNS trigger AS $$
+            BEGIN
+              IF TG_OP = 'DELETE' THEN
+                RAISE EXCEPTION 'Sign-offs cannot be deleted';
+              END IF;
+              IF OLD."IsStale" OR NOT NEW."IsStale" OR ROW({{cols.Replace("\"", "NEW.\"")}}) IS DISTINCT FROM ROW({{cols.Replace("\"", "OLD.\"")}}) THEN
+                RAISE EXCEPTION 'A sign-off can only be marked stale; nothing else about it can change';
+              END IF;
+              RETURN NEW;
+            END $$ LANGUAGE plpgsql;
+            """;
+        yield return "CREATE TRIGGER er_SignOffs_guard BEFORE UPDATE OR DELETE ON \"SignOffs\" FOR EACH ROW EXECUTE FUNCTION er_signoff_guard();";
+    }
+
+    public static IEnumerable<string> PostgresDown()
+    {
+        foreach (var t in AppendOnlyTables)
+        {
+            yield return $"DROP TRIGGER IF EXISTS er_{t}_append_only ON \"{t}\";";
+        }
+
+        yield return "DROP TRIGGER IF EXISTS er_SignOffs_guard ON \"SignOffs\";";
+        yield return "DROP FUNCTION IF EXISTS er_signoff_guard();";
+        yield return "DROP FUNCTION IF EXISTS er_append_only();";
+    }
+}
