@@ -56,7 +56,10 @@ public static class WebServiceCollectionExtensions
         services.AddScoped<CaseService>();
         services.AddScoped<NetworkService>();
         services.AddScoped<Services.Checks.TimingCheckService>();
+        services.AddSingleton<Services.Checks.CheckJobs>();
+        services.AddSingleton<Services.Checks.CaseFiles>();
         Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Timing, typeof(Components.Checks.TimingRunner));
+        Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Timing, typeof(Components.Checks.TimingResultView));
         services.AddScoped<DemoSeeder>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();

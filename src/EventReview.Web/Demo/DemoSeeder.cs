@@ -16,7 +16,7 @@ namespace EventReview.Web.Demo;
 /// Fills an empty database with the invented demo: the network, four accounts and three candidate cases at
 /// different stages. Arrival times are made from an invented sky direction with the network's own geometry.
 /// </summary>
-public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, AccountAdmin accounts, UserManager<AppUser> users, CaseService cases, TemplateCatalog templates, TimeProvider clock)
+public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, AccountAdmin accounts, UserManager<AppUser> users, CaseService cases, TemplateCatalog templates, TimeProvider clock, IEnumerable<IDemoSeedStep> steps)
 {
     public async Task SeedIfEmptyAsync(CancellationToken ct = default)
     {
@@ -53,7 +53,8 @@ public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, Accoun
 
         // Case 1: a loud three-site candidate, well into its review.
         var t1 = new GpsTime(gpsNow.Nanoseconds - (6L * 86400 * GpsTime.NanosecondsPerSecond) + 417_250_000);
-        var (c1, _) = await cases.OpenAsync(coordinator, Request("ER-C-0142", t1, sites, 41.0, -23.0, 0.7, [14.2, 16.8, 9.1],
+        var d1 = new DemoCandidate("ER-C-0142", t1, 41.0, -23.0, 0.7, ["KP", "AB", "SM"], [14.2, 16.8, 9.1]);
+        var (c1, _) = await cases.OpenAsync(coordinator, Request(d1, sites,
             "Loud short chirp-like transient seen at all three sites; raised by the demo matched-filter search.", "candidate-review"), ct);
         var rA = users.Users.First(u => u.DisplayName == "Demo Reviewer A");
         await cases.AssignAsync(coordinator, c1.Id, "timing.arrival", rA.Id, rA.DisplayName, c1.Item("timing.arrival").Version, ct);
@@ -68,12 +69,14 @@ public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, Accoun
 
         // Case 2: a fresh two-site candidate from a pipeline, first-hour triage.
         var t2 = new GpsTime(gpsNow.Nanoseconds - (2L * 3600 * GpsTime.NanosecondsPerSecond) + 88_125_000);
-        await cases.OpenAsync(coordinator, Request("ER-C-0157", t2, sites.Take(2).ToList(), -12.0, 140.0, 1.9, [8.4, 7.6],
+        var d2 = new DemoCandidate("ER-C-0157", t2, -12.0, 140.0, 1.9, ["KP", "AB"], [8.4, 7.6]);
+        var (c2, _) = await cases.OpenAsync(coordinator, Request(d2, sites,
             "Two-site coincidence just above threshold; third site was not observing.", "rapid-triage"), ct);
 
         // Case 3: a rapid triage that ended as instrumental (a glitch at one site).
         var t3 = new GpsTime(gpsNow.Nanoseconds - (20L * 86400 * GpsTime.NanosecondsPerSecond) + 503_000_000);
-        var (c3, _) = await cases.OpenAsync(coordinator, Request("ER-C-0121", t3, sites, 63.0, 80.0, 0.2, [11.0, 6.2, 5.9],
+        var d3 = new DemoCandidate("ER-C-0121", t3, 63.0, 80.0, 0.2, ["KP", "AB", "SM"], [11.0, 6.2, 5.9]);
+        var (c3, _) = await cases.OpenAsync(coordinator, Request(d3, sites,
             "Loud at one site, marginal elsewhere; suspected blip glitch.", "rapid-triage"), ct);
         var current = c3;
         foreach (var item in c3.Items)
@@ -89,15 +92,29 @@ public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, Accoun
 
         await cases.CloseAsync(coordinator, c3.Id, CaseOutcome.Instrumental,
             "A blip glitch at one site explains the trigger; no consistent signal at the other sites.", ct);
+
+        var demo = new DemoContext(coordinator, reviewerA, reviewerB,
+            new Dictionary<string, int> { [d1.CandidateId] = c1.Id, [d2.CandidateId] = c2.Id, [d3.CandidateId] = c3.Id }, sites,
+            new Dictionary<string, DemoCandidate> { [d1.CandidateId] = d1, [d2.CandidateId] = d2, [d3.CandidateId] = d3 });
+        foreach (var step in steps.OrderBy(s => s.Order))
+        {
+            await step.SeedAsync(demo, ct);
+        }
     }
 
-    private static OpenCaseRequest Request(string id, GpsTime t, IReadOnlyList<Site> sites, double raDeg, double decDeg, double psi, double[] snrs, string summary, string checklist)
+    /// <summary>Per-site delays and antenna factors of a demo candidate (its invented sky direction and polarisation).</summary>
+    public static IReadOnlyList<SiteProjection> Project(DemoCandidate d, IReadOnlyList<Site> sites)
     {
-        var gmst = Sidereal.GreenwichMeanSiderealDegrees(GpsUtc.ToUtc(t).DateTimeUtc);
-        var n = SkyFrame.ToEcef(raDeg, decDeg, gmst);
-        var projection = NetworkProjection.Project(sites, n, psi);
-        var arrivals = projection.Select((p, i) => new ArrivalRequest(p.Code, (decimal)t.AddSeconds(p.DelaySeconds).Seconds, snrs[i])).ToList();
-        return new OpenCaseRequest(id, (decimal)t.Seconds, "demo-matched-filter", summary, arrivals, checklist);
+        var gmst = Sidereal.GreenwichMeanSiderealDegrees(GpsUtc.ToUtc(d.Time).DateTimeUtc);
+        var n = SkyFrame.ToEcef(d.RaDegrees, d.DecDegrees, gmst);
+        return NetworkProjection.Project(sites.Where(s => d.SiteCodes.Contains(s.Code)).ToList(), n, d.PsiRadians);
+    }
+
+    private static OpenCaseRequest Request(DemoCandidate d, IReadOnlyList<Site> sites, string summary, string checklist)
+    {
+        var projection = Project(d, sites);
+        var arrivals = projection.Select(p => new ArrivalRequest(p.Code, d.Time.AddSeconds(p.DelaySeconds).Nanoseconds / 1_000_000_000m, d.Snrs[d.SiteCodes.ToList().IndexOf(p.Code)])).ToList();
+        return new OpenCaseRequest(d.CandidateId, d.Time.Nanoseconds / 1_000_000_000m, "demo-matched-filter", summary, arrivals, checklist);
     }
 
     private static ClaimsPrincipal Principal(AppUser user, string role) => new(new ClaimsIdentity(

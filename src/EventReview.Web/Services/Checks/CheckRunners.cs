@@ -9,6 +9,26 @@ namespace EventReview.Web.Services.Checks;
 public static class CheckRunners
 {
     private static readonly Dictionary<string, Type> Runners = new(StringComparer.Ordinal);
+    private static readonly Dictionary<string, Type> ResultViews = new(StringComparer.Ordinal);
+
+    /// <summary>Registers the component that shows a record's result of this kind; it receives a "Record" parameter.</summary>
+    public static void RegisterResultView(string kind, Type component) => ResultViews[kind] = component;
+
+    /// <summary>The result view for a record, or null when its kind has none.</summary>
+    public static RenderFragment? ResultFor(EventReview.Core.Evidence.ComputationRecord record)
+    {
+        if (!ResultViews.TryGetValue(record.Kind, out var type))
+        {
+            return null;
+        }
+
+        return builder =>
+        {
+            builder.OpenComponent(0, type);
+            builder.AddAttribute(1, "Record", record);
+            builder.CloseComponent();
+        };
+    }
 
     /// <summary>Registers a runner component; it receives Case, Item, User and OnChanged parameters.</summary>
     public static void Register(string kind, Type component) => Runners[kind] = component;
