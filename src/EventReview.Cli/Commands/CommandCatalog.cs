@@ -7,6 +7,7 @@ public static class CommandCatalog
 {
     public static IEnumerable<Command> All()
     {
-        yield break;
+        yield return OverlapCommand.Build();
+        yield return ChirpCommand.Build();
     }
 }
