@@ -1,4 +1,6 @@
 using System.Collections.Concurrent;
+using System.Runtime.CompilerServices;
+using System.Runtime.InteropServices;
 
 namespace EventReview.Core.Signal.Spectra;
 
@@ -192,10 +194,47 @@ public sealed class RealFft
         }
     }
 
+    // Radix-2 decimation in time on bit-reversed input; the first two stages use their trivial twiddles (1 and −i).
+    // Element access through refs avoids bounds checks in the hot loops (indices are in range by construction).
     private void Butterflies(Span<double> re, Span<double> im)
     {
         int m = _m;
-        for (int size = 2; size <= m; size <<= 1)
+        ref double r = ref MemoryMarshal.GetReference(re);
+        ref double q = ref MemoryMarshal.GetReference(im);
+        for (int a = 0; a < m; a += 2)
+        {
+            double tr = Unsafe.Add(ref r, a + 1), ti = Unsafe.Add(ref q, a + 1);
+            double ur = Unsafe.Add(ref r, a), ui = Unsafe.Add(ref q, a);
+            Unsafe.Add(ref r, a + 1) = ur - tr;
+            Unsafe.Add(ref q, a + 1) = ui - ti;
+            Unsafe.Add(ref r, a) = ur + tr;
+            Unsafe.Add(ref q, a) = ui + ti;
+        }
+
+        if (m >= 4)
+        {
+            for (int a = 0; a < m; a += 4)
+            {
+                double x0r = Unsafe.Add(ref r, a), x0i = Unsafe.Add(ref q, a);
+                double x1r = Unsafe.Add(ref r, a + 1), x1i = Unsafe.Add(ref q, a + 1);
+                double x2r = Unsafe.Add(ref r, a + 2), x2i = Unsafe.Add(ref q, a + 2);
+                double x3r = Unsafe.Add(ref r, a + 3), x3i = Unsafe.Add(ref q, a + 3);
+                // twiddle −i on x3: (x3r, x3i)·(−i) = (x3i, −x3r)
+                double t3r = x3i, t3i = -x3r;
+                Unsafe.Add(ref r, a) = x0r + x2r;
+                Unsafe.Add(ref q, a) = x0i + x2i;
+                Unsafe.Add(ref r, a + 2) = x0r - x2r;
+                Unsafe.Add(ref q, a + 2) = x0i - x2i;
+                Unsafe.Add(ref r, a + 1) = x1r + t3r;
+                Unsafe.Add(ref q, a + 1) = x1i + t3i;
+                Unsafe.Add(ref r, a + 3) = x1r - t3r;
+                Unsafe.Add(ref q, a + 3) = x1i - t3i;
+            }
+        }
+
+        ref double cw = ref MemoryMarshal.GetArrayDataReference(_cosM);
+        ref double sw = ref MemoryMarshal.GetArrayDataReference(_sinM);
+        for (int size = 8; size <= m; size <<= 1)
         {
             int half = size >> 1;
             int stride = m / size;
@@ -203,14 +242,15 @@ public sealed class RealFft
             {
                 for (int j = 0, t = 0; j < half; j++, t += stride)
                 {
-                    double wr = _cosM[t], wi = _sinM[t];
+                    double wr = Unsafe.Add(ref cw, t), wi = Unsafe.Add(ref sw, t);
                     int a = start + j, b = a + half;
-                    double xr = re[b], xi = im[b];
+                    double xr = Unsafe.Add(ref r, b), xi = Unsafe.Add(ref q, b);
                     double tr = (wr * xr) - (wi * xi), ti = (wr * xi) + (wi * xr);
-                    re[b] = re[a] - tr;
-                    im[b] = im[a] - ti;
-                    re[a] += tr;
-                    im[a] += ti;
+                    double ur = Unsafe.Add(ref r, a), ui = Unsafe.Add(ref q, a);
+                    Unsafe.Add(ref r, b) = ur - tr;
+                    Unsafe.Add(ref q, b) = ui - ti;
+                    Unsafe.Add(ref r, a) = ur + tr;
+                    Unsafe.Add(ref q, a) = ui + ti;
                 }
             }
         }
