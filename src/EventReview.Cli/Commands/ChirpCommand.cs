@@ -27,8 +27,8 @@ public static class ChirpCommand
                 var c = StrainInput.Center(parse.GetValue(center)!);
                 var strain = StrainInput.Read(parse.GetValue(a)!, "--a");
                 var (_, fit) = ChirpAnalysis.Run(strain, c, parse.GetValue(before), parse.GetValue(after));
-                double? mc = double.IsFinite(fit.ChirpMassMsun) ? fit.ChirpMassMsun : null;
-                double? sigma = double.IsFinite(fit.ChirpMassSigmaMsun) ? fit.ChirpMassSigmaMsun : null;
+                double? mc = fit.ChirpMassMsun;
+                double? sigma = fit.ChirpMassSigmaMsun;
                 if (parse.GetValue(json))
                 {
                     CliOutput.WriteJson(new { chirpMassMsun = mc, chirpMassSigmaMsun = sigma, chirpLike = fit.ChirpLike });

@@ -128,12 +128,14 @@ public static class ChirpTrack
             reason = string.Create(CultureInfo.InvariantCulture, $"frequency rises as the leading-order chirp law predicts over {count} points (weighted R^2 = {r2:F2})");
         }
 
-        return new ChirpFit(mc, sigmaMc, tc, r2, ok, reason, t, f0, assumptions);
+        return new ChirpFit(Finite(mc), Finite(sigmaMc), Finite(tc), Finite(r2), ok, reason, t, f0, assumptions);
     }
 
+    private static double? Finite(double v) => double.IsFinite(v) ? v : null;
+
     private static ChirpFit NoFit(string reason, List<double> t, List<double> f, List<string> assumptions) =>
-        new(double.NaN, double.NaN, double.NaN, double.NaN, false, reason, t.ToArray(), f.ToArray(), assumptions);
+        new(null, null, null, null, false, reason, t.ToArray(), f.ToArray(), assumptions);
 
     private static ChirpFit NoFit(string reason, double[] t, double[] f, List<string> assumptions) =>
-        new(double.NaN, double.NaN, double.NaN, double.NaN, false, reason, t, f, assumptions);
+        new(null, null, null, null, false, reason, t, f, assumptions);
 }
