@@ -234,24 +234,77 @@ public sealed class RealFft
 
         ref double cw = ref MemoryMarshal.GetArrayDataReference(_cosM);
         ref double sw = ref MemoryMarshal.GetArrayDataReference(_sinM);
-        for (int size = 8; size <= m; size <<= 1)
+        int size = 8;
+        while (size <= m)
         {
-            int half = size >> 1;
-            int stride = m / size;
-            for (int start = 0; start < m; start += size)
+            if (2 * size <= m)
             {
-                for (int j = 0, t = 0; j < half; j++, t += stride)
-                {
-                    double wr = Unsafe.Add(ref cw, t), wi = Unsafe.Add(ref sw, t);
-                    int a = start + j, b = a + half;
-                    double xr = Unsafe.Add(ref r, b), xi = Unsafe.Add(ref q, b);
-                    double tr = (wr * xr) - (wi * xi), ti = (wr * xi) + (wi * xr);
-                    double ur = Unsafe.Add(ref r, a), ui = Unsafe.Add(ref q, a);
-                    Unsafe.Add(ref r, b) = ur - tr;
-                    Unsafe.Add(ref q, b) = ui - ti;
-                    Unsafe.Add(ref r, a) = ur + tr;
-                    Unsafe.Add(ref q, a) = ui + ti;
-                }
+                TwoStages(ref r, ref q, ref cw, ref sw, m, size);
+                size <<= 2;
+            }
+            else
+            {
+                OneStage(ref r, ref q, ref cw, ref sw, m, size);
+                size <<= 1;
+            }
+        }
+    }
+
+    private static void OneStage(ref double r, ref double q, ref double cw, ref double sw, int m, int size)
+    {
+        int half = size >> 1;
+        int stride = m / size;
+        for (int start = 0; start < m; start += size)
+        {
+            for (int j = 0, t = 0; j < half; j++, t += stride)
+            {
+                double wr = Unsafe.Add(ref cw, t), wi = Unsafe.Add(ref sw, t);
+                int a = start + j, b = a + half;
+                double xr = Unsafe.Add(ref r, b), xi = Unsafe.Add(ref q, b);
+                double tr = (wr * xr) - (wi * xi), ti = (wr * xi) + (wi * xr);
+                double ur = Unsafe.Add(ref r, a), ui = Unsafe.Add(ref q, a);
+                Unsafe.Add(ref r, b) = ur - tr;
+                Unsafe.Add(ref q, b) = ui - ti;
+                Unsafe.Add(ref r, a) = ur + tr;
+                Unsafe.Add(ref q, a) = ui + ti;
+            }
+        }
+    }
+
+    // Stages of span `size` and `2 size` fused in one pass over memory (radix-2 squared): the second stage's odd twiddle is
+    // the even one times −i.
+    private static void TwoStages(ref double r, ref double q, ref double cw, ref double sw, int m, int size)
+    {
+        int h = size >> 1;
+        int stride1 = m / size, stride2 = m / (2 * size);
+        for (int start = 0; start < m; start += 4 * h)
+        {
+            for (int j = 0; j < h; j++)
+            {
+                double w1r = Unsafe.Add(ref cw, j * stride1), w1i = Unsafe.Add(ref sw, j * stride1);
+                double w2r = Unsafe.Add(ref cw, j * stride2), w2i = Unsafe.Add(ref sw, j * stride2);
+                int i0 = start + j, i1 = i0 + h, i2 = i1 + h, i3 = i2 + h;
+                double x0r = Unsafe.Add(ref r, i0), x0i = Unsafe.Add(ref q, i0);
+                double x1r = Unsafe.Add(ref r, i1), x1i = Unsafe.Add(ref q, i1);
+                double x2r = Unsafe.Add(ref r, i2), x2i = Unsafe.Add(ref q, i2);
+                double x3r = Unsafe.Add(ref r, i3), x3i = Unsafe.Add(ref q, i3);
+                double tr = (w1r * x1r) - (w1i * x1i), ti = (w1r * x1i) + (w1i * x1r);
+                double y0r = x0r + tr, y0i = x0i + ti, y1r = x0r - tr, y1i = x0i - ti;
+                tr = (w1r * x3r) - (w1i * x3i);
+                ti = (w1r * x3i) + (w1i * x3r);
+                double y2r = x2r + tr, y2i = x2i + ti, y3r = x2r - tr, y3i = x2i - ti;
+                double ur = (w2r * y2r) - (w2i * y2i), ui = (w2r * y2i) + (w2i * y2r);
+                // (w2 · −i) · y3 = −i (w2 y3)
+                double pr = (w2r * y3r) - (w2i * y3i), pi = (w2r * y3i) + (w2i * y3r);
+                double vr = pi, vi = -pr;
+                Unsafe.Add(ref r, i0) = y0r + ur;
+                Unsafe.Add(ref q, i0) = y0i + ui;
+                Unsafe.Add(ref r, i2) = y0r - ur;
+                Unsafe.Add(ref q, i2) = y0i - ui;
+                Unsafe.Add(ref r, i1) = y1r + vr;
+                Unsafe.Add(ref q, i1) = y1i + vi;
+                Unsafe.Add(ref r, i3) = y1r - vr;
+                Unsafe.Add(ref q, i3) = y1i - vi;
             }
         }
     }
