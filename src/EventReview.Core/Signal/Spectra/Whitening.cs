@@ -27,10 +27,14 @@ public static class Whitening
         int nfft = RealFft.NextPowerOfTwo(n);
         var fft = RealFft.For(nfft);
         var buf = new double[nfft];
-        var w = Windows.Tukey(n, taperSamples);
-        for (int i = 0; i < n; i++)
+        samples.CopyTo(buf);
+        int taper = Math.Clamp(taperSamples, 0, n / 2);
+        for (int j = 0; j < taper; j++)
         {
-            buf[i] = samples[i] * w[i];
+            // Same half-cosine as Windows.Tukey, applied only where it differs from 1.
+            double v = 0.5 - (0.5 * Math.Cos(Math.PI * (j + 0.5) / taper));
+            buf[j] *= v;
+            buf[n - 1 - j] *= v;
         }
 
         int bins = fft.Bins;
@@ -54,6 +58,6 @@ public static class Whitening
         }
 
         fft.Inverse(re, im, buf);
-        return buf.AsSpan(0, n).ToArray();
+        return n == nfft ? buf : buf.AsSpan(0, n).ToArray();
     }
 }
