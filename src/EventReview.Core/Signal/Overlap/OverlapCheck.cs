@@ -13,16 +13,25 @@ public static class OverlapCheck
     /// Runs the whole check on raw strain. Different sample rates in an integer ratio are handled by decimating the faster
     /// series (see <see cref="Resampling.ToCommonRate"/>); other ratios are refused. The two sites are conditioned in parallel.
     /// </summary>
+    /// <param name="a">Strain of site A.</param>
+    /// <param name="b">Strain of site B.</param>
+    /// <param name="options">Check settings.</param>
+    /// <param name="progress">Optional progress in [0, 1] (conditioning counts for 0.5, off-source overlaps for the rest).</param>
+    /// <param name="cancellationToken">Cancels between stages and every 50 off-source overlaps.</param>
     /// <exception cref="ArgumentException">When the rates cannot be matched, the band is invalid or the centre is too close to
     /// the edge of either series.</exception>
-    public static OverlapResult Run(TimeSeries a, TimeSeries b, OverlapOptions options)
+    /// <exception cref="OperationCanceledException">When cancelled.</exception>
+    public static OverlapResult Run(TimeSeries a, TimeSeries b, OverlapOptions options, IProgress<double>? progress = null, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(options);
         var (ra, rb, note) = Resampling.ToCommonRate(a, b);
         var cond = options.Conditioning ?? new ConditioningOptions();
         ConditionedSeries? ca = null, cb = null;
+        cancellationToken.ThrowIfCancellationRequested();
         Parallel.Invoke(() => ca = Conditioning.Condition(ra, cond), () => cb = Conditioning.Condition(rb, cond));
-        return Compare(ca!, cb!, options, note);
+        progress?.Report(0.5);
+        var inner = progress is null ? null : new Progress<double>(v => progress.Report(0.5 + (0.5 * v)));
+        return Compare(ca!, cb!, options, note, inner, cancellationToken);
     }
 
     /// <summary>
@@ -31,8 +40,16 @@ public static class OverlapCheck
     /// B arrives k samples later, so the reported lag is −k / fs (arrival(A) − arrival(B)), corrected for any sub-sample
     /// offset between the two sample grids.
     /// </summary>
+    /// <param name="a">Conditioned series of site A.</param>
+    /// <param name="b">Conditioned series of site B (same sample rate).</param>
+    /// <param name="options">Check settings (the conditioning settings are only echoed in the assumptions).</param>
+    /// <param name="resamplingNote">What was done about sample rates, copied to the result.</param>
+    /// <param name="progress">Optional progress in [0, 1] over the off-source overlaps.</param>
+    /// <param name="cancellationToken">Checked every 50 off-source overlaps.</param>
     /// <exception cref="ArgumentException">When the rates differ, or the on-source window and lags do not fit inside both valid ranges.</exception>
-    public static OverlapResult Compare(ConditionedSeries a, ConditionedSeries b, OverlapOptions options, string resamplingNote = "no resampling")
+    /// <exception cref="OperationCanceledException">When cancelled.</exception>
+    public static OverlapResult Compare(ConditionedSeries a, ConditionedSeries b, OverlapOptions options, string resamplingNote = "no resampling",
+        IProgress<double>? progress = null, CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(a);
         ArgumentNullException.ThrowIfNull(b);
@@ -100,7 +117,8 @@ public static class OverlapCheck
             curve[rho.Length - 1 - i] = rho[i];
         }
 
-        var off = OffSource(ga, da, pa, db, pb, w, maxLag, options);
+        var off = OffSource(ga, da, pa, db, pb, w, maxLag, options, progress, cancellationToken);
+        progress?.Report(1);
         double? p = off.Length == 0 ? null : (1.0 + off.Count(v => v >= overlap)) / (1.0 + off.Length);
         var (pt, plotA, plotB) = Plot(ga, a, b, bestK, sign, options, fs);
 
@@ -132,7 +150,8 @@ public static class OverlapCheck
             w / fs, maxLag / fs, cond.LowHz, cond.HighHz, assumptions);
     }
 
-    private static double[] OffSource(Grid g, double[] da, double[] pa, double[] db, double[] pb, int w, int maxLag, OverlapOptions options)
+    private static double[] OffSource(Grid g, double[] da, double[] pa, double[] db, double[] pb, int w, int maxLag, OverlapOptions options,
+        IProgress<double>? progress, CancellationToken cancellationToken)
     {
         if (options.OffSourceCount == 0)
         {
@@ -156,6 +175,12 @@ public static class OverlapCheck
         {
             for (int m = 0; m < count && values.Count < options.OffSourceCount; m++)
             {
+                if (values.Count % 50 == 0)
+                {
+                    cancellationToken.ThrowIfCancellationRequested();
+                    progress?.Report(values.Count / (double)options.OffSourceCount);
+                }
+
                 int j = (m + s) % count;
                 values.Add(WindowCorrelation.MaxAbs(da, pa, positions[m], db, pb, positions[j] + g.Offset, w, maxLag));
             }

@@ -102,3 +102,16 @@ public class OverlapCorrelationOracleTests
         }
     }
 }
+
+public class OverlapCancellationTests
+{
+    [Fact]
+    public void A_cancelled_run_stops_with_operation_cancelled()
+    {
+        var sim = SimulatedPair.Make(1);
+        using var cts = new CancellationTokenSource();
+        cts.Cancel();
+        Assert.ThrowsAny<OperationCanceledException>(() =>
+            OverlapCheck.Run(SimulatedPair.A(sim), SimulatedPair.B(sim), new OverlapOptions(SimulatedPair.Coalescence(), OffSourceCount: 100), null, cts.Token));
+    }
+}
