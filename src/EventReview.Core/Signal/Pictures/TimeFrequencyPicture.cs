@@ -10,9 +10,10 @@ public static class TimeFrequencyPicture
     /// <summary>
     /// Draws the map on a coarse grid (at most <paramref name="maxColumns"/> × <paramref name="maxRows"/> cells, each the maximum
     /// of the energies it covers) with a white-to-dark colour scale clipped at <paramref name="energyCap"/>, and the ridge points of
-    /// <paramref name="fit"/> as dots. Times in ms from the map's reference.
+    /// <paramref name="fit"/> as dots. Cells below a fifth of the cap are left white, and cells are written with whole-pixel
+    /// coordinates, so the document stays under ~200 kB even when every cell is drawn. Times in ms from the map's reference.
     /// </summary>
-    public static string Draw(TimeFrequencyMap map, ChirpFit? fit, string site = "", int maxColumns = 120, int maxRows = 60, double energyCap = 25)
+    public static string Draw(TimeFrequencyMap map, ChirpFit? fit, string site = "", int maxColumns = 80, int maxRows = 40, double energyCap = 25)
     {
         ArgumentNullException.ThrowIfNull(map);
         var t = map.TimesSeconds;
@@ -38,19 +39,21 @@ public static class TimeFrequencyPicture
                 }
 
                 double level = Math.Clamp(e / energyCap, 0, 1);
-                if (level < 0.08)
+                if (level < 0.2)
                 {
                     continue;
                 }
 
                 int shade = (int)Math.Round(255 * (1 - level));
-                string colour = string.Create(CultureInfo.InvariantCulture, $"rgb({shade},{(int)(shade * 0.85)},{Math.Min(255, shade + 60)})");
-                double x0 = (t[i0] - (dt / 2)) * 1e3, x1 = (t[i1 - 1] + (dt / 2)) * 1e3;
-                double y0 = f[j0], y1 = j1 < f.Length ? f[j1] : fHi;
-                p.Rect(x0, y0, x1, y1, colour);
+                string colour = string.Create(CultureInfo.InvariantCulture, $"#{shade:x2}{(int)(shade * 0.85):x2}{Math.Min(255, shade + 60):x2}");
+                double x0 = p.X((t[i0] - (dt / 2)) * 1e3), x1 = p.X((t[i1 - 1] + (dt / 2)) * 1e3);
+                double y0 = p.Y(f[j0]), y1 = p.Y(j1 < f.Length ? f[j1] : fHi);
+                int xa = (int)Math.Floor(x0), xb = (int)Math.Ceiling(x1), ya = (int)Math.Floor(y1), yb = (int)Math.Ceiling(y0);
+                sb.Append(CultureInfo.InvariantCulture, $"<rect x=\"{xa}\" y=\"{ya}\" width=\"{xb - xa}\" height=\"{yb - ya}\" fill=\"{colour}\"/>");
             }
         }
 
+        p.Raw(sb.ToString());
         if (fit is not null)
         {
             for (int i = 0; i < fit.TrackTimesSeconds.Length; i++)

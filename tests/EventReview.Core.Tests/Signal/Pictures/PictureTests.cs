@@ -25,6 +25,7 @@ public class PictureTests
             var doc = XDocument.Parse(svg);
             Assert.Equal("svg", doc.Root!.Name.LocalName);
             Assert.True(svg.Length < 200_000, $"{name}: {svg.Length} characters");
+            File.WriteAllText(Path.Combine(Path.GetTempPath(), $"er-picture-{name}.svg"), svg);
             var texts = doc.Descendants().Where(e => e.Name.LocalName == "text").Select(e => e.Value).ToList();
             Assert.True(texts.Count(s => s.EndsWith(")")) >= 2, name); // two axis labels with units in brackets
             Assert.DoesNotContain(",", string.Join(" ", doc.Descendants().Where(e => e.Name.LocalName == "rect").Select(e => (string?)e.Attribute("width") ?? "")));
@@ -32,5 +33,19 @@ public class PictureTests
 
         Assert.Contains("chirp mass", pictures["map"]);
         Assert.Contains("p = ", pictures["histogram"]);
+    }
+}
+
+public class TimeFrequencyPictureSizeTests
+{
+    [Fact]
+    public void A_map_where_every_cell_is_loud_stays_under_200_kb()
+    {
+        var times = Enumerable.Range(0, 400).Select(i => i / 128.0).ToArray();
+        var freqs = Enumerable.Range(10, 240).Select(k => k * 2.0).ToArray();
+        var energy = times.Select(_ => freqs.Select(_ => 100.0).ToArray()).ToArray();
+        var svg = TimeFrequencyPicture.Draw(new TimeFrequencyMap("0", times, freqs, energy, 8), null, "K1");
+        Assert.True(svg.Length < 200_000, $"{svg.Length} characters");
+        XDocument.Parse(svg);
     }
 }
