@@ -17,7 +17,7 @@ public static class OverlapPictures
         p.Rect(-w, -ymax * 1.05, w, ymax * 1.05, "#eef3fb");
         p.Polyline(t, result.PlotA, "#1f5fbf");
         p.Polyline(t, result.PlotB, "#d0562a");
-        p.Axes("time from candidate (ms)", "whitened strain (noise sigma)");
+        p.Axes("time from candidate (ms)", "whitened, band-passed strain (dimensionless)");
         string flip = result.Sign < 0 ? "flipped, " : string.Empty;
         p.Text(p.PlotLeft + 8, p.PlotTop + 16, $"{siteA}", "start", "fill=\"#1f5fbf\"");
         p.Text(p.PlotLeft + 8, p.PlotTop + 32, $"{siteB} ({flip}shifted {result.LagSeconds * 1e3:+0.00;-0.00} ms)", "start", "fill=\"#d0562a\"");
