@@ -18,5 +18,7 @@ public static class CommandCatalog
         yield return SealCommand.Build();
         yield return UnsealCommand.Build();
         yield return ChainCommand.Build();
+        yield return OverlapCommand.Build();
+        yield return ChirpCommand.Build();
     }
 }

@@ -52,10 +52,8 @@ public static class FiltFilt
         var zi = SosFilter.StepInitialState(sections);
         var state = Scaled(zi, ext[0]);
         SosFilter.ApplyInPlace(sections, ext, state);
-        Array.Reverse(ext);
-        state = Scaled(zi, ext[0]);
-        SosFilter.ApplyInPlace(sections, ext, state);
-        Array.Reverse(ext);
+        state = Scaled(zi, ext[^1]);
+        SosFilter.ApplyBackwardInPlace(sections, ext, state);
         return ext.AsSpan(pad, n).ToArray();
     }
 

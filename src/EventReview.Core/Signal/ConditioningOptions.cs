@@ -1,0 +1,20 @@
+namespace EventReview.Core.Signal;
+
+/// <summary>How a strain series is conditioned before comparison: PSD, whitening, band-pass and notches.</summary>
+/// <param name="LowHz">Band-pass lower −3 dB edge in Hz (default 30).</param>
+/// <param name="HighHz">Band-pass upper −3 dB edge in Hz (default 350).</param>
+/// <param name="FilterOrder">Butterworth prototype order (default 4, i.e. 8 poles for the band-pass).</param>
+/// <param name="PsdSegmentSeconds">Welch segment length in seconds (default 4; shortened to the data if needed).</param>
+/// <param name="TaperSeconds">Tukey taper at each end before whitening, in seconds (default 0.5).</param>
+/// <param name="SettleSeconds">Extra margin inside the taper treated as unreliable (filter transients), in seconds (default 0.25).</param>
+/// <param name="NotchFrequenciesHz">Line frequencies to notch out (Hz); empty for none.</param>
+/// <param name="NotchQuality">Quality factor of each notch (default 30).</param>
+public sealed record ConditioningOptions(
+    double LowHz = 30,
+    double HighHz = 350,
+    int FilterOrder = 4,
+    double PsdSegmentSeconds = 4,
+    double TaperSeconds = 0.5,
+    double SettleSeconds = 0.25,
+    IReadOnlyList<double>? NotchFrequenciesHz = null,
+    double NotchQuality = 30);
