@@ -31,7 +31,7 @@ public static class Poisson
             return 0.0;
         }
 
-        return k == 1 ? -SpecialFunctions.Expm1(-mean) : SpecialFunctions.GammaLowerRegularized(k, mean);
+        return k == 1 ? -ExpMinusOne.Of(-mean) : SpecialFunctions.GammaLowerRegularized(k, mean);
     }
 
     /// <summary>
