@@ -57,6 +57,51 @@ public sealed class BackgroundAccumulator : ICoincidenceSink<BackgroundAccumulat
         [.. _loudest.UnorderedItems.Select(x => x.Element).OrderByDescending(x => x.Statistic).ThenBy(x => x.Slide).ThenBy(x => x.IndexA)];
 
     /// <inheritdoc />
+    public void AddBatch(ReadOnlySpan<FoundCoincidence> batch)
+    {
+        if (_candidateA >= 0 || _candidateB >= 0)
+        {
+            foreach (var c in batch)
+            {
+                Add(c.Slide, c.IndexA, c.IndexB, c.Statistic);
+            }
+
+            return;
+        }
+
+        // the common case, kept tight: counts, histogram and the loudest-N floor in locals
+        long louder = 0;
+        var threshold = _threshold;
+        var inverse = _inverseBinWidth;
+        var hist = _histogram;
+        foreach (var c in batch)
+        {
+            var stat = c.Statistic;
+            if (stat >= threshold)
+            {
+                louder++;
+            }
+
+            var bin = stat * inverse;
+            var i = bin < MaxBins - 1 ? (int)bin : MaxBins - 1;
+            if ((uint)i >= (uint)hist.Length)
+            {
+                Array.Resize(ref _histogram, Math.Min(MaxBins, Math.Max(i + 1, hist.Length * 2)));
+                hist = _histogram;
+            }
+
+            hist[i]++;
+            if (stat > _floor || _loudest.Count < _keep)
+            {
+                Offer(c.Slide, c.IndexA, c.IndexB, stat);
+            }
+        }
+
+        Count += batch.Length;
+        Louder += louder;
+    }
+
+    /// <inheritdoc />
     public void Add(int slide, int indexA, int indexB, double statistic)
     {
         Count++;

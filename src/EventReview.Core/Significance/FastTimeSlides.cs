@@ -60,26 +60,31 @@ public static class FastTimeSlides
         Parallel.ForEach(
             Partitioner.Create(0, blocks, chunk),
             new ParallelOptions { CancellationToken = cancellationToken },
-            () => sink.CreatePart(),
-            (range, _, part) =>
+            () =>
             {
-                long local = 0;
+                var part = sink.CreatePart();
+                return (Part: part, Buffer: CoincidenceBuffer.For(part));
+            },
+            (range, _, local) =>
+            {
+                long n = 0;
                 for (var blk = range.Item1; blk < range.Item2; blk++)
                 {
-                    local += sweep.Block(a, blk, b, part);
+                    n += sweep.Block(a, blk, b, local.Buffer);
                 }
 
+                local.Buffer.Flush();
                 var triggers = a.BlockStarts[range.Item2] - a.BlockStarts[range.Item1];
-                var f = Interlocked.Add(ref found, local);
+                var f = Interlocked.Add(ref found, n);
                 var d = Interlocked.Add(ref doneA, triggers);
                 progress?.Report(new BackgroundProgress((int)(2L * k * d / totalA), 2 * k, f));
-                return part;
+                return local;
             },
-            part =>
+            local =>
             {
                 lock (sink)
                 {
-                    sink.Merge(part);
+                    sink.Merge(local.Part);
                 }
             });
         progress?.Report(new BackgroundProgress(2 * k, 2 * k, found));
@@ -130,8 +135,7 @@ public static class FastTimeSlides
     {
         private readonly long _w = options.WindowNs;
 
-        public long Block<TSink>(PhaseBlocks a, int blk, PhaseBlocks b, TSink sink)
-            where TSink : class, ICoincidenceSink<TSink>
+        public long Block(PhaseBlocks a, int blk, PhaseBlocks b, CoincidenceBuffer sink)
         {
             var id = a.BlockIds[blk];
             var lowSlot = (id * blockSlots) - slides - 1;
@@ -146,68 +150,86 @@ public static class FastTimeSlides
             return found;
         }
 
-        private long Pair<TSink>(PhaseBlocks a, int aStart, int aEnd, PhaseBlocks b, int bStart, int bEnd, TSink sink)
-            where TSink : class, ICoincidenceSink<TSink>
+        private long Pair(PhaseBlocks a, int aStart, int aEnd, PhaseBlocks b, int bStart, int bEnd, CoincidenceBuffer sink)
         {
             var w = _w;
             var wrap = step - w;
-            var bPhase = b.Phase;
+            var bPhase = b.Phase.AsSpan(0, bEnd);
+            var bSlot = b.Slot.AsSpan(0, bEnd);
+            var aPhase = a.Phase;
+            var aSlot = a.Slot;
             int lo0 = bStart, hi0 = bStart, lo1 = bStart, hi2 = bStart;
             long found = 0;
             for (var i = aStart; i < aEnd; i++)
             {
-                var phi = a.Phase[i];
-                var sx = a.Slot[i];
-                while (lo0 < bEnd && bPhase[lo0] < phi - w)
+                var phi = aPhase[i];
+                var sx = aSlot[i];
+                while (lo0 < bPhase.Length && bPhase[lo0] < phi - w)
                 {
                     lo0++;
                 }
 
-                while (hi0 < bEnd && bPhase[hi0] <= phi + w)
+                if (hi0 < lo0)
+                {
+                    hi0 = lo0;
+                }
+
+                while (hi0 < bPhase.Length && bPhase[hi0] <= phi + w)
                 {
                     hi0++;
-                }
-
-                while (lo1 < bEnd && bPhase[lo1] < phi + wrap)
-                {
-                    lo1++;
-                }
-
-                while (hi2 < bEnd && bPhase[hi2] <= phi - wrap)
-                {
-                    hi2++;
                 }
 
                 // |φx - φy| <= W: k = sx - sy
                 for (var j = lo0; j < hi0; j++)
                 {
-                    found += Emit(a, i, b, j, sx - b.Slot[j], sink);
+                    var k = sx - bSlot[j];
+                    if (k != 0 && (ulong)(k + slides) <= (ulong)(2 * slides))
+                    {
+                        found += Emit(a, i, b, j, k, sink);
+                    }
                 }
 
-                // φy - φx >= step - W: k = sx - sy - 1
-                for (var j = lo1; j < bEnd; j++)
+                if (phi < w)
                 {
-                    found += Emit(a, i, b, j, sx - b.Slot[j] - 1, sink);
-                }
+                    // φy - φx >= step - W: k = sx - sy - 1
+                    while (lo1 < bPhase.Length && bPhase[lo1] < phi + wrap)
+                    {
+                        lo1++;
+                    }
 
-                // φx - φy >= step - W: k = sx - sy + 1
-                for (var j = bStart; j < hi2; j++)
+                    for (var j = lo1; j < bPhase.Length; j++)
+                    {
+                        var k = sx - bSlot[j] - 1;
+                        if (k != 0 && (ulong)(k + slides) <= (ulong)(2 * slides))
+                        {
+                            found += Emit(a, i, b, j, k, sink);
+                        }
+                    }
+                }
+                else if (phi >= wrap)
                 {
-                    found += Emit(a, i, b, j, sx - b.Slot[j] + 1, sink);
+                    // φx - φy >= step - W: k = sx - sy + 1
+                    while (hi2 < bPhase.Length && bPhase[hi2] <= phi - wrap)
+                    {
+                        hi2++;
+                    }
+
+                    for (var j = bStart; j < hi2; j++)
+                    {
+                        var k = sx - bSlot[j] + 1;
+                        if (k != 0 && (ulong)(k + slides) <= (ulong)(2 * slides))
+                        {
+                            found += Emit(a, i, b, j, k, sink);
+                        }
+                    }
                 }
             }
 
             return found;
         }
 
-        private int Emit<TSink>(PhaseBlocks a, int i, PhaseBlocks b, int j, long k, TSink sink)
-            where TSink : class, ICoincidenceSink<TSink>
+        private int Emit(PhaseBlocks a, int i, PhaseBlocks b, int j, long k, CoincidenceBuffer sink)
         {
-            if (k == 0 || k > slides || k < -slides)
-            {
-                return 0;
-            }
-
             if (!double.IsNaN(chirpTolerance) && !ChirpAgreement.Agrees(a.ChirpMass[i], b.ChirpMass[j], chirpTolerance))
             {
                 return 0;

@@ -11,6 +11,15 @@ public interface ICoincidenceSink<TSelf>
     /// <summary>One coincidence: slide k, trigger indices into the sorted lists of sites A and B, ranking statistic.</summary>
     void Add(int slide, int indexA, int indexB, double statistic);
 
+    /// <summary>A batch of coincidences (finders call this with buffers of a few thousand).</summary>
+    void AddBatch(ReadOnlySpan<FoundCoincidence> batch)
+    {
+        foreach (var c in batch)
+        {
+            Add(c.Slide, c.IndexA, c.IndexB, c.Statistic);
+        }
+    }
+
     /// <summary>A new empty sink with the same settings, for one worker thread.</summary>
     TSelf CreatePart();
 

@@ -33,11 +33,16 @@ public static class NaiveTimeSlides
             0,
             total,
             new ParallelOptions { CancellationToken = cancellationToken },
-            () => (Part: sink.CreatePart(), Q: new long[pair.PositionsB.Length], Qi: new int[pair.PositionsB.Length]),
+            () =>
+            {
+                var part = sink.CreatePart();
+                return (Part: part, Buffer: CoincidenceBuffer.For(part), Q: new long[pair.PositionsB.Length], Qi: new int[pair.PositionsB.Length]);
+            },
             (s, _, local) =>
             {
                 var k = s < options.Slides ? s - options.Slides : s - options.Slides + 1;
-                var n = Slide(pair, options, k, local.Q, local.Qi, local.Part);
+                var n = Slide(pair, options, k, local.Q, local.Qi, local.Buffer);
+                local.Buffer.Flush();
                 var f = Interlocked.Add(ref found, n);
                 progress?.Report(new BackgroundProgress(Interlocked.Increment(ref done), total, f));
                 return local;
@@ -51,8 +56,7 @@ public static class NaiveTimeSlides
             });
     }
 
-    private static long Slide<TSink>(TimeSlidePair pair, TimeSlideOptions options, int k, long[] q, int[] qi, TSink sink)
-        where TSink : class, ICoincidenceSink<TSink>
+    private static long Slide(TimeSlidePair pair, TimeSlideOptions options, int k, long[] q, int[] qi, CoincidenceBuffer sink)
     {
         var span = pair.SpanNs;
         var w = options.WindowNs;

@@ -28,12 +28,8 @@ public sealed class TimeSlidePair
         SiteB = siteB;
         OriginNs = Math.Min(siteA.Segments[0].Start.Nanoseconds, siteB.Segments[0].Start.Nanoseconds);
         SpanNs = Math.Max(siteA.Segments[^1].End.Nanoseconds, siteB.Segments[^1].End.Nanoseconds) - OriginNs;
-        PositionsA = siteA.Triggers.Select(t => t.Time.Nanoseconds - OriginNs).ToArray();
-        PositionsB = siteB.Triggers.Select(t => t.Time.Nanoseconds - OriginNs).ToArray();
-        SnrSquaredA = siteA.Triggers.Select(t => t.Snr * t.Snr).ToArray();
-        SnrSquaredB = siteB.Triggers.Select(t => t.Snr * t.Snr).ToArray();
-        ChirpMassA = siteA.Triggers.Select(t => t.ChirpMass ?? double.NaN).ToArray();
-        ChirpMassB = siteB.Triggers.Select(t => t.ChirpMass ?? double.NaN).ToArray();
+        (PositionsA, SnrSquaredA, ChirpMassA) = Columns(siteA.Triggers, OriginNs);
+        (PositionsB, SnrSquaredB, ChirpMassB) = Columns(siteB.Triggers, OriginNs);
         _segA = Flatten(siteA.Segments, OriginNs);
         _segB = Flatten(siteB.Segments, OriginNs);
     }
@@ -110,6 +106,23 @@ public sealed class TimeSlidePair
         SiteA.Triggers[indexA].Time.Nanoseconds,
         SiteB.Triggers[indexB].Time.Nanoseconds,
         statistic);
+
+    private static (long[] Positions, double[] SnrSquared, double[] ChirpMass) Columns(IReadOnlyList<Trigger> triggers, long origin)
+    {
+        var n = triggers.Count;
+        var positions = new long[n];
+        var snr2 = new double[n];
+        var chirp = new double[n];
+        for (var i = 0; i < n; i++)
+        {
+            var t = triggers[i];
+            positions[i] = t.Time.Nanoseconds - origin;
+            snr2[i] = t.Snr * t.Snr;
+            chirp[i] = t.ChirpMass ?? double.NaN;
+        }
+
+        return (positions, snr2, chirp);
+    }
 
     private static long[] Flatten(IReadOnlyList<Segment> segments, long origin)
     {
