@@ -84,4 +84,25 @@ public static class Poisson
         var um1 = u - 1.0;
         return um1 == -1.0 ? -1.0 : um1 * x / Math.Log(u);
     }
+
+    /// <summary>P(N &gt;= k) for a Poisson count with the given mean (same as <see cref="AtLeast"/>, for 64-bit counts).</summary>
+    public static double ProbabilityAtLeast(long k, double mean) =>
+        k > int.MaxValue ? (mean == 0 ? 0.0 : SpecialFunctions.GammaLowerRegularized(k, mean)) : AtLeast((int)Math.Max(k, int.MinValue), mean);
+
+    /// <summary>P(N &lt;= k) for a Poisson count with the given mean: Q(k + 1, mean), the regularised upper incomplete gamma function.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">When the mean is negative or not finite.</exception>
+    public static double ProbabilityAtMost(long k, double mean)
+    {
+        if (!(mean >= 0.0) || double.IsInfinity(mean))
+        {
+            throw new ArgumentOutOfRangeException(nameof(mean), mean, "A finite, non-negative expected count was expected.");
+        }
+
+        if (k < 0)
+        {
+            return 0.0;
+        }
+
+        return mean == 0.0 ? 1.0 : SpecialFunctions.GammaUpperRegularized(k + 1, mean);
+    }
 }
