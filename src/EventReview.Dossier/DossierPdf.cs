@@ -8,7 +8,8 @@ namespace EventReview.Dossier;
 /// <summary>
 /// Writes <c>summary.pdf</c>: a few A4 pages with the case summary, the item table (state, verdict, signers, stale marks)
 /// and the configuration freeze. Deterministic for a given document: creation and modification dates are the case's
-/// last update time and the document ID is derived from the chain head (see <see cref="Render"/>).
+/// last update time, and the random ids PDFsharp writes are replaced by values derived from the chain head
+/// (<see cref="PdfStabilizer"/>).
 /// </summary>
 public static class DossierPdf
 {
@@ -77,7 +78,7 @@ public static class DossierPdf
 
         using var ms = new MemoryStream();
         pdf.Save(ms, false);
-        return ms.ToArray();
+        return PdfStabilizer.Stabilize(ms.ToArray(), doc.Case.CandidateId + "/" + doc.ChainHead);
     }
 
     private sealed class PageWriter(PdfDocument pdf)
