@@ -17,5 +17,7 @@ public static class CommandCatalog
         yield return SealCommand.Build();
         yield return UnsealCommand.Build();
         yield return ChainCommand.Build();
+        yield return DossierCommand.Build();
+        yield return ConfigCommand.Build();
     }
 }
