@@ -20,5 +20,7 @@ public static class CommandCatalog
         yield return ChainCommand.Build();
         yield return OverlapCommand.Build();
         yield return ChirpCommand.Build();
+        yield return DossierCommand.Build();
+        yield return ConfigCommand.Build();
     }
 }

@@ -35,7 +35,7 @@ public sealed class ActivityEntry
         ItemKey = itemKey;
         Text = text;
         PreviousHash = previousHash;
-        Hash = Hashing.Sha256Hex(CanonicalContent());
+        Hash = ComputeHash(candidateId, sequence, at, ActorId, ActorName, kind, itemKey, text, previousHash);
     }
 
     public long Id { get; private set; }
@@ -70,18 +70,36 @@ public sealed class ActivityEntry
     /// round-trip ISO 8601 with 7 fractional digits, actor id, actor name, kind, item key (empty if none), text,
     /// previous hash; joined by '\n'.
     /// </summary>
-    public string CanonicalContent() => string.Join('\n',
-        "eventreview-activity-v1",
-        CandidateId,
-        Sequence.ToString(CultureInfo.InvariantCulture),
-        At.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fffffff'Z'", CultureInfo.InvariantCulture),
-        ActorId,
-        ActorName,
-        Kind,
-        ItemKey ?? string.Empty,
-        Text,
-        PreviousHash);
+    public string CanonicalContent() =>
+        ComputeCanonicalContent(CandidateId, Sequence, At, ActorId, ActorName, Kind, ItemKey, Text, PreviousHash);
 
     /// <summary>True when the stored hash matches the content.</summary>
-    public bool HashMatches() => string.Equals(Hash, Hashing.Sha256Hex(CanonicalContent()), StringComparison.Ordinal);
+    public bool HashMatches() => string.Equals(Hash,
+        ComputeHash(CandidateId, Sequence, At, ActorId, ActorName, Kind, ItemKey, Text, PreviousHash), StringComparison.Ordinal);
+
+    /// <summary>
+    /// The canonical content (see <see cref="CanonicalContent"/>) from plain values, for offline verification.
+    /// <paramref name="at"/> is converted to UTC; a null <paramref name="itemKey"/> is written as an empty line.
+    /// </summary>
+    public static string ComputeCanonicalContent(string candidateId, int sequence, DateTimeOffset at, string actorId, string actorName,
+        string kind, string? itemKey, string text, string previousHash) => string.Join('\n',
+        "eventreview-activity-v1",
+        candidateId,
+        sequence.ToString(CultureInfo.InvariantCulture),
+        FormatUtc(at),
+        actorId,
+        actorName,
+        kind,
+        itemKey ?? string.Empty,
+        text,
+        previousHash);
+
+    /// <summary>The entry hash from plain values: lowercase hex SHA-256 of the UTF-8 canonical content.</summary>
+    public static string ComputeHash(string candidateId, int sequence, DateTimeOffset at, string actorId, string actorName,
+        string kind, string? itemKey, string text, string previousHash) =>
+        Hashing.Sha256Hex(ComputeCanonicalContent(candidateId, sequence, at, actorId, actorName, kind, itemKey, text, previousHash));
+
+    /// <summary>The time as written in the canonical content: UTC, <c>yyyy-MM-ddTHH:mm:ss.fffffffZ</c>.</summary>
+    public static string FormatUtc(DateTimeOffset at) =>
+        at.UtcDateTime.ToString("yyyy-MM-dd'T'HH:mm:ss.fffffff'Z'", CultureInfo.InvariantCulture);
 }

@@ -77,5 +77,13 @@ public sealed class ComputationRecord
         RunAt.UtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture)));
 
     /// <summary>SHA-256 over kind, parameters, input fingerprint, tool version and result (what the sign-off binds to).</summary>
-    public string ContentSha256 => Hashing.Sha256Hex($"{Kind}\n{ParametersJson}\n{InputFingerprint}\n{ToolVersion}\n{ResultJson}\n{Verdict}");
+    public string ContentSha256 => ComputeContentSha256(Kind, ParametersJson, InputFingerprint, ToolVersion, ResultJson, Verdict);
+
+    /// <summary>
+    /// The content hash from plain values: SHA-256 (lowercase hex) of the UTF-8 text
+    /// <c>kind \n parametersJson \n inputFingerprint \n toolVersion \n resultJson \n verdict</c> (no trailing newline).
+    /// Summary, pictures, runner and time are not part of it.
+    /// </summary>
+    public static string ComputeContentSha256(string kind, string parametersJson, string inputFingerprint, string toolVersion, string resultJson, string verdict) =>
+        Hashing.Sha256Hex($"{kind}\n{parametersJson}\n{inputFingerprint}\n{toolVersion}\n{resultJson}\n{verdict}");
 }

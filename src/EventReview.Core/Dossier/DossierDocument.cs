@@ -1,0 +1,41 @@
+using System.Text.Json.Serialization;
+
+namespace EventReview.Core.Dossier;
+
+/// <summary>
+/// Everything machine-readable about one case, as written to <c>dossier.json</c> (camelCase, documented in
+/// <c>docs/formats/dossier.md</c>). Times appear twice: as ISO 8601 UTC text (<c>...Utc</c>, 7 fractional digits,
+/// 'Z') and as UTC ticks (<c>...UtcTicks</c>, 100 ns units since 0001-01-01T00:00:00Z), which are what hashes use.
+/// GPS times are integer nanoseconds since the GPS epoch plus decimal seconds as text. Built by
+/// <see cref="DossierBuilder"/> without clock or randomness, so an unchanged case always gives the same document.
+/// </summary>
+/// <param name="SchemaVersion">Always <see cref="DossierDocument.CurrentSchemaVersion"/> for this layout.</param>
+/// <param name="Generator">Program that wrote the document.</param>
+/// <param name="Case">The case summary.</param>
+/// <param name="Arrivals">Arrivals by site code.</param>
+/// <param name="Sites">Network sites used (by arrivals or configuration snapshots), by code.</param>
+/// <param name="Items">Checklist items in section then item order.</param>
+/// <param name="Configurations">Configuration snapshots by site, then capture time.</param>
+/// <param name="Timeline">Every timeline entry by sequence, with every field the hash chain covers.</param>
+/// <param name="ChainHead">Hash of the last timeline entry (the genesis hash for an empty timeline).</param>
+public sealed record DossierDocument(
+    string SchemaVersion,
+    DossierGenerator Generator,
+    DossierCase Case,
+    IReadOnlyList<DossierArrival> Arrivals,
+    IReadOnlyList<DossierSite> Sites,
+    IReadOnlyList<DossierItem> Items,
+    IReadOnlyList<DossierConfiguration> Configurations,
+    IReadOnlyList<DossierTimelineEntry> Timeline,
+    string ChainHead)
+{
+    /// <summary>The schema version this code writes and reads.</summary>
+    public const string CurrentSchemaVersion = "eventreview-dossier/1";
+
+    /// <summary>
+    /// The SVG pictures named in <see cref="DossierComputation.Pictures"/>, keyed by file name ("pictures/1.svg").
+    /// Not part of <c>dossier.json</c>: the exporter writes each as its own file (covered by the manifest).
+    /// </summary>
+    [JsonIgnore]
+    public IReadOnlyDictionary<string, string> PictureSvgs { get; init; } = new Dictionary<string, string>();
+}

@@ -1,0 +1,79 @@
+using System.IO.Compression;
+using System.Text.Json;
+using EventReview.Cli.Commands;
+using EventReview.Core.Dossier;
+using EventReview.Core.Tests.Dossier;
+using EventReview.Dossier;
+
+namespace EventReview.Cli.Tests.Commands;
+
+[Collection("Console")]
+public class DossierCommandTests
+{
+    private static string ExportZip()
+    {
+        var s = SampleCase.Build();
+        var doc = DossierBuilder.Build(s.Case, s.Sites, s.Snapshots);
+        var path = Path.Combine(Path.GetTempPath(), "er-dossier-" + Guid.NewGuid().ToString("N") + ".zip");
+        using (var file = File.Create(path))
+        {
+            DossierExporter.ExportAsync(doc, sha => sha == s.AttachmentSha256 ? new MemoryStream(SampleCase.AttachmentBytes) : null, file).GetAwaiter().GetResult();
+        }
+
+        return path;
+    }
+
+    [Fact]
+    public void Verify_of_a_fresh_export_prints_valid_and_exits_0()
+    {
+        var path = ExportZip();
+
+        var (code, output, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", path);
+
+        Assert.Equal(0, code);
+        Assert.Equal("valid", output.Trim());
+    }
+
+    [Fact]
+    public void Verify_of_an_altered_picture_prints_the_problem_and_exits_1_with_json()
+    {
+        var path = ExportZip();
+        using (var zip = ZipFile.Open(path, ZipArchiveMode.Update))
+        {
+            zip.GetEntry("pictures/1.svg")!.Delete();
+            using var s = zip.CreateEntry("pictures/1.svg").Open();
+            s.Write("<svg xmlns=\"http://www.w3.org/2000/svg\"/>"u8);
+        }
+
+        var (code, output, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", path, "--json");
+
+        Assert.Equal(1, code);
+        using var doc = JsonDocument.Parse(output);
+        Assert.False(doc.RootElement.GetProperty("valid").GetBoolean());
+        var p = Assert.Single(doc.RootElement.GetProperty("problems").EnumerateArray());
+        Assert.Equal("pictures/1.svg", p.GetProperty("file").GetString());
+        Assert.Contains("altered", p.GetProperty("what").GetString());
+    }
+
+    [Fact]
+    public void Verify_of_a_truncated_file_exits_1_with_a_clear_line()
+    {
+        var path = ExportZip();
+        var bytes = File.ReadAllBytes(path);
+        File.WriteAllBytes(path, bytes[..100]);
+
+        var (code, output, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", path);
+
+        Assert.Equal(1, code);
+        Assert.StartsWith("(zip): not a readable ZIP", output.Trim());
+    }
+
+    [Fact]
+    public void Verify_of_a_missing_file_exits_2()
+    {
+        var (code, _, error) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", "/nonexistent/x.zip");
+
+        Assert.Equal(2, code);
+        Assert.Contains("not found", error);
+    }
+}

@@ -1,0 +1,117 @@
+using System.Text;
+using EventReview.Core.Cases;
+using EventReview.Core.Checklists;
+using EventReview.Core.Configuration;
+using EventReview.Core.Evidence;
+using EventReview.Core.Network;
+using EventReview.Core.Time;
+
+namespace EventReview.Core.Tests.Dossier;
+
+/// <summary>
+/// A small case built through the domain methods: three items, a note, an attachment, a link, a computation with
+/// two SVG pictures, signed items, one stale sign-off, a frozen configuration and a later snapshot that drifted.
+/// </summary>
+internal sealed class SampleCase
+{
+    public static readonly DateTimeOffset T0 = new(2031, 3, 14, 9, 26, 53, TimeSpan.Zero);
+
+    public static readonly Actor Coordinator = new("u-coord", "Ada Quill");
+
+    public static readonly Actor Analyst = new("u-anal", "Bram Oster <b>");
+
+    public static readonly Actor Reviewer = new("u-rev", "Cleo Vance");
+
+    public static readonly Actor Second = new("u-sec", "Dario Penn");
+
+    public static readonly byte[] AttachmentBytes = Encoding.UTF8.GetBytes("gps_time,value\n1.0,2.0\n");
+
+    public ReviewCase Case { get; private init; } = null!;
+
+    public IReadOnlyList<Site> Sites { get; private init; } = [];
+
+    public IReadOnlyList<ConfigurationSnapshot> Snapshots { get; private init; } = [];
+
+    public string AttachmentSha256 => Hashing.Sha256Hex(AttachmentBytes);
+
+    public static ChecklistTemplate Template() => new()
+    {
+        Name = "mini-review",
+        Title = "Mini review",
+        Version = 2,
+        Sections =
+        [
+            new TemplateSection
+            {
+                Key = "timing",
+                Title = "Timing",
+                Items =
+                [
+                    new TemplateItem { Key = "timing.delay", Title = "Arrival delays", Guidance = "Check the **delays** against light travel time.", Check = CheckKind.Timing },
+                    new TemplateItem { Key = "timing.notes", Title = "Notes", Guidance = "Anything <script>odd</script>?" },
+                ],
+            },
+            new TemplateSection
+            {
+                Key = "config",
+                Title = "Configuration",
+                Items = [new TemplateItem { Key = "config.frozen", Title = "Frozen configuration", Guidance = "Freeze and compare.", Check = CheckKind.Configuration, Signoffs = 2 }],
+            },
+        ],
+    };
+
+    public static SampleCase Build()
+    {
+        var t = T0;
+        var c = ReviewCase.Open("C31-0314A", GpsTime.FromSeconds(1_931_500_000.25m), "burst-search", "A short loud candidate.",
+            [new CaseArrival("K1", GpsTime.FromSeconds(1_931_500_000.25m), 9.5), new CaseArrival("M2", GpsTime.FromSeconds(1_931_500_000.257m), 7.25)],
+            Template(), Coordinator, t);
+
+        t = t.AddMinutes(5);
+        c.AddEvidence("timing.delay", EvidenceItem.Note("Delay is **7 ms**, within the 10 ms light time.", Analyst, t), Analyst, t);
+        t = t.AddMinutes(1);
+        c.AddEvidence("timing.delay", EvidenceItem.Attachment("../delays.csv", "text/csv", AttachmentBytes.Length, Hashing.Sha256Hex(AttachmentBytes), "Delay table", Analyst, t), Analyst, t);
+        t = t.AddMinutes(1);
+        c.AddEvidence("timing.delay", EvidenceItem.Link("https://logbook.example.org/entry/42", "Log entry", Analyst, t), Analyst, t);
+        t = t.AddMinutes(1);
+        var svg1 = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"10\" height=\"10\"><circle cx=\"5\" cy=\"5\" r=\"4\"/></svg>";
+        var svg2 = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"10\" height=\"10\"><rect width=\"4\" height=\"4\"/></svg>";
+        c.AddComputation("timing.delay", new ComputationRecord(CheckKind.Timing, "{\"sites\":[\"K1\",\"M2\"]}", new string('a', 64), "eventreview-core 0.1.0",
+            "{\"delaySeconds\":0.007}", "consistent", "delay 7.0 ms within 10.0 ms", svg1 + "\n<!--next-->\n" + svg2, Analyst, t), Analyst, t);
+        t = t.AddMinutes(1);
+        c.MarkItemReady("timing.delay", Analyst, t);
+        t = t.AddMinutes(1);
+        c.SignItem("timing.delay", Reviewer, SignOffMeaning.Reviewed, "Delays checked.", c.Item("timing.delay").Fingerprint(), t, GpsTime.FromSeconds(1_931_500_600m));
+
+        // Second item: signed, then more evidence makes the sign-off stale.
+        t = t.AddMinutes(1);
+        c.AddEvidence("timing.notes", EvidenceItem.Note("Nothing odd.", Analyst, t), Analyst, t);
+        c.MarkItemReady("timing.notes", Analyst, t);
+        t = t.AddMinutes(1);
+        c.SignItem("timing.notes", Reviewer, SignOffMeaning.Approved, "Fine.", c.Item("timing.notes").Fingerprint(), t, GpsTime.FromSeconds(1_931_500_700m));
+        t = t.AddMinutes(1);
+        c.AddEvidence("timing.notes", EvidenceItem.Note("Correction: one glitch at 2 s.", Analyst, t), Analyst, t);
+
+        var frozen = ConfigurationSnapshot.Capture("K1", "before the run", new Dictionary<string, string>
+        {
+            ["daq.firmware"] = "4.2.1",
+            ["calibration.version"] = "v17",
+            ["seal.rack3"] = "S-00917",
+        }, Coordinator, T0.AddMinutes(-30));
+        frozen.Freeze(c.Id, T0.AddHours(-1), T0.AddDays(7), "Candidate under review.", Coordinator, T0.AddMinutes(2));
+        var later = ConfigurationSnapshot.Capture("K1", "weekly capture", new Dictionary<string, string>
+        {
+            ["daq.firmware"] = "4.2.2",
+            ["calibration.version"] = "v17",
+            ["filters.sha256"] = "0f00",
+        }, Coordinator, T0.AddDays(2));
+
+        var sites = new List<Site>
+        {
+            new("M2", "Mesa Two", 10.0, 20.0, 100.0, 30.0, 120.0, 1e-4),
+            new("K1", "Knoll One", -5.0, 40.0, 50.0, 10.0, 100.0, 1e-4),
+            new("Z9", "Unused", 0.0, 0.0, 0.0, 0.0, 90.0, 1e-4),
+        };
+        return new SampleCase { Case = c, Sites = sites, Snapshots = [later, frozen] };
+    }
+}
