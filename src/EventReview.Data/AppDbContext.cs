@@ -36,6 +36,10 @@ public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext
 
     public DbSet<ApiToken> ApiTokens => Set<ApiToken>();
 
+    public DbSet<Core.Dossier.DossierExportRecord> DossierExports => Set<Core.Dossier.DossierExportRecord>();
+
+    public DbSet<Core.Configuration.ConfigurationSnapshot> ConfigurationSnapshots => Set<Core.Configuration.ConfigurationSnapshot>();
+
     /// <summary>Loads a whole case aggregate (arrivals, items with evidence, computations, sign-offs, timeline).</summary>
     public IQueryable<ReviewCase> CasesWithEverything() => Cases
         .Include(c => c.Arrivals)

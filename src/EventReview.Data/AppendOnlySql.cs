@@ -24,6 +24,43 @@ public static class AppendOnlySql
         yield return "CREATE TRIGGER er_SignOffs_no_delete BEFORE DELETE ON \"SignOffs\" BEGIN SELECT RAISE(ABORT, 'Sign-offs cannot be deleted'); END;";
     }
 
+    /// <summary>Frozen configuration records can never be edited or deleted (SQLite).</summary>
+    public static IEnumerable<string> FrozenSqliteUp()
+    {
+        yield return "CREATE TRIGGER er_ConfigurationSnapshots_frozen_update BEFORE UPDATE ON \"ConfigurationSnapshots\" WHEN OLD.\"IsFrozen\" = 1 BEGIN SELECT RAISE(ABORT, 'A frozen configuration record cannot be changed'); END;";
+        yield return "CREATE TRIGGER er_ConfigurationSnapshots_frozen_delete BEFORE DELETE ON \"ConfigurationSnapshots\" WHEN OLD.\"IsFrozen\" = 1 BEGIN SELECT RAISE(ABORT, 'A frozen configuration record cannot be deleted'); END;";
+    }
+
+    public static IEnumerable<string> FrozenSqliteDown()
+    {
+        yield return "DROP TRIGGER IF EXISTS er_ConfigurationSnapshots_frozen_update;";
+        yield return "DROP TRIGGER IF EXISTS er_ConfigurationSnapshots_frozen_delete;";
+    }
+
+    /// <summary>Frozen configuration records can never be edited or deleted (PostgreSQL).</summary>
+    public static IEnumerable<string> FrozenPostgresUp()
+    {
+        yield return """
+            CREATE FUNCTION er_frozen_configuration() RETURNS trigger AS $$
+            BEGIN
+              IF OLD."IsFrozen" THEN
+                RAISE EXCEPTION 'A frozen configuration record cannot be %d', lower(TG_OP);
+              END IF;
+              IF TG_OP = 'DELETE' THEN
+                RETURN OLD;
+              END IF;
+              RETURN NEW;
+            END $$ LANGUAGE plpgsql;
+            """;
+        yield return "CREATE TRIGGER er_ConfigurationSnapshots_frozen BEFORE UPDATE OR DELETE ON \"ConfigurationSnapshots\" FOR EACH ROW EXECUTE FUNCTION er_frozen_configuration();";
+    }
+
+    public static IEnumerable<string> FrozenPostgresDown()
+    {
+        yield return "DROP TRIGGER IF EXISTS er_ConfigurationSnapshots_frozen ON \"ConfigurationSnapshots\";";
+        yield return "DROP FUNCTION IF EXISTS er_frozen_configuration();";
+    }
+
     public static IEnumerable<string> SqliteDown()
     {
         foreach (var t in AppendOnlyTables)

@@ -57,6 +57,8 @@ public static class WebServiceCollectionExtensions
         services.AddScoped<NetworkService>();
         services.AddScoped<Services.Checks.TimingCheckService>();
         services.AddSingleton<Services.Checks.CheckJobs>();
+        services.AddScoped<Services.Checks.ConfigurationService>();
+        services.AddScoped<EventReview.Dossier.CaseDossierService>();
         services.AddSingleton<Services.Checks.CaseFiles>();
         Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Timing, typeof(Components.Checks.TimingRunner));
         Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Timing, typeof(Components.Checks.TimingResultView));

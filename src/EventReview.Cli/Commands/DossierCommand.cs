@@ -14,6 +14,7 @@ public static class DossierCommand
     {
         var command = new Command("dossier", "Work with case dossiers (ZIP exports).");
         command.Subcommands.Add(Verify());
+        command.Subcommands.Add(Export());
         return command;
     }
 
@@ -60,6 +61,61 @@ public static class DossierCommand
             }
 
             return result.Valid ? CliOutput.Success : CliOutput.Negative;
+        });
+        return command;
+    }
+
+    private static Command Export()
+    {
+        var data = new DataOptions();
+        var caseId = new Option<int?>("--case") { Description = "Numeric id of the case (see `cases list`)." };
+        var output = new Option<string>("--out") { Description = "Path of the ZIP to write." };
+        var command = new Command("export", "Export a case as a dossier ZIP (index.html, dossier.json, summary.pdf, attachments, pictures, manifest.json).");
+        command.Options.Add(caseId);
+        command.Options.Add(output);
+        data.AddTo(command);
+        command.SetAction(async (parse, ct) =>
+        {
+            if (parse.GetValue(caseId) is not { } id || string.IsNullOrWhiteSpace(parse.GetValue(output)))
+            {
+                return CliOutput.Fail("--case and --out are required.");
+            }
+
+            var path = Path.GetFullPath(parse.GetValue(output)!);
+            try
+            {
+                await using var provider = await data.OpenAsync(parse);
+                var service = new EventReview.Dossier.CaseDossierService(
+                    Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<Microsoft.EntityFrameworkCore.IDbContextFactory<EventReview.Data.AppDbContext>>(provider),
+                    Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<EventReview.Data.AttachmentStore>(provider),
+                    TimeProvider.System);
+                var temp = path + ".partial";
+                EventReview.Core.Dossier.DossierExportRecord record;
+                await using (var file = File.Create(temp))
+                {
+                    record = await service.ExportAsync(id, new EventReview.Core.Cases.Actor("cli", "command line"), file, ct);
+                }
+
+                File.Move(temp, path, overwrite: true);
+                if (parse.GetValue(data.Json))
+                {
+                    CliOutput.WriteJson(new { file = path, manifestSha256 = record.ManifestSha256, chainHead = record.ChainHead, sizeBytes = record.SizeBytes });
+                }
+                else
+                {
+                    Console.WriteLine($"Wrote {path} ({record.SizeBytes} bytes); manifest sha256 {record.ManifestSha256}");
+                }
+
+                return CliOutput.Success;
+            }
+            catch (KeyNotFoundException ex)
+            {
+                return CliOutput.Fail(ex.Message);
+            }
+            catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or InvalidDataException)
+            {
+                return CliOutput.Fail($"{path}: {ex.Message}");
+            }
         });
         return command;
     }

@@ -118,6 +118,23 @@ public static class CaseEndpoints
             return s is null ? Results.NotFound() : Results.File(s, "application/octet-stream", string.IsNullOrWhiteSpace(name) ? sha : Path.GetFileName(name));
         }).RequireAuthorization(Policies.Read);
 
+        app.MapGet("/cases/{id:int}/dossier.zip", async (int id, ClaimsPrincipal user, EventReview.Dossier.CaseDossierService dossiers, CaseService cases, HttpContext http) =>
+        {
+            ReviewCase c;
+            try
+            {
+                c = await cases.GetAsync(user, id);
+            }
+            catch (KeyNotFoundException ex)
+            {
+                return ApiResults.Problem(StatusCodes.Status404NotFound, "Not found", ex.Message);
+            }
+
+            using var buffer = new MemoryStream();
+            await dossiers.ExportAsync(id, user.ToActor(), buffer, http.RequestAborted);
+            return Results.File(buffer.ToArray(), "application/zip", $"{c.CandidateId}-dossier.zip");
+        }).RequireAuthorization(Policies.Read);
+
         app.MapGet("/network.json", async (NetworkService network) =>
         {
             var n = await network.GetAsync();

@@ -222,7 +222,27 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
         }
     }
 
-    private async Task<ReviewCase> MutateAsync(int caseId, string? itemKey, int? expectedItemVersion, Action<ReviewCase, DateTimeOffset> change, CancellationToken ct)
+    /// <summary>
+    /// Attaches a computation record made inside the same database transaction as other changes (e.g. freezing a
+    /// configuration record): <paramref name="make"/> gets the context and the time, may change other tracked entities,
+    /// and returns the record. Everything is saved together or not at all.
+    /// </summary>
+    public Task<ReviewCase> AddComputationWithAsync(ClaimsPrincipal user, string policy, int caseId, string itemKey,
+        Func<AppDbContext, ReviewCase, DateTimeOffset, Task<ComputationRecord>> make, CancellationToken ct = default)
+    {
+        Permissions.Require(user, policy, "do this");
+        var actor = user.ToActor();
+        return MutateCoreAsync(caseId, itemKey, null, async (db, c, now) => c.AddComputation(itemKey, await make(db, c, now), actor, now), ct);
+    }
+
+    private Task<ReviewCase> MutateAsync(int caseId, string? itemKey, int? expectedItemVersion, Action<ReviewCase, DateTimeOffset> change, CancellationToken ct) =>
+        MutateCoreAsync(caseId, itemKey, expectedItemVersion, (_, c, now) =>
+        {
+            change(c, now);
+            return Task.CompletedTask;
+        }, ct);
+
+    private async Task<ReviewCase> MutateCoreAsync(int caseId, string? itemKey, int? expectedItemVersion, Func<AppDbContext, ReviewCase, DateTimeOffset, Task> change, CancellationToken ct)
     {
         for (var attempt = 1; ; attempt++)
         {
@@ -239,7 +259,7 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
                 }
             }
 
-            change(c, RecordClock.Normalize(clock.GetUtcNow()));
+            await change(db, c, RecordClock.Normalize(clock.GetUtcNow()));
             try
             {
                 await db.SaveChangesAsync(ct);

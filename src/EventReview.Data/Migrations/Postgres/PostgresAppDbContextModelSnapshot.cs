@@ -267,6 +267,125 @@ namespace EventReview.Data.Migrations.Postgres
                     b.ToTable("ChecklistItems", (string)null);
                 });
 
+            modelBuilder.Entity("EventReview.Core.Configuration.ConfigurationSnapshot", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<DateTimeOffset>("CapturedAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("CapturedBy")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("CapturedByName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.Property<string>("Fingerprint")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<DateTimeOffset?>("FreezeFrom")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("FreezeReason")
+                        .HasMaxLength(2000)
+                        .HasColumnType("character varying(2000)");
+
+                    b.Property<DateTimeOffset?>("FreezeUntil")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<DateTimeOffset?>("FrozenAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("FrozenBy")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("FrozenByName")
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.Property<bool>("IsFrozen")
+                        .HasColumnType("boolean");
+
+                    b.Property<string>("ItemsJson")
+                        .IsRequired()
+                        .HasColumnType("text");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.Property<int?>("ReviewCaseId")
+                        .HasColumnType("integer");
+
+                    b.Property<string>("SiteCode")
+                        .IsRequired()
+                        .HasMaxLength(8)
+                        .HasColumnType("character varying(8)");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ReviewCaseId");
+
+                    b.HasIndex("SiteCode", "CapturedAt");
+
+                    b.ToTable("ConfigurationSnapshots", (string)null);
+                });
+
+            modelBuilder.Entity("EventReview.Core.Dossier.DossierExportRecord", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<string>("ChainHead")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<DateTimeOffset>("ExportedAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("ExportedBy")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("ExportedByName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.Property<string>("ManifestSha256")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<int>("ReviewCaseId")
+                        .HasColumnType("integer");
+
+                    b.Property<long>("SizeBytes")
+                        .HasColumnType("bigint");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ReviewCaseId");
+
+                    b.ToTable("DossierExports", (string)null);
+                });
+
             modelBuilder.Entity("EventReview.Core.Evidence.ComputationRecord", b =>
                 {
                     b.Property<int>("Id")
@@ -783,6 +902,23 @@ namespace EventReview.Data.Migrations.Postgres
                 {
                     b.HasOne("EventReview.Core.Cases.ReviewCase", null)
                         .WithMany("Items")
+                        .HasForeignKey("ReviewCaseId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("EventReview.Core.Configuration.ConfigurationSnapshot", b =>
+                {
+                    b.HasOne("EventReview.Core.Cases.ReviewCase", null)
+                        .WithMany()
+                        .HasForeignKey("ReviewCaseId")
+                        .OnDelete(DeleteBehavior.Restrict);
+                });
+
+            modelBuilder.Entity("EventReview.Core.Dossier.DossierExportRecord", b =>
+                {
+                    b.HasOne("EventReview.Core.Cases.ReviewCase", null)
+                        .WithMany()
                         .HasForeignKey("ReviewCaseId")
                         .OnDelete(DeleteBehavior.Restrict)
                         .IsRequired();

@@ -254,6 +254,121 @@ namespace EventReview.Data.Migrations.Sqlite
                     b.ToTable("ChecklistItems", (string)null);
                 });
 
+            modelBuilder.Entity("EventReview.Core.Configuration.ConfigurationSnapshot", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<long>("CapturedAt")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("CapturedBy")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("CapturedByName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Fingerprint")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long?>("FreezeFrom")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("FreezeReason")
+                        .HasMaxLength(2000)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long?>("FreezeUntil")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<long?>("FrozenAt")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("FrozenBy")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("FrozenByName")
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<bool>("IsFrozen")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("ItemsJson")
+                        .IsRequired()
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int?>("ReviewCaseId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("SiteCode")
+                        .IsRequired()
+                        .HasMaxLength(8)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ReviewCaseId");
+
+                    b.HasIndex("SiteCode", "CapturedAt");
+
+                    b.ToTable("ConfigurationSnapshots", (string)null);
+                });
+
+            modelBuilder.Entity("EventReview.Core.Dossier.DossierExportRecord", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("ChainHead")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("ExportedAt")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("ExportedBy")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("ExportedByName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("ManifestSha256")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int>("ReviewCaseId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<long>("SizeBytes")
+                        .HasColumnType("INTEGER");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ReviewCaseId");
+
+                    b.ToTable("DossierExports", (string)null);
+                });
+
             modelBuilder.Entity("EventReview.Core.Evidence.ComputationRecord", b =>
                 {
                     b.Property<int>("Id")
@@ -754,6 +869,23 @@ namespace EventReview.Data.Migrations.Sqlite
                 {
                     b.HasOne("EventReview.Core.Cases.ReviewCase", null)
                         .WithMany("Items")
+                        .HasForeignKey("ReviewCaseId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
+                });
+
+            modelBuilder.Entity("EventReview.Core.Configuration.ConfigurationSnapshot", b =>
+                {
+                    b.HasOne("EventReview.Core.Cases.ReviewCase", null)
+                        .WithMany()
+                        .HasForeignKey("ReviewCaseId")
+                        .OnDelete(DeleteBehavior.Restrict);
+                });
+
+            modelBuilder.Entity("EventReview.Core.Dossier.DossierExportRecord", b =>
+                {
+                    b.HasOne("EventReview.Core.Cases.ReviewCase", null)
+                        .WithMany()
                         .HasForeignKey("ReviewCaseId")
                         .OnDelete(DeleteBehavior.Restrict)
                         .IsRequired();
