@@ -38,7 +38,7 @@ public class EvidenceFingerprintTests
         var baseline = EvidenceFingerprint.Compute([a], []);
 
         Assert.NotEqual(baseline, EvidenceFingerprint.Compute([EvidenceItem.Note("two", People.ReviewerA, Clock.T0)], []));
-        Assert.NotEqual(baseline, EvidenceFingerprint.Compute([EvidenceItem.Note("one", People.ReviewerA, Clock.T0.AddTicks(1))], []));
+        Assert.NotEqual(baseline, EvidenceFingerprint.Compute([EvidenceItem.Note("one", People.ReviewerA, Clock.T0.AddMilliseconds(1))], []));
         Assert.NotEqual(baseline, EvidenceFingerprint.Compute([a, EvidenceItem.Note("one", People.ReviewerA, Clock.T0)], []));
         Assert.Equal(baseline, EvidenceFingerprint.Compute([EvidenceItem.Note("one", People.ReviewerB, Clock.T0)], []));
     }
