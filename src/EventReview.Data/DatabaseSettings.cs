@@ -17,7 +17,7 @@ public sealed record DatabaseSettings(DatabaseProvider Provider, string Connecti
     public static DatabaseSettings ForSqlite(string dataDirectory)
     {
         var full = Path.GetFullPath(dataDirectory);
-        return new DatabaseSettings(DatabaseProvider.Sqlite, $"Data Source={Path.Combine(full, SqliteFileName)};Cache=Shared;Pooling=True", full);
+        return new DatabaseSettings(DatabaseProvider.Sqlite, $"Data Source={Path.Combine(full, SqliteFileName)};Pooling=True", full);
     }
 
     /// <summary>Builds settings from configuration values (any may be null).</summary>

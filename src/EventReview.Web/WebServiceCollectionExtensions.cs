@@ -74,7 +74,8 @@ public static class WebServiceCollectionExtensions
 
     private static Task ApiAware(Microsoft.AspNetCore.Authentication.RedirectContext<Microsoft.AspNetCore.Authentication.Cookies.CookieAuthenticationOptions> ctx, int status)
     {
-        if (ctx.Request.Path.StartsWithSegments("/api"))
+        // Machine clients (the API and its OpenAPI document) get a status code, never a redirect to the sign-in page.
+        if (ctx.Request.Path.StartsWithSegments("/api") || ctx.Request.Path.StartsWithSegments("/openapi"))
         {
             ctx.Response.StatusCode = status;
             return Task.CompletedTask;

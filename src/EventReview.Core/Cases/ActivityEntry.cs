@@ -28,7 +28,7 @@ public sealed class ActivityEntry
     {
         CandidateId = candidateId;
         Sequence = sequence;
-        At = at;
+        At = Time.RecordedTime.Normalize(at);
         ActorId = actor.UserId;
         ActorName = actor.DisplayName;
         Kind = kind;
@@ -48,6 +48,7 @@ public sealed class ActivityEntry
     /// <summary>1, 2, 3, ... within the case.</summary>
     public int Sequence { get; private set; }
 
+    /// <summary>When, UTC, to whole milliseconds (<see cref="Time.RecordedTime"/>).</summary>
     public DateTimeOffset At { get; private set; }
 
     public string ActorId { get; private set; }

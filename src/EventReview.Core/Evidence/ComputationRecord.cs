@@ -40,7 +40,7 @@ public sealed class ComputationRecord
         PicturesSvg = picturesSvg;
         RunBy = by.UserId;
         RunByName = by.DisplayName;
-        RunAt = at;
+        RunAt = Time.RecordedTime.Normalize(at);
     }
 
     public int Id { get; private set; }
@@ -70,6 +70,7 @@ public sealed class ComputationRecord
 
     public string RunByName { get; private set; }
 
+    /// <summary>When it ran, UTC, to whole milliseconds (<see cref="Time.RecordedTime"/>).</summary>
     public DateTimeOffset RunAt { get; private set; }
 
     /// <summary>SHA-256 over the content hash, pictures, summary, who ran it and when: recorded in the case timeline.</summary>

@@ -25,7 +25,7 @@ public sealed class EvidenceItem
         Url = url;
         AddedBy = by.UserId;
         AddedByName = by.DisplayName;
-        AddedAt = at;
+        AddedAt = Time.RecordedTime.Normalize(at);
     }
 
     public int Id { get; private set; }
@@ -53,6 +53,7 @@ public sealed class EvidenceItem
 
     public string AddedByName { get; private set; }
 
+    /// <summary>When it was added, UTC, to whole milliseconds (<see cref="Time.RecordedTime"/>).</summary>
     public DateTimeOffset AddedAt { get; private set; }
 
     /// <summary>

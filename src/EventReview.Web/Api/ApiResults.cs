@@ -11,6 +11,9 @@ public static class ApiResults
     public static readonly JsonSerializerOptions Json = new(JsonSerializerDefaults.Web)
     {
         AllowTrailingCommas = false,
+
+        // The web defaults read numbers from strings; a GPS time sent as "123.4" is malformed and must be named.
+        NumberHandling = System.Text.Json.Serialization.JsonNumberHandling.Strict,
         UnmappedMemberHandling = System.Text.Json.Serialization.JsonUnmappedMemberHandling.Skip,
     };
 

@@ -1,0 +1,33 @@
+using EventReview.Data.Tests.Fixtures;
+using Microsoft.EntityFrameworkCore;
+
+namespace EventReview.Data.Tests;
+
+/// <summary>The shared data tests over a real SQLite file in a fresh temp folder per test, plus SQLite-only checks.</summary>
+public sealed class SqliteDataStoreTests : DataStoreTests
+{
+    private readonly TempFolder _folder = new("er-sqlite");
+
+    protected override Task<DatabaseSettings> SettingsAsync() => Task.FromResult(DatabaseSettings.ForSqlite(_folder.Path));
+
+    public override Task DisposeAsync()
+    {
+        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+        _folder.Dispose();
+        return Task.CompletedTask;
+    }
+
+    [Fact]
+    public async Task The_database_file_lives_in_the_data_folder_in_wal_mode_next_to_the_attachment_folder()
+    {
+        await using var db = Factory.CreateDbContext();
+        var connection = db.Database.GetDbConnection();
+        await connection.OpenAsync();
+        await using var cmd = connection.CreateCommand();
+        cmd.CommandText = "PRAGMA journal_mode;";
+
+        Assert.Equal("wal", (string?)await cmd.ExecuteScalarAsync());
+        Assert.True(File.Exists(Path.Combine(_folder.Path, DatabaseSettings.SqliteFileName)));
+        Assert.True(Directory.Exists(Path.Combine(_folder.Path, "attachments")));
+    }
+}

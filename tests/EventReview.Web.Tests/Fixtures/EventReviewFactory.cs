@@ -1,0 +1,147 @@
+using System.Net;
+using System.Net.Http.Headers;
+using System.Text.RegularExpressions;
+using EventReview.Data;
+using EventReview.Data.Auth;
+using EventReview.Web.Demo;
+using Microsoft.AspNetCore.Hosting;
+using Microsoft.AspNetCore.Mvc.Testing;
+using Microsoft.Extensions.DependencyInjection;
+
+namespace EventReview.Web.Tests.Fixtures;
+
+/// <summary>
+/// The real app over a real SQLite file in a temp folder of its own (one per test class), started in Development
+/// with the demo seeded: the invented network, the four demo accounts and three cases. Gives ready HTTP clients per
+/// role: cookie sign-in through the real form (with antiforgery) and an API token made through <see cref="AccountAdmin"/>.
+/// </summary>
+public partial class EventReviewFactory : WebApplicationFactory<Program>, IAsyncLifetime
+{
+    /// <summary>The small upload limit configured for tests (bytes).</summary>
+    public const long MaxUploadBytes = 64 * 1024;
+
+    private readonly Dictionary<string, HttpClient> _clients = new(StringComparer.Ordinal);
+    private readonly SemaphoreSlim _lock = new(1, 1);
+
+    public EventReviewFactory()
+    {
+        DataDirectory = Path.Combine(Path.GetTempPath(), $"er-web-{Guid.NewGuid():N}");
+        Directory.CreateDirectory(DataDirectory);
+    }
+
+    public string DataDirectory { get; }
+
+    public string AttachmentDirectory => Path.Combine(DataDirectory, "attachments");
+
+    protected override void ConfigureWebHost(IWebHostBuilder builder)
+    {
+        builder.UseEnvironment("Development");
+        builder.UseSetting("EventReview:DataDirectory", DataDirectory);
+        builder.UseSetting("EventReview:SeedDemo", "true");
+        builder.UseSetting("EventReview:MaxUploadBytes", MaxUploadBytes.ToString(System.Globalization.CultureInfo.InvariantCulture));
+    }
+
+    Task IAsyncLifetime.InitializeAsync()
+    {
+        _ = Server; // start the app (migrate and seed) once, before the first test
+        return Task.CompletedTask;
+    }
+
+    async Task IAsyncLifetime.DisposeAsync()
+    {
+        foreach (var c in _clients.Values)
+        {
+            c.Dispose();
+        }
+
+        await base.DisposeAsync();
+        Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();
+        try
+        {
+            Directory.Delete(DataDirectory, recursive: true);
+        }
+        catch (IOException)
+        {
+        }
+    }
+
+    /// <summary>A client that follows no redirects and keeps no identity.</summary>
+    public HttpClient Anonymous() => CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = true });
+
+    /// <summary>A signed-in client for "observer", "reviewer" (demo reviewer A), "reviewer-b", "coordinator" or "token".</summary>
+    public async Task<HttpClient> As(string who)
+    {
+        await _lock.WaitAsync();
+        try
+        {
+            if (!_clients.TryGetValue(who, out var client))
+            {
+                client = who switch
+                {
+                    Who.Token => await TokenClientAsync(),
+                    Who.Anonymous => Anonymous(),
+                    _ => await SignedInClientAsync(AccountFor(who)),
+                };
+                _clients[who] = client;
+            }
+
+            return client;
+        }
+        finally
+        {
+            _lock.Release();
+        }
+    }
+
+    /// <summary>The demo account for a role name used in tests.</summary>
+    public static DemoAccounts.Account AccountFor(string who) => who switch
+    {
+        Who.Observer => DemoAccounts.All.Single(a => a.Role == Roles.Observer),
+        Who.Reviewer => DemoAccounts.All.Single(a => a.DisplayName == "Demo Reviewer A"),
+        Who.ReviewerB => DemoAccounts.All.Single(a => a.DisplayName == "Demo Reviewer B"),
+        Who.Coordinator => DemoAccounts.All.Single(a => a.Role == Roles.Coordinator),
+        _ => throw new ArgumentOutOfRangeException(nameof(who), who, "not a person"),
+    };
+
+    /// <summary>Signs in through GET /signin and POST /account/signin with the antiforgery token; returns the client with the auth cookie.</summary>
+    public async Task<HttpClient> SignedInClientAsync(DemoAccounts.Account account)
+    {
+        var client = Anonymous();
+        var form = await client.GetStringAsync("/signin");
+        var token = AntiforgeryInput().Match(form);
+        if (!token.Success)
+        {
+            throw new InvalidOperationException("The sign-in page has no __RequestVerificationToken input.");
+        }
+
+        using var post = await client.PostAsync("/account/signin", new FormUrlEncodedContent(new Dictionary<string, string>
+        {
+            ["__RequestVerificationToken"] = WebUtility.HtmlDecode(token.Groups["value"].Value),
+            ["email"] = account.Email,
+            ["password"] = account.Password,
+            ["returnUrl"] = "/cases",
+        }));
+        if (post.StatusCode != HttpStatusCode.Redirect || post.Headers.Location?.OriginalString != "/cases")
+        {
+            throw new InvalidOperationException($"Sign-in as {account.Email} failed: {(int)post.StatusCode} to {post.Headers.Location}.");
+        }
+
+        return client;
+    }
+
+    /// <summary>Creates an API token the way the tokens page and CLI do, and a client that sends it as a bearer token.</summary>
+    public async Task<HttpClient> TokenClientAsync(string name = "test pipeline")
+    {
+        using var scope = Services.CreateScope();
+        var (_, secret) = await scope.ServiceProvider.GetRequiredService<AccountAdmin>().CreateTokenAsync(name, "tests");
+        var client = Anonymous();
+        client.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", secret);
+        return client;
+    }
+
+    /// <summary>A fresh context on the app's database, for checking what was stored.</summary>
+    public AppDbContext Db() => Services.GetRequiredService<AppDbContextFactory>().CreateDbContext();
+
+    [GeneratedRegex("<input[^>]*name=\"__RequestVerificationToken\"[^>]*value=\"(?<value>[^\"]+)\"", RegexOptions.IgnoreCase)]
+    private static partial Regex AntiforgeryInput();
+}
