@@ -46,7 +46,7 @@ public class RefusedChangeTests
         {
             "four-eyes" => () => c.SignNow("alpha.one", People.ReviewerA, at),
             "second signature by the same person" => () => c.SignNow("alpha.two", People.ReviewerB, at),
-            "old fingerprint" => () => c.SignItem("alpha.one", People.ReviewerC, SignOffMeaning.Reviewed, "ok", EvidenceFingerprint.Compute([], []), at, gps),
+            "old fingerprint" => () => c.SignItem("alpha.one", People.ReviewerC, SignOffMeaning.Reviewed, "ok", EvidenceFingerprint.Compute(Array.Empty<EvidenceItem>(), Array.Empty<ComputationRecord>()), at, gps),
             "sign an open item" => () => c.SignNow("beta.one", People.ReviewerC, at),
             "ready without evidence" => () => c.MarkItemReady("beta.one", People.ReviewerA, at),
             "withdraw a signed item" => () => c.WithdrawItem("alpha.two", People.ReviewerA, at),

@@ -12,7 +12,7 @@ public class EvidenceFingerprintEntityTests
     [Fact]
     public void An_item_without_evidence_has_the_fingerprint_of_the_header_line_alone()
     {
-        Assert.Equal(Sha("eventreview-evidence-v1\n"), EvidenceFingerprint.Compute([], []));
+        Assert.Equal(Sha("eventreview-evidence-v1\n"), EvidenceFingerprint.Compute(Array.Empty<EvidenceItem>(), Array.Empty<ComputationRecord>()));
     }
 
     [Fact]
@@ -46,9 +46,9 @@ public class EvidenceFingerprintEntityTests
     [Fact]
     public void A_frozen_configuration_fingerprint_is_part_of_the_evidence_when_given()
     {
-        var without = EvidenceFingerprint.Compute([], []);
+        var without = EvidenceFingerprint.Compute(Array.Empty<EvidenceItem>(), Array.Empty<ComputationRecord>());
 
-        var with = EvidenceFingerprint.Compute([], [], new string('9', 64));
+        var with = EvidenceFingerprint.Compute(Array.Empty<EvidenceItem>(), Array.Empty<ComputationRecord>(), new string('9', 64));
 
         Assert.NotEqual(without, with);
         Assert.Equal(Sha("eventreview-evidence-v1\nconfiguration|" + new string('9', 64) + "\n"), with);
