@@ -40,7 +40,7 @@ public sealed class CaseDossierService(IDbContextFactory<AppDbContext> dbFactory
         buffer.Position = 0;
         await buffer.CopyToAsync(output, ct);
         var record = new DossierExportRecord(caseId, manifestSha, c.Activity.MaxBy(a => a.Sequence)?.Hash ?? ActivityEntry.GenesisHash, buffer.Length, by,
-            RecordClock.Normalize(clock.GetUtcNow()));
+            EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
         db.DossierExports.Add(record);
         await db.SaveChangesAsync(ct);
         return record;

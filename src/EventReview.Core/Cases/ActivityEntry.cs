@@ -35,7 +35,7 @@ public sealed class ActivityEntry
         ItemKey = itemKey;
         Text = text;
         PreviousHash = previousHash;
-        Hash = ComputeHash(candidateId, sequence, at, ActorId, ActorName, kind, itemKey, text, previousHash);
+        Hash = ComputeHash(candidateId, sequence, At, ActorId, ActorName, kind, itemKey, text, previousHash);
     }
 
     public long Id { get; private set; }

@@ -99,7 +99,7 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
         }
 
         var c = ReviewCase.Open(request.CandidateId, GpsTime.FromSeconds(request.GpsTime.Value), request.Search ?? string.Empty,
-            request.Summary ?? string.Empty, arrivals, template, user.ToActor(), RecordClock.Normalize(clock.GetUtcNow()));
+            request.Summary ?? string.Empty, arrivals, template, user.ToActor(), EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
         db.Cases.Add(c);
         try
         {
@@ -259,7 +259,7 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
                 }
             }
 
-            await change(db, c, RecordClock.Normalize(clock.GetUtcNow()));
+            await change(db, c, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
             try
             {
                 await db.SaveChangesAsync(ct);

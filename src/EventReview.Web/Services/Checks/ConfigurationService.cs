@@ -53,7 +53,7 @@ public sealed class ConfigurationService(IDbContextFactory<AppDbContext> dbFacto
         }
 
         var actor = user.ToActor();
-        var snapshot = ConfigurationSnapshot.Capture(siteCode, string.IsNullOrWhiteSpace(label) ? fileName : label.Trim(), items, actor, RecordClock.Normalize(clock.GetUtcNow()), c.Id);
+        var snapshot = ConfigurationSnapshot.Capture(siteCode, string.IsNullOrWhiteSpace(label) ? fileName : label.Trim(), items, actor, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()), c.Id);
         await using (var db = await dbFactory.CreateDbContextAsync(ct))
         {
             db.ConfigurationSnapshots.Add(snapshot);
@@ -89,7 +89,7 @@ public sealed class ConfigurationService(IDbContextFactory<AppDbContext> dbFacto
         {
             var snapshot = await db.ConfigurationSnapshots.FirstOrDefaultAsync(s => s.Id == snapshotId, ct)
                 ?? throw new KeyNotFoundException($"There is no configuration record with id {snapshotId}.");
-            snapshot.Freeze(rc.Id, RecordClock.Normalize(from), RecordClock.Normalize(until), reason, actor, now);
+            snapshot.Freeze(rc.Id, EventReview.Core.Time.RecordedTime.Normalize(from), EventReview.Core.Time.RecordedTime.Normalize(until), reason, actor, now);
             var result = new
             {
                 site = snapshot.SiteCode,
