@@ -36,6 +36,8 @@ public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext
 
     public DbSet<ApiToken> ApiTokens => Set<ApiToken>();
 
+    public DbSet<Core.Injections.SealedInjectionRecord> SealedInjectionRecords => Set<Core.Injections.SealedInjectionRecord>();
+
     /// <summary>Loads a whole case aggregate (arrivals, items with evidence, computations, sign-offs, timeline).</summary>
     public IQueryable<ReviewCase> CasesWithEverything() => Cases
         .Include(c => c.Arrivals)
