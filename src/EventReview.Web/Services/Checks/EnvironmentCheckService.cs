@@ -72,7 +72,7 @@ public sealed class EnvironmentCheckService(CaseService cases, NetworkService ne
                 continue;
             }
 
-            var (table, f) = await CheckInputs.ReadTextAsync(files, attached, match.Sha256, $"coupling function of {sensor.Site}:{sensor.Channel}", r => FrequencyTable.Parse(r, "coupling"), ct);
+            var (table, f) = await CheckInputs.ReadTextAsync(files, attached, match.Sha256, $"coupling function of {sensor.Channel} ({sensor.Site})", r => FrequencyTable.Parse(r, "coupling"), ct);
             refs.Add(f);
             coupling[EnvironmentLookupInput.Key(sensor.Site, sensor.Channel)] = table;
         }
@@ -152,6 +152,6 @@ public sealed class EnvironmentCheckService(CaseService cases, NetworkService ne
             }
         }
 
-        return (max, "network (largest light-travel time between the case's sites)");
+        return (Math.Round(max, 6), "network (largest light-travel time between the case's sites)");
     }
 }
