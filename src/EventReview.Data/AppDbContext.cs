@@ -40,6 +40,8 @@ public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext
 
     public DbSet<Core.Configuration.ConfigurationSnapshot> ConfigurationSnapshots => Set<Core.Configuration.ConfigurationSnapshot>();
 
+    public DbSet<Core.Injections.SealedInjectionRecord> SealedInjectionRecords => Set<Core.Injections.SealedInjectionRecord>();
+
     /// <summary>Loads a whole case aggregate (arrivals, items with evidence, computations, sign-offs, timeline).</summary>
     public IQueryable<ReviewCase> CasesWithEverything() => Cases
         .Include(c => c.Arrivals)

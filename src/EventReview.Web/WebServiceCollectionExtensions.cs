@@ -63,6 +63,17 @@ public static class WebServiceCollectionExtensions
         Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Timing, typeof(Components.Checks.TimingRunner));
         Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Timing, typeof(Components.Checks.TimingResultView));
         services.AddScoped<DemoSeeder>();
+        services.AddScoped<Services.Checks.EnvironmentCheckService>();
+        services.AddScoped<Services.Checks.InjectionCheckService>();
+        services.AddScoped<Services.Checks.SealedRecordService>();
+        services.AddScoped<Services.Checks.ChainCheckService>();
+        Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Environment, typeof(Components.Checks.EnvironmentRunner));
+        Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Environment, typeof(Components.Checks.EnvironmentResultView));
+        Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Injections, typeof(Components.Checks.InjectionsRunner));
+        Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Injections, typeof(Components.Checks.InjectionsResultView));
+        Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Chain, typeof(Components.Checks.ChainRunner));
+        Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Chain, typeof(Components.Checks.ChainResultView));
+        services.AddScoped<IDemoSeedStep, LocalCausesDemoStep>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
         services.AddMudServices();

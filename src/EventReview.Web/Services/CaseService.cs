@@ -205,7 +205,11 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
     {
         Permissions.Require(user, Policies.Coordinate, "close cases");
         var actor = user.ToActor();
-        return MutateAsync(caseId, null, null, (c, now) => c.Close(outcome, statement, actor, now), ct);
+        return MutateCoreAsync(caseId, null, null, async (db, c, now) =>
+        {
+            await Checks.SealedRecordService.EnsureNoUnopenedSealsAsync(db, outcome, ct);
+            c.Close(outcome, statement, actor, now);
+        }, ct);
     }
 
     private async Task EnsureItemExistsAsync(int caseId, string itemKey, CancellationToken ct)

@@ -569,6 +569,71 @@ namespace EventReview.Data.Migrations.Postgres
                     b.ToTable("SignOffs", (string)null);
                 });
 
+            modelBuilder.Entity("EventReview.Core.Injections.SealedInjectionRecord", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<string>("Commitment")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.Property<DateTimeOffset?>("OpenedAt")
+                        .IsConcurrencyToken()
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("OpenedById")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("OpenedByName")
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.Property<int?>("OpenedInCaseId")
+                        .HasColumnType("integer");
+
+                    b.Property<byte[]>("OpenedRecord")
+                        .HasColumnType("bytea");
+
+                    b.Property<string>("OpenedSalt")
+                        .HasMaxLength(256)
+                        .HasColumnType("character varying(256)");
+
+                    b.Property<string>("OpenedSummary")
+                        .HasMaxLength(1000)
+                        .HasColumnType("character varying(1000)");
+
+                    b.Property<DateTimeOffset>("SealedAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("SealedById")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("SealedByName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Commitment")
+                        .IsUnique();
+
+                    b.ToTable("SealedInjectionRecords", (string)null);
+                });
+
             modelBuilder.Entity("EventReview.Core.Network.DetectorNetwork", b =>
                 {
                     b.Property<int>("Id")

@@ -12,8 +12,8 @@ using Npgsql.EntityFrameworkCore.PostgreSQL.Metadata;
 namespace EventReview.Data.Migrations.Postgres
 {
     [DbContext(typeof(PostgresAppDbContext))]
-    [Migration("20261202021407_ConfigurationSnapshots")]
-    partial class ConfigurationSnapshots
+    [Migration("20261202025129_ReviewRecords")]
+    partial class ReviewRecords
     {
         /// <inheritdoc />
         protected override void BuildTargetModel(ModelBuilder modelBuilder)
@@ -345,6 +345,50 @@ namespace EventReview.Data.Migrations.Postgres
                     b.ToTable("ConfigurationSnapshots", (string)null);
                 });
 
+            modelBuilder.Entity("EventReview.Core.Dossier.DossierExportRecord", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<string>("ChainHead")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<DateTimeOffset>("ExportedAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("ExportedBy")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("ExportedByName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.Property<string>("ManifestSha256")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<int>("ReviewCaseId")
+                        .HasColumnType("integer");
+
+                    b.Property<long>("SizeBytes")
+                        .HasColumnType("bigint");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("ReviewCaseId");
+
+                    b.ToTable("DossierExports", (string)null);
+                });
+
             modelBuilder.Entity("EventReview.Core.Evidence.ComputationRecord", b =>
                 {
                     b.Property<int>("Id")
@@ -526,6 +570,71 @@ namespace EventReview.Data.Migrations.Postgres
                     b.HasIndex("ChecklistItemId");
 
                     b.ToTable("SignOffs", (string)null);
+                });
+
+            modelBuilder.Entity("EventReview.Core.Injections.SealedInjectionRecord", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("integer");
+
+                    NpgsqlPropertyBuilderExtensions.UseIdentityByDefaultColumn(b.Property<int>("Id"));
+
+                    b.Property<string>("Commitment")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.Property<DateTimeOffset?>("OpenedAt")
+                        .IsConcurrencyToken()
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("OpenedById")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("OpenedByName")
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.Property<int?>("OpenedInCaseId")
+                        .HasColumnType("integer");
+
+                    b.Property<byte[]>("OpenedRecord")
+                        .HasColumnType("bytea");
+
+                    b.Property<string>("OpenedSalt")
+                        .HasMaxLength(256)
+                        .HasColumnType("character varying(256)");
+
+                    b.Property<string>("OpenedSummary")
+                        .HasMaxLength(1000)
+                        .HasColumnType("character varying(1000)");
+
+                    b.Property<DateTimeOffset>("SealedAt")
+                        .HasColumnType("timestamp with time zone");
+
+                    b.Property<string>("SealedById")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("SealedByName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("character varying(200)");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Commitment")
+                        .IsUnique();
+
+                    b.ToTable("SealedInjectionRecords", (string)null);
                 });
 
             modelBuilder.Entity("EventReview.Core.Network.DetectorNetwork", b =>
@@ -872,6 +981,15 @@ namespace EventReview.Data.Migrations.Postgres
                         .WithMany()
                         .HasForeignKey("ReviewCaseId")
                         .OnDelete(DeleteBehavior.Restrict);
+                });
+
+            modelBuilder.Entity("EventReview.Core.Dossier.DossierExportRecord", b =>
+                {
+                    b.HasOne("EventReview.Core.Cases.ReviewCase", null)
+                        .WithMany()
+                        .HasForeignKey("ReviewCaseId")
+                        .OnDelete(DeleteBehavior.Restrict)
+                        .IsRequired();
                 });
 
             modelBuilder.Entity("EventReview.Core.Evidence.ComputationRecord", b =>

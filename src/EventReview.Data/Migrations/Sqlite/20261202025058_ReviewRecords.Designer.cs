@@ -11,8 +11,8 @@ using Microsoft.EntityFrameworkCore.Storage.ValueConversion;
 namespace EventReview.Data.Migrations.Sqlite
 {
     [DbContext(typeof(SqliteAppDbContext))]
-    [Migration("20261202022237_RecordsOfConfigurationAndExports")]
-    partial class RecordsOfConfigurationAndExports
+    [Migration("20261202025058_ReviewRecords")]
+    partial class ReviewRecords
     {
         /// <inheritdoc />
         protected override void BuildTargetModel(ModelBuilder modelBuilder)
@@ -547,6 +547,69 @@ namespace EventReview.Data.Migrations.Sqlite
                     b.HasIndex("ChecklistItemId");
 
                     b.ToTable("SignOffs", (string)null);
+                });
+
+            modelBuilder.Entity("EventReview.Core.Injections.SealedInjectionRecord", b =>
+                {
+                    b.Property<int>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Commitment")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Label")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long?>("OpenedAt")
+                        .IsConcurrencyToken()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("OpenedById")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("OpenedByName")
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.Property<int?>("OpenedInCaseId")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<byte[]>("OpenedRecord")
+                        .HasColumnType("BLOB");
+
+                    b.Property<string>("OpenedSalt")
+                        .HasMaxLength(256)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("OpenedSummary")
+                        .HasMaxLength(1000)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("SealedAt")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("SealedById")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("SealedByName")
+                        .IsRequired()
+                        .HasMaxLength(200)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Commitment")
+                        .IsUnique();
+
+                    b.ToTable("SealedInjectionRecords", (string)null);
                 });
 
             modelBuilder.Entity("EventReview.Core.Network.DetectorNetwork", b =>

@@ -1,0 +1,199 @@
+using System.Globalization;
+using System.Numerics;
+using System.Text;
+using EventReview.Core.Chain;
+using EventReview.Core.Injections;
+using EventReview.Core.Signal;
+using EventReview.Core.Signal.Filters;
+using EventReview.Core.Signal.Io;
+using EventReview.Core.Time;
+
+namespace EventReview.Web.Demo;
+
+/// <summary>
+/// Invented input files for the local-causes checks (environment, injections, data chain): background triggers of a
+/// few channels per site at fixed rates, data-quality segments away from the candidate, a sensor inventory with one
+/// coupling function, an injection log with performed injections (to which each site's actuator readback responds), an
+/// optional coincident magnetic and mains disturbance at one site, and one data-chain stage with nothing added.
+/// Deterministic for a given seed.
+/// </summary>
+public static class LocalCausesDemoFiles
+{
+    /// <summary>Channels per site: name, kind, location, background triggers per hour.</summary>
+    private static readonly (string Channel, string Kind, string Location, double PerHour)[] Channels =
+    [
+        ("SEI-FLOOR-Z", "seismic", "corner station floor", 60),
+        ("MIC-LASER-ROOM", "acoustic", "laser room", 18),
+        ("MAG-VAULT-X", "magnetic", "electronics vault", 12),
+        ("PWR-MAINS-A", "power", "mains feed A", 6),
+        ("WIND-ROOF", "weather", "roof mast", 20),
+        ("INST-ACT-READBACK", "instrument", "actuator readback", 2),
+    ];
+
+    /// <summary>Offsets (s from the case time) of the performed hardware injections, all sites, 8 s each.</summary>
+    private static readonly double[] InjectionOffsets = [-3300, -2500, -1700, -900, 1500];
+
+    /// <summary>Name of the coupling function file the inventory names for the disturbed site's magnetometer.</summary>
+    public static string CouplingFileName(string site) => $"coupling-{site}-MAG-VAULT-X.csv";
+
+    /// <summary>Data-quality segments: a few flags per site, none within a minute of the candidate; two overlapping rows (merged on import).</summary>
+    public static string Segments(GpsTime t, IEnumerable<string> sites)
+    {
+        var sb = new StringBuilder("site,flag,start_gps,end_gps,comment\n");
+        foreach (var s in sites)
+        {
+            sb.Append(Row(s, "CAL-LINE-OFF", t.AddSeconds(-5000), t.AddSeconds(-4700), "calibration line switched off for a measurement"));
+            sb.Append(Row(s, "HIGH-WIND", t.AddSeconds(2000), t.AddSeconds(2600), "gusts above 15 m/s"));
+            sb.Append(Row(s, "HIGH-WIND", t.AddSeconds(2500), t.AddSeconds(2900), "gusts continued"));
+        }
+
+        return sb.ToString();
+
+        static string Row(string site, string flag, GpsTime a, GpsTime b, string comment) => $"{site},{flag},{a},{b},{comment}\n";
+    }
+
+    /// <summary>
+    /// Triggers over ±1 h of the case time: Poisson background per channel (kept out of ±12 s of each site's arrival),
+    /// the actuator readback at every performed injection, and, at <paramref name="disturbedSite"/>, a magnetic and a mains
+    /// trigger 0.18 s before its arrival.
+    /// </summary>
+    public static string Triggers(GpsTime t, IReadOnlyDictionary<string, GpsTime> arrivals, string? disturbedSite, int seed)
+    {
+        var random = new Random(seed);
+        var rows = new List<(GpsTime Time, string Line)>();
+        foreach (var (site, arrival) in arrivals.OrderBy(a => a.Key, StringComparer.Ordinal))
+        {
+            foreach (var (channel, kind, _, perHour) in Channels)
+            {
+                if (kind == "instrument")
+                {
+                    foreach (var o in InjectionOffsets)
+                    {
+                        Add(site, channel, t.AddSeconds(o + 4 + random.NextDouble()), 25 + (10 * random.NextDouble()), 140);
+                    }
+                }
+
+                for (var time = -3600.0; ; )
+                {
+                    time += -Math.Log(1 - random.NextDouble()) * 3600 / perHour; // exponential gaps: a Poisson stream
+                    if (time > 3600)
+                    {
+                        break;
+                    }
+
+                    var at = t.AddSeconds(time);
+                    if (Math.Abs(at.SecondsSince(arrival)) > 12)
+                    {
+                        Add(site, channel, at, 5.5 + (-Math.Log(1 - random.NextDouble()) * 3), 2 + (random.NextDouble() * 200));
+                    }
+                }
+            }
+
+            if (site == disturbedSite)
+            {
+                Add(site, "MAG-VAULT-X", arrival.AddSeconds(-0.182), 23.5, 60);
+                Add(site, "PWR-MAINS-A", arrival.AddSeconds(-0.176), 11.2, 60);
+            }
+        }
+
+        var sb = new StringBuilder("site,channel,gps_time,snr,frequency_hz,duration_s\n");
+        foreach (var r in rows.OrderBy(r => r.Time))
+        {
+            sb.Append(r.Line);
+        }
+
+        return sb.ToString();
+
+        void Add(string site, string channel, GpsTime at, double snr, double f) =>
+            rows.Add((at, string.Create(CultureInfo.InvariantCulture, $"{site},{site}:{channel},{at.ToString(4)},{snr:0.00},{f:0.0},0.2\n")));
+    }
+
+    /// <summary>The sensor inventory; the magnetometer of <paramref name="couplingSite"/> names its coupling file.</summary>
+    public static string Inventory(IEnumerable<string> sites, string? couplingSite)
+    {
+        var sb = new StringBuilder("site,channel,kind,location,coupling_file\n");
+        foreach (var s in sites)
+        {
+            foreach (var (channel, kind, location, _) in Channels)
+            {
+                var coupling = s == couplingSite && channel == "MAG-VAULT-X" ? CouplingFileName(s) : string.Empty;
+                sb.Append($"{s},{s}:{channel},{kind},{location},{coupling}\n");
+            }
+        }
+
+        return sb.ToString();
+    }
+
+    /// <summary>An invented magnetic coupling function (strain per tesla), falling with frequency.</summary>
+    public static string MagneticCoupling() =>
+        "frequency_hz,coupling\n10,3e-12\n30,5e-13\n60,1.2e-13\n100,6e-14\n300,1e-14\n1000,3e-15\n";
+
+    /// <summary>The injection log: five performed injections per site away from the candidate, one aborted and one scheduled later.</summary>
+    public static string InjectionLog(GpsTime t, IEnumerable<string> sites)
+    {
+        var sb = new StringBuilder("site,start_gps,end_gps,kind,waveform_ref,status\n");
+        foreach (var s in sites)
+        {
+            for (var i = 0; i < InjectionOffsets.Length; i++)
+            {
+                sb.Append($"{s},{t.AddSeconds(InjectionOffsets[i])},{t.AddSeconds(InjectionOffsets[i] + 8)},cbc,hw-cbc-{i + 1:00},performed\n");
+            }
+
+            sb.Append($"{s},{t.AddSeconds(2400)},{t.AddSeconds(2408)},burst,hw-burst-01,aborted\n");
+            sb.Append($"{s},{t.AddSeconds(5400)},{t.AddSeconds(5408)},cbc,hw-cbc-06,scheduled\n");
+        }
+
+        return sb.ToString();
+    }
+
+    /// <summary>A blind-injection record (canonical bytes, no final newline) with one injection days before the candidate.</summary>
+    public static byte[] BlindRecord(GpsTime t) => Encoding.UTF8.GetBytes(
+        $"site,start_gps,end_gps,kind,waveform_ref,status\nSM,{t.AddSeconds(-3 * 86400 + 1234)},{t.AddSeconds(-3 * 86400 + 1246)},cbc,blind-07,performed");
+
+    /// <summary>The stage model of the demo data chain: a two-pole low-pass at 100 Hz (Butterworth), unit DC gain, no delay.</summary>
+    public static ChainStageModel StageModel()
+    {
+        var r = 100 / Math.Sqrt(2);
+        return new ChainStageModel([], [new Complex(-r, r), new Complex(-r, -r)], Math.Pow(2 * Math.PI * 100, 2));
+    }
+
+    /// <summary>The stage model as JSON in the chain model format.</summary>
+    public static string StageModelJson()
+    {
+        var m = StageModel();
+        var poles = string.Join(", ", m.PolesHz.Select(p => string.Create(CultureInfo.InvariantCulture, $"[{p.Real:R}, {p.Imaginary:R}]")));
+        return string.Create(CultureInfo.InvariantCulture, $"{{\"stages\": [{{\"zerosHz\": [], \"polesHz\": [{poles}], \"gain\": {m.Gain:R}, \"delaySeconds\": 0, \"prewarpHz\": null}}]}}\n");
+    }
+
+    /// <summary>
+    /// One stage over 32 s around the case time at 512 Hz: the input is white noise, the output is the stage filter applied to
+    /// it and quantised to steps of 1e-4 (nothing added). Returns the two files' text.
+    /// </summary>
+    public static (string Input, string Output) ChainStage(GpsTime t, int seed, Action<double[], double>? tamper = null)
+    {
+        const double fs = 512;
+        var start = new GpsTime(t.WholeSeconds * GpsTime.NanosecondsPerSecond).AddSeconds(-16);
+        var random = new Random(seed);
+        var x = new double[32 * (int)fs];
+        for (var i = 0; i < x.Length; i++)
+        {
+            x[i] = Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble()); // Box-Muller
+        }
+
+        var y = SosFilter.Apply(SecondOrderSections.FromZpk(DataChainCheck.Discretise(StageModel(), fs)), x);
+        tamper?.Invoke(y, fs);
+        for (var i = 0; i < y.Length; i++)
+        {
+            y[i] = Math.Round(y[i] / 1e-4) * 1e-4;
+        }
+
+        return (Write(new TimeSeries(start, fs, x), "stage 1 input (invented demo data)"), Write(new TimeSeries(start, fs, y), "stage 1 output (invented demo data)"));
+
+        static string Write(TimeSeries s, string comment)
+        {
+            using var w = new StringWriter(CultureInfo.InvariantCulture);
+            StrainTextWriter.Write(w, s, [comment]);
+            return w.ToString();
+        }
+    }
+}

@@ -1,0 +1,190 @@
+using System.Security.Claims;
+using EventReview.Core.Cases;
+using EventReview.Core.Checklists;
+using EventReview.Core.Evidence;
+using EventReview.Core.Injections;
+using EventReview.Data;
+using EventReview.Web.Auth;
+using Microsoft.EntityFrameworkCore;
+
+namespace EventReview.Web.Services.Checks;
+
+/// <summary>
+/// Sealed blind-injection records: coordinators register a commitment (the tool never sees the record), the case shows
+/// that an unopened seal exists, a case cannot be closed as astrophysical while one is unopened, and at the end a
+/// coordinator opens it with the record and the salt: on a match the seal is marked opened and a computation record
+/// (kind "injections") with the blind injections overlapping the case goes on the item and its timeline.
+/// </summary>
+public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactory, CaseService cases, TimeProvider clock)
+{
+    /// <summary>The message shown when opening fails; nothing is changed.</summary>
+    public const string MismatchMessage = "The record or salt does not match the commitment; nothing was opened.";
+
+    /// <summary>Every seal, newest first.</summary>
+    public async Task<IReadOnlyList<SealedInjectionRecord>> ListAsync(CancellationToken ct = default)
+    {
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        return (await db.SealedInjectionRecords.AsNoTracking().ToListAsync(ct)).OrderByDescending(s => s.SealedAt).ThenByDescending(s => s.Id).ToList();
+    }
+
+    /// <summary>True while any registered seal is not opened.</summary>
+    public async Task<bool> AnyUnopenedAsync(CancellationToken ct = default)
+    {
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        return await db.SealedInjectionRecords.AnyAsync(s => s.OpenedAt == null, ct);
+    }
+
+    /// <summary>
+    /// Refuses to close a case as astrophysical while a sealed blind-injection record is unopened. Call before
+    /// <see cref="CaseService.CloseAsync"/>; other outcomes are not affected.
+    /// </summary>
+    /// <exception cref="DomainRuleException">Rule "sealed-record-unopened".</exception>
+    public async Task EnsureNoUnopenedSealsAsync(CaseOutcome outcome, CancellationToken ct = default)
+    {
+        if (outcome != CaseOutcome.Astrophysical)
+        {
+            return;
+        }
+
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        await EnsureNoUnopenedSealsAsync(db, outcome, ct);
+    }
+
+    /// <summary>Same rule, inside an existing unit of work (used by <see cref="CaseService.CloseAsync"/>).</summary>
+    public static async Task EnsureNoUnopenedSealsAsync(AppDbContext db, CaseOutcome outcome, CancellationToken ct = default)
+    {
+        if (outcome != CaseOutcome.Astrophysical)
+        {
+            return;
+        }
+
+        var open = await db.SealedInjectionRecords.AsNoTracking().Where(s => s.OpenedAt == null).Select(s => s.Label).ToListAsync(ct);
+        if (open.Count > 0)
+        {
+            throw new DomainRuleException("sealed-record-unopened",
+                $"A sealed blind-injection record is not opened yet ({string.Join(", ", open.Select(l => $"'{l}'"))}): a case cannot be closed as astrophysical until it is opened and compared (item injection.blind-open).");
+        }
+    }
+
+    /// <summary>Registers a seal (coordinators). When <paramref name="caseId"/> and <paramref name="itemKey"/> are given, a note
+    /// with the commitment is added to that item so the case records it.</summary>
+    /// <exception cref="ArgumentException">Commitment not 64 hex digits, empty label, or the commitment is already registered.</exception>
+    public async Task<SealedInjectionRecord> RegisterAsync(ClaimsPrincipal user, string commitment, string label, int? caseId = null, string? itemKey = null, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Coordinate, "register sealed records");
+        var actor = user.ToActor();
+        var seal = SealedInjectionRecord.Register(commitment, label, actor, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
+        await using (var db = await dbFactory.CreateDbContextAsync(ct))
+        {
+            if (await db.SealedInjectionRecords.AnyAsync(s => s.Commitment == seal.Commitment, ct))
+            {
+                throw new ArgumentException("This commitment is already registered.", nameof(commitment));
+            }
+
+            db.SealedInjectionRecords.Add(seal);
+            await db.SaveChangesAsync(ct);
+        }
+
+        if (caseId is { } id && itemKey is not null)
+        {
+            await cases.AddNoteAsync(user, id, itemKey,
+                $"Sealed blind-injection record registered: **{seal.Label}**, commitment `{seal.Commitment}` (SHA-256 of salt + record), by {seal.SealedByName} at {seal.SealedAt:u}. The tool holds only the commitment until the record is opened.", ct);
+        }
+
+        return seal;
+    }
+
+    /// <summary>
+    /// Opens a seal with the record bytes and salt (coordinators). On a match: marks the seal opened and stores a computation
+    /// record (kind "injections") on the item with the blind injections overlapping the case; the timeline entry is written
+    /// with it. On a mismatch nothing changes.
+    /// </summary>
+    /// <exception cref="DomainRuleException">"commitment-mismatch" (message <see cref="MismatchMessage"/>) or "seal-already-opened".</exception>
+    /// <exception cref="FormatException">The record matches but does not parse (names the line); nothing is stored.</exception>
+    public async Task<ReviewCase> OpenAsync(ClaimsPrincipal user, int sealId, int caseId, string itemKey, byte[] record, string saltHex, double marginSeconds = 10.0, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Coordinate, "open sealed records");
+        ArgumentNullException.ThrowIfNull(record);
+        new InjectionCheckParameters(null, marginSeconds).Validate();
+        var c = await cases.GetAsync(user, caseId, ct);
+        c.Item(itemKey);
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        var seal = await db.SealedInjectionRecords.FirstOrDefaultAsync(s => s.Id == sealId, ct) ?? throw new KeyNotFoundException($"There is no sealed record {sealId}.");
+        if (seal.IsOpened)
+        {
+            throw new DomainRuleException("seal-already-opened", $"The sealed record '{seal.Label}' was already opened by {seal.OpenedByName} at {seal.OpenedAt:u}; compare with the opened record instead.");
+        }
+
+        InjectionOverlapReport? report;
+        try
+        {
+            report = BlindInjectionRecord.Open(seal.Commitment, record, saltHex ?? string.Empty, c.Gps, InjectionCheckService.Arrivals(c), c.Arrivals.Select(a => a.SiteCode), marginSeconds);
+        }
+        catch (FormatException ex) when (ex is not Core.Imports.CsvFormatException)
+        {
+            report = null; // the salt is not hex: same answer as a wrong salt
+        }
+        catch (Core.Imports.CsvFormatException ex)
+        {
+            throw new FormatException($"The record matches its commitment but does not parse as an injection log: {ex.Message}. Nothing was opened.", ex);
+        }
+
+        if (report is null)
+        {
+            throw new DomainRuleException("commitment-mismatch", MismatchMessage);
+        }
+
+        var rows = BlindInjectionRecord.Parse(record, null).Count;
+        var summary = InjectionCheckService.Summarise(report, rows, $"sealed record '{seal.Label}'");
+        var actor = user.ToActor();
+        seal.Open(record, saltHex!, caseId, Clip($"{c.CandidateId}: {summary}", 1000), actor, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
+        try
+        {
+            await db.SaveChangesAsync(ct);
+        }
+        catch (DbUpdateConcurrencyException)
+        {
+            throw new ConflictException("Someone else opened this sealed record at the same moment; reload to see their result.");
+        }
+
+        return await AddComparisonAsync(user, seal, c, itemKey, report, rows, marginSeconds, ct);
+    }
+
+    /// <summary>Compares a case with an already opened record (its revealed bytes are kept), storing a computation record.</summary>
+    /// <exception cref="InvalidOperationException">When the seal is not opened yet.</exception>
+    public async Task<ReviewCase> CompareWithOpenedAsync(ClaimsPrincipal user, int sealId, int caseId, string itemKey, double marginSeconds = 10.0, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Work, "run checks");
+        new InjectionCheckParameters(null, marginSeconds).Validate();
+        var c = await cases.GetAsync(user, caseId, ct);
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        var seal = await db.SealedInjectionRecords.AsNoTracking().FirstOrDefaultAsync(s => s.Id == sealId, ct) ?? throw new KeyNotFoundException($"There is no sealed record {sealId}.");
+        if (seal.OpenedRecord is not { } bytes)
+        {
+            throw new InvalidOperationException($"The sealed record '{seal.Label}' is not opened yet.");
+        }
+
+        var report = InjectionOverlap.Find(BlindInjectionRecord.Parse(bytes, null), c.Gps, InjectionCheckService.Arrivals(c), c.Arrivals.Select(a => a.SiteCode), marginSeconds);
+        return await AddComparisonAsync(user, seal, c, itemKey, report, BlindInjectionRecord.Parse(bytes, null).Count, marginSeconds, ct);
+    }
+
+    private async Task<ReviewCase> AddComparisonAsync(ClaimsPrincipal user, SealedInjectionRecord seal, ReviewCase c, string itemKey, InjectionOverlapReport report, int rows, double margin, CancellationToken ct)
+    {
+        var info = new SealInfo(seal.Id, seal.Label, seal.Commitment, Hashing.Sha256Hex(seal.OpenedRecord!), seal.SealedByName, seal.SealedAt, seal.OpenedByName!, seal.OpenedAt!.Value);
+        var result = new InjectionRecordResult("sealed-record", report, rows, [], info);
+        var parametersJson = CheckRecords.Serialize(new { sealId = seal.Id, commitment = seal.Commitment, marginSeconds = margin });
+        var fingerprint = CheckRecords.Fingerprint(new
+        {
+            caseGps = c.GpsNanoseconds,
+            arrivals = c.Arrivals.OrderBy(a => a.SiteCode).Select(a => new { a.SiteCode, a.ArrivalNanoseconds }),
+            record = info.RecordSha256,
+        });
+        var summary = $"Sealed record '{seal.Label}' opened and verified against its commitment {seal.Commitment[..12]}…: " +
+                      InjectionCheckService.Summarise(report, rows, "record");
+        return await cases.AddComputationAsync(user, c.Id, itemKey,
+            now => new ComputationRecord(CheckKind.Injections, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
+                report.Verdict, Clip(summary, 1000), string.Empty, user.ToActor(), now), ct);
+    }
+
+    private static string Clip(string s, int max) => s.Length <= max ? s : s[..(max - 1)] + "…";
+}
