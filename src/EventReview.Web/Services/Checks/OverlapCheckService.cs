@@ -169,7 +169,7 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
         var text = string.Create(CultureInfo.InvariantCulture,
             $"{r.SiteA}–{r.SiteB}: overlap {o.Overlap:0.00} at lag {Ms(o.RefinedLagSeconds)} ms (allowed ±{r.AllowedLagSeconds * 1e3:0.00} ms), sign {(o.Sign > 0 ? "+1" : "−1")}");
         text += o.PValue is { } p
-            ? string.Create(CultureInfo.InvariantCulture, $"; p = {p:0.###} ({o.OffSourceOverlaps.Length} off-source trials)")
+            ? string.Create(CultureInfo.InvariantCulture, $"; p = {p:G2} ({o.OffSourceOverlaps.Length} off-source trials)")
             : "; no off-source trials";
         return text;
     }
@@ -193,7 +193,7 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
         if (problems.Count == 0 && !weakP)
         {
             var pText = o.PValue is { } q
-                ? string.Create(CultureInfo.InvariantCulture, $", p = {q:0.###} <= {p.PValueThreshold:G3}")
+                ? string.Create(CultureInfo.InvariantCulture, $", p = {q:G2} <= {p.PValueThreshold:G3}")
                 : ", no off-source p-value asked";
             return ("consistent", string.Create(CultureInfo.InvariantCulture, $"overlap {o.Overlap:0.00} >= {p.OverlapThreshold:0.##}, lag inside the window") + pText);
         }
@@ -201,12 +201,12 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
         if (problems.Count == 0)
         {
             return ("concern", string.Create(CultureInfo.InvariantCulture,
-                $"overlap and lag pass, but off-source noise reaches this overlap too often: p = {o.PValue:0.###} > {p.PValueThreshold:G3}"));
+                $"overlap and lag pass, but off-source noise reaches this overlap too often: p = {o.PValue:G2} > {p.PValueThreshold:G3}"));
         }
 
         if (weakP)
         {
-            problems.Add(string.Create(CultureInfo.InvariantCulture, $"p = {o.PValue:0.###} > {p.PValueThreshold:G3}"));
+            problems.Add(string.Create(CultureInfo.InvariantCulture, $"p = {o.PValue:G2} > {p.PValueThreshold:G3}"));
         }
 
         return ("inconsistent", string.Join("; ", problems));
