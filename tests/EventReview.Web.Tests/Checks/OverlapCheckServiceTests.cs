@@ -178,6 +178,36 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
     }
 
     [Fact]
+    public async Task An_hdf5_strain_file_with_timing_given_by_hand_reads_like_the_text_file()
+    {
+        var setup = await CaseWithStrainAsync("ER-T-0005", 7, new ChirpParameters(20, InclinationRad: Math.PI / 2), 60);
+        var b = setup.Sim.Sites[1].Strain;
+        var path = Path.Combine(Path.GetTempPath(), $"er-web-h5-{Guid.NewGuid():N}.h5");
+        new PureHDF.H5File { ["strain"] = new PureHDF.H5Dataset(b.Samples) }.Write(path);
+        using var scope = _app.Services.CreateScope();
+        var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
+        var c = await cases.AddAttachmentAsync(_app.Coordinator, setup.CaseId, Item, new MemoryStream(await File.ReadAllBytesAsync(path)), "M2-strain.h5", "application/x-hdf5", "hdf5", long.MaxValue);
+        File.Delete(path);
+        var h5 = CaseFiles.List(c).First(f => f.FileName == "M2-strain.h5").Sha256;
+        var service = scope.ServiceProvider.GetRequiredService<OverlapCheckService>();
+
+        var (fromText, _, _) = await service.RunAsync(_app.Coordinator, setup.CaseId, Item, new OverlapCheckParameters(new StrainPick(setup.ShaA), new StrainPick(setup.ShaB), OffSourceTrials: 0));
+        var (fromH5, added, _) = await service.RunAsync(_app.Coordinator, setup.CaseId, Item,
+            new OverlapCheckParameters(new StrainPick(setup.ShaA), new StrainPick(h5, "/strain", b.Start.Nanoseconds / 1_000_000_000m, b.SampleRateHz), OffSourceTrials: 0));
+        Assert.True(added); // another input file: a new record
+        var text = JsonSerializer.Deserialize<OverlapRecordResult>(fromText.Item(Item).Computations.First().ResultJson, CheckRecords.Json)!;
+        var hdf = JsonSerializer.Deserialize<OverlapRecordResult>(fromH5.Item(Item).Computations.Last().ResultJson, CheckRecords.Json)!;
+        Assert.Equal("M2-strain.h5", hdf.FileB);
+        Assert.Equal(text.Overlap.RefinedLagSeconds, hdf.Overlap.RefinedLagSeconds, 1e-12); // same samples, same timing
+        Assert.Equal(text.Overlap.Overlap, hdf.Overlap.Overlap, 1e-12);
+
+        var ex = await Assert.ThrowsAnyAsync<FormatException>(() => service.RunAsync(_app.Coordinator, setup.CaseId, Item,
+            new OverlapCheckParameters(new StrainPick(setup.ShaA), new StrainPick(h5, "/nothing-here", 1m, 2048))));
+        Assert.Contains("M2-strain.h5", ex.Message);
+        Assert.Contains("/nothing-here", ex.Message);
+    }
+
+    [Fact]
     public async Task Started_as_a_job_the_check_reports_what_it_stored()
     {
         var setup = await CaseWithStrainAsync("ER-T-0004", 10, new ChirpParameters(20, InclinationRad: Math.PI / 2), 60);

@@ -62,6 +62,7 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
     {
         Permissions.Require(user, Policies.Work, "run checks");
         parameters.Validate();
+        progress = Forward(progress);
         var c = await cases.GetAsync(user, caseId, ct);
         var item = c.Item(itemKey);
         var caseFiles = CaseFiles.List(c);
@@ -295,6 +296,34 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
         {
             return (new OverlapSiteMap(site, name, null, ex.Message.Split(" (Parameter", 2)[0], 0, 0, 0, 0, 0, settings.SegmentSeconds, 0, 0, 0), null);
         }
+    }
+
+    /// <summary>
+    /// Passes on only reports that move forward: the core's overlap stage reports through a <see cref="Progress{T}"/>, whose
+    /// callbacks run later on the thread pool and can arrive after the next stage has begun.
+    /// </summary>
+    private static Action<double?, string>? Forward(Action<double?, string>? progress)
+    {
+        if (progress is null)
+        {
+            return null;
+        }
+
+        var gate = new Lock();
+        double last = double.NegativeInfinity;
+        return (fraction, text) =>
+        {
+            lock (gate)
+            {
+                if (fraction is { } f && f < last)
+                {
+                    return;
+                }
+
+                last = fraction ?? last;
+                progress(fraction, text);
+            }
+        };
     }
 
     /// <summary>Reports on the calling thread (no synchronisation context hop, so values arrive in order).</summary>
