@@ -62,6 +62,10 @@ public static class WebServiceCollectionExtensions
         services.AddSingleton<Services.Checks.CaseFiles>();
         Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Timing, typeof(Components.Checks.TimingRunner));
         Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Timing, typeof(Components.Checks.TimingResultView));
+        services.AddScoped<Services.Checks.OverlapCheckService>();
+        Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Overlap, typeof(Components.Checks.OverlapRunner));
+        Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Overlap, typeof(Components.Checks.OverlapResultView));
+        services.AddScoped<IDemoSeedStep, OverlapDemoStep>();
         services.AddScoped<DemoSeeder>();
         services.AddScoped<Services.Checks.EnvironmentCheckService>();
         services.AddScoped<Services.Checks.InjectionCheckService>();

@@ -22,5 +22,6 @@ public static class CommandCatalog
         yield return ChirpCommand.Build();
         yield return DossierCommand.Build();
         yield return ConfigCommand.Build();
+        yield return SimulateCommand.Build();
     }
 }
