@@ -142,7 +142,7 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
         var result = new OverlapRecordResult(defaults.SiteA, defaults.SiteB, nameA, nameB, overlap, allowed, rule, caseLag, within, atEdge,
             resolved.OverlapThreshold, resolved.PValueThreshold, signNote, reason, maps.Select(m => m.Summary).ToList(),
         [
-            string.Create(CultureInfo.InvariantCulture, $"overlap threshold {resolved.OverlapThreshold:0.##}: common practice, not a published value"),
+            string.Create(CultureInfo.InvariantCulture, $"overlap threshold {resolved.OverlapThreshold:0.##}: our default, not a published value; noise limits the overlap of a matched signal to about rho^2/(rho^2 + N) for N independent samples in the window (about 2 x bandwidth x window), so the off-source p-value carries the significance"),
             string.Create(CultureInfo.InvariantCulture, $"consistent = |overlap| >= {resolved.OverlapThreshold:0.##}, lag inside ±{allowed * 1e3:0.00} ms and not at the edge of the searched lags, and p <= {resolved.PValueThreshold:G3} when off-source overlaps were run; concern when only the p-value fails"),
             "allowed lag: " + rule,
             "time-frequency maps: short-time Fourier transform of whitened strain, 0.125 s Hann segments every 1/128 s, 20-500 Hz, the same at every site, from 2 s before to 0.2 s after the candidate time",
