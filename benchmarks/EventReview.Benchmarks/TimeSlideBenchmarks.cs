@@ -12,7 +12,7 @@ namespace EventReview.Benchmarks;
 /// Run: dotnet run -c Release --project benchmarks/EventReview.Benchmarks -- --filter '*TimeSlide*'
 /// </summary>
 [MemoryDiagnoser]
-[SimpleJob(RunStrategy.Monitoring, launchCount: 1, warmupCount: 1, iterationCount: 3)]
+[SimpleJob(RunStrategy.Monitoring, launchCount: 1, warmupCount: 0, iterationCount: 2)]
 public class TimeSlideBenchmarks
 {
     private const long Origin = 1_400_000_000L * GpsTime.NanosecondsPerSecond;
@@ -24,8 +24,8 @@ public class TimeSlideBenchmarks
     [GlobalSetup]
     public void Setup()
     {
-        _a = MakeSite("K1", new Random(1), hourOffset: 0);
-        _b = MakeSite("M2", new Random(2), hourOffset: 2);
+        _a = MakeSite("KP", new Random(1), hourOffset: 0);
+        _b = MakeSite("AB", new Random(2), hourOffset: 2);
         _options = new TimeSlideOptions
         {
             WindowNs = 15_000_000,

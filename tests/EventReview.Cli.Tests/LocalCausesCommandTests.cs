@@ -15,12 +15,12 @@ public class LocalCausesCommandTests
     [Fact]
     public void Environment_json_has_hits_segments_and_verdict()
     {
-        var (exit, output, _) = CliRunner.Run(EnvironmentCommand.Build(), "environment", "--case-gps", "1000000000", "--arrival", "K1=1000000000.1",
+        var (exit, output, _) = CliRunner.Run(EnvironmentCommand.Build(), "environment", "--case-gps", "1000000000", "--arrival", "KX=1000000000.1",
             "--segments", Segments, "--triggers", Triggers, "--injections", Injections, "--json");
         Assert.Equal(0, exit);
         using var doc = JsonDocument.Parse(output);
         var hit = Assert.Single(doc.RootElement.GetProperty("hits").EnumerateArray());
-        Assert.Equal("K1", hit.GetProperty("site").GetString());
+        Assert.Equal("KX", hit.GetProperty("site").GetString());
         Assert.Equal("SEIS_X", hit.GetProperty("channel").GetString());
         Assert.Equal("other", hit.GetProperty("kind").GetString());
         Assert.Equal(0.2, hit.GetProperty("offsetSeconds").GetDouble(), 1e-9);
@@ -52,7 +52,7 @@ public class LocalCausesCommandTests
         using var doc = JsonDocument.Parse(output);
         var channels = doc.RootElement.GetProperty("channels").EnumerateArray().ToList();
         Assert.Equal(2, channels.Count);
-        var k1 = channels.Single(c => c.GetProperty("site").GetString() == "K1");
+        var k1 = channels.Single(c => c.GetProperty("site").GetString() == "KX");
         Assert.Equal("SEIS_X", k1.GetProperty("channel").GetString());
         Assert.Equal(0, k1.GetProperty("coincident").GetInt32());
         Assert.True(k1.GetProperty("expected").GetDouble() > 0);

@@ -50,7 +50,7 @@ public static class TimingCommand
             var parts = text.Split('=', 2);
             if (parts.Length != 2 || parts[0].Trim().Length == 0 || !GpsTime.TryParse(parts[1], out var gps))
             {
-                return CliOutput.Fail($"--arrival '{text}': expected CODE=GPS seconds, e.g. K1=1400000000.123456");
+                return CliOutput.Fail($"--arrival '{text}': expected CODE=GPS seconds, e.g. KX=1400000000.123456");
             }
 
             arrivals.Add(new SiteArrival(parts[0].Trim(), gps));

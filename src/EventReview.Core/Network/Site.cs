@@ -24,7 +24,7 @@ public sealed class Site
 
     public int Id { get; private set; }
 
-    /// <summary>Short unique code, 1-8 letters or digits, upper case (e.g. "K1").</summary>
+    /// <summary>Short unique code, 1-8 letters or digits, upper case (e.g. "KX").</summary>
     public string Code { get; private set; }
 
     public string Name { get; private set; }

@@ -15,7 +15,7 @@ public sealed class SiteTriggers
         MergedSegments = merged;
     }
 
-    /// <summary>Site code (e.g. "K1").</summary>
+    /// <summary>Site code (e.g. "KX").</summary>
     public string Code { get; }
 
     /// <summary>Triggers inside the segments, sorted by time (stable for equal times).</summary>

@@ -15,7 +15,7 @@ public class SignalCommandsTests : IDisposable
 
     public SignalCommandsTests()
     {
-        SiteProjection[] sites = [new("K1", 0, 0.8, 0.1), new("M2", 0.0071, -0.6, -0.075)];
+        SiteProjection[] sites = [new("KX", 0, 0.8, 0.1), new("M2", 0.0071, -0.6, -0.075)];
         var sim = NetworkSimulator.Simulate(sites, new SimulationOptions(Start, 16, 4096, 5, new ChirpParameters(8, InclinationRad: 0.3), null, 40));
         StrainTextWriter.WriteFile(Path.Combine(_dir, "a.txt"), sim.Sites[0].Strain);
         StrainTextWriter.WriteFile(Path.Combine(_dir, "b.txt"), sim.Sites[1].Strain);

@@ -16,7 +16,7 @@ public sealed class SimulateCommandTests : IDisposable
         _network = Path.Combine(_dir, "network.json");
         File.WriteAllText(_network, """
             {"name": "Test net", "sites": [
-              {"code": "K1", "name": "Site K1", "latitudeDegrees": 46, "longitudeDegrees": -119, "heightMeters": 100,
+              {"code": "KX", "name": "Site KX", "latitudeDegrees": 46, "longitudeDegrees": -119, "heightMeters": 100,
                "xArmAzimuthDegrees": 36, "yArmAzimuthDegrees": 126, "timingUncertaintySeconds": 0.0001},
               {"code": "M2", "name": "Site M2", "latitudeDegrees": 30, "longitudeDegrees": -90, "heightMeters": 0,
                "xArmAzimuthDegrees": 252, "yArmAzimuthDegrees": 342, "timingUncertaintySeconds": 0.0001}]}
@@ -35,13 +35,13 @@ public sealed class SimulateCommandTests : IDisposable
         var outDir = Path.Combine(_dir, "run1");
         var (exit, _, err) = Simulate(outDir);
         Assert.True(exit == 0, err);
-        Assert.True(File.Exists(Path.Combine(outDir, "K1-strain.txt")));
+        Assert.True(File.Exists(Path.Combine(outDir, "KX-strain.txt")));
         Assert.True(File.Exists(Path.Combine(outDir, "M2-strain.txt")));
         var truth = JsonDocument.Parse(File.ReadAllText(Path.Combine(outDir, "truth.json"))).RootElement;
         Assert.Equal(11, truth.GetProperty("seed").GetInt32());
         Assert.Equal(60, truth.GetProperty("networkSnr").GetDouble(), 1e-6); // the simulator scales the injection to the asked SNR
         var sites = truth.GetProperty("sites").EnumerateArray().ToList();
-        Assert.Equal(["K1", "M2"], sites.Select(s => s.GetProperty("code").GetString()));
+        Assert.Equal(["KX", "M2"], sites.Select(s => s.GetProperty("code").GetString()));
 
         // Identity: the delays follow from the recorded RA/Dec/psi/GMST through the network projection.
         var net = NetworkFile.Read(_network);
@@ -58,7 +58,7 @@ public sealed class SimulateCommandTests : IDisposable
         // The overlap verb finds the recorded lag and sign in the written files (network SNR 60, edge-on so the two sites'
         // waveforms differ only by a sign, not by a phase).
         double truthLag = sites[0].GetProperty("delaySeconds").GetDouble() - sites[1].GetProperty("delaySeconds").GetDouble();
-        var (oexit, output, oerr) = CliRunner.Run(OverlapCommand.Build(), "overlap", "--a", Path.Combine(outDir, "K1-strain.txt"),
+        var (oexit, output, oerr) = CliRunner.Run(OverlapCommand.Build(), "overlap", "--a", Path.Combine(outDir, "KX-strain.txt"),
             "--b", Path.Combine(outDir, "M2-strain.txt"), "--center", "1300000000", "--psd-segment-s", "2", "--json");
         Assert.True(oexit == 0, oerr);
         var o = JsonDocument.Parse(output).RootElement;
@@ -73,7 +73,7 @@ public sealed class SimulateCommandTests : IDisposable
         var b = Path.Combine(_dir, "b");
         Assert.Equal(0, Simulate(a).Exit);
         Assert.Equal(0, Simulate(b).Exit);
-        Assert.Equal(File.ReadAllText(Path.Combine(a, "K1-strain.txt")), File.ReadAllText(Path.Combine(b, "K1-strain.txt")));
+        Assert.Equal(File.ReadAllText(Path.Combine(a, "KX-strain.txt")), File.ReadAllText(Path.Combine(b, "KX-strain.txt")));
         Assert.Equal(File.ReadAllText(Path.Combine(a, "truth.json")), File.ReadAllText(Path.Combine(b, "truth.json")));
 
         var c = Path.Combine(_dir, "c");

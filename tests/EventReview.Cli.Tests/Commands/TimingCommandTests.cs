@@ -16,7 +16,7 @@ public sealed class TimingCommandTests : IDisposable
     {
         File.WriteAllText(_network, """
             {"name": "Demo net", "sites": [
-              {"code": "K1", "name": "Site K1", "latitudeDegrees": 46, "longitudeDegrees": -119, "heightMeters": 100,
+              {"code": "KX", "name": "Site KX", "latitudeDegrees": 46, "longitudeDegrees": -119, "heightMeters": 100,
                "xArmAzimuthDegrees": 36, "yArmAzimuthDegrees": 126, "timingUncertaintySeconds": 0.0001},
               {"code": "M2", "name": "Site M2", "latitudeDegrees": 30, "longitudeDegrees": -90, "heightMeters": 0,
                "xArmAzimuthDegrees": 252, "yArmAzimuthDegrees": 342, "timingUncertaintySeconds": 0.0001},
@@ -52,7 +52,7 @@ public sealed class TimingCommandTests : IDisposable
     public void Timing_json_has_the_contract_shape()
     {
         var (code, output, _) = Invoke(TimingCommand.Build(), "timing", "--network", _network,
-            "--arrival", "K1=1400000000.000", "--arrival", "M2=1400000000.005", "--arrival", "T3=1400000000.012", "--json");
+            "--arrival", "KX=1400000000.000", "--arrival", "M2=1400000000.005", "--arrival", "T3=1400000000.012", "--json");
 
         Assert.Equal(0, code);
         using var doc = JsonDocument.Parse(output);
@@ -62,7 +62,7 @@ public sealed class TimingCommandTests : IDisposable
         var first = pairs[0];
         string[] keys = ["a", "b", "baselineMeters", "lightTravelSeconds", "allowedSeconds", "observedSeconds", "marginSeconds", "consistent", "ringAngleDegrees"];
         Assert.All(keys, k => Assert.True(first.TryGetProperty(k, out _), k));
-        Assert.Equal("K1", first.GetProperty("a").GetString());
+        Assert.Equal("KX", first.GetProperty("a").GetString());
         Assert.Equal("M2", first.GetProperty("b").GetString());
         Assert.Equal(0.005, first.GetProperty("observedSeconds").GetDouble(), 1e-12);
         var sky = root.GetProperty("sky");
@@ -76,7 +76,7 @@ public sealed class TimingCommandTests : IDisposable
     public void Ring_angle_is_null_outside_the_light_travel_window()
     {
         var (code, output, _) = Invoke(TimingCommand.Build(), "timing", "--network", _network,
-            "--arrival", "K1=1400000000.000", "--arrival", "M2=1400000000.030", "--json");
+            "--arrival", "KX=1400000000.000", "--arrival", "M2=1400000000.030", "--json");
 
         Assert.Equal(1, code);
         using var doc = JsonDocument.Parse(output);
@@ -87,7 +87,7 @@ public sealed class TimingCommandTests : IDisposable
     public void Unknown_site_code_exits_2_with_a_one_line_message()
     {
         var (code, output, error) = Invoke(TimingCommand.Build(), "timing", "--network", _network,
-            "--arrival", "K1=1400000000.000", "--arrival", "Z9=1400000000.005", "--json");
+            "--arrival", "KX=1400000000.000", "--arrival", "Z9=1400000000.005", "--json");
 
         Assert.Equal(2, code);
         Assert.Equal(string.Empty, output);
@@ -98,7 +98,7 @@ public sealed class TimingCommandTests : IDisposable
     [Fact]
     public void A_malformed_arrival_exits_2()
     {
-        var (code, _, error) = Invoke(TimingCommand.Build(), "timing", "--network", _network, "--arrival", "K1:12", "--arrival", "M2=1");
+        var (code, _, error) = Invoke(TimingCommand.Build(), "timing", "--network", _network, "--arrival", "KX:12", "--arrival", "M2=1");
 
         Assert.Equal(2, code);
         Assert.Contains("--arrival", error);

@@ -7,9 +7,9 @@ namespace EventReview.Core.Tests.Antenna;
 
 public class AntennaConsistencyTests
 {
-    private static readonly Site K1 = new("K1", "Site K1", 40, -100, 0, 30, 120, 1e-4);
-    private static readonly Site K1Twin = new("K2", "Twin of K1", 40, -100, 0, 30, 120, 1e-4);
-    private static readonly Site K1Swapped = new("K3", "K1 with arms swapped", 40, -100, 0, 120, 30, 1e-4);
+    private static readonly Site KX = new("KX", "Site KX", 40, -100, 0, 30, 120, 1e-4);
+    private static readonly Site K1Twin = new("K2", "Twin of KX", 40, -100, 0, 30, 120, 1e-4);
+    private static readonly Site K1Swapped = new("K3", "KX with arms swapped", 40, -100, 0, 120, 30, 1e-4);
     private static readonly Site M2 = new("M2", "Site M2", 20, -80, 0, 200, 290, 1e-4);
 
     private static IReadOnlyList<Vector3> Ring() => SkyRing.Directions(new Vector3(0.3, -0.5, 0.8), 0.2, 72);
@@ -17,8 +17,8 @@ public class AntennaConsistencyTests
     [Fact]
     public void Identical_detectors_always_agree_in_sign_with_ratio_one()
     {
-        var same = AntennaConsistency.Evaluate(K1, K1Twin, Ring(), new AntennaObservation(1, 1.0));
-        var flipped = AntennaConsistency.Evaluate(K1, K1Twin, Ring(), new AntennaObservation(-1, 1.0));
+        var same = AntennaConsistency.Evaluate(KX, K1Twin, Ring(), new AntennaObservation(1, 1.0));
+        var flipped = AntennaConsistency.Evaluate(KX, K1Twin, Ring(), new AntennaObservation(-1, 1.0));
 
         Assert.Equal("consistent", same.Verdict);
         Assert.Equal(1.0, same.FractionAllowingSignAndRatio);
@@ -31,10 +31,10 @@ public class AntennaConsistencyTests
     [Fact]
     public void Swapped_arms_always_flip_the_sign()
     {
-        var result = AntennaConsistency.Evaluate(K1, K1Swapped, Ring(), new AntennaObservation(-1, 1.0));
+        var result = AntennaConsistency.Evaluate(KX, K1Swapped, Ring(), new AntennaObservation(-1, 1.0));
 
         Assert.Equal(1.0, result.FractionAllowingSignAndRatio);
-        Assert.Equal(0.0, AntennaConsistency.Evaluate(K1, K1Swapped, Ring(), new AntennaObservation(1, 1.0)).FractionAllowingSign);
+        Assert.Equal(0.0, AntennaConsistency.Evaluate(KX, K1Swapped, Ring(), new AntennaObservation(1, 1.0)).FractionAllowingSign);
     }
 
     [Fact]
@@ -46,7 +46,7 @@ public class AntennaConsistencyTests
             var n = SkyRing.Directions(new Vector3(random.NextDouble() - 0.5, random.NextDouble() - 0.5, random.NextDouble() - 0.5), 0, 1)[0];
             var psi = Math.PI * random.NextDouble();
             var cosIota = random.NextDouble();
-            var p = NetworkProjection.Project([K1, M2], n, psi);
+            var p = NetworkProjection.Project([KX, M2], n, psi);
             var aPlus = 0.5 * (1 + (cosIota * cosIota));
             var za = Math.Sqrt(Math.Pow(p[0].FPlus * aPlus, 2) + Math.Pow(p[0].FCross * cosIota, 2));
             var zb = Math.Sqrt(Math.Pow(p[1].FPlus * aPlus, 2) + Math.Pow(p[1].FCross * cosIota, 2));
@@ -57,7 +57,7 @@ public class AntennaConsistencyTests
                 continue;
             }
 
-            var result = AntennaConsistency.Evaluate(K1, M2, [n], new AntennaObservation(Math.Sign(correlation), zb / za));
+            var result = AntennaConsistency.Evaluate(KX, M2, [n], new AntennaObservation(Math.Sign(correlation), zb / za));
 
             Assert.True(result.Verdict == "consistent", $"trial {trial}: psi {psi}, cos iota {cosIota}, ratio {zb / za}, corr {correlation}, sign {result.FractionAllowingSign}, ratio {result.FractionAllowingRatio} range {result.MinExpectedRatio}..{result.MaxExpectedRatio}");
             Assert.InRange(zb / za, result.MinExpectedRatio / 1.3, result.MaxExpectedRatio * 1.3);
@@ -67,14 +67,14 @@ public class AntennaConsistencyTests
     [Fact]
     public void Bad_observations_are_rejected()
     {
-        Assert.Throws<ArgumentException>(() => AntennaConsistency.Evaluate(K1, M2, Ring(), new AntennaObservation(0, 1.0)));
-        Assert.Throws<ArgumentException>(() => AntennaConsistency.Evaluate(K1, M2, Ring(), new AntennaObservation(1, double.NaN)));
+        Assert.Throws<ArgumentException>(() => AntennaConsistency.Evaluate(KX, M2, Ring(), new AntennaObservation(0, 1.0)));
+        Assert.Throws<ArgumentException>(() => AntennaConsistency.Evaluate(KX, M2, Ring(), new AntennaObservation(1, double.NaN)));
     }
 
     [Fact]
     public void Allowed_sky_cells_cover_the_whole_sky_for_identical_detectors()
     {
-        var cells = AntennaSkyRegion.AllowedCells(K1, K1Twin, new AntennaObservation(1, 1.0), 0, 10);
+        var cells = AntennaSkyRegion.AllowedCells(KX, K1Twin, new AntennaObservation(1, 1.0), 0, 10);
 
         Assert.Equal(18 * 36, cells.Count);
     }

@@ -37,11 +37,11 @@ public class ConfigurationDiffTests
     [Fact]
     public void A_change_captured_during_the_freeze_period_is_a_concern_and_after_it_is_drift()
     {
-        var frozen = ConfigurationSnapshot.Capture("K1", "f", new Dictionary<string, string> { ["fw"] = "1" }, Coordinator, T);
+        var frozen = ConfigurationSnapshot.Capture("KX", "f", new Dictionary<string, string> { ["fw"] = "1" }, Coordinator, T);
         frozen.Freeze(1, T, T.AddDays(3), "review", Coordinator, T);
-        var during = ConfigurationSnapshot.Capture("K1", "d", new Dictionary<string, string> { ["fw"] = "2" }, Coordinator, T.AddDays(3));
-        var after = ConfigurationSnapshot.Capture("K1", "a", new Dictionary<string, string> { ["fw"] = "2" }, Coordinator, T.AddDays(3).AddTicks(1));
-        var same = ConfigurationSnapshot.Capture("K1", "s", new Dictionary<string, string> { ["fw"] = "1" }, Coordinator, T.AddDays(1));
+        var during = ConfigurationSnapshot.Capture("KX", "d", new Dictionary<string, string> { ["fw"] = "2" }, Coordinator, T.AddDays(3));
+        var after = ConfigurationSnapshot.Capture("KX", "a", new Dictionary<string, string> { ["fw"] = "2" }, Coordinator, T.AddDays(3).AddTicks(1));
+        var same = ConfigurationSnapshot.Capture("KX", "s", new Dictionary<string, string> { ["fw"] = "1" }, Coordinator, T.AddDays(1));
 
         var r1 = DriftCheck.Run(frozen, during);
         var r2 = DriftCheck.Run(frozen, after);
@@ -59,7 +59,7 @@ public class ConfigurationDiffTests
     [Fact]
     public void Drift_check_needs_a_frozen_snapshot_of_the_same_site()
     {
-        var a = ConfigurationSnapshot.Capture("K1", "f", new Dictionary<string, string>(), Coordinator, T);
+        var a = ConfigurationSnapshot.Capture("KX", "f", new Dictionary<string, string>(), Coordinator, T);
         var b = ConfigurationSnapshot.Capture("M2", "f", new Dictionary<string, string>(), Coordinator, T);
         Assert.Throws<ArgumentException>(() => DriftCheck.Run(a, a));
         a.Freeze(1, T, T.AddDays(1), "r", Coordinator, T);

@@ -18,7 +18,7 @@ public class ConfigurationSnapshotTests
     {
         var s = Capture(new() { ["b"] = "2", ["a"] = "é\"1" });
 
-        Assert.Equal("K1", s.SiteCode);
+        Assert.Equal("KX", s.SiteCode);
         Assert.Equal("{\"a\":\"é\\\"1\",\"b\":\"2\"}", s.ItemsJson);
         Assert.Equal(["a", "b"], s.Items.Keys.ToArray());
         Assert.False(s.IsFrozen);
@@ -33,7 +33,7 @@ public class ConfigurationSnapshotTests
         s.Freeze(7, T.AddHours(-1), T.AddDays(1), "Candidate\nreview", Coordinator, T.AddMinutes(1));
 
         // Oracle: the text written out by hand from docs/formats/configuration-fingerprint.md.
-        var text = "eventreview-configuration-v1\nsite=K1\nlabel=before\nfreeze-from=2031-01-02T02:04:05.0000000Z\n" +
+        var text = "eventreview-configuration-v1\nsite=KX\nlabel=before\nfreeze-from=2031-01-02T02:04:05.0000000Z\n" +
                    "freeze-until=2031-01-03T03:04:05.0000000Z\nreason=Candidate\\nreview\nitems=2\ncal=v3\nfw=1\\=2\\nx\n";
         Assert.Equal(Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text))), s.Fingerprint);
         Assert.True(s.IsFrozen);

@@ -64,7 +64,7 @@ internal sealed class SampleCase
     {
         var t = T0;
         var c = ReviewCase.Open("C31-0314A", GpsTime.FromSeconds(1_931_500_000.25m), "burst-search", "A short loud candidate.",
-            [new CaseArrival("K1", GpsTime.FromSeconds(1_931_500_000.25m), 9.5), new CaseArrival("M2", GpsTime.FromSeconds(1_931_500_000.257m), 7.25)],
+            [new CaseArrival("KX", GpsTime.FromSeconds(1_931_500_000.25m), 9.5), new CaseArrival("M2", GpsTime.FromSeconds(1_931_500_000.257m), 7.25)],
             Template(), Coordinator, t);
 
         t = t.AddMinutes(5);
@@ -76,7 +76,7 @@ internal sealed class SampleCase
         t = t.AddMinutes(1);
         var svg1 = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"10\" height=\"10\"><circle cx=\"5\" cy=\"5\" r=\"4\"/></svg>";
         var svg2 = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"10\" height=\"10\"><rect width=\"4\" height=\"4\"/></svg>";
-        c.AddComputation("timing.delay", new ComputationRecord(CheckKind.Timing, "{\"sites\":[\"K1\",\"M2\"]}", new string('a', 64), "eventreview-core 0.1.0",
+        c.AddComputation("timing.delay", new ComputationRecord(CheckKind.Timing, "{\"sites\":[\"KX\",\"M2\"]}", new string('a', 64), "eventreview-core 0.1.0",
             "{\"delaySeconds\":0.007}", "consistent", "delay 7.0 ms within 10.0 ms", svg1 + "\n<!--next-->\n" + svg2, Analyst, t), Analyst, t);
         t = t.AddMinutes(1);
         c.MarkItemReady("timing.delay", Analyst, t);
@@ -92,14 +92,14 @@ internal sealed class SampleCase
         t = t.AddMinutes(1);
         c.AddEvidence("timing.notes", EvidenceItem.Note("Correction: one glitch at 2 s.", Analyst, t), Analyst, t);
 
-        var frozen = ConfigurationSnapshot.Capture("K1", "before the run", new Dictionary<string, string>
+        var frozen = ConfigurationSnapshot.Capture("KX", "before the run", new Dictionary<string, string>
         {
             ["daq.firmware"] = "4.2.1",
             ["calibration.version"] = "v17",
             ["seal.rack3"] = "S-00917",
         }, Coordinator, T0.AddMinutes(-30));
         frozen.Freeze(c.Id, T0.AddHours(-1), T0.AddDays(7), "Candidate under review.", Coordinator, T0.AddMinutes(2));
-        var later = ConfigurationSnapshot.Capture("K1", "weekly capture", new Dictionary<string, string>
+        var later = ConfigurationSnapshot.Capture("KX", "weekly capture", new Dictionary<string, string>
         {
             ["daq.firmware"] = "4.2.2",
             ["calibration.version"] = "v17",
@@ -109,7 +109,7 @@ internal sealed class SampleCase
         var sites = new List<Site>
         {
             new("M2", "Mesa Two", 10.0, 20.0, 100.0, 30.0, 120.0, 1e-4),
-            new("K1", "Knoll One", -5.0, 40.0, 50.0, 10.0, 100.0, 1e-4),
+            new("KX", "Knoll One", -5.0, 40.0, 50.0, 10.0, 100.0, 1e-4),
             new("Z9", "Unused", 0.0, 0.0, 0.0, 0.0, 90.0, 1e-4),
         };
         return new SampleCase { Case = c, Sites = sites, Snapshots = [later, frozen] };

@@ -5,7 +5,7 @@ namespace EventReview.Core.Tests.Environment;
 
 public class EnvironmentImportTests
 {
-    private static readonly string[] Known = ["K1", "M2"];
+    private static readonly string[] Known = ["KX", "M2"];
 
     [Fact]
     public void Segments_import_merges_overlapping_rows_of_one_flag_and_says_so()
@@ -13,7 +13,7 @@ public class EnvironmentImportTests
         var csv = "site,flag,start_gps,end_gps,comment\nK1,GROUND_NOISE,100,110,a\nK1,GROUND_NOISE,105,120,b\nK1,OTHER,100,101\nM2,GROUND_NOISE,100,110\n";
         var result = DataQualitySegmentCsv.Parse(new StringReader(csv), Known);
         Assert.Equal(3, result.Segments.Count);
-        var merged = result.Segments.Single(s => s.Site == "K1" && s.Flag == "GROUND_NOISE");
+        var merged = result.Segments.Single(s => s.Site == "KX" && s.Flag == "GROUND_NOISE");
         Assert.Equal(100, merged.Start.Seconds);
         Assert.Equal(120, merged.End.Seconds);
         Assert.Equal("a; b", merged.Comment);
@@ -40,11 +40,11 @@ public class EnvironmentImportTests
     }
 
     [Theory]
-    [InlineData("K1,SEIS_X,100,NaN", "snr")]
-    [InlineData("K1,SEIS_X,abc,5", "gps_time")]
-    [InlineData("K1,SEIS_X,100,-1", "snr")]
-    [InlineData("K1,SEIS_X,100,5,0", "frequency_hz")]
-    [InlineData("K1,,100,5", "channel")]
+    [InlineData("KX,SEIS_X,100,NaN", "snr")]
+    [InlineData("KX,SEIS_X,abc,5", "gps_time")]
+    [InlineData("KX,SEIS_X,100,-1", "snr")]
+    [InlineData("KX,SEIS_X,100,5,0", "frequency_hz")]
+    [InlineData("KX,,100,5", "channel")]
     public void Malformed_trigger_lines_are_rejected_naming_line_and_column(string row, string column)
     {
         var csv = "site,channel,gps_time,snr,frequency_hz,duration_s\n" + row + "\n";
@@ -58,7 +58,7 @@ public class EnvironmentImportTests
     {
         var csv = "site,channel,gps_time,snr,frequency_hz,duration_s\nM2,MAG_Z,1000000010.5,8,60,0.1\nK1,SEIS_X,1000000001.25,12,,\n";
         var list = AuxiliaryTriggerCsv.Parse(new StringReader(csv), Known);
-        Assert.Equal("K1", list[0].Site);
+        Assert.Equal("KX", list[0].Site);
         Assert.Null(list[0].FrequencyHz);
         Assert.Equal(60, list[1].FrequencyHz);
         Assert.Equal(1000000010.5m, list[1].Time.Nanoseconds / 1e9m);
@@ -77,14 +77,14 @@ public class EnvironmentImportTests
 
         var ok = SensorInventoryCsv.Parse(new StringReader("site,channel,kind,location,coupling_file\nk1,MAG_Z,Magnetic,vault,mag.csv\n"), Known);
         Assert.Equal(SensorKind.Magnetic, ok[0].Kind);
-        Assert.Equal("K1", ok[0].Site);
+        Assert.Equal("KX", ok[0].Site);
         Assert.Equal("mag.csv", ok[0].CouplingFile);
     }
 
     [Fact]
     public void A_file_without_the_required_header_is_rejected_on_line_one()
     {
-        var ex = Assert.Throws<CsvFormatException>(() => DataQualitySegmentCsv.Parse(new StringReader("K1,F,100,110\n"), Known));
+        var ex = Assert.Throws<CsvFormatException>(() => DataQualitySegmentCsv.Parse(new StringReader("KX,F,100,110\n"), Known));
         Assert.Equal(1, ex.LineNumber);
         Assert.Throws<CsvFormatException>(() => DataQualitySegmentCsv.Parse(new StringReader(""), Known));
     }

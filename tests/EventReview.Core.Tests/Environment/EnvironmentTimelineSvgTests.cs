@@ -12,12 +12,12 @@ public class EnvironmentTimelineSvgTests
         var t = GpsTime.FromSeconds(1000m);
         var triggers = new[]
         {
-            new AuxiliaryTrigger("K1", "SEIS<X>", t.AddSeconds(0.2), 12, null, null),
-            new AuxiliaryTrigger("K1", "SEIS<X>", t.AddSeconds(-0.5), 7, null, null),
+            new AuxiliaryTrigger("KX", "SEIS<X>", t.AddSeconds(0.2), 12, null, null),
+            new AuxiliaryTrigger("KX", "SEIS<X>", t.AddSeconds(-0.5), 7, null, null),
             new AuxiliaryTrigger("M2", "MAG", t.AddSeconds(0.1), 30, null, null),
         };
         var segs = new[] { new DataQualitySegment("M2", "WIND", t.AddSeconds(-10), t.AddSeconds(0.3), null) };
-        var report = EnvironmentLookup.Run(new EnvironmentLookupInput(t, new Dictionary<string, GpsTime>(), ["K1", "M2"], segs, triggers, []));
+        var report = EnvironmentLookup.Run(new EnvironmentLookupInput(t, new Dictionary<string, GpsTime>(), ["KX", "M2"], segs, triggers, []));
 
         var svg = EnvironmentTimelineSvg.Render(report, 1.0);
 

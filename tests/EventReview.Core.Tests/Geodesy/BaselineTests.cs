@@ -16,7 +16,7 @@ public class BaselineTests
     public void Two_sites_about_3000_km_apart_allow_about_10_ms()
     {
         // Two invented sites on the equator, 27 degrees of longitude apart (chord ~2990 km).
-        var a = new Site("K1", "Site K1", 0, 0, 0, 0, 90, 1e-4);
+        var a = new Site("KX", "Site KX", 0, 0, 0, 0, 90, 1e-4);
         var b = new Site("M2", "Site M2", 0, 27, 0, 0, 90, 1e-4);
         var baseline = Baseline.Between(a, b);
 
@@ -29,7 +29,7 @@ public class BaselineTests
     [Fact]
     public void Baseline_vector_points_from_b_to_a()
     {
-        var a = new Site("K1", "Site K1", 10, 20, 0, 0, 90, 1e-4);
+        var a = new Site("KX", "Site KX", 10, 20, 0, 0, 90, 1e-4);
         var b = new Site("M2", "Site M2", -5, 40, 100, 0, 90, 1e-4);
         var baseline = Baseline.Between(a, b);
 

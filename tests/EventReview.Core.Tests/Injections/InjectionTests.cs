@@ -8,28 +8,28 @@ namespace EventReview.Core.Tests.Injections;
 public class InjectionTests
 {
     private const string Log = "site,start_gps,end_gps,kind,waveform_ref,status\n" +
-        "K1,1000,1002,burst,sg_100.txt,performed\n" +
+        "KX,1000,1002,burst,sg_100.txt,performed\n" +
         "M2,1000.5,1001,burst,sg_100.txt,aborted\n" +
-        "K1,5000,5010,cbc,bns_a.txt,scheduled\n";
+        "KX,5000,5010,cbc,bns_a.txt,scheduled\n";
 
     [Fact]
     public void Injection_log_import_reads_every_status()
     {
-        var list = InjectionLogCsv.Parse(new StringReader(Log), ["K1", "M2"]);
+        var list = InjectionLogCsv.Parse(new StringReader(Log), ["KX", "M2"]);
         Assert.Equal(3, list.Count);
         Assert.Equal(InjectionStatus.Aborted, list[1].Status);
         Assert.Equal(2.0, list[0].DurationSeconds);
     }
 
     [Theory]
-    [InlineData("K1,1000,1002,burst,w,done", "status")]
-    [InlineData("K1,1000,999,burst,w,performed", "end_gps")]
+    [InlineData("KX,1000,1002,burst,w,done", "status")]
+    [InlineData("KX,1000,999,burst,w,performed", "end_gps")]
     [InlineData("Q7,1000,1002,burst,w,performed", "site")]
-    [InlineData("K1,1000,1002,burst,,performed", "waveform_ref")]
+    [InlineData("KX,1000,1002,burst,,performed", "waveform_ref")]
     public void Malformed_injection_lines_are_rejected_naming_the_line(string row, string column)
     {
         var csv = "site,start_gps,end_gps,kind,waveform_ref,status\nK1,1,2,burst,w,performed\n" + row + "\n";
-        var ex = Assert.Throws<CsvFormatException>(() => InjectionLogCsv.Parse(new StringReader(csv), ["K1", "M2"]));
+        var ex = Assert.Throws<CsvFormatException>(() => InjectionLogCsv.Parse(new StringReader(csv), ["KX", "M2"]));
         Assert.Equal(3, ex.LineNumber);
         Assert.Equal(column, ex.Column);
     }
@@ -38,16 +38,16 @@ public class InjectionTests
     public void Overlap_lookup_checks_every_site_with_its_arrival_and_the_margin()
     {
         var list = InjectionLogCsv.Parse(new StringReader(Log), null);
-        var arrivals = new Dictionary<string, GpsTime> { ["K1"] = GpsTime.FromSeconds(1002.5m) };
+        var arrivals = new Dictionary<string, GpsTime> { ["KX"] = GpsTime.FromSeconds(1002.5m) };
         var none = InjectionOverlap.Find(list, GpsTime.FromSeconds(1000.7m), arrivals, ["T3"], marginSeconds: 0.1);
-        Assert.Equal(["K1", "M2", "T3"], none.SitesChecked.Select(s => s.Site));
-        // K1 arrives 0.5 s after its injection ended: outside a 0.1 s margin; M2 (case time 1000.7) overlaps an aborted one.
+        Assert.Equal(["KX", "M2", "T3"], none.SitesChecked.Select(s => s.Site));
+        // KX arrives 0.5 s after its injection ended: outside a 0.1 s margin; M2 (case time 1000.7) overlaps an aborted one.
         var m2 = Assert.Single(none.Hits);
         Assert.Equal("aborted", m2.Status);
         Assert.Equal("clear", none.Verdict);
 
         var withMargin = InjectionOverlap.Find(list, GpsTime.FromSeconds(1000.7m), arrivals, [], marginSeconds: 1);
-        var k1 = withMargin.Hits.Single(h => h.Site == "K1");
+        var k1 = withMargin.Hits.Single(h => h.Site == "KX");
         Assert.Equal(0.5, k1.OffsetSeconds, 1e-9);
         Assert.Equal("concern", withMargin.Verdict);
     }
@@ -91,11 +91,11 @@ public class InjectionTests
         var record = Encoding.UTF8.GetBytes("site,start_gps,end_gps,kind,waveform_ref,status\nK1,2000,2001,cbc,blind_1.txt,performed\n");
         var seal = SealedRecord.Seal(record);
         var arrivals = new Dictionary<string, GpsTime>();
-        var opened = BlindInjectionRecord.Open(seal.Commitment, record, seal.Salt, GpsTime.FromSeconds(2000.5m), arrivals, ["K1", "M2"], 0);
+        var opened = BlindInjectionRecord.Open(seal.Commitment, record, seal.Salt, GpsTime.FromSeconds(2000.5m), arrivals, ["KX", "M2"], 0);
         Assert.NotNull(opened);
         Assert.Equal("concern", opened.Verdict);
         Assert.Equal("blind_1.txt", Assert.Single(opened.Hits).WaveformRef);
-        Assert.Null(BlindInjectionRecord.Open(new string('0', 64), record, seal.Salt, GpsTime.FromSeconds(2000.5m), arrivals, ["K1"], 0));
+        Assert.Null(BlindInjectionRecord.Open(new string('0', 64), record, seal.Salt, GpsTime.FromSeconds(2000.5m), arrivals, ["KX"], 0));
         var empty = Encoding.UTF8.GetBytes("site,start_gps,end_gps,kind,waveform_ref,status\n");
         Assert.Empty(BlindInjectionRecord.Parse(empty, null));
     }

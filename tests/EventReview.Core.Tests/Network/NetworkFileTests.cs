@@ -6,7 +6,7 @@ public class NetworkFileTests
 {
     private const string Json = """
         {"name": "Demo net", "sites": [
-          {"code": "K1", "name": "Site K1", "latitudeDegrees": 46, "longitudeDegrees": -119, "heightMeters": 100,
+          {"code": "KX", "name": "Site KX", "latitudeDegrees": 46, "longitudeDegrees": -119, "heightMeters": 100,
            "xArmAzimuthDegrees": 36, "yArmAzimuthDegrees": 126, "timingUncertaintySeconds": 0.0001},
           {"code": "M2", "name": "Site M2", "latitudeDegrees": 30, "longitudeDegrees": -90, "heightMeters": 0,
            "xArmAzimuthDegrees": 252, "yArmAzimuthDegrees": 342, "timingUncertaintySeconds": 0.0001}]}
@@ -19,7 +19,7 @@ public class NetworkFileTests
         var again = NetworkFile.Parse(NetworkFile.Write(network));
 
         Assert.Equal("Demo net", again.Name);
-        Assert.Equal(["K1", "M2"], again.Sites.Select(s => s.Code));
+        Assert.Equal(["KX", "M2"], again.Sites.Select(s => s.Code));
         Assert.Equal(252, again.Sites[1].XArmAzimuthDegrees);
         Assert.Contains("\"timingUncertaintySeconds\"", NetworkFile.Write(network));
     }
@@ -36,7 +36,7 @@ public class NetworkFileTests
     {
         var missing = Assert.Throws<FormatException>(() => NetworkFile.Parse(Json.Replace("\"heightMeters\": 100,", string.Empty)));
         Assert.Equal("sites[0].heightMeters: missing.", missing.Message);
-        var repeated = Assert.Throws<FormatException>(() => NetworkFile.Parse(Json.Replace("\"M2\"", "\"K1\"")));
+        var repeated = Assert.Throws<FormatException>(() => NetworkFile.Parse(Json.Replace("\"M2\"", "\"KX\"")));
         Assert.StartsWith("sites[1].code:", repeated.Message);
     }
 

@@ -8,7 +8,7 @@ public class NetworkProjectionTests
     [Fact]
     public void A_site_facing_the_source_sees_it_before_the_geocentre_by_r_over_c()
     {
-        var site = new Site("K1", "Site K1", 0, 0, 0, 0, 90, 1e-4);
+        var site = new Site("KX", "Site KX", 0, 0, 0, 0, 90, 1e-4);
         var p = NetworkProjection.Project([site], new Vector3(1, 0, 0), 0)[0];
 
         // t = t0 - n·r/c with r = a on the equator at longitude 0.

@@ -11,7 +11,7 @@ internal static class SimulatedPair
 
     public static readonly SiteProjection[] Sites =
     [
-        new("K1", 0.0, 0.8, 0.1),
+        new("KX", 0.0, 0.8, 0.1),
         new("M2", 0.0071, -0.6, -0.075),
     ];
 

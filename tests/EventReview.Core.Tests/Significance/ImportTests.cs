@@ -56,7 +56,7 @@ public class ImportTests
     public void Triggers_at_a_segment_start_are_kept_and_at_its_end_are_dropped_and_counted()
     {
         var seg = new Segment(new GpsTime(1_000), new GpsTime(2_000));
-        var site = SiteTriggers.Create("K1", [new Trigger(new GpsTime(1_999), 5), new Trigger(new GpsTime(1_000), 5), new Trigger(new GpsTime(2_000), 5), new Trigger(new GpsTime(999), 5)], [seg]);
+        var site = SiteTriggers.Create("KX", [new Trigger(new GpsTime(1_999), 5), new Trigger(new GpsTime(1_000), 5), new Trigger(new GpsTime(2_000), 5), new Trigger(new GpsTime(999), 5)], [seg]);
         Assert.Equal(2, site.DroppedOutsideSegments);
         Assert.Equal([1_000L, 1_999L], site.Triggers.Select(t => t.Time.Nanoseconds));
     }

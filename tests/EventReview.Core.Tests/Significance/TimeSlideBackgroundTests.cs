@@ -12,7 +12,7 @@ public class TimeSlideBackgroundTests
     {
         const double r1 = 0.01, r2 = 0.02, tau = 0.010, span = 1e6;
         var rng = new Random(11);
-        var a = PoissonSite("K1", rng, r1, span);
+        var a = PoissonSite("KX", rng, r1, span);
         var b = PoissonSite("M2", rng, r2, span);
         var options = new TimeSlideOptions { WindowNs = 10_000_000, StepNs = 100 * GpsTime.NanosecondsPerSecond, Slides = 1000, CandidateStatistic = 1e9 };
         var result = TimeSlideBackground.Run(a, b, options);
@@ -35,7 +35,7 @@ public class TimeSlideBackgroundTests
         var rng = new Random(5);
         var triggersA = PoissonTriggers(rng, 0.05, 1e5).Append(new Trigger(new GpsTime(Origin + 50_000_000_000_000), 50)).ToList();
         var triggersB = PoissonTriggers(rng, 0.05, 1e5).Append(new Trigger(new GpsTime(Origin + 50_000_000_000_000 + 3_000_000), 50)).ToList();
-        var a = SiteTriggers.Create("K1", triggersA, [new Segment(new GpsTime(Origin), new GpsTime(Origin + 100_000_000_000_000))]);
+        var a = SiteTriggers.Create("KX", triggersA, [new Segment(new GpsTime(Origin), new GpsTime(Origin + 100_000_000_000_000))]);
         var b = SiteTriggers.Create("M2", triggersB, [new Segment(new GpsTime(Origin), new GpsTime(Origin + 100_000_000_000_000))]);
         var options = new TimeSlideOptions { WindowNs = 10_000_000, StepNs = 7 * GpsTime.NanosecondsPerSecond, Slides = 500, RemoveCandidateTriggers = true };
 
@@ -62,7 +62,7 @@ public class TimeSlideBackgroundTests
     public void Fast_and_naive_runs_give_the_same_figures()
     {
         var rng = new Random(3);
-        var a = PoissonSite("K1", rng, 0.2, 2e4, gapEvery: 3000);
+        var a = PoissonSite("KX", rng, 0.2, 2e4, gapEvery: 3000);
         var b = PoissonSite("M2", rng, 0.3, 2e4, gapEvery: 2300);
         var options = new TimeSlideOptions { WindowNs = 15_000_000, StepNs = 5 * GpsTime.NanosecondsPerSecond, Slides = 300, CandidateStatistic = 12 };
         var fast = TimeSlideBackground.Run(a, b, options);
@@ -80,7 +80,7 @@ public class TimeSlideBackgroundTests
     [Fact]
     public void Background_time_is_the_exact_overlap_after_the_shift_round_the_ring()
     {
-        var a = SiteTriggers.Create("K1", [], [new Segment(new GpsTime(0), new GpsTime(40))]);
+        var a = SiteTriggers.Create("KX", [], [new Segment(new GpsTime(0), new GpsTime(40))]);
         var b = SiteTriggers.Create("M2", [], [new Segment(new GpsTime(60), new GpsTime(100))]);
         var pair = new TimeSlidePair(a, b);
         Assert.Equal(100, pair.SpanNs);
@@ -94,7 +94,7 @@ public class TimeSlideBackgroundTests
     public void Progress_reaches_all_slides_and_cancellation_stops_the_search()
     {
         var rng = new Random(8);
-        var a = PoissonSite("K1", rng, 0.5, 1e4);
+        var a = PoissonSite("KX", rng, 0.5, 1e4);
         var b = PoissonSite("M2", rng, 0.5, 1e4);
         var options = new TimeSlideOptions { WindowNs = 10_000_000, StepNs = GpsTime.NanosecondsPerSecond, Slides = 200, CandidateStatistic = 10 };
         var last = new SynchronousProgress();

@@ -14,7 +14,7 @@ public class SkyMapSvgTests
     {
         Site[] sites =
         [
-            new("K1", "Site K1", 46, -119, 100, 36, 126, 1e-4),
+            new("KX", "Site KX", 46, -119, 100, 36, 126, 1e-4),
             new("M2", "Site M2", 30, -90, 0, 252, 342, 1e-4),
             new("T3", "Site T3", 43, 10, 50, 19, 109, 2e-4),
         ];

@@ -48,7 +48,7 @@ public static class SampleCases
     {
         var gps = GpsTime.FromSeconds(1_400_000_000.123456789m);
         return ReviewCase.Open(candidateId, gps, "data-search", "Summary with *Markdown*.",
-            [new CaseArrival("K1", gps.AddSeconds(0.0021), 9.5), new CaseArrival("M2", gps.AddSeconds(-0.0043), 7.25)],
+            [new CaseArrival("KX", gps.AddSeconds(0.0021), 9.5), new CaseArrival("M2", gps.AddSeconds(-0.0043), 7.25)],
             Template(), Coordinator, at ?? T0);
     }
 

@@ -32,7 +32,7 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
 
         public static Site[] Sites { get; } =
         [
-            new("K1", "Site K1", 46, -119, 100, 36, 126, 1e-4),
+            new("KX", "Site KX", 46, -119, 100, 36, 126, 1e-4),
             new("M2", "Site M2", 30, -90, 0, 252, 342, 1e-4),
         ];
 
@@ -123,7 +123,7 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         Assert.Equal("overlap", record.Kind);
         Assert.True(record.Verdict == "consistent", summary);
         var result = JsonSerializer.Deserialize<OverlapRecordResult>(record.ResultJson, CheckRecords.Json)!;
-        Assert.Equal("K1", result.SiteA); // loudest arrival
+        Assert.Equal("KX", result.SiteA); // loudest arrival
         Assert.Equal("M2", result.SiteB);
         double truthLag = setup.Projection[0].DelaySeconds - setup.Projection[1].DelaySeconds;
         Assert.Equal(truthLag, result.Overlap.RefinedLagSeconds, 1.0 / 2048); // within one sample (simulator truth)
@@ -221,7 +221,7 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
 
         Assert.False(job.IsRunning);
         Assert.True(job.Error is null, job.Error);
-        Assert.StartsWith("stored: K1–M2: overlap", job.Result);
+        Assert.StartsWith("stored: KX–M2: overlap", job.Result);
         var c = await scope.ServiceProvider.GetRequiredService<CaseService>().GetAsync(_app.Coordinator, setup.CaseId);
         Assert.Single(c.Item(Item).Computations);
     }

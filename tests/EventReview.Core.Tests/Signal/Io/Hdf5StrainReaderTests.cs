@@ -15,7 +15,7 @@ public class Hdf5StrainReaderTests
         {
             var file = new H5File
             {
-                ["K1"] = new H5Group
+                ["KX"] = new H5Group
                 {
                     ["strain"] = new H5Dataset(data)
                     {
@@ -26,18 +26,18 @@ public class Hdf5StrainReaderTests
             };
             file.Write(path);
 
-            var ts = Hdf5StrainReader.Read(path, new Hdf5StrainOptions("/K1/strain"));
+            var ts = Hdf5StrainReader.Read(path, new Hdf5StrainOptions("/KX/strain"));
             Assert.Equal(data, ts.Samples);
             Assert.Equal(4096, ts.SampleRateHz);
             Assert.Equal(GpsTime.FromSeconds(1300000000.25m), ts.Start);
 
-            var byHand = Hdf5StrainReader.Read(path, new Hdf5StrainOptions("/K1/other", Start: GpsTime.FromSeconds(5m)));
+            var byHand = Hdf5StrainReader.Read(path, new Hdf5StrainOptions("/KX/other", Start: GpsTime.FromSeconds(5m)));
             Assert.Equal(1024, byHand.SampleRateHz, 9);
             Assert.Equal(GpsTime.FromSeconds(5m), byHand.Start);
 
-            var ex = Assert.Throws<StrainFormatException>(() => Hdf5StrainReader.Read(path, new Hdf5StrainOptions("/K1/other")));
+            var ex = Assert.Throws<StrainFormatException>(() => Hdf5StrainReader.Read(path, new Hdf5StrainOptions("/KX/other")));
             Assert.Contains("start_gps", ex.Message);
-            Assert.Throws<StrainFormatException>(() => Hdf5StrainReader.Read(path, new Hdf5StrainOptions("/K1/missing")));
+            Assert.Throws<StrainFormatException>(() => Hdf5StrainReader.Read(path, new Hdf5StrainOptions("/KX/missing")));
         }
         finally
         {

@@ -37,7 +37,7 @@ public class StrainTextReaderTests
     {
         var src = new TimeSeries(GpsTime.FromSeconds(1234567890.5m), 4096, Enumerable.Range(0, 100).Select(i => Math.Cos(i) * 1e-21).ToArray());
         var sw = new StringWriter();
-        StrainTextWriter.Write(sw, src, ["site K1"]);
+        StrainTextWriter.Write(sw, src, ["site KX"]);
         var back = Read(sw.ToString());
         Assert.Equal(src.Start, back.Start);
         Assert.Equal(4096, back.SampleRateHz);

@@ -15,10 +15,10 @@ public class PictureTests
         var (map, fit) = ChirpAnalysis.Run(SimulatedPair.A(sim), SimulatedPair.Coalescence());
         var pictures = new Dictionary<string, string>
         {
-            ["overlay"] = OverlapPictures.Overlay(r, "K1", "M2"),
+            ["overlay"] = OverlapPictures.Overlay(r, "KX", "M2"),
             ["curve"] = OverlapPictures.CorrelationCurve(r),
             ["histogram"] = OverlapPictures.OffSourceHistogram(r),
-            ["map"] = TimeFrequencyPicture.Draw(map, fit, "K1"),
+            ["map"] = TimeFrequencyPicture.Draw(map, fit, "KX"),
         };
         foreach (var (name, svg) in pictures)
         {
@@ -44,7 +44,7 @@ public class TimeFrequencyPictureSizeTests
         var times = Enumerable.Range(0, 400).Select(i => i / 128.0).ToArray();
         var freqs = Enumerable.Range(10, 240).Select(k => k * 2.0).ToArray();
         var energy = times.Select(_ => freqs.Select(_ => 100.0).ToArray()).ToArray();
-        var svg = TimeFrequencyPicture.Draw(new TimeFrequencyMap("0", times, freqs, energy, 8), null, "K1");
+        var svg = TimeFrequencyPicture.Draw(new TimeFrequencyMap("0", times, freqs, energy, 8), null, "KX");
         Assert.True(svg.Length < 200_000, $"{svg.Length} characters");
         XDocument.Parse(svg);
     }

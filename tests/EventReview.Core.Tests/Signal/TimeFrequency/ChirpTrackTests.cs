@@ -24,7 +24,7 @@ public class ChirpTrackTests
     public void A_sine_gaussian_glitch_is_not_chirp_like()
     {
         var start = SimulatedPair.Start;
-        var glitch = new GlitchSpec("K1", start.AddSeconds(8), GlitchKind.SineGaussian, 120, 20, 3e-21);
+        var glitch = new GlitchSpec("KX", start.AddSeconds(8), GlitchKind.SineGaussian, 120, 20, 3e-21);
         var sim = NetworkSimulator.Simulate(SimulatedPair.Sites, new SimulationOptions(start, 16, 4096, 4, null, null, null, Glitches: [glitch]));
         var (_, fit) = ChirpAnalysis.Run(sim.Sites[0].Strain, start.AddSeconds(8), 1, 0.5);
         Assert.False(fit.ChirpLike);
