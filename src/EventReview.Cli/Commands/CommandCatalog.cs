@@ -7,6 +7,6 @@ public static class CommandCatalog
 {
     public static IEnumerable<Command> All()
     {
-        yield break;
+        yield return BackgroundCommand.Build();
     }
 }
