@@ -20,5 +20,6 @@ public static class CommandCatalog
         yield return ChainCommand.Build();
         yield return OverlapCommand.Build();
         yield return ChirpCommand.Build();
+        yield return BackgroundCommand.Build();
     }
 }
