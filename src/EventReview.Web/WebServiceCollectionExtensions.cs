@@ -61,6 +61,10 @@ public static class WebServiceCollectionExtensions
         Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Timing, typeof(Components.Checks.TimingRunner));
         Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Timing, typeof(Components.Checks.TimingResultView));
         services.AddScoped<DemoSeeder>();
+        services.AddScoped<Services.Checks.BackgroundCheckService>();
+        Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Background, typeof(Components.Checks.BackgroundRunner));
+        Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Background, typeof(Components.Checks.BackgroundResultView));
+        services.AddScoped<IDemoSeedStep, BackgroundDemoStep>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
         services.AddMudServices();
