@@ -141,7 +141,7 @@ public sealed class BackgroundCheckService(CaseService cases, NetworkService net
                 string.Create(Inv, $"{label}slide {p.SlidesDone:N0} of {p.SlidesTotal:N0}, {p.CoincidencesFound:N0} coincidences, {watch.Elapsed.TotalSeconds:F1} s")));
             var result = TimeSlideBackground.Run(sites[plan.SiteA], sites[plan.SiteB], options, reporter, ct);
             var elapsed = pairWatch.Elapsed.TotalSeconds;
-            svgs.Add(BackgroundPlotSvg.Render(result));
+            svgs.Add(BackgroundPlotSvg.Render(result, width: 960, height: 460));
             pairs.Add(Judge(plan, result with { Curve = Decimate(result.Curve, CurvePointsKept) }, elapsed));
         }
 
