@@ -10,7 +10,7 @@ namespace EventReview.Web.Demo;
 /// Demo data for the time-slide background of ER-C-0142: simulated trigger and segment files for its three sites over
 /// three days around the candidate, attached to <c>significance.time-slides</c>, and the check run once on them.
 /// </summary>
-public sealed class BackgroundDemoStep(CaseService cases, BackgroundCheckService background) : IDemoSeedStep
+public sealed class BackgroundDemoStep(CaseService cases, BackgroundCheckService background, ILogger<BackgroundDemoStep> logger) : IDemoSeedStep
 {
     public const string CandidateId = "ER-C-0142";
 
@@ -25,6 +25,7 @@ public sealed class BackgroundDemoStep(CaseService cases, BackgroundCheckService
             return;
         }
 
+        var watch = System.Diagnostics.Stopwatch.StartNew();
         var user = demo.ReviewerA;
         var c = await cases.GetAsync(user, caseId, ct);
         var day = 86_400L * GpsTime.NanosecondsPerSecond;
@@ -44,7 +45,8 @@ public sealed class BackgroundDemoStep(CaseService cases, BackgroundCheckService
             picks.Add(new BackgroundSiteFiles(a.SiteCode, trigSha, segSha));
         }
 
-        await background.RunAsync(user, caseId, ItemKey, new BackgroundCheckParameters(picks), ct: ct);
+        var (_, _, summary) = await background.RunAsync(user, caseId, ItemKey, new BackgroundCheckParameters(picks), ct: ct);
+        logger.LogInformation("Background demo on {Candidate} in {Seconds:F1} s: {Summary}", CandidateId, watch.Elapsed.TotalSeconds, summary);
     }
 
     /// <summary>Attaches the text as a file; returns its SHA-256 (the attachment store's key).</summary>
