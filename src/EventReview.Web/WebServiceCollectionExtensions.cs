@@ -78,6 +78,10 @@ public static class WebServiceCollectionExtensions
         Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Chain, typeof(Components.Checks.ChainRunner));
         Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Chain, typeof(Components.Checks.ChainResultView));
         services.AddScoped<IDemoSeedStep, LocalCausesDemoStep>();
+        services.AddScoped<Services.Checks.BackgroundCheckService>();
+        Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Background, typeof(Components.Checks.BackgroundRunner));
+        Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Background, typeof(Components.Checks.BackgroundResultView));
+        services.AddScoped<IDemoSeedStep, BackgroundDemoStep>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
         services.AddMudServices();

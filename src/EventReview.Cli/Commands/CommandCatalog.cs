@@ -23,5 +23,6 @@ public static class CommandCatalog
         yield return DossierCommand.Build();
         yield return ConfigCommand.Build();
         yield return SimulateCommand.Build();
+        yield return BackgroundCommand.Build();
     }
 }

@@ -65,13 +65,14 @@ public static class TimeSlideBackground
             FastTimeSlides.Find(pair, options, acc, progress, cancellationToken);
         }
 
-        long backgroundNs = 0;
+        // summed in 128 bits: 10,000 slides of 30 days is 2.6e19 ns, past the range of a long
+        Int128 backgroundNs = 0;
         for (var k = 1; k <= options.Slides; k++)
         {
-            backgroundNs += pair.OverlapNanoseconds(k * options.StepNs) + pair.OverlapNanoseconds(-k * options.StepNs);
+            backgroundNs += (Int128)pair.OverlapNanoseconds(k * options.StepNs) + pair.OverlapNanoseconds(-k * options.StepNs);
         }
 
-        var backgroundSeconds = Seconds(backgroundNs);
+        var backgroundSeconds = (double)backgroundNs / GpsTime.NanosecondsPerSecond;
         var zeroLagSeconds = Seconds(pair.ZeroLagOverlapNanoseconds());
         var observing = options.ObservingTimeSeconds ?? zeroLagSeconds;
         var figures = SignificanceFigures.Compute(acc.Count, acc.Louder, backgroundSeconds, observing);

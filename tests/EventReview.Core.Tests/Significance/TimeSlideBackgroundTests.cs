@@ -30,6 +30,22 @@ public class TimeSlideBackgroundTests
     }
 
     [Fact]
+    public void Background_time_past_the_range_of_a_long_nanosecond_count_is_summed_exactly()
+    {
+        // one full 30-day segment per site: on the ring every slide overlaps the whole span, so T_bg = 2K x span
+        const long span = 30L * 86_400 * GpsTime.NanosecondsPerSecond;
+        Segment[] segments = [new Segment(new GpsTime(Origin), new GpsTime(Origin + span))];
+        var a = SiteTriggers.Create("K1", [new Trigger(new GpsTime(Origin + 1_000_000_000), 8)], segments);
+        var b = SiteTriggers.Create("M2", [new Trigger(new GpsTime(Origin + 2_000_000_000), 8)], segments);
+        var options = new TimeSlideOptions { WindowNs = 15_000_000, StepNs = 5 * GpsTime.NanosecondsPerSecond, Slides = 5_000, CandidateStatistic = 20 };
+
+        var result = TimeSlideBackground.Run(a, b, options);
+
+        Assert.Equal(10_000 * 30.0 * 86_400, result.BackgroundSeconds, 1e-3); // 2.592e10 s = 2.592e19 ns > long.MaxValue (9.2e18)
+        Assert.Equal(1 / result.BackgroundSeconds, result.FarHz, 1e-25);
+    }
+
+    [Fact]
     public void A_loud_injected_zero_lag_coincidence_is_not_counted_in_the_background()
     {
         var rng = new Random(5);

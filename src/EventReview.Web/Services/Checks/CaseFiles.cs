@@ -10,7 +10,7 @@ public sealed class CaseFiles(AttachmentStore store)
     /// <summary>One attached file: which item it is on, its name, size and hash.</summary>
     public sealed record CaseFile(string ItemKey, string FileName, long SizeBytes, string Sha256, DateTimeOffset AddedAt)
     {
-        public string Label => $"{FileName} ({ItemKey}, {SizeBytes / 1024.0:F0} KB)";
+        public string Label => $"{FileName} ({ItemKey}, {(SizeBytes < 10 * 1024 ? $"{SizeBytes:N0} bytes" : $"{SizeBytes / 1024.0:N0} KB")})";
     }
 
     /// <summary>Every attachment of the case, newest first, distinct by hash.</summary>

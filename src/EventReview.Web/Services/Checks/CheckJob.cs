@@ -26,7 +26,11 @@ public sealed class CheckJob(string key, string description)
     /// <summary>Set when finished with an error or cancelled.</summary>
     public string? Error { get; private set; }
 
-    public TimeSpan Elapsed => DateTimeOffset.UtcNow - StartedAt;
+    /// <summary>When the job ended (null while running).</summary>
+    public DateTimeOffset? FinishedAt { get; private set; }
+
+    /// <summary>Running time so far, or the total once finished.</summary>
+    public TimeSpan Elapsed => (FinishedAt ?? DateTimeOffset.UtcNow) - StartedAt;
 
     public void Report(double? fraction, string progress)
     {
@@ -45,6 +49,7 @@ public sealed class CheckJob(string key, string description)
         {
             Result = result;
             Error = error;
+            FinishedAt = DateTimeOffset.UtcNow;
             IsRunning = false;
         }
     }

@@ -1,0 +1,94 @@
+namespace EventReview.Web.Services.Checks;
+
+/// <summary>
+/// Parameters of the time-slide background check as run from a case. Every site pair of the chosen sites is analysed
+/// separately (the first site by code stays, the second slides).
+/// </summary>
+/// <param name="Sites">Per site, the trigger and segment files (two or more sites, each among the case's arrivals).</param>
+/// <param name="WindowMs">Coincidence window ± in ms for every pair; null = each pair's light-travel time + <paramref name="ToleranceMs"/>.</param>
+/// <param name="ToleranceMs">Timing tolerance added to the light-travel time when the window is not given, in ms.</param>
+/// <param name="StepSeconds">Slide step in s; must be much longer than the window (at least <see cref="MinStepOverWindow"/> × window).</param>
+/// <param name="SlidesK">K: slides k = ±1..±K (2K slides per pair).</param>
+/// <param name="CandidateStatistic">Ranking statistic of the candidate for every pair; null = each pair's network SNR from the case's arrivals.</param>
+/// <param name="ObservingTimeSeconds">Observing time for the false-alarm probability in s; null = each pair's zero-lag coincident analysed time.</param>
+/// <param name="RemoveCandidateTriggers">Also report the figures with the candidate's own triggers taken out of the background.</param>
+public sealed record BackgroundCheckParameters(
+    IReadOnlyList<BackgroundSiteFiles> Sites,
+    double? WindowMs = null,
+    double ToleranceMs = 5.0,
+    double StepSeconds = 5.0,
+    int SlidesK = 2000,
+    double? CandidateStatistic = null,
+    double? ObservingTimeSeconds = null,
+    bool RemoveCandidateTriggers = true)
+{
+    /// <summary>The step must be at least this many times the window ("much longer"; common practice).</summary>
+    public const double MinStepOverWindow = 10.0;
+
+    /// <summary>Largest K accepted from the app (2K slides per pair).</summary>
+    public const int MaxSlidesK = 100_000;
+
+    /// <exception cref="ArgumentException">When a value is out of range (message names it).</exception>
+    public void Validate()
+    {
+        if (Sites is null || Sites.Count < 2)
+        {
+            throw new ArgumentException("Pick trigger and segment files for at least two sites.", nameof(Sites));
+        }
+
+        foreach (var s in Sites)
+        {
+            if (string.IsNullOrWhiteSpace(s.TriggersSha256) || string.IsNullOrWhiteSpace(s.SegmentsSha256))
+            {
+                throw new ArgumentException($"Site {s.SiteCode}: pick both a trigger file and a segment file.", nameof(Sites));
+            }
+        }
+
+        if (Sites.Select(s => s.SiteCode.ToUpperInvariant()).Distinct().Count() != Sites.Count)
+        {
+            throw new ArgumentException("Each site may appear only once.", nameof(Sites));
+        }
+
+        if (WindowMs is { } w && (!double.IsFinite(w) || w <= 0 || w > 1000))
+        {
+            throw new ArgumentException("The coincidence window must be > 0 and at most 1000 ms.", nameof(WindowMs));
+        }
+
+        if (!double.IsFinite(ToleranceMs) || ToleranceMs < 0 || ToleranceMs > 1000)
+        {
+            throw new ArgumentException("The timing tolerance must be between 0 and 1000 ms.", nameof(ToleranceMs));
+        }
+
+        if (!double.IsFinite(StepSeconds) || StepSeconds <= 0)
+        {
+            throw new ArgumentException("The slide step must be a positive number of seconds.", nameof(StepSeconds));
+        }
+
+        if (SlidesK < 1 || SlidesK > MaxSlidesK)
+        {
+            throw new ArgumentException($"K (slides each way) must be between 1 and {MaxSlidesK:N0}.", nameof(SlidesK));
+        }
+
+        if (CandidateStatistic is { } x && (!double.IsFinite(x) || x <= 0))
+        {
+            throw new ArgumentException("The candidate's ranking statistic must be a positive number.", nameof(CandidateStatistic));
+        }
+
+        if (ObservingTimeSeconds is { } t && (!double.IsFinite(t) || t <= 0))
+        {
+            throw new ArgumentException("The observing time must be a positive number of seconds.", nameof(ObservingTimeSeconds));
+        }
+    }
+
+    /// <summary>Refuses a step that is not much longer than the window.</summary>
+    /// <exception cref="ArgumentException">Naming both values and the rule.</exception>
+    public static void RequireStepMuchLongerThanWindow(double stepSeconds, double windowMs, string pair)
+    {
+        if (stepSeconds * 1e3 < MinStepOverWindow * windowMs)
+        {
+            throw new ArgumentException(string.Create(System.Globalization.CultureInfo.InvariantCulture,
+                $"The slide step ({stepSeconds:G6} s) must be much longer than the coincidence window of {pair} (±{windowMs:F1} ms): at least {MinStepOverWindow:0} × the window ({MinStepOverWindow * windowMs / 1e3:G3} s), so that slides never re-pair the same triggers and stay independent; a few seconds is usual."),
+                nameof(StepSeconds));
+        }
+    }
+}
