@@ -82,6 +82,7 @@ public static class WebServiceCollectionExtensions
         Services.Checks.CheckRunners.Register(Core.Checklists.CheckKind.Background, typeof(Components.Checks.BackgroundRunner));
         Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Background, typeof(Components.Checks.BackgroundResultView));
         services.AddScoped<IDemoSeedStep, BackgroundDemoStep>();
+        services.AddScoped<IDemoSeedStep, TimingDemoStep>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
         services.AddMudServices();
