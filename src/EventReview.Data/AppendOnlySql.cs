@@ -86,20 +86,31 @@ public static class AppendOnlySql
             yield return $"CREATE TRIGGER er_{t}_append_only BEFORE UPDATE OR DELETE ON \"{t}\" FOR EACH ROW EXECUTE FUNCTION er_append_only();";
         }
 
-        var cols = string.Join(", ", SignOffColumns.Split(", ").Select(c => $"\"{c}\""));
-        yield return $$"""
-            CREATE FUNCTION er_signoff_guard() RETURNS trigger AS $$
+        yield return PostgresSignOffGuardFunction();
+        yield return "CREATE TRIGGER er_SignOffs_guard BEFORE UPDATE OR DELETE ON \"SignOffs\" FOR EACH ROW EXECUTE FUNCTION er_signoff_guard();";
+    }
+
+    /// <summary>
+    /// The PostgreSQL sign-off guard function (CREATE OR REPLACE). Until the FixSignOffGuard migration, the function
+    /// compared <c>NEW."UserIdNEW."...</c> (a quoting slip) and so refused every update, marking stale included.
+    /// </summary>
+    public static string PostgresSignOffGuardFunction()
+    {
+        var columns = SignOffColumns.Split(", ");
+        var newRow = string.Join(", ", columns.Select(c => $"NEW.\"{c}\""));
+        var oldRow = string.Join(", ", columns.Select(c => $"OLD.\"{c}\""));
+        return $$"""
+            CREATE OR REPLACE FUNCTION er_signoff_guard() RETURNS trigger AS $$
             BEGIN
               IF TG_OP = 'DELETE' THEN
                 RAISE EXCEPTION 'Sign-offs cannot be deleted';
               END IF;
-              IF OLD."IsStale" OR NOT NEW."IsStale" OR ROW({{cols.Replace("\"", "NEW.\"")}}) IS DISTINCT FROM ROW({{cols.Replace("\"", "OLD.\"")}}) THEN
+              IF OLD."IsStale" OR NOT NEW."IsStale" OR ROW({{newRow}}) IS DISTINCT FROM ROW({{oldRow}}) THEN
                 RAISE EXCEPTION 'A sign-off can only be marked stale; nothing else about it can change';
               END IF;
               RETURN NEW;
             END $$ LANGUAGE plpgsql;
             """;
-        yield return "CREATE TRIGGER er_SignOffs_guard BEFORE UPDATE OR DELETE ON \"SignOffs\" FOR EACH ROW EXECUTE FUNCTION er_signoff_guard();";
     }
 
     public static IEnumerable<string> PostgresDown()

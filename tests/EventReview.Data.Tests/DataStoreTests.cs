@@ -12,7 +12,7 @@ namespace EventReview.Data.Tests;
 /// The data-layer tests, written once and run against every provider: <see cref="SqliteDataStoreTests"/> (a real
 /// SQLite file in a temp folder) and <see cref="PostgresDataStoreTests"/> (a throwaway PostgreSQL server).
 /// </summary>
-public abstract class DataStoreTests : IAsyncLifetime
+public abstract partial class DataStoreTests : IAsyncLifetime
 {
     private AppDbContextFactory? _factory;
 

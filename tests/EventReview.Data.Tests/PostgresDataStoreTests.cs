@@ -11,6 +11,8 @@ public sealed class PostgresDataStoreTests(PostgresServer server) : DataStoreTes
     protected override async Task<DatabaseSettings> SettingsAsync() =>
         new(DatabaseProvider.Postgres, await server.DatabaseAsync(nameof(PostgresDataStoreTests)), _folder.Path);
 
+    protected override object StoredTime(DateTimeOffset at) => at.ToUniversalTime();
+
     public override Task DisposeAsync()
     {
         _folder.Dispose();

@@ -10,6 +10,8 @@ public sealed class SqliteDataStoreTests : DataStoreTests
 
     protected override Task<DatabaseSettings> SettingsAsync() => Task.FromResult(DatabaseSettings.ForSqlite(_folder.Path));
 
+    protected override object StoredTime(DateTimeOffset at) => at.UtcTicks;
+
     public override Task DisposeAsync()
     {
         Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();

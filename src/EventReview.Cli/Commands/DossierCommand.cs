@@ -82,6 +82,7 @@ public static class DossierCommand
             }
 
             var path = Path.GetFullPath(parse.GetValue(output)!);
+            var temp = path + ".partial";
             try
             {
                 await using var provider = await data.OpenAsync(parse);
@@ -89,7 +90,6 @@ public static class DossierCommand
                     Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<Microsoft.EntityFrameworkCore.IDbContextFactory<EventReview.Data.AppDbContext>>(provider),
                     Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<EventReview.Data.AttachmentStore>(provider),
                     TimeProvider.System);
-                var temp = path + ".partial";
                 EventReview.Core.Dossier.DossierExportRecord record;
                 await using (var file = File.Create(temp))
                 {
@@ -115,6 +115,14 @@ public static class DossierCommand
             catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or InvalidDataException)
             {
                 return CliOutput.Fail($"{path}: {ex.Message}");
+            }
+            finally
+            {
+                // A failed export leaves no half-written file behind (after success the partial file was moved).
+                if (File.Exists(temp))
+                {
+                    File.Delete(temp);
+                }
             }
         });
         return command;

@@ -74,6 +74,12 @@ public sealed class ReviewCase
 
     public int StaleItemCount => _items.Count(i => i.HasStaleSignOffs);
 
+    /// <summary>Longest search name, characters.</summary>
+    public const int MaxSearchLength = 200;
+
+    /// <summary>Longest summary, characters.</summary>
+    public const int MaxSummaryLength = 20_000;
+
     /// <summary>Opens a case with its checklist made from <paramref name="template"/>.</summary>
     /// <exception cref="ArgumentException">When a field is invalid (the message names it).</exception>
     public static ReviewCase Open(string candidateId, GpsTime gps, string search, string summary,
@@ -88,6 +94,17 @@ public sealed class ReviewCase
         if (gps.Nanoseconds <= 0)
         {
             throw new ArgumentException("gpsTime must be a positive number of GPS seconds.", "gpsTime");
+        }
+
+        // The stored limits (see the case's database configuration); beyond them SQLite would keep the text and PostgreSQL refuse it.
+        if ((search ?? string.Empty).Length > MaxSearchLength)
+        {
+            throw new ArgumentException($"search must be at most {MaxSearchLength} characters.", nameof(search));
+        }
+
+        if ((summary ?? string.Empty).Length > MaxSummaryLength)
+        {
+            throw new ArgumentException($"summary must be at most {MaxSummaryLength} characters.", nameof(summary));
         }
 
         var list = arrivals.ToList();

@@ -17,6 +17,9 @@ public static class ApiResults
         UnmappedMemberHandling = System.Text.Json.Serialization.JsonUnmappedMemberHandling.Skip,
     };
 
+    /// <summary>Largest JSON request body read, bytes (1 MiB: a case or a note is far smaller; files go as multipart uploads).</summary>
+    public const long MaxJsonBytes = 1024 * 1024;
+
     /// <summary>Runs an endpoint body, mapping known exceptions to problems.</summary>
     public static async Task<IResult> Guard(Func<Task<IResult>> body)
     {
@@ -63,9 +66,29 @@ public static class ApiResults
             return (null, Problem(StatusCodes.Status415UnsupportedMediaType, "JSON expected", "Send the body as application/json."));
         }
 
+        if (request.ContentLength > MaxJsonBytes)
+        {
+            return (null, TooLarge());
+        }
+
+        // Read at most the limit (a body without a length is counted as it arrives), then parse from memory.
+        using var body = new MemoryStream();
+        var buffer = new byte[16 * 1024];
+        int read;
+        while ((read = await request.Body.ReadAsync(buffer, request.HttpContext.RequestAborted)) > 0)
+        {
+            if (body.Length + read > MaxJsonBytes)
+            {
+                return (null, TooLarge());
+            }
+
+            body.Write(buffer, 0, read);
+        }
+
+        body.Position = 0;
         try
         {
-            var value = await JsonSerializer.DeserializeAsync<T>(request.Body, Json);
+            var value = await JsonSerializer.DeserializeAsync<T>(body, Json);
             return value is null ? (null, Problem(StatusCodes.Status400BadRequest, "Malformed JSON", "The body is empty or null.")) : (value, null);
         }
         catch (JsonException ex)
@@ -75,6 +98,9 @@ public static class ApiResults
                 $"Malformed JSON at '{field}' (line {ex.LineNumber + 1}): {Explain(ex)}", field: field));
         }
     }
+
+    private static IResult TooLarge() => Problem(StatusCodes.Status413PayloadTooLarge, "JSON body too large",
+        $"The JSON body is larger than {MaxJsonBytes / 1024} KiB; nothing was stored.");
 
     public static IResult Problem(int status, string title, string detail, string? rule = null, string? field = null)
     {
@@ -94,6 +120,14 @@ public static class ApiResults
 
     private static string Explain(JsonException ex)
     {
+        for (Exception? inner = ex.InnerException; inner is not null; inner = inner.InnerException)
+        {
+            if (inner is System.Text.DecoderFallbackException || inner.Message.Contains("UTF-8", StringComparison.OrdinalIgnoreCase))
+            {
+                return "the text is not valid UTF-8 (send JSON encoded as UTF-8).";
+            }
+        }
+
         var m = ex.Message;
         if (m.Contains("could not be converted to System.Nullable`1[System.Decimal]", StringComparison.Ordinal) ||
             m.Contains("could not be converted to System.Nullable`1[System.Double]", StringComparison.Ordinal))
