@@ -8,9 +8,9 @@ namespace EventReview.Cli.Tests;
 [Collection("Console")]
 public class LocalCausesCommandTests
 {
-    private static readonly string Segments = CliRunner.TempFile("site,flag,start_gps,end_gps\nK1,WIND,1000000000,1000000000.5\n");
-    private static readonly string Triggers = CliRunner.TempFile("site,channel,gps_time,snr\nK1,SEIS_X,1000000000.3,12\nK1,SEIS_X,1000000900,5\nM2,MAG_Z,1000000050,9\n");
-    private static readonly string Injections = CliRunner.TempFile("site,start_gps,end_gps,kind,waveform_ref,status\nK1,1000000500,1000000500.1,burst,w1,performed\n");
+    private static readonly string Segments = CliRunner.TempFile("site,flag,start_gps,end_gps\nKX,WIND,1000000000,1000000000.5\n");
+    private static readonly string Triggers = CliRunner.TempFile("site,channel,gps_time,snr\nKX,SEIS_X,1000000000.3,12\nKX,SEIS_X,1000000900,5\nM2,MAG_Z,1000000050,9\n");
+    private static readonly string Injections = CliRunner.TempFile("site,start_gps,end_gps,kind,waveform_ref,status\nKX,1000000500,1000000500.1,burst,w1,performed\n");
 
     [Fact]
     public void Environment_json_has_hits_segments_and_verdict()
@@ -36,7 +36,7 @@ public class LocalCausesCommandTests
     [Fact]
     public void Environment_rejects_a_bad_segment_with_exit_2_and_one_line_naming_it()
     {
-        var bad = CliRunner.TempFile("site,flag,start_gps,end_gps\nK1,WIND,1000000001,1000000000\n");
+        var bad = CliRunner.TempFile("site,flag,start_gps,end_gps\nKX,WIND,1000000001,1000000000\n");
         var (exit, _, err) = CliRunner.Run(EnvironmentCommand.Build(), "environment", "--case-gps", "1000000000", "--segments", bad, "--triggers", Triggers, "--json");
         Assert.Equal(2, exit);
         Assert.Single(err.Trim().Split('\n'));
@@ -64,7 +64,7 @@ public class LocalCausesCommandTests
     [Fact]
     public void Seal_then_unseal_is_valid_and_an_altered_record_is_not()
     {
-        var record = CliRunner.TempFile("site,start_gps,end_gps,kind,waveform_ref,status\nK1,1000000000,1000000001,cbc,blind.txt,performed\n");
+        var record = CliRunner.TempFile("site,start_gps,end_gps,kind,waveform_ref,status\nKX,1000000000,1000000001,cbc,blind.txt,performed\n");
         var (exit, output, _) = CliRunner.Run(SealCommand.Build(), "seal", "--record", record, "--json");
         Assert.Equal(0, exit);
         using var doc = JsonDocument.Parse(output);

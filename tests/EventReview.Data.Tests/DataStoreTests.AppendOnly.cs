@@ -147,7 +147,7 @@ public abstract partial class DataStoreTests
     private async Task<(int CaseId, int SnapshotId)> SaveSnapshotAsync()
     {
         var caseId = await SaveNewAsync(SampleCases.Open(NewCandidateId()));
-        var snapshot = ConfigurationSnapshot.Capture("K1", "after maintenance",
+        var snapshot = ConfigurationSnapshot.Capture("KX", "after maintenance",
             new Dictionary<string, string> { ["daq.firmware"] = "4.2.1", ["calibration.version"] = "C07", ["seal.rack3"] = "S-0042" },
             SampleCases.ReviewerA, Captured, caseId);
         await using var db = Factory.CreateDbContext();

@@ -74,7 +74,7 @@ public sealed class BackgroundCommandTests : IDisposable
             File.WriteAllText(Path.Combine(_dir, code + "-seg.csv"), "start_gps,end_gps\n1300000000,1300010000\n1300010000,1300020000\n");
         }
 
-        return $"background --triggers K1={_dir}/a.csv --triggers M2={_dir}/b.csv --segments K1={_dir}/a-seg.csv --segments M2={_dir}/b-seg.csv";
+        return $"background --triggers KX={_dir}/a.csv --triggers M2={_dir}/b.csv --segments KX={_dir}/a-seg.csv --segments M2={_dir}/b-seg.csv";
     }
 
     private static (int Code, string Stdout, string Stderr) Run(string[] args)

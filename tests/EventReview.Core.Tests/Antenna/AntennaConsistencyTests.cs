@@ -8,8 +8,8 @@ namespace EventReview.Core.Tests.Antenna;
 public class AntennaConsistencyTests
 {
     private static readonly Site KX = new("KX", "Site KX", 40, -100, 0, 30, 120, 1e-4);
-    private static readonly Site K1Twin = new("K2", "Twin of KX", 40, -100, 0, 30, 120, 1e-4);
-    private static readonly Site K1Swapped = new("K3", "KX with arms swapped", 40, -100, 0, 120, 30, 1e-4);
+    private static readonly Site KXTwin = new("K2", "Twin of KX", 40, -100, 0, 30, 120, 1e-4);
+    private static readonly Site KXSwapped = new("K3", "KX with arms swapped", 40, -100, 0, 120, 30, 1e-4);
     private static readonly Site M2 = new("M2", "Site M2", 20, -80, 0, 200, 290, 1e-4);
 
     private static IReadOnlyList<Vector3> Ring() => SkyRing.Directions(new Vector3(0.3, -0.5, 0.8), 0.2, 72);
@@ -17,8 +17,8 @@ public class AntennaConsistencyTests
     [Fact]
     public void Identical_detectors_always_agree_in_sign_with_ratio_one()
     {
-        var same = AntennaConsistency.Evaluate(KX, K1Twin, Ring(), new AntennaObservation(1, 1.0));
-        var flipped = AntennaConsistency.Evaluate(KX, K1Twin, Ring(), new AntennaObservation(-1, 1.0));
+        var same = AntennaConsistency.Evaluate(KX, KXTwin, Ring(), new AntennaObservation(1, 1.0));
+        var flipped = AntennaConsistency.Evaluate(KX, KXTwin, Ring(), new AntennaObservation(-1, 1.0));
 
         Assert.Equal("consistent", same.Verdict);
         Assert.Equal(1.0, same.FractionAllowingSignAndRatio);
@@ -31,10 +31,10 @@ public class AntennaConsistencyTests
     [Fact]
     public void Swapped_arms_always_flip_the_sign()
     {
-        var result = AntennaConsistency.Evaluate(KX, K1Swapped, Ring(), new AntennaObservation(-1, 1.0));
+        var result = AntennaConsistency.Evaluate(KX, KXSwapped, Ring(), new AntennaObservation(-1, 1.0));
 
         Assert.Equal(1.0, result.FractionAllowingSignAndRatio);
-        Assert.Equal(0.0, AntennaConsistency.Evaluate(KX, K1Swapped, Ring(), new AntennaObservation(1, 1.0)).FractionAllowingSign);
+        Assert.Equal(0.0, AntennaConsistency.Evaluate(KX, KXSwapped, Ring(), new AntennaObservation(1, 1.0)).FractionAllowingSign);
     }
 
     [Fact]
@@ -74,7 +74,7 @@ public class AntennaConsistencyTests
     [Fact]
     public void Allowed_sky_cells_cover_the_whole_sky_for_identical_detectors()
     {
-        var cells = AntennaSkyRegion.AllowedCells(KX, K1Twin, new AntennaObservation(1, 1.0), 0, 10);
+        var cells = AntennaSkyRegion.AllowedCells(KX, KXTwin, new AntennaObservation(1, 1.0), 0, 10);
 
         Assert.Equal(18 * 36, cells.Count);
     }

@@ -7,7 +7,7 @@ public class ConfigurationImportTests
     [Fact]
     public void Key_value_lines_skip_comments_and_blanks_trim_and_sort_ordinally()
     {
-        var items = ConfigurationImport.Parse("# header\n\nzeta = 1\n  Alpha=two words = x \n\tbeta:b/c-d_e = \n", "k1.conf");
+        var items = ConfigurationImport.Parse("# header\n\nzeta = 1\n  Alpha=two words = x \n\tbeta:b/c-d_e = \n", "kx.conf");
 
         Assert.Equal(["Alpha", "beta:b/c-d_e", "zeta"], items.Keys.ToArray());
         Assert.Equal("two words = x", items["Alpha"]);
@@ -17,16 +17,16 @@ public class ConfigurationImportTests
     [Fact]
     public void A_repeated_key_is_rejected_naming_both_lines()
     {
-        var ex = Assert.Throws<FormatException>(() => ConfigurationImport.Parse("a = 1\n# c\nb = 2\na = 3\n", "k1.conf"));
+        var ex = Assert.Throws<FormatException>(() => ConfigurationImport.Parse("a = 1\n# c\nb = 2\na = 3\n", "kx.conf"));
 
-        Assert.Contains("k1.conf, line 4", ex.Message);
+        Assert.Contains("kx.conf, line 4", ex.Message);
         Assert.Contains("already appears on line 1", ex.Message);
     }
 
     [Fact]
     public void A_line_without_equals_sign_is_rejected_naming_the_line()
     {
-        var ex = Assert.Throws<FormatException>(() => ConfigurationImport.Parse("a = 1\njust text\n", "k1.conf"));
+        var ex = Assert.Throws<FormatException>(() => ConfigurationImport.Parse("a = 1\njust text\n", "kx.conf"));
 
         Assert.Contains("line 2", ex.Message);
         Assert.Contains("no '='", ex.Message);

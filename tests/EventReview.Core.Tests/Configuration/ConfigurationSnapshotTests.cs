@@ -11,7 +11,7 @@ public class ConfigurationSnapshotTests
     private static readonly DateTimeOffset T = new(2031, 1, 2, 3, 4, 5, TimeSpan.Zero);
 
     private static ConfigurationSnapshot Capture(Dictionary<string, string> items) =>
-        ConfigurationSnapshot.Capture("k1", "before", items, Coordinator, T);
+        ConfigurationSnapshot.Capture("kx", "before", items, Coordinator, T);
 
     [Fact]
     public void Capture_normalises_site_code_and_stores_sorted_canonical_items()

@@ -10,7 +10,7 @@ public class EnvironmentImportTests
     [Fact]
     public void Segments_import_merges_overlapping_rows_of_one_flag_and_says_so()
     {
-        var csv = "site,flag,start_gps,end_gps,comment\nK1,GROUND_NOISE,100,110,a\nK1,GROUND_NOISE,105,120,b\nK1,OTHER,100,101\nM2,GROUND_NOISE,100,110\n";
+        var csv = "site,flag,start_gps,end_gps,comment\nKX,GROUND_NOISE,100,110,a\nKX,GROUND_NOISE,105,120,b\nKX,OTHER,100,101\nM2,GROUND_NOISE,100,110\n";
         var result = DataQualitySegmentCsv.Parse(new StringReader(csv), Known);
         Assert.Equal(3, result.Segments.Count);
         var merged = result.Segments.Single(s => s.Site == "KX" && s.Flag == "GROUND_NOISE");
@@ -23,7 +23,7 @@ public class EnvironmentImportTests
     [Fact]
     public void Segments_with_end_not_after_start_are_rejected_naming_the_line()
     {
-        var csv = "site,flag,start_gps,end_gps\nK1,F,100,110\nK1,F,200,200\n";
+        var csv = "site,flag,start_gps,end_gps\nKX,F,100,110\nKX,F,200,200\n";
         var ex = Assert.Throws<CsvFormatException>(() => DataQualitySegmentCsv.Parse(new StringReader(csv), Known));
         Assert.Equal(3, ex.LineNumber);
         Assert.Equal("end_gps", ex.Column);
@@ -33,7 +33,7 @@ public class EnvironmentImportTests
     [Fact]
     public void Unknown_site_codes_are_rejected_naming_the_line()
     {
-        var csv = "site,channel,gps_time,snr\nK1,SEIS_X,100,5\nZ9,SEIS_X,101,5\n";
+        var csv = "site,channel,gps_time,snr\nKX,SEIS_X,100,5\nZ9,SEIS_X,101,5\n";
         var ex = Assert.Throws<CsvFormatException>(() => AuxiliaryTriggerCsv.Parse(new StringReader(csv), Known));
         Assert.Equal(3, ex.LineNumber);
         Assert.Contains("unknown site 'Z9'", ex.Message);
@@ -56,7 +56,7 @@ public class EnvironmentImportTests
     [Fact]
     public void Triggers_import_reads_optional_columns_and_sorts_by_time()
     {
-        var csv = "site,channel,gps_time,snr,frequency_hz,duration_s\nM2,MAG_Z,1000000010.5,8,60,0.1\nK1,SEIS_X,1000000001.25,12,,\n";
+        var csv = "site,channel,gps_time,snr,frequency_hz,duration_s\nM2,MAG_Z,1000000010.5,8,60,0.1\nKX,SEIS_X,1000000001.25,12,,\n";
         var list = AuxiliaryTriggerCsv.Parse(new StringReader(csv), Known);
         Assert.Equal("KX", list[0].Site);
         Assert.Null(list[0].FrequencyHz);
@@ -67,15 +67,15 @@ public class EnvironmentImportTests
     [Fact]
     public void Inventory_rejects_an_unknown_kind_and_a_duplicate_channel_naming_the_line()
     {
-        var bad = "site,channel,kind,location\nK1,SEIS_X,seismic,end station\nK1,MIC_1,noisy,corner\n";
+        var bad = "site,channel,kind,location\nKX,SEIS_X,seismic,end station\nKX,MIC_1,noisy,corner\n";
         var ex = Assert.Throws<CsvFormatException>(() => SensorInventoryCsv.Parse(new StringReader(bad), Known));
         Assert.Equal(3, ex.LineNumber);
         Assert.Equal("kind", ex.Column);
 
-        var dup = "site,channel,kind,location\nK1,SEIS_X,seismic,a\nK1,SEIS_X,acoustic,b\n";
+        var dup = "site,channel,kind,location\nKX,SEIS_X,seismic,a\nKX,SEIS_X,acoustic,b\n";
         Assert.Equal(3, Assert.Throws<CsvFormatException>(() => SensorInventoryCsv.Parse(new StringReader(dup), Known)).LineNumber);
 
-        var ok = SensorInventoryCsv.Parse(new StringReader("site,channel,kind,location,coupling_file\nk1,MAG_Z,Magnetic,vault,mag.csv\n"), Known);
+        var ok = SensorInventoryCsv.Parse(new StringReader("site,channel,kind,location,coupling_file\nkx,MAG_Z,Magnetic,vault,mag.csv\n"), Known);
         Assert.Equal(SensorKind.Magnetic, ok[0].Kind);
         Assert.Equal("KX", ok[0].Site);
         Assert.Equal("mag.csv", ok[0].CouplingFile);

@@ -28,7 +28,7 @@ public class InjectionTests
     [InlineData("KX,1000,1002,burst,,performed", "waveform_ref")]
     public void Malformed_injection_lines_are_rejected_naming_the_line(string row, string column)
     {
-        var csv = "site,start_gps,end_gps,kind,waveform_ref,status\nK1,1,2,burst,w,performed\n" + row + "\n";
+        var csv = "site,start_gps,end_gps,kind,waveform_ref,status\nKX,1,2,burst,w,performed\n" + row + "\n";
         var ex = Assert.Throws<CsvFormatException>(() => InjectionLogCsv.Parse(new StringReader(csv), ["KX", "M2"]));
         Assert.Equal(3, ex.LineNumber);
         Assert.Equal(column, ex.Column);
@@ -88,7 +88,7 @@ public class InjectionTests
     [Fact]
     public void Opening_a_blind_record_reveals_overlaps_only_when_the_commitment_matches()
     {
-        var record = Encoding.UTF8.GetBytes("site,start_gps,end_gps,kind,waveform_ref,status\nK1,2000,2001,cbc,blind_1.txt,performed\n");
+        var record = Encoding.UTF8.GetBytes("site,start_gps,end_gps,kind,waveform_ref,status\nKX,2000,2001,cbc,blind_1.txt,performed\n");
         var seal = SealedRecord.Seal(record);
         var arrivals = new Dictionary<string, GpsTime>();
         var opened = BlindInjectionRecord.Open(seal.Commitment, record, seal.Salt, GpsTime.FromSeconds(2000.5m), arrivals, ["KX", "M2"], 0);

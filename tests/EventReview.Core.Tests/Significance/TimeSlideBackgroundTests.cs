@@ -35,7 +35,7 @@ public class TimeSlideBackgroundTests
         // one full 30-day segment per site: on the ring every slide overlaps the whole span, so T_bg = 2K x span
         const long span = 30L * 86_400 * GpsTime.NanosecondsPerSecond;
         Segment[] segments = [new Segment(new GpsTime(Origin), new GpsTime(Origin + span))];
-        var a = SiteTriggers.Create("K1", [new Trigger(new GpsTime(Origin + 1_000_000_000), 8)], segments);
+        var a = SiteTriggers.Create("KX", [new Trigger(new GpsTime(Origin + 1_000_000_000), 8)], segments);
         var b = SiteTriggers.Create("M2", [new Trigger(new GpsTime(Origin + 2_000_000_000), 8)], segments);
         var options = new TimeSlideOptions { WindowNs = 15_000_000, StepNs = 5 * GpsTime.NanosecondsPerSecond, Slides = 5_000, CandidateStatistic = 20 };
 

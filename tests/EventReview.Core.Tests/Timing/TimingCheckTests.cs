@@ -88,7 +88,7 @@ public class TimingCheckTests
     public void Duplicate_arrivals_and_a_single_arrival_are_rejected()
     {
         var dup = Assert.Throws<ArgumentException>(() =>
-            TimingCheck.Run(Network, [new SiteArrival("KX", T0), new SiteArrival("k1", T0)], TimingOptions.Default));
+            TimingCheck.Run(Network, [new SiteArrival("KX", T0), new SiteArrival("kx", T0)], TimingOptions.Default));
         Assert.Contains("Duplicate", dup.Message);
         Assert.Throws<ArgumentException>(() => TimingCheck.Run(Network, [new SiteArrival("KX", T0)], TimingOptions.Default));
     }
