@@ -10,7 +10,7 @@ public class AntennaCheckTests
     [Fact]
     public void The_true_sign_and_ratio_are_allowed_on_the_ring_of_a_simulated_two_site_event()
     {
-        Site[] sites = [new("KX", "Site KX", 46, -119, 100, 36, 126, 1e-4), new("M2", "Site M2", 30, -90, 0, 252, 342, 1e-4)];
+        Site[] sites = [new("KX", "Site KX", 47, -105, 100, 36, 126, 1e-4), new("M2", "Site M2", 28, -82, 0, 252, 342, 1e-4)];
         var n = new EventReview.Core.Geodesy.Vector3(0.3, 0.4, 0.5).Normalized();
         var projection = NetworkProjection.Project(sites, n, 0.4);
         var t0 = EventReview.Core.Time.GpsTime.FromSeconds(1400000000m);

@@ -14,9 +14,9 @@ public class SkyMapSvgTests
     {
         Site[] sites =
         [
-            new("KX", "Site KX", 46, -119, 100, 36, 126, 1e-4),
-            new("M2", "Site M2", 30, -90, 0, 252, 342, 1e-4),
-            new("T3", "Site T3", 43, 10, 50, 19, 109, 2e-4),
+            new("KX", "Site KX", 47, -105, 100, 36, 126, 1e-4),
+            new("M2", "Site M2", 28, -82, 0, 252, 342, 1e-4),
+            new("T3", "Site T3", 41, 22, 50, 19, 109, 2e-4),
         ];
         var t0 = GpsTime.FromSeconds(1400000000m);
         var n = new Vector3(0.2, -0.7, 0.5).Normalized();

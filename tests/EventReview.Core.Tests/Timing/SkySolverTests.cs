@@ -11,7 +11,7 @@ public class SkySolverTests
     [Fact]
     public void Three_sites_recover_the_direction_and_its_mirror_through_the_plane_of_the_sites()
     {
-        Vector3[] r = [Wgs84.ToEcef(46, -119, 100), Wgs84.ToEcef(30, -90, 0), Wgs84.ToEcef(43, 10, 50)];
+        Vector3[] r = [Wgs84.ToEcef(47, -105, 100), Wgs84.ToEcef(28, -82, 0), Wgs84.ToEcef(41, 22, 50)];
         var n = new Vector3(0.2, -0.7, 0.5).Normalized();
         var normal = Vector3.Cross(r[1] - r[0], r[2] - r[0]).Normalized();
         var mirror = n - (2 * Vector3.Dot(n, normal) * normal);
@@ -30,7 +30,7 @@ public class SkySolverTests
     [Fact]
     public void Four_sites_recover_the_unique_direction_by_least_squares()
     {
-        Vector3[] r = [Wgs84.ToEcef(46, -119, 100), Wgs84.ToEcef(30, -90, 0), Wgs84.ToEcef(43, 10, 50), Wgs84.ToEcef(36, 137, 300)];
+        Vector3[] r = [Wgs84.ToEcef(47, -105, 100), Wgs84.ToEcef(28, -82, 0), Wgs84.ToEcef(41, 22, 50), Wgs84.ToEcef(34, 128, 300)];
         var n = new Vector3(-0.4, 0.1, -0.6).Normalized();
 
         var fit = SkySolver.Solve(r, Arrivals(r, n));

@@ -32,8 +32,8 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
 
         public static Site[] Sites { get; } =
         [
-            new("KX", "Site KX", 46, -119, 100, 36, 126, 1e-4),
-            new("M2", "Site M2", 30, -90, 0, 252, 342, 1e-4),
+            new("KX", "Site KX", 47, -105, 100, 36, 126, 1e-4),
+            new("M2", "Site M2", 28, -82, 0, 252, 342, 1e-4),
         ];
 
         public ClaimsPrincipal Coordinator { get; } = new(new ClaimsIdentity(
@@ -128,7 +128,7 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         double truthLag = setup.Projection[0].DelaySeconds - setup.Projection[1].DelaySeconds;
         Assert.Equal(truthLag, result.Overlap.RefinedLagSeconds, 1.0 / 2048); // within one sample (simulator truth)
         Assert.Equal(setup.Sim.Truth.Sites[1].SignRelativeToFirst, result.Overlap.Sign);
-        Assert.True(result.Overlap.Overlap >= 0.8, summary);
+        Assert.True(result.Overlap.Overlap >= 0.7, summary); // loud (network SNR 60) edge-on signal: well above the 0.5 default threshold
         Assert.Equal(1.0 / 201, result.Overlap.PValue!.Value, 1e-12); // no off-source window reaches the candidate: (1 + 0) / (1 + 200)
 
         // Allowed lag = light-travel + 3 sigma: sigma = sqrt(2) * 0.1 ms.
