@@ -16,6 +16,12 @@ public sealed class TimeSlidePair
     /// <summary>Prepares two sites (site B is the one that slides).</summary>
     /// <exception cref="ArgumentException">When both sites have the same code.</exception>
     public TimeSlidePair(SiteTriggers siteA, SiteTriggers siteB)
+        : this(siteA, siteB, null)
+    {
+    }
+
+    /// <summary>Prepares two sites on a ring given as (origin ns, span ns), e.g. the ring of a larger network.</summary>
+    internal TimeSlidePair(SiteTriggers siteA, SiteTriggers siteB, (long OriginNs, long SpanNs)? ring)
     {
         ArgumentNullException.ThrowIfNull(siteA);
         ArgumentNullException.ThrowIfNull(siteB);
@@ -26,8 +32,8 @@ public sealed class TimeSlidePair
 
         SiteA = siteA;
         SiteB = siteB;
-        OriginNs = Math.Min(siteA.Segments[0].Start.Nanoseconds, siteB.Segments[0].Start.Nanoseconds);
-        SpanNs = Math.Max(siteA.Segments[^1].End.Nanoseconds, siteB.Segments[^1].End.Nanoseconds) - OriginNs;
+        OriginNs = ring?.OriginNs ?? Math.Min(siteA.Segments[0].Start.Nanoseconds, siteB.Segments[0].Start.Nanoseconds);
+        SpanNs = ring?.SpanNs ?? (Math.Max(siteA.Segments[^1].End.Nanoseconds, siteB.Segments[^1].End.Nanoseconds) - OriginNs);
         (PositionsA, SnrSquaredA, ChirpMassA) = Columns(siteA.Triggers, OriginNs);
         (PositionsB, SnrSquaredB, ChirpMassB) = Columns(siteB.Triggers, OriginNs);
         _segA = Flatten(siteA.Segments, OriginNs);
