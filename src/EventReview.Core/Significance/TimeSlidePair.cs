@@ -36,8 +36,8 @@ public sealed class TimeSlidePair
         SpanNs = ring?.SpanNs ?? (Math.Max(siteA.Segments[^1].End.Nanoseconds, siteB.Segments[^1].End.Nanoseconds) - OriginNs);
         (PositionsA, SnrSquaredA, ChirpMassA) = Columns(siteA.Triggers, OriginNs);
         (PositionsB, SnrSquaredB, ChirpMassB) = Columns(siteB.Triggers, OriginNs);
-        _segA = Flatten(siteA.Segments, OriginNs);
-        _segB = Flatten(siteB.Segments, OriginNs);
+        _segA = RingOverlap.Flatten(siteA.Segments, OriginNs);
+        _segB = RingOverlap.Flatten(siteB.Segments, OriginNs);
     }
 
     /// <summary>The fixed site.</summary>
@@ -128,17 +128,5 @@ public sealed class TimeSlidePair
         }
 
         return (positions, snr2, chirp);
-    }
-
-    private static long[] Flatten(IReadOnlyList<Segment> segments, long origin)
-    {
-        var flat = new long[segments.Count * 2];
-        for (var i = 0; i < segments.Count; i++)
-        {
-            flat[2 * i] = segments[i].Start.Nanoseconds - origin;
-            flat[(2 * i) + 1] = segments[i].End.Nanoseconds - origin;
-        }
-
-        return flat;
     }
 }
