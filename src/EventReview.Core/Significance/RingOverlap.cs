@@ -65,6 +65,47 @@ internal static class RingOverlap
         return total;
     }
 
+    /// <summary>The intersection of two sorted lists of disjoint segments, as a sorted list.</summary>
+    public static long[] Intersect(long[] a, long[] b)
+    {
+        var list = new List<long>();
+        int i = 0, j = 0;
+        while (i < a.Length && j < b.Length)
+        {
+            var lo = Math.Max(a[i], b[j]);
+            var hi = Math.Min(a[i + 1], b[j + 1]);
+            if (hi > lo)
+            {
+                list.Add(lo);
+                list.Add(hi);
+            }
+
+            if (a[i + 1] < b[j + 1])
+            {
+                i += 2;
+            }
+            else
+            {
+                j += 2;
+            }
+        }
+
+        return [.. list];
+    }
+
+    /// <summary>Flat ring coordinates of segments relative to an origin.</summary>
+    public static long[] Flatten(IReadOnlyList<Segment> segments, long origin)
+    {
+        var flat = new long[segments.Count * 2];
+        for (var i = 0; i < segments.Count; i++)
+        {
+            flat[2 * i] = segments[i].Start.Nanoseconds - origin;
+            flat[(2 * i) + 1] = segments[i].End.Nanoseconds - origin;
+        }
+
+        return flat;
+    }
+
     /// <summary>x mod m in [0, m) for m &gt; 0.</summary>
     public static long FloorMod(long x, long m)
     {

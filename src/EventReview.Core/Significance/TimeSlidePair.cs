@@ -16,6 +16,12 @@ public sealed class TimeSlidePair
     /// <summary>Prepares two sites (site B is the one that slides).</summary>
     /// <exception cref="ArgumentException">When both sites have the same code.</exception>
     public TimeSlidePair(SiteTriggers siteA, SiteTriggers siteB)
+        : this(siteA, siteB, null)
+    {
+    }
+
+    /// <summary>Prepares two sites on a ring given as (origin ns, span ns), e.g. the ring of a larger network.</summary>
+    internal TimeSlidePair(SiteTriggers siteA, SiteTriggers siteB, (long OriginNs, long SpanNs)? ring)
     {
         ArgumentNullException.ThrowIfNull(siteA);
         ArgumentNullException.ThrowIfNull(siteB);
@@ -26,12 +32,12 @@ public sealed class TimeSlidePair
 
         SiteA = siteA;
         SiteB = siteB;
-        OriginNs = Math.Min(siteA.Segments[0].Start.Nanoseconds, siteB.Segments[0].Start.Nanoseconds);
-        SpanNs = Math.Max(siteA.Segments[^1].End.Nanoseconds, siteB.Segments[^1].End.Nanoseconds) - OriginNs;
+        OriginNs = ring?.OriginNs ?? Math.Min(siteA.Segments[0].Start.Nanoseconds, siteB.Segments[0].Start.Nanoseconds);
+        SpanNs = ring?.SpanNs ?? (Math.Max(siteA.Segments[^1].End.Nanoseconds, siteB.Segments[^1].End.Nanoseconds) - OriginNs);
         (PositionsA, SnrSquaredA, ChirpMassA) = Columns(siteA.Triggers, OriginNs);
         (PositionsB, SnrSquaredB, ChirpMassB) = Columns(siteB.Triggers, OriginNs);
-        _segA = Flatten(siteA.Segments, OriginNs);
-        _segB = Flatten(siteB.Segments, OriginNs);
+        _segA = RingOverlap.Flatten(siteA.Segments, OriginNs);
+        _segB = RingOverlap.Flatten(siteB.Segments, OriginNs);
     }
 
     /// <summary>The fixed site.</summary>
@@ -122,17 +128,5 @@ public sealed class TimeSlidePair
         }
 
         return (positions, snr2, chirp);
-    }
-
-    private static long[] Flatten(IReadOnlyList<Segment> segments, long origin)
-    {
-        var flat = new long[segments.Count * 2];
-        for (var i = 0; i < segments.Count; i++)
-        {
-            flat[2 * i] = segments[i].Start.Nanoseconds - origin;
-            flat[(2 * i) + 1] = segments[i].End.Nanoseconds - origin;
-        }
-
-        return flat;
     }
 }

@@ -123,6 +123,23 @@ public class TimeSlideBackgroundTests
         Assert.ThrowsAny<OperationCanceledException>(() => TimeSlideBackground.Run(a, b, options, null, cts.Token));
     }
 
+    [Fact]
+    public void The_result_serialises_to_camel_case_json_and_back()
+    {
+        var rng = new Random(9);
+        var a = PoissonSite("K1", rng, 0.2, 1e4);
+        var b = PoissonSite("M2", rng, 0.2, 1e4);
+        var result = TimeSlideBackground.Run(a, b, new TimeSlideOptions { WindowNs = 10_000_000, StepNs = GpsTime.NanosecondsPerSecond, Slides = 100, CandidateStatistic = 11, RemoveCandidateTriggers = true });
+        var json = System.Text.Json.JsonSerializer.Serialize(result, new System.Text.Json.JsonSerializerOptions(System.Text.Json.JsonSerializerDefaults.Web));
+        Assert.Contains("\"farHz\":", json, StringComparison.Ordinal);
+        Assert.Contains("\"backgroundSeconds\":", json, StringComparison.Ordinal);
+        Assert.Contains("\"assumptions\":", json, StringComparison.Ordinal);
+        var back = System.Text.Json.JsonSerializer.Deserialize<BackgroundResult>(json, new System.Text.Json.JsonSerializerOptions(System.Text.Json.JsonSerializerDefaults.Web))!;
+        Assert.Equal(result.BackgroundCoincidences, back.BackgroundCoincidences);
+        Assert.Equal(result.Curve, back.Curve);
+        Assert.Equal(200 * 1e4, result.BackgroundSeconds, 1e-6);
+    }
+
     internal static SiteTriggers PoissonSite(string code, Random rng, double rateHz, double spanSeconds, double gapEvery = 0)
     {
         var end = Origin + (long)(spanSeconds * 1e9);
