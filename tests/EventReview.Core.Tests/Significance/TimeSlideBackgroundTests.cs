@@ -127,7 +127,7 @@ public class TimeSlideBackgroundTests
     public void The_result_serialises_to_camel_case_json_and_back()
     {
         var rng = new Random(9);
-        var a = PoissonSite("K1", rng, 0.2, 1e4);
+        var a = PoissonSite("KX", rng, 0.2, 1e4);
         var b = PoissonSite("M2", rng, 0.2, 1e4);
         var result = TimeSlideBackground.Run(a, b, new TimeSlideOptions { WindowNs = 10_000_000, StepNs = GpsTime.NanosecondsPerSecond, Slides = 100, CandidateStatistic = 11, RemoveCandidateTriggers = true });
         var json = System.Text.Json.JsonSerializer.Serialize(result, new System.Text.Json.JsonSerializerOptions(System.Text.Json.JsonSerializerDefaults.Web));
