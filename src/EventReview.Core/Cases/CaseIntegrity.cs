@@ -15,10 +15,10 @@ public static class CaseIntegrity
     public static IReadOnlyList<IntegrityProblem> Verify(ReviewCase c, Func<string, bool> attachmentIntact)
     {
         var problems = new List<IntegrityProblem>();
-        var chain = ActivityChain.FirstProblem(c.Activity);
+        var (entry, chain) = ActivityChain.Check(c.Activity);
         if (chain is not null)
         {
-            problems.Add(new IntegrityProblem(c.CandidateId, FirstBadEntry(c), null, "Timeline: " + chain));
+            problems.Add(new IntegrityProblem(c.CandidateId, entry, null, "Timeline: " + chain));
         }
 
         var textByItem = c.Activity.Where(a => a.ItemKey is not null).GroupBy(a => a.ItemKey!).ToDictionary(g => g.Key, g => string.Join('\n', g.Select(a => a.Text)));
@@ -68,23 +68,5 @@ public static class CaseIntegrity
         }
 
         return problems;
-    }
-
-    private static int? FirstBadEntry(ReviewCase c)
-    {
-        var prev = ActivityEntry.GenesisHash;
-        var expected = 1;
-        foreach (var e in c.Activity.OrderBy(e => e.Sequence))
-        {
-            if (e.Sequence != expected || e.PreviousHash != prev || !e.HashMatches())
-            {
-                return e.Sequence;
-            }
-
-            prev = e.Hash;
-            expected++;
-        }
-
-        return null;
     }
 }

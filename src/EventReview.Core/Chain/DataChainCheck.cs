@@ -154,25 +154,13 @@ public static class DataChainCheck
         var added = excess > options.SigmaThreshold;
         var tested = last - first + 1;
         var perSample = MathNet.Numerics.SpecialFunctions.Erfc(options.SigmaThreshold / Math.Sqrt(2)); // two-sided normal tail 2 Q(N)
-        var falseAlarm = -ExpM1(tested * Math.Log(1 - perSample));
+        var falseAlarm = -Statistics.ExpMinusOne.Of(tested * Math.Log(1 - perSample));
         var result = new ChainStageResult(stage, Rms(on), Rms(off), sigma, excess, start.AddSeconds(best / fs).Seconds, added,
             skip / fs, skip / fs, model.EffectivePrewarpHz(fs), model.DelaySeconds, added ? "something added" : "nothing added", tested, falseAlarm);
         var trace = new ChainStageTrace(stage, start.Seconds, fs, recorded, predicted, residual, first, last);
         return (result, trace);
     }
 
-    // exp(x) - 1 without cancellation near 0 (Kahan's trick; Higham, "Accuracy and Stability of Numerical Algorithms", 1.14.1).
-    private static double ExpM1(double x)
-    {
-        var u = Math.Exp(x);
-        if (u == 1.0)
-        {
-            return x;
-        }
-
-        var um1 = u - 1.0;
-        return um1 == -1.0 ? -1.0 : um1 * x / Math.Log(u);
-    }
 
     private static double Rms(IReadOnlyCollection<double> v) => v.Count == 0 ? double.NaN : Math.Sqrt(v.Sum(a => a * a) / v.Count);
 

@@ -48,7 +48,7 @@ public static class Poisson
             throw new ArgumentOutOfRangeException(nameof(rateHz), rateHz, "Rate must be finite and >= 0 Hz.");
         }
 
-        return -ExpM1(-2.0 * halfWindowSeconds * rateHz);
+        return -ExpMinusOne.Of(-2.0 * halfWindowSeconds * rateHz);
     }
 
     /// <summary>
@@ -71,19 +71,6 @@ public static class Poisson
         return 2.0 * tauSeconds * rate1Hz * rate2Hz;
     }
 
-    // exp(x) - 1 without cancellation near 0 (Kahan's trick, as in Higham, "Accuracy and Stability of Numerical Algorithms", 1.14.1);
-    // double.ExpM1 is evaluated as Exp(x) - 1 and loses the digits of small arguments.
-    private static double ExpM1(double x)
-    {
-        var u = Math.Exp(x);
-        if (u == 1.0)
-        {
-            return x;
-        }
-
-        var um1 = u - 1.0;
-        return um1 == -1.0 ? -1.0 : um1 * x / Math.Log(u);
-    }
 
     /// <summary>P(N &gt;= k) for a Poisson count with the given mean (same as <see cref="AtLeast"/>, for 64-bit counts).</summary>
     public static double ProbabilityAtLeast(long k, double mean) =>
