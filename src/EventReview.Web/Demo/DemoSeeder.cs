@@ -52,7 +52,9 @@ public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, Accoun
         var gpsNow = GpsUtc.FromUtc(now.UtcDateTime);
 
         // Case 1: a loud three-site candidate, well into its review.
-        var t1 = new GpsTime(gpsNow.Nanoseconds - (6L * 86400 * GpsTime.NanosecondsPerSecond) + 417_250_000);
+        // A fixed instant: the simulated strain, sky direction and sidereal time of this candidate (and so its overlap
+        // result) are then the same on every start; the other candidates follow the clock.
+        var t1 = new GpsTime(1_479_697_331_201_000_000);
         var d1 = new DemoCandidate("ER-C-0142", t1, 41.0, -23.0, 0.7, ["KP", "AB", "SM"], [14.2, 16.8, 9.1]);
         var (c1, _) = await cases.OpenAsync(coordinator, Request(d1, sites,
             "Loud short chirp-like transient seen at all three sites; raised by the demo matched-filter search.", "candidate-review"), ct);
