@@ -51,6 +51,19 @@ public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext
         .Include(c => c.Items).ThenInclude(i => i.SignOffs)
         .AsSplitQuery();
 
+    /// <summary>
+    /// A case with only one checklist item (its evidence, computations and sign-offs) and only its newest timeline entry:
+    /// enough to append evidence to that item and extend the chain, at a cost that does not grow with the case.
+    /// Domain methods that look at other items must use <see cref="CasesWithEverything"/>.
+    /// </summary>
+    public IQueryable<ReviewCase> CaseWithOneItem(int caseId, string itemKey) => Cases
+        .Where(c => c.Id == caseId)
+        .Include(c => c.Items.Where(i => i.Key == itemKey)).ThenInclude(i => i.Evidence)
+        .Include(c => c.Items.Where(i => i.Key == itemKey)).ThenInclude(i => i.Computations)
+        .Include(c => c.Items.Where(i => i.Key == itemKey)).ThenInclude(i => i.SignOffs)
+        .Include(c => c.Activity.OrderByDescending(a => a.Sequence).Take(1))
+        .AsSplitQuery();
+
     protected override void OnModelCreating(ModelBuilder builder)
     {
         base.OnModelCreating(builder);

@@ -3,11 +3,13 @@ using EventReview.Web;
 using EventReview.Web.Api;
 using EventReview.Web.Components;
 using EventReview.Web.Demo;
+using EventReview.Web.Operations;
 using EventReview.Web.Services;
 using Microsoft.Extensions.Options;
 
 var builder = WebApplication.CreateBuilder(args);
 builder.WebHost.UseStaticWebAssets();
+builder.AddEventReviewOperations();
 builder.Services.AddEventReviewWeb(builder.Configuration);
 var seedDemo = builder.Configuration.GetValue<bool?>("EventReview:SeedDemo") ?? builder.Environment.IsDevelopment();
 builder.Services.AddSingleton(new DemoMode(seedDemo));
@@ -27,6 +29,7 @@ using (var scope = app.Services.CreateScope())
     }
 }
 
+app.UseEventReviewOperations();
 if (!app.Environment.IsDevelopment())
 {
     app.UseExceptionHandler("/error", createScopeForErrors: true);
@@ -39,6 +42,7 @@ app.UseAuthorization();
 app.UseAntiforgery();
 
 app.MapStaticAssets().AllowAnonymous();
+app.MapHealth();
 app.MapOpenApi().RequireAuthorization();
 app.MapEventReviewApi();
 app.MapAccountEndpoints();
@@ -47,9 +51,10 @@ app.MapRazorComponents<App>()
 
 app.Lifetime.ApplicationStarted.Register(() =>
 {
+    var log = app.Services.GetRequiredService<ILoggerFactory>().CreateLogger("EventReview");
     foreach (var url in app.Urls)
     {
-        Console.WriteLine($"EventReview is running at {url}" + (seedDemo ? " (demo data; accounts listed on the sign-in page)" : string.Empty));
+        log.LogInformation("EventReview is running at {Url}{Demo}", url, seedDemo ? " (demo data; accounts listed on the sign-in page)" : string.Empty);
     }
 });
 

@@ -35,6 +35,32 @@ public static class CaseDtos
         c.Items.OrderBy(i => i.SectionOrder).ThenBy(i => i.Order).Select(i => new Item(i.Key, i.SectionKey, i.Title, Api(i.State), i.OwnerName, i.DueDate, i.CheckKind,
             i.RequiredSignOffs, i.CurrentSignOffs.Count(), i.HasStaleSignOffs, i.Evidence.Count + i.Computations.Count, i.Fingerprint(), i.Version)).ToList());
 
+    /// <summary>One page of a list: how many match in all, where this page starts, its size limit, and the rows.</summary>
+    public sealed record Page<T>(int Total, int Offset, int Limit, IReadOnlyList<T> Items);
+
+    public sealed record Evidence(int Id, string Kind, string? Text, string? FileName, string? ContentType, long? SizeBytes, string? Url, string Sha256,
+        string AddedBy, DateTimeOffset AddedAt, string? Download);
+
+    public sealed record TimelineEntry(int Sequence, DateTimeOffset At, string Actor, string Kind, string? ItemKey, string Text, string Hash);
+
+    public static CaseDetail Detail(Services.CaseOverview o)
+    {
+        var c = o.Case;
+        return new(c.Id, c.CandidateId, Seconds(c.Gps), Utc(c.Gps), c.Search, c.Summary, Api(c.State), c.Outcome?.ToString().ToLowerInvariant(),
+            Math.Round(c.NetworkSnr, 2), c.CoordinatorName, c.ChecklistName, c.CreatedAt, c.UpdatedAt,
+            c.Arrivals.OrderBy(a => a.SiteCode).Select(a => new Arrival(a.SiteCode, Seconds(a.Arrival), a.Snr)).ToList(),
+            c.Items.OrderBy(i => i.SectionOrder).ThenBy(i => i.Order).Select(i => new Item(i.Key, i.SectionKey, i.Title, Api(i.State), i.OwnerName, i.DueDate, i.CheckKind,
+                i.RequiredSignOffs, i.CurrentSignOffs.Count(), i.HasStaleSignOffs, o.Items[i.Key].EvidenceCount + o.Items[i.Key].ComputationCount, o.Items[i.Key].Fingerprint, i.Version)).ToList());
+    }
+
+    public static Evidence Of(EventReview.Core.Evidence.EvidenceItem e) => new(e.Id, EventReview.Core.Evidence.EvidenceFingerprint.KindName(e.Kind),
+        e.Kind == EventReview.Core.Evidence.EvidenceKind.Note ? e.Text : NullIfEmpty(e.Text), e.FileName, e.ContentType, e.SizeBytes, e.Url, e.ContentSha256, e.AddedByName, e.AddedAt,
+        e.Kind == EventReview.Core.Evidence.EvidenceKind.Attachment ? $"/files/{e.ContentSha256}?name={Uri.EscapeDataString(e.FileName ?? e.ContentSha256)}" : null);
+
+    public static TimelineEntry Of(ActivityEntry a) => new(a.Sequence, a.At, a.ActorName, a.Kind, a.ItemKey, a.Text, a.Hash);
+
+    private static string? NullIfEmpty(string s) => string.IsNullOrEmpty(s) ? null : s;
+
     public static SiteDto Site(Site s) => new(s.Code, s.Name, s.LatitudeDegrees, s.LongitudeDegrees, s.HeightMeters, s.XArmAzimuthDegrees, s.YArmAzimuthDegrees, s.TimingUncertaintySeconds);
 
     /// <summary>API spelling of states: lower-case with dashes ("ready-for-sign-off", "awaiting-decision").</summary>

@@ -35,7 +35,7 @@ public static class CaseEndpoints
           .ProducesProblem(StatusCodes.Status400BadRequest)
           .ProducesProblem(StatusCodes.Status422UnprocessableEntity);
 
-        api.MapGet("/cases", (ClaimsPrincipal user, CaseService cases, string? state, string? q) => ApiResults.Guard(async () =>
+        api.MapGet("/cases", (ClaimsPrincipal user, CaseService cases, string? state, string? q, int? offset, int? limit) => ApiResults.Guard(async () =>
         {
             CaseState? s = null;
             if (!string.IsNullOrWhiteSpace(state))
@@ -44,13 +44,29 @@ public static class CaseEndpoints
                     ?? throw new ArgumentException($"state '{state}' is not one of open, in-review, awaiting-decision, closed.", nameof(state));
             }
 
-            var list = await cases.ListAsync(user, s, q);
-            return Results.Ok(list.Select(CaseDtos.Summary).ToList());
-        })).WithSummary("List cases, newest first; filter by state and text.").Produces<List<CaseDtos.CaseSummary>>();
+            var page = await cases.ListAsync(user, s, q, offset, limit);
+            return Results.Ok(new CaseDtos.Page<CaseDtos.CaseSummary>(page.Total, page.Offset, page.Limit, page.Cases.Select(CaseDtos.Summary).ToList()));
+        })).WithSummary("List cases, newest first, one page at a time (offset, limit 1-500, default 50); filter by state and text.")
+          .Produces<CaseDtos.Page<CaseDtos.CaseSummary>>().ProducesProblem(StatusCodes.Status422UnprocessableEntity);
 
         api.MapGet("/cases/{id:int}", (int id, ClaimsPrincipal user, CaseService cases) => ApiResults.Guard(async () =>
-            Results.Ok(CaseDtos.Detail(await cases.GetAsync(user, id)))))
-            .WithSummary("One case with its arrivals and checklist item states.").Produces<CaseDtos.CaseDetail>().ProducesProblem(404);
+            Results.Ok(CaseDtos.Detail(await cases.GetOverviewAsync(user, id)))))
+            .WithSummary("One case with its arrivals and checklist item states (evidence counts and fingerprints; evidence itself is paged separately).")
+            .Produces<CaseDtos.CaseDetail>().ProducesProblem(404);
+
+        api.MapGet("/cases/{id:int}/items/{key}/evidence", (int id, string key, ClaimsPrincipal user, CaseService cases, int? offset, int? limit) => ApiResults.Guard(async () =>
+        {
+            var page = await cases.EvidencePageAsync(user, id, key, offset, limit);
+            return Results.Ok(new CaseDtos.Page<CaseDtos.Evidence>(page.Total, page.Offset, page.Limit, page.Evidence.Select(CaseDtos.Of).ToList()));
+        })).WithSummary("One page of an item's evidence (notes, files, links), oldest first (offset, limit 1-500, default 50).")
+          .Produces<CaseDtos.Page<CaseDtos.Evidence>>().ProducesProblem(404);
+
+        api.MapGet("/cases/{id:int}/timeline", (int id, ClaimsPrincipal user, CaseService cases, int? offset, int? limit) => ApiResults.Guard(async () =>
+        {
+            var page = await cases.TimelinePageAsync(user, id, offset, limit);
+            return Results.Ok(new CaseDtos.Page<CaseDtos.TimelineEntry>(page.Total, page.Offset, page.Limit, page.Entries.Select(CaseDtos.Of).ToList()));
+        })).WithSummary("One page of the case's hash-chained timeline, newest first (offset, limit 1-500, default 50).")
+          .Produces<CaseDtos.Page<CaseDtos.TimelineEntry>>().ProducesProblem(404);
 
         api.MapGet("/sites", async (NetworkService network) =>
         {
@@ -73,10 +89,8 @@ public static class CaseEndpoints
                     throw new ArgumentException("text is required (Markdown).", "text");
                 }
 
-                var c = await cases.AddNoteAsync(user, id, key, body.Text);
-                var item = c.Item(key);
-                var note = item.Evidence.OrderByDescending(e => e.Id).First();
-                return Results.Created($"/api/cases/{id}/items/{key}", new { id = note.Id, sha256 = note.ContentSha256, itemState = CaseDtos.Api(item.State), fingerprint = item.Fingerprint() });
+                var r = await cases.AppendNoteAsync(user, id, key, body.Text);
+                return Results.Created($"/api/cases/{id}/items/{key}", new { id = r.EvidenceId, sha256 = r.ContentSha256, itemState = CaseDtos.Api(r.ItemState), fingerprint = r.ItemFingerprint });
             });
         }).RequireAuthorization(Policies.AddEvidence).Accepts<NoteRequest>("application/json")
           .WithSummary("Add a Markdown note to a checklist item (current sign-offs become stale).");
@@ -99,11 +113,9 @@ public static class CaseEndpoints
                 var file = form.Files.GetFile("file") ?? form.Files.FirstOrDefault()
                     ?? throw new ArgumentException("The form has no file; send it in a field named 'file'.", "file");
                 await using var stream = file.OpenReadStream();
-                var c = await cases.AddAttachmentAsync(user, id, key, stream, file.FileName, string.IsNullOrWhiteSpace(file.ContentType) ? "application/octet-stream" : file.ContentType,
+                var r = await cases.AppendAttachmentAsync(user, id, key, stream, file.FileName, string.IsNullOrWhiteSpace(file.ContentType) ? "application/octet-stream" : file.ContentType,
                     form["description"].ToString(), max);
-                var item = c.Item(key);
-                var added = item.Evidence.OrderByDescending(e => e.Id).First();
-                return Results.Created($"/api/cases/{id}/items/{key}", new { id = added.Id, sha256 = added.ContentSha256, sizeBytes = added.SizeBytes, fileName = added.FileName, fingerprint = item.Fingerprint() });
+                return Results.Created($"/api/cases/{id}/items/{key}", new { id = r.EvidenceId, sha256 = r.ContentSha256, sizeBytes = r.SizeBytes, fileName = r.FileName, fingerprint = r.ItemFingerprint });
             })).RequireAuthorization(Policies.AddEvidence).DisableAntiforgery()
               .WithSummary("Attach a file (multipart field 'file', optional 'description'); stored by SHA-256.");
 

@@ -17,15 +17,14 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
 {
     private const int MaxAttempts = 6;
 
-    /// <summary>All cases, newest candidate first, optionally filtered by state and text.</summary>
-    public async Task<IReadOnlyList<ReviewCase>> ListAsync(ClaimsPrincipal user, CaseState? state = null, string? search = null, CancellationToken ct = default)
+    /// <summary>One page of the cases, newest candidate first, optionally filtered by state and text.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">When offset or limit is out of range (see <see cref="Paging"/>).</exception>
+    public async Task<CaseListPage> ListAsync(ClaimsPrincipal user, CaseState? state = null, string? search = null, int? offset = null, int? limit = null, CancellationToken ct = default)
     {
         Permissions.Require(user, Policies.Read, "read cases");
+        var (o, l) = Paging.Check(offset, limit);
         await using var db = await dbFactory.CreateDbContextAsync(ct);
-        IQueryable<ReviewCase> q = db.Cases.AsNoTracking()
-            .Include(c => c.Arrivals)
-            .Include(c => c.Items).ThenInclude(i => i.SignOffs)
-            .AsSplitQuery();
+        IQueryable<ReviewCase> q = db.Cases.AsNoTracking();
         if (state is not null)
         {
             q = q.Where(c => c.State == state);
@@ -37,7 +36,90 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
             q = q.Where(c => c.CandidateId.ToLower().Contains(s) || c.Summary.ToLower().Contains(s) || c.Search.ToLower().Contains(s));
         }
 
-        return await q.OrderByDescending(c => c.GpsNanoseconds).ToListAsync(ct);
+        var total = await q.CountAsync(ct);
+        var page = await q.OrderByDescending(c => c.GpsNanoseconds).ThenByDescending(c => c.Id).Skip(o).Take(l)
+            .Include(c => c.Arrivals)
+            .Include(c => c.Items).ThenInclude(i => i.SignOffs)
+            .AsSplitQuery()
+            .ToListAsync(ct);
+        return new CaseListPage(total, o, l, page);
+    }
+
+    /// <summary>A case with its items and sign-offs and per-item evidence counts and fingerprints, without evidence bodies or timeline.</summary>
+    /// <exception cref="KeyNotFoundException">When there is no such case.</exception>
+    public async Task<CaseOverview> GetOverviewAsync(ClaimsPrincipal user, int id, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Read, "read cases");
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        var c = await db.Cases.AsNoTracking().Where(x => x.Id == id)
+            .Include(x => x.Arrivals)
+            .Include(x => x.Items).ThenInclude(i => i.SignOffs)
+            .AsSplitQuery()
+            .FirstOrDefaultAsync(ct)
+            ?? throw new KeyNotFoundException($"There is no case with id {id}.");
+        var evidence = await db.Evidence.AsNoTracking().Where(e => db.Items.Any(i => i.Id == e.ChecklistItemId && i.ReviewCaseId == id))
+            .Select(e => new { e.Id, e.ChecklistItemId, e.Kind, e.ContentSha256, e.AddedAt })
+            .ToListAsync(ct);
+        var computations = await db.Computations.AsNoTracking().Where(r => db.Items.Any(i => i.Id == r.ChecklistItemId && i.ReviewCaseId == id))
+            .Select(r => new { r.Id, r.ChecklistItemId, r.Kind, r.ParametersJson, r.InputFingerprint, r.ToolVersion, r.ResultJson, r.Verdict, r.RunAt })
+            .ToListAsync(ct);
+        var byItem = evidence.ToLookup(e => e.ChecklistItemId);
+        var runsByItem = computations.ToLookup(r => r.ChecklistItemId);
+        var summaries = c.Items.ToDictionary(i => i.Key, i =>
+        {
+            // Same canonical order as EvidenceFingerprint.Lines: time, then id.
+            var lines = byItem[i.Id].OrderBy(e => e.AddedAt).ThenBy(e => e.Id)
+                .Select(e => new EvidenceLine(EvidenceFingerprint.KindName(e.Kind), e.ContentSha256, e.AddedAt.UtcTicks)).ToList();
+            var runs = runsByItem[i.Id].OrderBy(r => r.RunAt).ThenBy(r => r.Id)
+                .Select(r => new ComputationLine(ComputationRecord.ComputeContentSha256(r.Kind, r.ParametersJson, r.InputFingerprint, r.ToolVersion, r.ResultJson, r.Verdict), r.RunAt.UtcTicks)).ToList();
+            return new ItemEvidenceSummary(lines.Count, runs.Count, EvidenceFingerprint.Compute(lines, runs));
+        });
+        return new CaseOverview(c, summaries);
+    }
+
+    /// <summary>One page of an item's evidence, oldest first.</summary>
+    /// <exception cref="KeyNotFoundException">When the case or item does not exist.</exception>
+    public async Task<EvidencePage> EvidencePageAsync(ClaimsPrincipal user, int caseId, string itemKey, int? offset, int? limit, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Read, "read cases");
+        var (o, l) = Paging.Check(offset, limit);
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        var itemId = await ItemIdAsync(db, caseId, itemKey, ct);
+        var q = db.Evidence.AsNoTracking().Where(e => e.ChecklistItemId == itemId);
+        var total = await q.CountAsync(ct);
+        var page = await q.OrderBy(e => e.Id).Skip(o).Take(l).ToListAsync(ct);
+        return new EvidencePage(total, o, l, page);
+    }
+
+    /// <summary>One page of a case's timeline, newest first.</summary>
+    /// <exception cref="KeyNotFoundException">When the case does not exist.</exception>
+    public async Task<TimelinePage> TimelinePageAsync(ClaimsPrincipal user, int caseId, int? offset, int? limit, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Read, "read cases");
+        var (o, l) = Paging.Check(offset, limit);
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        if (!await db.Cases.AnyAsync(c => c.Id == caseId, ct))
+        {
+            throw new KeyNotFoundException($"There is no case with id {caseId}.");
+        }
+
+        var q = db.Activity.AsNoTracking().Where(a => a.ReviewCaseId == caseId);
+        var total = await q.CountAsync(ct);
+        var page = await q.OrderByDescending(a => a.Sequence).Skip(o).Take(l).ToListAsync(ct);
+        return new TimelinePage(total, o, l, page);
+    }
+
+    private static async Task<int> ItemIdAsync(AppDbContext db, int caseId, string itemKey, CancellationToken ct)
+    {
+        var id = await db.Items.Where(i => i.ReviewCaseId == caseId && i.Key == itemKey).Select(i => (int?)i.Id).FirstOrDefaultAsync(ct);
+        if (id is not null)
+        {
+            return id.Value;
+        }
+
+        throw await db.Cases.AnyAsync(c => c.Id == caseId, ct)
+            ? new KeyNotFoundException($"Case {caseId} has no checklist item '{itemKey}'.")
+            : new KeyNotFoundException($"There is no case with id {caseId}.");
     }
 
     /// <summary>One case with everything in it.</summary>
@@ -120,6 +202,29 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
         Permissions.Require(user, Policies.AddEvidence, "add evidence");
         var actor = user.ToActor();
         return MutateAsync(caseId, itemKey, null, (c, now) => c.AddEvidence(itemKey, EvidenceItem.Note(markdown, actor, now), actor, now), ct);
+    }
+
+    /// <summary>
+    /// Adds a note like <see cref="AddNoteAsync"/> but loads only the one item and the newest timeline entry, and
+    /// returns a receipt instead of the whole case: the write path of the API, whose cost does not grow with the case.
+    /// </summary>
+    public Task<EvidenceReceipt> AppendNoteAsync(ClaimsPrincipal user, int caseId, string itemKey, string markdown, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.AddEvidence, "add evidence");
+        var actor = user.ToActor();
+        return AppendAsync(caseId, itemKey, now => EvidenceItem.Note(markdown, actor, now), actor, ct);
+    }
+
+    /// <summary>Stores a file content-addressed and attaches it, loading only the one item (see <see cref="AppendNoteAsync"/>).</summary>
+    /// <exception cref="AttachmentTooLargeException">When the file exceeds <paramref name="maxBytes"/>.</exception>
+    public async Task<EvidenceReceipt> AppendAttachmentAsync(ClaimsPrincipal user, int caseId, string itemKey, Stream content, string fileName, string contentType,
+        string description, long maxBytes, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.AddEvidence, "add evidence");
+        await EnsureItemExistsAsync(caseId, itemKey, ct);
+        var (sha, length) = await store.SaveAsync(content, maxBytes, ct);
+        var actor = user.ToActor();
+        return await AppendAsync(caseId, itemKey, now => EvidenceItem.Attachment(fileName, contentType, length, sha, description, actor, now), actor, ct);
     }
 
     public Task<ReviewCase> AddLinkAsync(ClaimsPrincipal user, int caseId, string itemKey, string url, string title, CancellationToken ct = default)
@@ -245,6 +350,33 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
             change(c, now);
             return Task.CompletedTask;
         }, ct);
+
+    private async Task<EvidenceReceipt> AppendAsync(int caseId, string itemKey, Func<DateTimeOffset, EvidenceItem> make, Actor actor, CancellationToken ct)
+    {
+        for (var attempt = 1; ; attempt++)
+        {
+            await using var db = await dbFactory.CreateDbContextAsync(ct);
+            var c = await db.CaseWithOneItem(caseId, itemKey).FirstOrDefaultAsync(ct)
+                ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
+            var now = EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow());
+            var evidence = make(now);
+            c.AddEvidence(itemKey, evidence, actor, now);
+            try
+            {
+                await db.SaveChangesAsync(ct);
+                var item = c.Item(itemKey);
+                return new EvidenceReceipt(evidence.Id, evidence.ContentSha256, evidence.SizeBytes, evidence.FileName, item.State, item.Fingerprint());
+            }
+            catch (DbUpdateException) when (attempt < MaxAttempts)
+            {
+                await Task.Delay(Random.Shared.Next(1, 10) * attempt, ct);
+            }
+            catch (DbUpdateException)
+            {
+                throw new ConflictException("The case is being changed by others right now and your change could not be saved; nothing was applied. Try again.");
+            }
+        }
+    }
 
     private async Task<ReviewCase> MutateCoreAsync(int caseId, string? itemKey, int? expectedItemVersion, Func<AppDbContext, ReviewCase, DateTimeOffset, Task> change, CancellationToken ct)
     {

@@ -137,7 +137,7 @@ public sealed class CaseApiTests(EventReviewFactory app) : IClassFixture<EventRe
     {
         var client = await app.As(Who.Observer);
 
-        var list = (await (await client.GetAsync("/api/cases")).JsonAsync()).AsArray();
+        var list = (await (await client.GetAsync("/api/cases")).JsonAsync())["items"]!.AsArray();
 
         var demo = list.Where(c => ((string?)c!["candidateId"])!.StartsWith("ER-C-", StringComparison.Ordinal)).ToList();
         Assert.Equal(["ER-C-0157", "ER-C-0142", "ER-C-0121"], demo.Select(c => (string?)c!["candidateId"]));
@@ -155,8 +155,8 @@ public sealed class CaseApiTests(EventReviewFactory app) : IClassFixture<EventRe
     {
         var client = await app.As(Who.Observer);
 
-        var closed = (await (await client.GetAsync("/api/cases?state=closed")).JsonAsync()).AsArray();
-        var found = (await (await client.GetAsync("/api/cases?q=er-c-0157")).JsonAsync()).AsArray();
+        var closed = (await (await client.GetAsync("/api/cases?state=closed")).JsonAsync())["items"]!.AsArray();
+        var found = (await (await client.GetAsync("/api/cases?q=er-c-0157")).JsonAsync())["items"]!.AsArray();
         var bad = await client.GetAsync("/api/cases?state=sleeping");
 
         Assert.Equal(["ER-C-0121"], closed.Select(c => (string?)c!["candidateId"]));

@@ -26,7 +26,7 @@ public sealed class FailedRequestTests(EventReviewFactory app) : IClassFixture<E
 
         Assert.Equal(HttpStatusCode.UnprocessableEntity, refused.StatusCode);
         Assert.Equal(before, await CountsAsync());
-        Assert.Empty((await (await client.GetAsync($"/api/cases?q={candidate}")).JsonAsync()).AsArray());
+        Assert.Empty((await (await client.GetAsync($"/api/cases?q={candidate}")).JsonAsync())["items"]!.AsArray());
         Assert.Equal(HttpStatusCode.Created, (await client.OpenCaseAsync(ApiCalls.OpenCaseBody(candidate))).StatusCode);
     }
 

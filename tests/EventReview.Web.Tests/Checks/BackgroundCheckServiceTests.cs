@@ -163,7 +163,7 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
     private static async Task<ReviewCase> Case(IServiceScope scope, string candidateId)
     {
         var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
-        var id = (await cases.ListAsync(BackgroundAppFactory.Reviewer)).Single(x => x.CandidateId == candidateId).Id;
+        var id = (await cases.ListAsync(BackgroundAppFactory.Reviewer, search: candidateId)).Cases.Single(x => x.CandidateId == candidateId).Id;
         return await cases.GetAsync(BackgroundAppFactory.Reviewer, id);
     }
 

@@ -18,7 +18,7 @@ public sealed class BackgroundResultViewTests(BackgroundAppFactory app) : IClass
         using (var scope = app.Services.CreateScope())
         {
             var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
-            var id = (await cases.ListAsync(BackgroundAppFactory.Reviewer)).Single(x => x.CandidateId == BackgroundDemoStep.CandidateId).Id;
+            var id = (await cases.ListAsync(BackgroundAppFactory.Reviewer, search: BackgroundDemoStep.CandidateId)).Cases.Single(x => x.CandidateId == BackgroundDemoStep.CandidateId).Id;
             var c = await cases.GetAsync(BackgroundAppFactory.Reviewer, id);
             record = c.Item(BackgroundDemoStep.ItemKey).Computations.First(r => r.Kind == BackgroundCheckService.Kind);
         }

@@ -56,7 +56,7 @@ public static class ApiCalls
     /// <summary>The id of a case by candidate id (through GET /api/cases).</summary>
     public static async Task<int> CaseIdAsync(this HttpClient client, string candidateId)
     {
-        var list = (await (await client.GetAsync($"/api/cases?q={Uri.EscapeDataString(candidateId)}")).JsonAsync()).AsArray();
+        var list = (await (await client.GetAsync($"/api/cases?q={Uri.EscapeDataString(candidateId)}")).JsonAsync())["items"]!.AsArray();
         return list.Single(c => (string?)c!["candidateId"] == candidateId)!["id"]!.GetValue<int>();
     }
 

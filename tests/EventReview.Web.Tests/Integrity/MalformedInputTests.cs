@@ -96,7 +96,7 @@ public sealed class MalformedInputTests(EventReviewFactory app) : IClassFixture<
         Assert.Equal("JSON body too large", title);
         Assert.Contains("1024 KiB", detail, StringComparison.Ordinal);
         Assert.Equal(before, await StateAsync());
-        Assert.Empty((await (await (await app.As(Who.Coordinator)).GetAsync($"/api/cases?q={candidate}")).JsonAsync()).AsArray());
+        Assert.Empty((await (await (await app.As(Who.Coordinator)).GetAsync($"/api/cases?q={candidate}")).JsonAsync())["items"]!.AsArray());
     }
 
     [Fact]

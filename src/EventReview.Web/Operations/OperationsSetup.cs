@@ -1,0 +1,91 @@
+using System.Diagnostics;
+using System.Net;
+using Microsoft.AspNetCore.HttpOverrides;
+
+namespace EventReview.Web.Operations;
+
+/// <summary>
+/// What a team server needs around the app: JSON logs, trusted reverse proxies, a request id and server time on every
+/// response, and <c>GET /healthz</c>.
+/// </summary>
+public static class OperationsSetup
+{
+    /// <summary>Response header carrying the request id that every log line of the request also carries.</summary>
+    public const string RequestIdHeader = "X-Request-Id";
+
+    public static WebApplicationBuilder AddEventReviewOperations(this WebApplicationBuilder builder)
+    {
+        var section = builder.Configuration.GetSection(OperationsOptions.Section);
+        builder.Services.Configure<OperationsOptions>(section);
+        var options = section.Get<OperationsOptions>() ?? new OperationsOptions();
+        if (options.JsonLogs ?? !builder.Environment.IsDevelopment())
+        {
+            builder.Logging.ClearProviders();
+            builder.Logging.AddJsonConsole(o =>
+            {
+                // The hosting layer opens a scope with RequestId/TraceId for every request; scopes go into each line.
+                o.IncludeScopes = true;
+                o.UseUtcTimestamp = true;
+                o.TimestampFormat = "yyyy-MM-ddTHH:mm:ss.fffZ ";
+            });
+        }
+
+        builder.Services.Configure<ForwardedHeadersOptions>(o => ConfigureProxies(o, options.TrustedProxies));
+        builder.Services.AddScoped<HealthProbe>();
+        return builder;
+    }
+
+    /// <summary>Trust X-Forwarded-For and X-Forwarded-Proto only from loopback and the configured proxies.</summary>
+    public static void ConfigureProxies(ForwardedHeadersOptions o, IEnumerable<string> trusted)
+    {
+        o.ForwardedHeaders = ForwardedHeaders.XForwardedFor | ForwardedHeaders.XForwardedProto;
+        o.ForwardLimit = 1;
+        foreach (var entry in trusted.Where(t => !string.IsNullOrWhiteSpace(t)).Select(t => t.Trim()))
+        {
+            if (entry.Contains('/'))
+            {
+                o.KnownIPNetworks.Add(System.Net.IPNetwork.Parse(entry));
+            }
+            else if (IPAddress.TryParse(entry, out var address))
+            {
+                o.KnownProxies.Add(address);
+            }
+            else
+            {
+                throw new ArgumentException($"EventReview:Operations:TrustedProxies entry '{entry}' is neither an IP address nor a network like 10.0.0.0/8.", nameof(trusted));
+            }
+        }
+    }
+
+    /// <summary>First in the pipeline: proxy headers, then the request id and server time headers.</summary>
+    public static WebApplication UseEventReviewOperations(this WebApplication app)
+    {
+        app.UseForwardedHeaders();
+        app.Use(static (context, next) =>
+        {
+            var started = Stopwatch.GetTimestamp();
+            context.Response.OnStarting(static state =>
+            {
+                var (ctx, t0) = ((HttpContext, long))state;
+                ctx.Response.Headers[RequestIdHeader] = ctx.TraceIdentifier;
+                var ms = Stopwatch.GetElapsedTime(t0).TotalMilliseconds;
+                ctx.Response.Headers["Server-Timing"] = $"app;dur={ms.ToString("0.0", System.Globalization.CultureInfo.InvariantCulture)}";
+                return Task.CompletedTask;
+            }, (context, started));
+            return next(context);
+        });
+        return app;
+    }
+
+    /// <summary><c>GET /healthz</c> without sign-in: 200 when every part passes, 503 naming the failing part.</summary>
+    public static IEndpointRouteBuilder MapHealth(this IEndpointRouteBuilder app)
+    {
+        app.MapGet("/healthz", async (HealthProbe probe, HttpContext http) =>
+        {
+            var report = await probe.RunAsync(http.RequestAborted);
+            http.Response.Headers.CacheControl = "no-store";
+            return Results.Json(report, statusCode: report.Healthy ? StatusCodes.Status200OK : StatusCodes.Status503ServiceUnavailable);
+        }).AllowAnonymous().ExcludeFromDescription();
+        return app;
+    }
+}
