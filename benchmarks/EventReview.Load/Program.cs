@@ -3,7 +3,7 @@ using EventReview.Load;
 
 // eventreview-load: drives a running EventReview server's HTTP API on loopback and prints what it measured.
 // benchmarks/load/run.sh starts a server on a fresh data folder, creates the tokens and calls this program.
-var url = new Option<Uri>("--url") { Description = "Base address of the server.", DefaultValueFactory = _ => new Uri("http://127.0.0.1:5300") };
+var url = new Option<string>("--url") { Description = "Base address of the server.", DefaultValueFactory = _ => "http://127.0.0.1:5300" };
 var json = new Option<FileInfo?>("--json") { Description = "Also write the result as JSON to this file." };
 
 var tokens = new Option<FileInfo>("--tokens") { Description = "File with one API token secret per line (clients use them round-robin).", Required = true };
@@ -28,7 +28,7 @@ writes.SetAction(async (p, ct) =>
         return 2;
     }
 
-    var result = await WriteLoad.RunAsync(new WriteLoad.Options(p.GetValue(url)!, list, p.GetValue(clients), TimeSpan.FromSeconds(p.GetValue(seconds)),
+    var result = await WriteLoad.RunAsync(new WriteLoad.Options(new Uri(p.GetValue(url)!), list, p.GetValue(clients), TimeSpan.FromSeconds(p.GetValue(seconds)),
         TimeSpan.FromSeconds(p.GetValue(warmup)), p.GetValue(attachEvery), p.GetValue(perCase), p.GetValue(bytes), p.GetValue(checklist)!, p.GetValue(pid)), ct);
     WriteLoad.Print(result, Console.Out);
     if (p.GetValue(json) is { } file)
@@ -50,7 +50,7 @@ var reads = new Command("reads", "Seed many cases and one large case through the
 };
 reads.SetAction(async (p, ct) =>
 {
-    var results = await ReadLoad.RunAsync(new ReadLoad.Options(p.GetValue(url)!, p.GetValue(token)!, p.GetValue(cases), p.GetValue(checklist)!, p.GetValue(bigChecklist)!,
+    var results = await ReadLoad.RunAsync(new ReadLoad.Options(new Uri(p.GetValue(url)!), p.GetValue(token)!, p.GetValue(cases), p.GetValue(checklist)!, p.GetValue(bigChecklist)!,
         p.GetValue(evidence), p.GetValue(repeats), 16), Console.Out, ct);
     ReadLoad.Print(results, Console.Out);
     if (p.GetValue(json) is { } file)

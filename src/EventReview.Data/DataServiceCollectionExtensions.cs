@@ -14,6 +14,9 @@ public static class DataServiceCollectionExtensions
         services.AddSingleton(factory);
         services.AddSingleton<IDbContextFactory<AppDbContext>>(factory);
         services.AddScoped(sp => sp.GetRequiredService<IDbContextFactory<AppDbContext>>().CreateDbContext());
+        services.AddSingleton<Writes.IWriteGate>(_ => settings.Provider == DatabaseProvider.Sqlite
+            ? new Writes.BatchingWriteGate(factory)
+            : new Writes.DirectWriteGate(factory));
         services.AddSingleton<AttachmentStore>();
         services.AddSingleton<IntegrityVerifier>();
         services.AddScoped<Auth.AccountAdmin>();

@@ -3,6 +3,7 @@ using EventReview.Core.Cases;
 using EventReview.Core.Evidence;
 using EventReview.Core.Time;
 using EventReview.Data;
+using EventReview.Data.Writes;
 using EventReview.Web.Auth;
 using Microsoft.EntityFrameworkCore;
 
@@ -13,7 +14,7 @@ namespace EventReview.Web.Services;
 /// Changes load the case aggregate, apply one domain method and save; the case's version token serialises
 /// concurrent changes, and append-only changes (evidence, notes) are retried so that nothing is lost.
 /// </summary>
-public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, TemplateCatalog templates, TimeProvider clock, AttachmentStore store)
+public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWriteGate writes, TemplateCatalog templates, TimeProvider clock, AttachmentStore store)
 {
     private const int MaxAttempts = 6;
 
@@ -182,10 +183,14 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
 
         var c = ReviewCase.Open(request.CandidateId, GpsTime.FromSeconds(request.GpsTime.Value), request.Search ?? string.Empty,
             request.Summary ?? string.Empty, arrivals, template, user.ToActor(), EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
-        db.Cases.Add(c);
         try
         {
-            await db.SaveChangesAsync(ct);
+            await writes.RunAsync(async (w, token) =>
+            {
+                w.Cases.Add(c);
+                await w.SaveChangesAsync(token);
+                return c.Id;
+            }, ct);
             return (c, true);
         }
         catch (DbUpdateException)
@@ -355,20 +360,23 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
     {
         for (var attempt = 1; ; attempt++)
         {
-            await using var db = await dbFactory.CreateDbContextAsync(ct);
-            var c = await db.CaseWithOneItem(caseId, itemKey).FirstOrDefaultAsync(ct)
-                ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
-            var now = EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow());
-            var evidence = make(now);
-            c.AddEvidence(itemKey, evidence, actor, now);
             try
             {
-                await db.SaveChangesAsync(ct);
-                var item = c.Item(itemKey);
-                return new EvidenceReceipt(evidence.Id, evidence.ContentSha256, evidence.SizeBytes, evidence.FileName, item.State, item.Fingerprint());
+                return await writes.RunAsync(async (db, token) =>
+                {
+                    var c = await db.CaseWithOneItem(caseId, itemKey).FirstOrDefaultAsync(token)
+                        ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
+                    var now = EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow());
+                    var evidence = make(now);
+                    c.AddEvidence(itemKey, evidence, actor, now);
+                    await db.SaveChangesAsync(token);
+                    var item = c.Item(itemKey);
+                    return new EvidenceReceipt(evidence.Id, evidence.ContentSha256, evidence.SizeBytes, evidence.FileName, item.State, item.Fingerprint());
+                }, ct);
             }
             catch (DbUpdateException) when (attempt < MaxAttempts)
             {
+                // Another server process changed the case in between (version token or timeline sequence): reload and re-apply.
                 await Task.Delay(Random.Shared.Next(1, 10) * attempt, ct);
             }
             catch (DbUpdateException)
@@ -382,24 +390,26 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, Templ
     {
         for (var attempt = 1; ; attempt++)
         {
-            await using var db = await dbFactory.CreateDbContextAsync(ct);
-            var c = await db.CasesWithEverything().FirstOrDefaultAsync(x => x.Id == caseId, ct)
-                ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
-            if (itemKey is not null)
-            {
-                var item = c.Item(itemKey);
-                if (expectedItemVersion is not null && item.Version != expectedItemVersion)
-                {
-                    var last = c.Activity.Where(a => a.ItemKey == itemKey).MaxBy(a => a.Sequence);
-                    throw new ConflictException($"Item '{itemKey}' was changed by {last?.ActorName ?? "someone else"} while you were editing it ({last?.Text}). Your change was not applied; the item has been reloaded — check it and apply your change again.");
-                }
-            }
-
-            await change(db, c, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
             try
             {
-                await db.SaveChangesAsync(ct);
-                return c;
+                return await writes.RunAsync(async (db, token) =>
+                {
+                    var c = await db.CasesWithEverything().FirstOrDefaultAsync(x => x.Id == caseId, token)
+                        ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
+                    if (itemKey is not null)
+                    {
+                        var item = c.Item(itemKey);
+                        if (expectedItemVersion is not null && item.Version != expectedItemVersion)
+                        {
+                            var last = c.Activity.Where(a => a.ItemKey == itemKey).MaxBy(a => a.Sequence);
+                            throw new ConflictException($"Item '{itemKey}' was changed by {last?.ActorName ?? "someone else"} while you were editing it ({last?.Text}). Your change was not applied; the item has been reloaded — check it and apply your change again.");
+                        }
+                    }
+
+                    await change(db, c, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
+                    await db.SaveChangesAsync(token);
+                    return c;
+                }, ct);
             }
             catch (DbUpdateException) when (attempt < MaxAttempts)
             {
