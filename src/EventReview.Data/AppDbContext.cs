@@ -52,17 +52,25 @@ public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext
         .AsSplitQuery();
 
     /// <summary>
-    /// A case with only one checklist item (its evidence, computations and sign-offs) and only its newest timeline entry:
-    /// enough to append evidence to that item and extend the chain, at a cost that does not grow with the case.
-    /// Domain methods that look at other items must use <see cref="CasesWithEverything"/>.
+    /// Loads (tracked) a case with only one checklist item (its evidence, computations and sign-offs) and only its newest
+    /// timeline entry: enough to append evidence to that item and extend the chain, at a cost that does not grow with the
+    /// case or the database. Each part is one indexed query. Domain methods that look at other items need <see cref="CasesWithEverything"/>.
     /// </summary>
-    public IQueryable<ReviewCase> CaseWithOneItem(int caseId, string itemKey) => Cases
-        .Where(c => c.Id == caseId)
-        .Include(c => c.Items.Where(i => i.Key == itemKey)).ThenInclude(i => i.Evidence)
-        .Include(c => c.Items.Where(i => i.Key == itemKey)).ThenInclude(i => i.Computations)
-        .Include(c => c.Items.Where(i => i.Key == itemKey)).ThenInclude(i => i.SignOffs)
-        .Include(c => c.Activity.OrderByDescending(a => a.Sequence).Take(1))
-        .AsSplitQuery();
+    /// <returns>The case, or null when there is none with that id.</returns>
+    public async Task<ReviewCase?> LoadCaseWithOneItemAsync(int caseId, string itemKey, CancellationToken ct = default)
+    {
+        var c = await Cases.FirstOrDefaultAsync(x => x.Id == caseId, ct);
+        if (c is null)
+        {
+            return null;
+        }
+
+        await Items.Where(i => i.ReviewCaseId == caseId && i.Key == itemKey)
+            .Include(i => i.Evidence).Include(i => i.Computations).Include(i => i.SignOffs)
+            .AsSplitQuery().LoadAsync(ct);
+        await Activity.Where(a => a.ReviewCaseId == caseId).OrderByDescending(a => a.Sequence).Take(1).LoadAsync(ct);
+        return c;
+    }
 
     protected override void OnModelCreating(ModelBuilder builder)
     {

@@ -364,7 +364,7 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
             {
                 return await writes.RunAsync(async (db, token) =>
                 {
-                    var c = await db.CaseWithOneItem(caseId, itemKey).FirstOrDefaultAsync(token)
+                    var c = await db.LoadCaseWithOneItemAsync(caseId, itemKey, token)
                         ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
                     var now = EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow());
                     var evidence = make(now);
