@@ -1,9 +1,10 @@
 using System.Text.Json.Serialization;
+
 namespace EventReview.Data.Backup;
 
 /// <summary>
-/// What a backup wrote: the archive path, entries (files) and their unpacked bytes, the archive's own size, counts from
-/// the snapshot, how long it took, and a note for the operator (for PostgreSQL: the database must be dumped separately).
+/// What a backup wrote: the archive path, files archived (database and attachments, not the manifest) and their
+/// bytes, the archive's own size, counts from the snapshot, how long it took, and a note for the operator (for PostgreSQL: the database must be dumped separately).
 /// </summary>
 public sealed record BackupReport(
     string OutputPath,

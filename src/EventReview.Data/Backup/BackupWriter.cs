@@ -103,7 +103,7 @@ public static class BackupWriter
             var note = settings.Provider == DatabaseProvider.Postgres
                 ? "Only the attachments were archived: the PostgreSQL database must be dumped with pg_dump -Fc, before this backup (see docs/operations-backup.md)."
                 : null;
-            return new BackupReport(output, settings.Provider, entries.Count + 1, entries.Sum(e => e.SizeBytes), new FileInfo(output).Length,
+            return new BackupReport(output, settings.Provider, entries.Count, entries.Sum(e => e.SizeBytes), new FileInfo(output).Length,
                 files.Count, facts.Cases, facts.TimelineEntries, Stopwatch.GetElapsedTime(started).TotalSeconds, note);
         }
         finally

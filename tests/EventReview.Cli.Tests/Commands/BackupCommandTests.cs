@@ -53,7 +53,7 @@ public sealed class BackupCommandTests : IAsyncLifetime
 
         Assert.True(backupCode == 0, backupErr);
         var backup = Json(backupOut);
-        Assert.Equal((1, 1, 3), (backup.GetProperty("caseCount").GetInt32(), backup.GetProperty("attachmentCount").GetInt32(), backup.GetProperty("files").GetInt32()));
+        Assert.Equal((1, 1, 2), (backup.GetProperty("caseCount").GetInt32(), backup.GetProperty("attachmentCount").GetInt32(), backup.GetProperty("files").GetInt32()));
         Assert.Equal("Sqlite", backup.GetProperty("provider").GetString());
         Assert.Equal(Zip, backup.GetProperty("outputPath").GetString());
         Assert.True(restoreCode == 0, restoreErr);

@@ -81,7 +81,7 @@ public sealed class BackupRestoreTests : IAsyncLifetime
         var backup = await BackupWriter.CreateAsync(_source, Archive);
         var restored = await RestoreAsync();
 
-        Assert.Equal((2, 2, 4), (backup.CaseCount, backup.AttachmentCount, backup.Files)); // database + 2 attachments + manifest
+        Assert.Equal((2, 2, 3), (backup.CaseCount, backup.AttachmentCount, backup.Files)); // database + 2 attachments
         Assert.True(restored.Valid, string.Join("; ", restored.Problems.Select(p => p.What)));
         Assert.True(restored.Placed);
         Assert.Equal((2, backup.TimelineEntries, 2), (restored.CaseCount, restored.TimelineEntries, restored.AttachmentCount));
