@@ -144,7 +144,7 @@ public static class BackupRestorer
         }
 
         var aside = $"{folder}.before-restore-{DateTime.UtcNow.ToString("yyyyMMdd'T'HHmmss'Z'", CultureInfo.InvariantCulture)}";
-        aside = Directory.Exists(aside) ? $"{aside}-{Guid.NewGuid():N}"[..(aside.Length + 9)] : aside;
+        aside = Directory.Exists(aside) ? $"{aside}-{Guid.NewGuid().ToString("N")[..8]}" : aside;
         Directory.Move(folder, aside);
         try
         {
