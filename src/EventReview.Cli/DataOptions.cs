@@ -25,11 +25,18 @@ public sealed class DataOptions
         command.Options.Add(Json);
     }
 
+    /// <summary>The database settings the options name, without opening anything.</summary>
+    /// <exception cref="ArgumentException">When the provider is unknown or Postgres has no connection string.</exception>
+    public DatabaseSettings Settings(ParseResult parse)
+    {
+        var data = parse.GetValue(Data) ?? Environment.GetEnvironmentVariable("EventReview__DataDirectory") ?? "./data";
+        return DatabaseSettings.From(parse.GetValue(Provider), parse.GetValue(Connection), data);
+    }
+
     /// <summary>Opens the database (applying migrations) and returns a service provider for it.</summary>
     public async Task<ServiceProvider> OpenAsync(ParseResult parse)
     {
-        var data = parse.GetValue(Data) ?? Environment.GetEnvironmentVariable("EventReview__DataDirectory") ?? "./data";
-        var settings = DatabaseSettings.From(parse.GetValue(Provider), parse.GetValue(Connection), data);
+        var settings = Settings(parse);
         var services = new ServiceCollection();
         services.AddLogging(b => b.SetMinimumLevel(LogLevel.Warning));
         services.AddSingleton(TimeProvider.System);

@@ -24,5 +24,7 @@ public static class CommandCatalog
         yield return ConfigCommand.Build();
         yield return SimulateCommand.Build();
         yield return BackgroundCommand.Build();
+        yield return BackupCommand.Build();
+        yield return RestoreCommand.Build();
     }
 }

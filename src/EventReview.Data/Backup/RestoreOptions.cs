@@ -1,0 +1,10 @@
+namespace EventReview.Data.Backup;
+
+/// <summary>
+/// Options of <see cref="BackupRestorer"/>. <see cref="Force"/> replaces a non-empty target folder (the old folder is
+/// moved aside, never deleted). <see cref="AllowInvalid"/> places a restored copy even when its integrity verification
+/// finds problems (for investigation; the problems are still reported). <see cref="MaxTotalBytes"/> caps the unpacked
+/// size of the archive (default 256 GiB) and <see cref="MaxEntries"/> its number of entries, so that a hostile archive
+/// cannot fill the disk.
+/// </summary>
+public sealed record RestoreOptions(bool Force = false, bool AllowInvalid = false, long MaxTotalBytes = 256L * 1024 * 1024 * 1024, int MaxEntries = 5_000_000);
