@@ -16,7 +16,7 @@ public static class DataServiceCollectionExtensions
         services.AddScoped(sp => sp.GetRequiredService<IDbContextFactory<AppDbContext>>().CreateDbContext());
         services.AddSingleton<Writes.IWriteGate>(_ => settings.Provider == DatabaseProvider.Sqlite
             ? new Writes.BatchingWriteGate(factory)
-            : new Writes.DirectWriteGate(factory));
+            : new Writes.DirectWriteGate());
         services.AddSingleton<AttachmentStore>();
         services.AddSingleton<IntegrityVerifier>();
         services.AddScoped<Auth.AccountAdmin>();

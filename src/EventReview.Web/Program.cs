@@ -7,7 +7,10 @@ using EventReview.Web.Operations;
 using EventReview.Web.Services;
 using Microsoft.Extensions.Options;
 
-var builder = WebApplication.CreateBuilder(args);
+// The app's own folder holds appsettings.json, wwwroot and the checklists: use it as the content root when the app is
+// started from elsewhere (e.g. `dotnet /opt/eventreview/EventReview.Web.dll`), so settings are never silently missing.
+var contentRoot = File.Exists(Path.Combine(Directory.GetCurrentDirectory(), "appsettings.json")) ? null : AppContext.BaseDirectory;
+var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = contentRoot });
 builder.WebHost.UseStaticWebAssets();
 builder.AddEventReviewOperations();
 builder.Services.AddEventReviewWeb(builder.Configuration);

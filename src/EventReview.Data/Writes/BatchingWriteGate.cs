@@ -1,3 +1,4 @@
+using System.Data.Common;
 using System.Threading.Channels;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore.Storage;
@@ -6,20 +7,20 @@ namespace EventReview.Data.Writes;
 
 /// <summary>
 /// The single writer of an embedded (SQLite) database, with group commit. SQLite lets one connection write at a time
-/// and its driver answers a locked database by sleeping and retrying, so concurrent writers queue here instead: one
-/// loop takes every waiting unit of work (up to <see cref="MaxBatch"/>), runs each inside its own savepoint of one
-/// transaction, and commits once, so that one flush to disk serves the whole batch. A unit that fails is rolled back
-/// to its savepoint alone and its caller gets the exception; the others are unaffected. Every caller's task completes
-/// only after the commit, so nothing is acknowledged before it is durable; if the commit itself fails, every unit of
-/// the batch fails with that error and nothing of it is stored.
+/// and its driver answers a locked database by sleeping and retrying, so writers queue here instead. Callers read and
+/// change on their own contexts in parallel; one loop takes every waiting save (up to <see cref="MaxBatch"/>), runs
+/// each on its one connection inside one transaction (each save in its own savepoint, so a failing save is undone
+/// alone and its caller gets the error), and commits once: one flush to disk serves the whole batch. Every caller's
+/// task completes only after the commit, so nothing is acknowledged before it is durable; if the commit fails, every
+/// save of the batch fails with that error and nothing of it is stored.
 /// </summary>
 public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 {
-    /// <summary>Most units of work committed together.</summary>
+    /// <summary>Most saves committed together.</summary>
     public const int MaxBatch = 64;
 
     private readonly AppDbContextFactory _factory;
-    private readonly Channel<Unit> _queue = Channel.CreateUnbounded<Unit>(new UnboundedChannelOptions { SingleReader = true });
+    private readonly Channel<PendingSave> _queue = Channel.CreateUnbounded<PendingSave>(new UnboundedChannelOptions { SingleReader = true });
     private readonly Task _loop;
 
     public BatchingWriteGate(AppDbContextFactory factory)
@@ -28,16 +29,16 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
         _loop = Task.Run(LoopAsync);
     }
 
-    public Task<T> RunAsync<T>(Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken ct = default)
+    public Task SaveAsync(AppDbContext db, CancellationToken ct = default)
     {
         ct.ThrowIfCancellationRequested();
-        var unit = new Unit<T>(work, ct);
-        if (!_queue.Writer.TryWrite(unit))
+        var save = new PendingSave(db, ct);
+        if (!_queue.Writer.TryWrite(save))
         {
             throw new ObjectDisposedException(nameof(BatchingWriteGate), "The application is shutting down; nothing was stored.");
         }
 
-        return unit.Task;
+        return save.Done.Task;
     }
 
     public async ValueTask DisposeAsync()
@@ -48,15 +49,19 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
     private async Task LoopAsync()
     {
-        var batch = new List<Unit>(MaxBatch);
+        var batch = new List<PendingSave>(MaxBatch);
         while (await _queue.Reader.WaitToReadAsync())
         {
             batch.Clear();
-            while (batch.Count < MaxBatch && _queue.Reader.TryRead(out var unit))
+            while (batch.Count < MaxBatch && _queue.Reader.TryRead(out var save))
             {
-                if (!unit.CancelIfRequested())
+                if (save.Cancelled.IsCancellationRequested)
                 {
-                    batch.Add(unit);
+                    save.Done.TrySetCanceled(save.Cancelled);
+                }
+                else
+                {
+                    batch.Add(save);
                 }
             }
 
@@ -67,32 +72,32 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
         }
     }
 
-    private async Task RunBatchAsync(List<Unit> batch)
+    private async Task RunBatchAsync(List<PendingSave> batch)
     {
-        var done = new List<Unit>(batch.Count);
+        var saved = new List<PendingSave>(batch.Count);
         try
         {
-            await using var db = _factory.CreateDbContext();
-            await using var tx = await db.Database.BeginTransactionAsync();
-            for (var i = 0; i < batch.Count; i++)
+            await using var writer = _factory.CreateDbContext();
+            var connection = writer.Database.GetDbConnection();
+            await writer.Database.OpenConnectionAsync();
+            await using var tx = await connection.BeginTransactionAsync();
+            foreach (var save in batch)
             {
-                var unit = batch[i];
-                var savepoint = $"unit{i}";
-                await tx.CreateSavepointAsync(savepoint);
                 try
                 {
-                    await unit.RunAsync(db);
-                    await tx.ReleaseSavepointAsync(savepoint);
-                    done.Add(unit);
+                    // The caller's context saves through the writer's connection and transaction; EF Core wraps the save
+                    // in a savepoint of that transaction and rolls back to it if the save fails.
+                    Enlist(save.Db, connection, tx);
+                    await save.Db.SaveChangesAsync(save.Cancelled);
+                    saved.Add(save);
                 }
                 catch (Exception ex)
                 {
-                    await tx.RollbackToSavepointAsync(savepoint);
-                    unit.Fail(ex);
+                    save.Done.TrySetException(ex);
                 }
                 finally
                 {
-                    db.ChangeTracker.Clear();
+                    save.Db.Database.UseTransaction(null);
                 }
             }
 
@@ -101,44 +106,37 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
         catch (Exception ex)
         {
             // The transaction (or opening it) failed: nothing of this batch is stored.
-            foreach (var unit in batch)
+            foreach (var save in batch)
             {
-                unit.Fail(ex);
+                save.Done.TrySetException(ex);
             }
 
             return;
         }
 
-        foreach (var unit in done)
+        foreach (var save in saved)
         {
-            unit.Complete();
+            save.Done.TrySetResult();
         }
     }
 
-    private abstract class Unit
+    private static void Enlist(AppDbContext db, DbConnection connection, DbTransaction tx)
     {
-        public abstract Task RunAsync(AppDbContext db);
+        if (!ReferenceEquals(db.Database.GetDbConnection(), connection))
+        {
+            db.Database.CloseConnection();
+            db.Database.SetDbConnection(connection, contextOwnsConnection: false);
+        }
 
-        public abstract void Complete();
-
-        public abstract void Fail(Exception ex);
-
-        public abstract bool CancelIfRequested();
+        db.Database.UseTransaction(tx);
     }
 
-    private sealed class Unit<T>(Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken ct) : Unit
+    private sealed class PendingSave(AppDbContext db, CancellationToken cancelled)
     {
-        private readonly TaskCompletionSource<T> _tcs = new(TaskCreationOptions.RunContinuationsAsynchronously);
-        private T? _result;
+        public AppDbContext Db { get; } = db;
 
-        public Task<T> Task => _tcs.Task;
+        public CancellationToken Cancelled { get; } = cancelled;
 
-        public override async Task RunAsync(AppDbContext db) => _result = await work(db, ct);
-
-        public override void Complete() => _tcs.TrySetResult(_result!);
-
-        public override void Fail(Exception ex) => _tcs.TrySetException(ex);
-
-        public override bool CancelIfRequested() => ct.IsCancellationRequested && _tcs.TrySetCanceled(ct);
+        public TaskCompletionSource Done { get; } = new(TaskCreationOptions.RunContinuationsAsynchronously);
     }
 }

@@ -1,12 +1,13 @@
 namespace EventReview.Data.Writes;
 
 /// <summary>
-/// The one way changes reach the database. A unit of work gets a fresh context, reads what it needs, changes it and
-/// calls <c>SaveChangesAsync</c>; it either takes effect completely or not at all, and its task completes only once
-/// the change is durable (committed).
+/// The one way changes reach the database. A caller reads what it needs with its own context, changes it, and hands
+/// the context here instead of calling <c>SaveChangesAsync</c>: its pending changes are stored completely or not at
+/// all, and the task completes only once they are durable (committed). Conflicts with changes made since the read
+/// surface as <see cref="Microsoft.EntityFrameworkCore.DbUpdateException"/>, as with a plain save.
 /// </summary>
 public interface IWriteGate
 {
-    /// <summary>Runs <paramref name="work"/> as one unit of work and returns its result after the commit.</summary>
-    Task<T> RunAsync<T>(Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken ct = default);
+    /// <summary>Stores the pending changes of <paramref name="db"/> as one unit and returns after the commit.</summary>
+    Task SaveAsync(AppDbContext db, CancellationToken ct = default);
 }

@@ -30,6 +30,12 @@ public static class OperationsSetup
             });
         }
 
+        ThreadPool.GetMinThreads(out var workers, out var io);
+        if (options.MinWorkerThreads > workers)
+        {
+            ThreadPool.SetMinThreads(options.MinWorkerThreads, Math.Max(io, options.MinWorkerThreads));
+        }
+
         builder.Services.Configure<ForwardedHeadersOptions>(o => ConfigureProxies(o, options.TrustedProxies));
         builder.Services.AddScoped<HealthProbe>();
         return builder;

@@ -185,12 +185,8 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
             request.Summary ?? string.Empty, arrivals, template, user.ToActor(), EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
         try
         {
-            await writes.RunAsync(async (w, token) =>
-            {
-                w.Cases.Add(c);
-                await w.SaveChangesAsync(token);
-                return c.Id;
-            }, ct);
+            db.Cases.Add(c);
+            await writes.SaveAsync(db, ct);
             return (c, true);
         }
         catch (DbUpdateException)
@@ -360,23 +356,21 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
     {
         for (var attempt = 1; ; attempt++)
         {
+            await using var db = await dbFactory.CreateDbContextAsync(ct);
+            var c = await db.LoadCaseWithOneItemAsync(caseId, itemKey, ct)
+                ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
+            var now = EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow());
+            var evidence = make(now);
+            c.AddEvidence(itemKey, evidence, actor, now);
             try
             {
-                return await writes.RunAsync(async (db, token) =>
-                {
-                    var c = await db.LoadCaseWithOneItemAsync(caseId, itemKey, token)
-                        ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
-                    var now = EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow());
-                    var evidence = make(now);
-                    c.AddEvidence(itemKey, evidence, actor, now);
-                    await db.SaveChangesAsync(token);
-                    var item = c.Item(itemKey);
-                    return new EvidenceReceipt(evidence.Id, evidence.ContentSha256, evidence.SizeBytes, evidence.FileName, item.State, item.Fingerprint());
-                }, ct);
+                await writes.SaveAsync(db, ct);
+                var item = c.Item(itemKey);
+                return new EvidenceReceipt(evidence.Id, evidence.ContentSha256, evidence.SizeBytes, evidence.FileName, item.State, item.Fingerprint());
             }
             catch (DbUpdateException) when (attempt < MaxAttempts)
             {
-                // Another server process changed the case in between (version token or timeline sequence): reload and re-apply.
+                // Someone else changed the case in between (version token or timeline sequence): reload and re-apply.
                 await Task.Delay(Random.Shared.Next(1, 10) * attempt, ct);
             }
             catch (DbUpdateException)
@@ -390,26 +384,24 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
     {
         for (var attempt = 1; ; attempt++)
         {
+            await using var db = await dbFactory.CreateDbContextAsync(ct);
+            var c = await db.CasesWithEverything().FirstOrDefaultAsync(x => x.Id == caseId, ct)
+                ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
+            if (itemKey is not null)
+            {
+                var item = c.Item(itemKey);
+                if (expectedItemVersion is not null && item.Version != expectedItemVersion)
+                {
+                    var last = c.Activity.Where(a => a.ItemKey == itemKey).MaxBy(a => a.Sequence);
+                    throw new ConflictException($"Item '{itemKey}' was changed by {last?.ActorName ?? "someone else"} while you were editing it ({last?.Text}). Your change was not applied; the item has been reloaded — check it and apply your change again.");
+                }
+            }
+
+            await change(db, c, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
             try
             {
-                return await writes.RunAsync(async (db, token) =>
-                {
-                    var c = await db.CasesWithEverything().FirstOrDefaultAsync(x => x.Id == caseId, token)
-                        ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
-                    if (itemKey is not null)
-                    {
-                        var item = c.Item(itemKey);
-                        if (expectedItemVersion is not null && item.Version != expectedItemVersion)
-                        {
-                            var last = c.Activity.Where(a => a.ItemKey == itemKey).MaxBy(a => a.Sequence);
-                            throw new ConflictException($"Item '{itemKey}' was changed by {last?.ActorName ?? "someone else"} while you were editing it ({last?.Text}). Your change was not applied; the item has been reloaded — check it and apply your change again.");
-                        }
-                    }
-
-                    await change(db, c, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
-                    await db.SaveChangesAsync(token);
-                    return c;
-                }, ct);
+                await writes.SaveAsync(db, ct);
+                return c;
             }
             catch (DbUpdateException) when (attempt < MaxAttempts)
             {
