@@ -11,7 +11,8 @@ public static class CaseEndpoints
 {
     public static IEndpointRouteBuilder MapEventReviewApi(this IEndpointRouteBuilder app)
     {
-        var api = app.MapGroup("/api").RequireAuthorization(Policies.Read).DisableAntiforgery();
+        // Each endpoint names its own policy (a token only gets what its scopes allow); all share the API rate limit.
+        var api = app.MapGroup("/api").RequireAuthorization(Policies.Read).DisableAntiforgery().RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
 
         api.MapPost("/cases", async (HttpRequest request, ClaimsPrincipal user, CaseService cases) =>
         {
@@ -114,9 +115,10 @@ public static class CaseEndpoints
                 return Results.NotFound();
             }
 
+            // Always a download of opaque bytes (the security headers add a sandbox policy); the name is cleaned, never a path.
             var s = store.Open(sha);
-            return s is null ? Results.NotFound() : Results.File(s, "application/octet-stream", string.IsNullOrWhiteSpace(name) ? sha : Path.GetFileName(name));
-        }).RequireAuthorization(Policies.Read);
+            return s is null ? Results.NotFound() : Results.File(s, "application/octet-stream", EventReview.Core.Evidence.SafeFileName.From(name, sha));
+        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
 
         app.MapGet("/cases/{id:int}/dossier.zip", async (int id, ClaimsPrincipal user, EventReview.Dossier.CaseDossierService dossiers, CaseService cases, HttpContext http) =>
         {
@@ -132,15 +134,15 @@ public static class CaseEndpoints
 
             using var buffer = new MemoryStream();
             await dossiers.ExportAsync(id, user.ToActor(), buffer, http.RequestAborted);
-            return Results.File(buffer.ToArray(), "application/zip", $"{c.CandidateId}-dossier.zip");
-        }).RequireAuthorization(Policies.Read);
+            return Results.File(buffer.ToArray(), "application/zip", EventReview.Core.Evidence.SafeFileName.From($"{c.CandidateId}-dossier.zip", "dossier.zip"));
+        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
 
         app.MapGet("/network.json", async (NetworkService network) =>
         {
             var n = await network.GetAsync();
             var json = EventReview.Core.Network.NetworkFile.Write(new EventReview.Core.Network.NetworkDefinition(n.Name, n.Sites.OrderBy(s => s.Code).ToList()));
             return Results.File(System.Text.Encoding.UTF8.GetBytes(json), "application/json", "network.json");
-        }).RequireAuthorization(Policies.Read);
+        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
 
         return app;
     }
