@@ -11,8 +11,9 @@ public static class CaseEndpoints
 {
     public static IEndpointRouteBuilder MapEventReviewApi(this IEndpointRouteBuilder app)
     {
-        // Each endpoint names its own policy (a token only gets what its scopes allow); all share the API rate limit.
-        var api = app.MapGroup("/api").RequireAuthorization(Policies.Read).DisableAntiforgery().RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
+        // Each endpoint names its own policy (policies on a group add up, so none is set here: a pipeline token may open
+        // cases without being able to read them); all share the API rate limit.
+        var api = app.MapGroup("/api").DisableAntiforgery().RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
 
         api.MapPost("/cases", async (HttpRequest request, ClaimsPrincipal user, CaseService cases) =>
         {
@@ -47,17 +48,18 @@ public static class CaseEndpoints
 
             var list = await cases.ListAsync(user, s, q);
             return Results.Ok(list.Select(CaseDtos.Summary).ToList());
-        })).WithSummary("List cases, newest first; filter by state and text.").Produces<List<CaseDtos.CaseSummary>>();
+        })).RequireAuthorization(Policies.Read).WithSummary("List cases, newest first; filter by state and text.").Produces<List<CaseDtos.CaseSummary>>();
 
         api.MapGet("/cases/{id:int}", (int id, ClaimsPrincipal user, CaseService cases) => ApiResults.Guard(async () =>
             Results.Ok(CaseDtos.Detail(await cases.GetAsync(user, id)))))
+            .RequireAuthorization(Policies.Read)
             .WithSummary("One case with its arrivals and checklist item states.").Produces<CaseDtos.CaseDetail>().ProducesProblem(404);
 
         api.MapGet("/sites", async (NetworkService network) =>
         {
             var n = await network.GetAsync();
             return Results.Ok(n.Sites.OrderBy(s => s.Code).Select(CaseDtos.Site).ToList());
-        }).WithSummary("The network's sites (same fields as the network page and network.json).").Produces<List<CaseDtos.SiteDto>>();
+        }).RequireAuthorization(Policies.Read).WithSummary("The network's sites (same fields as the network page and network.json).").Produces<List<CaseDtos.SiteDto>>();
 
         api.MapPost("/cases/{id:int}/items/{key}/notes", async (int id, string key, HttpRequest request, ClaimsPrincipal user, CaseService cases) =>
         {
