@@ -113,6 +113,24 @@ public partial class EventReviewFactory : WebApplicationFactory<Program>, IAsync
         _ => throw new ArgumentOutOfRangeException(nameof(who), who, "not a person"),
     };
 
+    /// <summary>The antiforgery token of the form on <paramref name="page"/> (the client keeps the matching cookie).</summary>
+    public static async Task<string> AntiforgeryTokenAsync(HttpClient client, string page = "/signin")
+    {
+        var html = await client.GetStringAsync(page);
+        var token = AntiforgeryInput().Match(html);
+        return token.Success ? WebUtility.HtmlDecode(token.Groups["value"].Value) : throw new InvalidOperationException($"{page} has no __RequestVerificationToken input.");
+    }
+
+    /// <summary>Posts the sign-in form as a browser would (with the antiforgery token) and returns the raw answer.</summary>
+    public static async Task<HttpResponseMessage> PostSignInAsync(HttpClient client, string email, string password) =>
+        await client.PostAsync("/account/signin", new FormUrlEncodedContent(new Dictionary<string, string>
+        {
+            ["__RequestVerificationToken"] = await AntiforgeryTokenAsync(client),
+            ["email"] = email,
+            ["password"] = password,
+            ["returnUrl"] = "/cases",
+        }));
+
     /// <summary>Signs in through GET /signin and POST /account/signin with the antiforgery token; returns the client with the auth cookie.</summary>
     public async Task<HttpClient> SignedInClientAsync(DemoAccounts.Account account)
     {
