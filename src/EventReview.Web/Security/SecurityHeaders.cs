@@ -36,7 +36,7 @@ public static class SecurityHeaders
     {
         if (context.Items[NonceKey] is not string nonce)
         {
-            nonce = Convert.ToBase64String(RandomNumberGenerator.GetBytes(16));
+            nonce = Convert.ToHexStringLower(RandomNumberGenerator.GetBytes(16)); // hex: nothing for HTML to encode
             context.Items[NonceKey] = nonce;
         }
 
