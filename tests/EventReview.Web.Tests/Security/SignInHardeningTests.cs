@@ -174,4 +174,35 @@ public sealed class SignInHardeningTests(EventReviewFactory app) : IClassFixture
         await using var db = app.Db();
         Assert.False(await db.AccountEvents.AnyAsync(e => e.Account == email));
     }
+
+    [Fact]
+    public async Task Coordinators_see_sign_in_activity_on_the_team_page_newest_first()
+    {
+        var (email, password) = await NewAccountAsync();
+        using (await EventReviewFactory.PostSignInAsync(app.Anonymous(), email, "Wrong-password-9"))
+        using (await EventReviewFactory.PostSignInAsync(app.Anonymous(), email, password))
+        {
+        }
+
+        var html = await (await app.As(Who.Coordinator)).GetStringAsync("/team");
+
+        Assert.Contains("Sign-in activity", html, StringComparison.Ordinal);
+        Assert.Contains("the chain verifies", html, StringComparison.Ordinal);
+        var who = System.Text.RegularExpressions.Regex.Escape(email);
+        var succeeded = System.Text.RegularExpressions.Regex.Match(html, "<td>signed in</td>\\s*<td>" + who);
+        var failed = System.Text.RegularExpressions.Regex.Match(html, "<td>sign-in failed</td>\\s*<td>" + who);
+        Assert.True(succeeded.Success && failed.Success && failed.Index > succeeded.Index, "newest entry first");
+    }
+
+    [Fact]
+    public async Task The_tokens_page_shows_scopes_expiry_and_expired_tokens_as_expired()
+    {
+        await app.As(Who.TokenExpired);
+        await app.As(Who.TokenPipeline);
+
+        var html = await (await app.As(Who.Coordinator)).GetStringAsync("/tokens");
+
+        Assert.Matches("test token \\(expired\\)</td>\\s*<td>cases:read, cases:open, evidence:add</td>[\\s\\S]*?<td>expired</td>", html);
+        Assert.Matches("test token \\(pipeline\\)</td>\\s*<td>cases:open, evidence:add</td>[\\s\\S]*?<td>active \\(90 days left\\)</td>", html);
+    }
 }
