@@ -36,6 +36,9 @@ public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext
 
     public DbSet<ApiToken> ApiTokens => Set<ApiToken>();
 
+    /// <summary>The sign-in audit (append-only, hash-chained).</summary>
+    public DbSet<AccountEvent> AccountEvents => Set<AccountEvent>();
+
     public DbSet<Core.Dossier.DossierExportRecord> DossierExports => Set<Core.Dossier.DossierExportRecord>();
 
     public DbSet<Core.Configuration.ConfigurationSnapshot> ConfigurationSnapshots => Set<Core.Configuration.ConfigurationSnapshot>();

@@ -124,4 +124,36 @@ public static class AppendOnlySql
         yield return "DROP FUNCTION IF EXISTS er_signoff_guard();";
         yield return "DROP FUNCTION IF EXISTS er_append_only();";
     }
+
+    /// <summary>Tokens made before scopes existed keep what they could do (all scopes) and expire 90 days after creation (SQLite ticks).</summary>
+    public const string SqliteTokenBackfill =
+        "UPDATE \"ApiTokens\" SET \"Scopes\" = 'cases:read cases:open evidence:add', \"ExpiresAt\" = \"CreatedAt\" + 90 * 864000000000 WHERE \"Scopes\" = '';";
+
+    /// <summary>As <see cref="SqliteTokenBackfill"/> for PostgreSQL.</summary>
+    public const string PostgresTokenBackfill =
+        "UPDATE \"ApiTokens\" SET \"Scopes\" = 'cases:read cases:open evidence:add', \"ExpiresAt\" = \"CreatedAt\" + interval '90 days' WHERE \"Scopes\" = '';";
+
+    /// <summary>The sign-in audit (AccountEvents) can never be updated or deleted (SQLite).</summary>
+    public static IEnumerable<string> AccountEventsSqliteUp()
+    {
+        yield return "CREATE TRIGGER er_AccountEvents_no_update BEFORE UPDATE ON \"AccountEvents\" BEGIN SELECT RAISE(ABORT, 'AccountEvents rows are append-only: they cannot be updated'); END;";
+        yield return "CREATE TRIGGER er_AccountEvents_no_delete BEFORE DELETE ON \"AccountEvents\" BEGIN SELECT RAISE(ABORT, 'AccountEvents rows are append-only: they cannot be deleted'); END;";
+    }
+
+    public static IEnumerable<string> AccountEventsSqliteDown()
+    {
+        yield return "DROP TRIGGER IF EXISTS er_AccountEvents_no_update;";
+        yield return "DROP TRIGGER IF EXISTS er_AccountEvents_no_delete;";
+    }
+
+    /// <summary>The sign-in audit can never be updated or deleted (PostgreSQL; reuses er_append_only()).</summary>
+    public static IEnumerable<string> AccountEventsPostgresUp()
+    {
+        yield return "CREATE TRIGGER er_AccountEvents_append_only BEFORE UPDATE OR DELETE ON \"AccountEvents\" FOR EACH ROW EXECUTE FUNCTION er_append_only();";
+    }
+
+    public static IEnumerable<string> AccountEventsPostgresDown()
+    {
+        yield return "DROP TRIGGER IF EXISTS er_AccountEvents_append_only ON \"AccountEvents\";";
+    }
 }

@@ -20,6 +20,7 @@ public static class DataServiceCollectionExtensions
         services.AddSingleton<AttachmentStore>();
         services.AddSingleton<IntegrityVerifier>();
         services.AddScoped<Auth.AccountAdmin>();
+        services.AddSingleton<Auth.AccountAudit>();
         return services;
     }
 
@@ -27,14 +28,24 @@ public static class DataServiceCollectionExtensions
     public static IdentityBuilder AddEventReviewIdentityCore(this IServiceCollection services) =>
         services.AddIdentityCore<Auth.AppUser>(ConfigureIdentity)
             .AddRoles<IdentityRole>()
-            .AddEntityFrameworkStores<AppDbContext>();
+            .AddEntityFrameworkStores<AppDbContext>()
+            .AddPasswordValidator<Auth.PasswordRules>();
 
-    /// <summary>Password and lockout rules shared by every host.</summary>
+    /// <summary>Smallest length of a new password.</summary>
+    public const int MinPasswordLength = 12;
+
+    /// <summary>
+    /// Password and lockout rules shared by every host: at least 12 characters with upper, lower and a digit (plus
+    /// <see cref="Auth.PasswordRules"/>); 5 failed sign-ins lock an account for 15 minutes (the web app can change both
+    /// lockout numbers under <c>EventReview:Lockout</c>).
+    /// </summary>
     public static void ConfigureIdentity(IdentityOptions o)
     {
-        o.Password.RequiredLength = 10;
+        o.Password.RequiredLength = MinPasswordLength;
         o.Password.RequireNonAlphanumeric = false;
         o.User.RequireUniqueEmail = true;
-        o.Lockout.MaxFailedAccessAttempts = 10;
+        o.Lockout.AllowedForNewUsers = true;
+        o.Lockout.MaxFailedAccessAttempts = 5;
+        o.Lockout.DefaultLockoutTimeSpan = TimeSpan.FromMinutes(15);
     }
 }

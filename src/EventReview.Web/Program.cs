@@ -4,6 +4,7 @@ using EventReview.Web.Api;
 using EventReview.Web.Components;
 using EventReview.Web.Demo;
 using EventReview.Web.Operations;
+using EventReview.Web.Security;
 using EventReview.Web.Services;
 using Microsoft.Extensions.Options;
 
@@ -33,6 +34,7 @@ using (var scope = app.Services.CreateScope())
 }
 
 app.UseEventReviewOperations();
+app.UseEventReviewSecurityHeaders();
 if (!app.Environment.IsDevelopment())
 {
     app.UseExceptionHandler("/error", createScopeForErrors: true);
@@ -41,12 +43,13 @@ if (!app.Environment.IsDevelopment())
 app.UseWhen(ctx => !ctx.Request.Path.StartsWithSegments("/api") && !ctx.Request.Path.StartsWithSegments("/openapi"),
     branch => branch.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true));
 app.UseAuthentication();
+app.UseRateLimiter();
 app.UseAuthorization();
 app.UseAntiforgery();
 
 app.MapStaticAssets().AllowAnonymous();
 app.MapHealth();
-app.MapOpenApi().RequireAuthorization();
+app.MapOpenApi().RequireAuthorization(EventReview.Web.Auth.Policies.Read);
 app.MapEventReviewApi();
 app.MapAccountEndpoints();
 app.MapRazorComponents<App>()

@@ -2,6 +2,7 @@ using EventReview.Data;
 using EventReview.Data.Auth;
 using EventReview.Web.Auth;
 using EventReview.Web.Demo;
+using EventReview.Web.Security;
 using EventReview.Web.Services;
 using Microsoft.AspNetCore.Authentication;
 using Microsoft.AspNetCore.Identity;
@@ -20,9 +21,7 @@ public static class WebServiceCollectionExtensions
         services.AddEventReviewData(settings);
         services.AddSingleton(TimeProvider.System);
 
-        services.AddIdentityCore<AppUser>(DataServiceCollectionExtensions.ConfigureIdentity)
-            .AddRoles<IdentityRole>()
-            .AddEntityFrameworkStores<AppDbContext>()
+        services.AddEventReviewIdentityCore()
             .AddSignInManager()
             .AddClaimsPrincipalFactory<AppClaimsFactory>()
             .AddDefaultTokenProviders();
@@ -49,6 +48,7 @@ public static class WebServiceCollectionExtensions
             o.Events.OnRedirectToAccessDenied = ctx => ApiAware(ctx, StatusCodes.Status403Forbidden);
         });
         services.AddAuthorization(Policies.Configure);
+        services.AddEventReviewSecurity(configuration);
         services.AddCascadingAuthenticationState();
 
         services.AddSingleton<TemplateCatalog>();

@@ -4,7 +4,10 @@ using Microsoft.Extensions.DependencyInjection;
 
 namespace EventReview.Cli.Commands;
 
-/// <summary><c>eventreview tokens create --name N</c> (prints the secret once), <c>tokens list</c>, <c>tokens revoke --id N</c>.</summary>
+/// <summary>
+/// <c>eventreview tokens create --name N [--scope S]... [--expires-in-days D]</c> (prints the secret once),
+/// <c>tokens list</c> (scopes, expiry, state), <c>tokens revoke --id N</c>.
+/// </summary>
 public static class TokensCommand
 {
     public static Command Build()
@@ -20,8 +23,16 @@ public static class TokensCommand
     {
         var data = new DataOptions();
         var name = new Option<string>("--name") { Description = "What the token is for (e.g. the pipeline's name)." };
+        var scope = new Option<string[]>("--scope")
+        {
+            Description = $"What the token may do; repeat or give a comma list of {string.Join(", ", TokenScopes.All)} (default: {string.Join(",", TokenScopes.Pipeline)}, what a pipeline needs).",
+            AllowMultipleArgumentsPerToken = true,
+        };
+        var expires = new Option<int?>("--expires-in-days") { Description = $"Days until the token stops working (1-{ApiToken.MaxLifetimeDays}; default {ApiToken.DefaultLifetimeDays})." };
         var create = new Command("create", "Create a token; the secret is printed once and only its hash is stored.");
         create.Options.Add(name);
+        create.Options.Add(scope);
+        create.Options.Add(expires);
         data.AddTo(create);
         create.SetAction(async (parse, ct) =>
         {
@@ -34,15 +45,16 @@ public static class TokensCommand
             try
             {
                 await using var provider = await data.OpenAsync(parse);
-                await using var scope = provider.CreateAsyncScope();
-                var (token, secret) = await scope.ServiceProvider.GetRequiredService<AccountAdmin>().CreateTokenAsync(n, "command line");
+                await using var services = provider.CreateAsyncScope();
+                var (token, secret) = await services.ServiceProvider.GetRequiredService<AccountAdmin>()
+                    .CreateTokenAsync(n, "command line", parse.GetValue(scope), parse.GetValue(expires));
                 if (parse.GetValue(data.Json))
                 {
-                    CliOutput.WriteJson(new { name = token.Name, token = secret });
+                    CliOutput.WriteJson(new { id = token.Id, name = token.Name, token = secret, scopes = token.ScopeList, expiresAt = token.ExpiresAt });
                 }
                 else
                 {
-                    Console.WriteLine($"Token '{token.Name}' (shown once; store it safely):");
+                    Console.WriteLine($"Token '{token.Name}' (id {token.Id}; scopes {string.Join(", ", token.ScopeList)}; expires {token.ExpiresAt:yyyy-MM-dd HH:mm} UTC). Shown once; store it safely:");
                     Console.WriteLine(secret);
                 }
 
@@ -50,7 +62,7 @@ public static class TokensCommand
             }
             catch (ArgumentException ex)
             {
-                return CliOutput.Fail(ex.Message.Split(" (Parameter", 2)[0]);
+                return CliOutput.Fail(ex.Message.Split(" (Parameter", 2)[0].ReplaceLineEndings(" "));
             }
         });
         return create;
@@ -66,15 +78,20 @@ public static class TokensCommand
             await using var provider = await data.OpenAsync(parse);
             await using var scope = provider.CreateAsyncScope();
             var all = await scope.ServiceProvider.GetRequiredService<AccountAdmin>().ListTokensAsync();
+            var now = scope.ServiceProvider.GetRequiredService<TimeProvider>().GetUtcNow();
             if (parse.GetValue(data.Json))
             {
-                CliOutput.WriteJson(all.Select(t => new { id = t.Id, name = t.Name, createdAt = t.CreatedAt, lastUsedAt = t.LastUsedAt, revokedAt = t.RevokedAt }));
+                CliOutput.WriteJson(all.Select(t => new
+                {
+                    id = t.Id, name = t.Name, scopes = t.ScopeList, createdAt = t.CreatedAt, expiresAt = t.ExpiresAt, lastUsedAt = t.LastUsedAt,
+                    revokedAt = t.RevokedAt, state = t.StateAt(now).ToString().ToLowerInvariant(),
+                }));
             }
             else
             {
                 foreach (var t in all)
                 {
-                    Console.WriteLine($"{t.Id,4} {t.Name,-30} created {t.CreatedAt:yyyy-MM-dd HH:mm} {(t.RevokedAt is null ? "active" : "revoked")}");
+                    Console.WriteLine($"{t.Id,4} {t.Name,-30} {t.StateAt(now).ToString().ToLowerInvariant(),-8} expires {t.ExpiresAt:yyyy-MM-dd} scopes {string.Join(",", t.ScopeList)}");
                 }
             }
 

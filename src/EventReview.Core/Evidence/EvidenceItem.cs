@@ -92,11 +92,7 @@ public sealed class EvidenceItem
             throw new ArgumentException("The attachment hash must be 64 lowercase hex digits.", nameof(sha256));
         }
 
-        var safeName = Path.GetFileName(fileName?.Replace('\\', '/') ?? string.Empty);
-        if (string.IsNullOrWhiteSpace(safeName))
-        {
-            safeName = "attachment";
-        }
+        var safeName = SafeFileName.From(fileName);
 
         return new EvidenceItem(EvidenceKind.Attachment, description ?? string.Empty, sha256, safeName, contentType, sizeBytes, null, by, at);
     }

@@ -5,7 +5,7 @@ using Microsoft.EntityFrameworkCore;
 namespace EventReview.Data.Auth;
 
 /// <summary>Accounts, roles and API tokens: shared by the web app (team and tokens pages) and the CLI.</summary>
-public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<IdentityRole> roles, IDbContextFactory<AppDbContext> dbFactory, TimeProvider clock)
+public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<IdentityRole> roles, IDbContextFactory<AppDbContext> dbFactory, TimeProvider clock, AccountAudit audit)
 {
     /// <summary>Creates the three roles when missing.</summary>
     public async Task EnsureRolesAsync()
@@ -85,13 +85,20 @@ public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<Identit
         return list;
     }
 
-    /// <summary>Creates an API token; the secret is returned once and only its hash is stored.</summary>
-    public async Task<(ApiToken Token, string Secret)> CreateTokenAsync(string name, string createdBy)
+    /// <summary>
+    /// Creates an API token; the secret is returned once and only its hash is stored. Null or empty scopes give
+    /// <see cref="TokenScopes.Pipeline"/>; a null lifetime gives <see cref="ApiToken.DefaultLifetimeDays"/>. The creation
+    /// goes into the sign-in audit (name, scopes, expiry; never the secret).
+    /// </summary>
+    /// <exception cref="ArgumentException">Bad name, unknown scope or a lifetime outside 1 to <see cref="ApiToken.MaxLifetimeDays"/> days.</exception>
+    public async Task<(ApiToken Token, string Secret)> CreateTokenAsync(string name, string createdBy, IEnumerable<string>? scopes = null, int? lifetimeDays = null, string? address = null)
     {
-        var (token, secret) = ApiToken.Create(name, createdBy, clock.GetUtcNow());
+        var (token, secret) = ApiToken.Create(name, createdBy, clock.GetUtcNow(), scopes, lifetimeDays);
         await using var db = await dbFactory.CreateDbContextAsync();
         db.ApiTokens.Add(token);
         await db.SaveChangesAsync();
+        await audit.RecordAsync(AccountEventKinds.TokenCreated, null, createdBy, address,
+            $"token {token.Id} '{token.Name}' scopes [{token.Scopes}] expires {token.ExpiresAt.UtcDateTime:yyyy-MM-dd HH:mm} UTC");
         return (token, secret);
     }
 
@@ -101,12 +108,14 @@ public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<Identit
         return (await db.ApiTokens.AsNoTracking().ToListAsync()).OrderByDescending(t => t.CreatedAt).ToList();
     }
 
-    public async Task RevokeTokenAsync(int id)
+    /// <summary>Revokes a token (at once, for every later request) and records it in the sign-in audit.</summary>
+    public async Task RevokeTokenAsync(int id, string revokedBy = "command line", string? address = null)
     {
         await using var db = await dbFactory.CreateDbContextAsync();
         var token = await db.ApiTokens.FirstOrDefaultAsync(t => t.Id == id) ?? throw new KeyNotFoundException($"No API token with id {id}.");
         token.Revoke(clock.GetUtcNow());
         await db.SaveChangesAsync();
+        await audit.RecordAsync(AccountEventKinds.TokenRevoked, null, revokedBy, address, $"token {token.Id} '{token.Name}'");
     }
 
     /// <summary>A 20-character random password with upper, lower, digit and symbol.</summary>

@@ -7,7 +7,7 @@ public static class Roles
     public const string Reviewer = "reviewer";
     public const string Observer = "observer";
 
-    /// <summary>Role claim carried by API tokens (search pipelines): read, open cases, add evidence; never sign.</summary>
+    /// <summary>Stored on every API token row; what a token may do comes from its scopes (<see cref="TokenScopes"/>), never from a role.</summary>
     public const string Pipeline = "pipeline";
 
     public static IReadOnlyList<string> All { get; } = [Coordinator, Reviewer, Observer];

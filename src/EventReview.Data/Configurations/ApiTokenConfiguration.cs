@@ -15,6 +15,8 @@ public sealed class ApiTokenConfiguration : IEntityTypeConfiguration<ApiToken>
         b.Property(t => t.Hash).HasMaxLength(64);
         b.Property(t => t.Role).HasMaxLength(32);
         b.Property(t => t.CreatedBy).HasMaxLength(200);
+        b.Property(t => t.Scopes).HasMaxLength(200);
         b.Ignore(t => t.IsActive);
+        b.Ignore(t => t.ScopeList);
     }
 }

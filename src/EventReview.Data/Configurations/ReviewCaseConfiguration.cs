@@ -11,6 +11,8 @@ public sealed class ReviewCaseConfiguration : IEntityTypeConfiguration<ReviewCas
         b.ToTable("Cases");
         b.HasKey(c => c.Id);
         b.HasIndex(c => c.CandidateId).IsUnique();
+        b.HasIndex(c => c.GpsNanoseconds); // paging and sorting large case lists by event time
+        b.HasIndex(c => c.State);
         b.Property(c => c.CandidateId).HasMaxLength(128).IsRequired();
         b.Property(c => c.Search).HasMaxLength(200);
         b.Property(c => c.Summary).HasMaxLength(20_000);

@@ -1,15 +1,23 @@
+using System.Security.Claims;
 using EventReview.Data.Auth;
+using EventReview.Web.Security;
+using Microsoft.AspNetCore.Antiforgery;
 using Microsoft.AspNetCore.Identity;
 using Microsoft.AspNetCore.Mvc;
 
 namespace EventReview.Web.Api;
 
-/// <summary>Form posts for signing in and out (cookies can only be set on a plain HTTP request, not in a circuit).</summary>
+/// <summary>
+/// Form posts for signing in and out (cookies can only be set on a plain HTTP request, not in a circuit). Both need the
+/// antiforgery token from the page that holds the form; both are written to the sign-in audit.
+/// </summary>
 public static class AccountEndpoints
 {
     public static IEndpointRouteBuilder MapAccountEndpoints(this IEndpointRouteBuilder app)
     {
-        app.MapPost("/account/signin", async ([FromForm] string? email, [FromForm] string? password, [FromForm] string? returnUrl, SignInManager<AppUser> signIn) =>
+        // [FromForm] parameters make the framework validate the antiforgery token before this body runs (400 otherwise).
+        app.MapPost("/account/signin", async ([FromForm] string? email, [FromForm] string? password, [FromForm] string? returnUrl,
+            SignInManager<AppUser> signIn, AccountAudit audit, HttpContext http) =>
         {
             var back = SafeReturn(returnUrl);
             if (string.IsNullOrWhiteSpace(email) || string.IsNullOrEmpty(password))
@@ -17,18 +25,33 @@ public static class AccountEndpoints
                 return Results.Redirect($"/signin?error=missing&returnUrl={Uri.EscapeDataString(back)}");
             }
 
-            var result = await signIn.PasswordSignInAsync(email.Trim(), password, isPersistent: false, lockoutOnFailure: true);
+            var address = ClientAddress.Of(http);
+            var typed = email.Trim();
+            var user = await signIn.UserManager.FindByEmailAsync(typed);
+            var result = await signIn.PasswordSignInAsync(typed, password, isPersistent: false, lockoutOnFailure: true);
             if (result.Succeeded)
             {
+                await audit.RecordAsync(AccountEventKinds.SignInSucceeded, user?.Id, typed, address);
                 return Results.LocalRedirect(back);
             }
 
-            var error = result.IsLockedOut ? "locked" : "invalid";
-            return Results.Redirect($"/signin?error={error}&returnUrl={Uri.EscapeDataString(back)}");
-        }).AllowAnonymous();
+            // The same "invalid" answer whether or not the email exists; "locked" only for an existing, locked account.
+            var locked = result.IsLockedOut;
+            await audit.RecordAsync(locked ? AccountEventKinds.LockedOut : AccountEventKinds.SignInFailed, user?.Id, typed, address,
+                locked ? "account locked after repeated failures" : null);
+            return Results.Redirect($"/signin?error={(locked ? "locked" : "invalid")}&returnUrl={Uri.EscapeDataString(back)}");
+        }).AllowAnonymous().RequireRateLimiting(SignInRateLimitPolicy.Name);
 
-        app.MapPost("/account/signout", async (SignInManager<AppUser> signIn) =>
+        // No form fields are bound here, so the antiforgery token is checked explicitly.
+        app.MapPost("/account/signout", async (SignInManager<AppUser> signIn, IAntiforgery antiforgery, AccountAudit audit, HttpContext http, ClaimsPrincipal user) =>
         {
+            if (!await antiforgery.IsRequestValidAsync(http))
+            {
+                return Results.Problem(statusCode: StatusCodes.Status400BadRequest, title: "Sign-out refused",
+                    detail: "The sign-out form had no valid antiforgery token; use the Sign out button in the app.");
+            }
+
+            await audit.RecordAsync(AccountEventKinds.SignedOut, user.FindFirstValue(ClaimTypes.NameIdentifier), user.Identity?.Name, ClientAddress.Of(http));
             await signIn.SignOutAsync();
             return Results.Redirect("/signin");
         });

@@ -11,7 +11,9 @@ public static class CaseEndpoints
 {
     public static IEndpointRouteBuilder MapEventReviewApi(this IEndpointRouteBuilder app)
     {
-        var api = app.MapGroup("/api").RequireAuthorization(Policies.Read).DisableAntiforgery();
+        // Each endpoint names its own policy (policies on a group add up, so none is set here: a pipeline token may open
+        // cases without being able to read them); all share the API rate limit.
+        var api = app.MapGroup("/api").DisableAntiforgery().RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
 
         api.MapPost("/cases", async (HttpRequest request, ClaimsPrincipal user, CaseService cases) =>
         {
@@ -46,11 +48,12 @@ public static class CaseEndpoints
 
             var page = await cases.ListAsync(user, s, q, offset, limit);
             return Results.Ok(new CaseDtos.Page<CaseDtos.CaseSummary>(page.Total, page.Offset, page.Limit, page.Cases.Select(CaseDtos.Summary).ToList()));
-        })).WithSummary("List cases, newest first, one page at a time (offset, limit 1-500, default 50); filter by state and text.")
+        })).RequireAuthorization(Policies.Read).WithSummary("List cases, newest first, one page at a time (offset, limit 1-500, default 50); filter by state and text.")
           .Produces<CaseDtos.Page<CaseDtos.CaseSummary>>().ProducesProblem(StatusCodes.Status422UnprocessableEntity);
 
         api.MapGet("/cases/{id:int}", (int id, ClaimsPrincipal user, CaseService cases) => ApiResults.Guard(async () =>
             Results.Ok(CaseDtos.Detail(await cases.GetOverviewAsync(user, id)))))
+            .RequireAuthorization(Policies.Read)
             .WithSummary("One case with its arrivals and checklist item states (evidence counts and fingerprints; evidence itself is paged separately).")
             .Produces<CaseDtos.CaseDetail>().ProducesProblem(404);
 
@@ -58,21 +61,21 @@ public static class CaseEndpoints
         {
             var page = await cases.EvidencePageAsync(user, id, key, offset, limit);
             return Results.Ok(new CaseDtos.Page<CaseDtos.Evidence>(page.Total, page.Offset, page.Limit, page.Evidence.Select(CaseDtos.Of).ToList()));
-        })).WithSummary("One page of an item's evidence (notes, files, links), oldest first (offset, limit 1-500, default 50).")
+        })).RequireAuthorization(Policies.Read).WithSummary("One page of an item's evidence (notes, files, links), oldest first (offset, limit 1-500, default 50).")
           .Produces<CaseDtos.Page<CaseDtos.Evidence>>().ProducesProblem(404);
 
         api.MapGet("/cases/{id:int}/timeline", (int id, ClaimsPrincipal user, CaseService cases, int? offset, int? limit) => ApiResults.Guard(async () =>
         {
             var page = await cases.TimelinePageAsync(user, id, offset, limit);
             return Results.Ok(new CaseDtos.Page<CaseDtos.TimelineEntry>(page.Total, page.Offset, page.Limit, page.Entries.Select(CaseDtos.Of).ToList()));
-        })).WithSummary("One page of the case's hash-chained timeline, newest first (offset, limit 1-500, default 50).")
+        })).RequireAuthorization(Policies.Read).WithSummary("One page of the case's hash-chained timeline, newest first (offset, limit 1-500, default 50).")
           .Produces<CaseDtos.Page<CaseDtos.TimelineEntry>>().ProducesProblem(404);
 
         api.MapGet("/sites", async (NetworkService network) =>
         {
             var n = await network.GetAsync();
             return Results.Ok(n.Sites.OrderBy(s => s.Code).Select(CaseDtos.Site).ToList());
-        }).WithSummary("The network's sites (same fields as the network page and network.json).").Produces<List<CaseDtos.SiteDto>>();
+        }).RequireAuthorization(Policies.Read).WithSummary("The network's sites (same fields as the network page and network.json).").Produces<List<CaseDtos.SiteDto>>();
 
         api.MapPost("/cases/{id:int}/items/{key}/notes", async (int id, string key, HttpRequest request, ClaimsPrincipal user, CaseService cases) =>
         {
@@ -126,9 +129,10 @@ public static class CaseEndpoints
                 return Results.NotFound();
             }
 
+            // Always a download of opaque bytes (the security headers add a sandbox policy); the name is cleaned, never a path.
             var s = store.Open(sha);
-            return s is null ? Results.NotFound() : Results.File(s, "application/octet-stream", string.IsNullOrWhiteSpace(name) ? sha : Path.GetFileName(name));
-        }).RequireAuthorization(Policies.Read);
+            return s is null ? Results.NotFound() : Results.File(s, "application/octet-stream", EventReview.Core.Evidence.SafeFileName.From(name, sha));
+        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
 
         app.MapGet("/cases/{id:int}/dossier.zip", async (int id, ClaimsPrincipal user, EventReview.Dossier.CaseDossierService dossiers, CaseService cases, HttpContext http) =>
         {
@@ -144,15 +148,15 @@ public static class CaseEndpoints
 
             using var buffer = new MemoryStream();
             await dossiers.ExportAsync(id, user.ToActor(), buffer, http.RequestAborted);
-            return Results.File(buffer.ToArray(), "application/zip", $"{c.CandidateId}-dossier.zip");
-        }).RequireAuthorization(Policies.Read);
+            return Results.File(buffer.ToArray(), "application/zip", EventReview.Core.Evidence.SafeFileName.From($"{c.CandidateId}-dossier.zip", "dossier.zip"));
+        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
 
         app.MapGet("/network.json", async (NetworkService network) =>
         {
             var n = await network.GetAsync();
             var json = EventReview.Core.Network.NetworkFile.Write(new EventReview.Core.Network.NetworkDefinition(n.Name, n.Sites.OrderBy(s => s.Code).ToList()));
             return Results.File(System.Text.Encoding.UTF8.GetBytes(json), "application/json", "network.json");
-        }).RequireAuthorization(Policies.Read);
+        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
 
         return app;
     }

@@ -8,7 +8,11 @@ using Microsoft.Extensions.Options;
 
 namespace EventReview.Web.Auth;
 
-/// <summary>Authenticates <c>Authorization: Bearer ert_...</c> against the stored token hashes.</summary>
+/// <summary>
+/// Authenticates <c>Authorization: Bearer ert_...</c> against the stored token hashes. A revoked or expired token is
+/// refused with a 401 problem saying which; an unknown or malformed one gets the same answer as any invalid token, so
+/// nothing tells whether a guessed value exists. A valid token gets one scope claim per scope and no role.
+/// </summary>
 public sealed class ApiTokenAuthenticationHandler(
     IOptionsMonitor<AuthenticationSchemeOptions> options,
     ILoggerFactory logger,
@@ -17,6 +21,8 @@ public sealed class ApiTokenAuthenticationHandler(
     TimeProvider clock) : AuthenticationHandler<AuthenticationSchemeOptions>(options, logger, encoder)
 {
     public const string SchemeName = "ApiToken";
+
+    private const string RefusalKey = "eventreview:token-refusal";
 
     protected override async Task<AuthenticateResult> HandleAuthenticateAsync()
     {
@@ -27,28 +33,62 @@ public sealed class ApiTokenAuthenticationHandler(
         }
 
         var secret = header["Bearer ".Length..].Trim();
-        var hash = ApiToken.HashOf(secret);
-        await using var db = await dbFactory.CreateDbContextAsync();
-        var token = await db.ApiTokens.FirstOrDefaultAsync(t => t.Hash == hash);
-        if (token is null || !token.IsActive)
+        if (!secret.StartsWith(ApiToken.Prefix, StringComparison.Ordinal) || secret.Length > 200)
         {
-            return AuthenticateResult.Fail("The API token is unknown or revoked.");
+            return Refuse("invalid", "The API token is not valid.");
         }
 
+        var hash = ApiToken.HashOf(secret);
+        await using var db = await dbFactory.CreateDbContextAsync(Context.RequestAborted);
+        var token = await db.ApiTokens.FirstOrDefaultAsync(t => t.Hash == hash, Context.RequestAborted);
         var now = clock.GetUtcNow();
+        switch (token?.StateAt(now))
+        {
+            case null:
+                return Refuse("invalid", "The API token is not valid.");
+            case TokenState.Revoked:
+                return Refuse("revoked", $"This API token was revoked on {token.RevokedAt!.Value.UtcDateTime:yyyy-MM-dd HH:mm} UTC; ask a coordinator for a new one.");
+            case TokenState.Expired:
+                return Refuse("expired", $"This API token expired on {token.ExpiresAt.UtcDateTime:yyyy-MM-dd HH:mm} UTC; ask a coordinator for a new one.");
+        }
+
         if (token.LastUsedAt is null || now - token.LastUsedAt > TimeSpan.FromMinutes(1))
         {
             token.Touch(now);
-            await db.SaveChangesAsync();
+            await db.SaveChangesAsync(Context.RequestAborted);
         }
 
-        var identity = new ClaimsIdentity(
+        List<Claim> claims =
         [
-            new Claim(ClaimTypes.NameIdentifier, $"token:{token.Id}"),
-            new Claim(ClaimTypes.Name, $"token {token.Name}"),
-            new Claim(UserClaims.DisplayName, $"API token '{token.Name}'"),
-            new Claim(ClaimTypes.Role, Roles.Pipeline),
-        ], SchemeName);
+            new(ClaimTypes.NameIdentifier, $"token:{token.Id}"),
+            new(ClaimTypes.Name, $"token {token.Name}"),
+            new(UserClaims.DisplayName, $"API token '{token.Name}'"),
+            new(UserClaims.TokenId, token.Id.ToString(System.Globalization.CultureInfo.InvariantCulture)),
+        ];
+        claims.AddRange(token.ScopeList.Select(s => new Claim(UserClaims.Scope, s)));
+        var identity = new ClaimsIdentity(claims, SchemeName);
         return AuthenticateResult.Success(new AuthenticationTicket(new ClaimsPrincipal(identity), SchemeName));
+    }
+
+    protected override Task HandleChallengeAsync(AuthenticationProperties properties)
+    {
+        var (reason, detail) = Context.Items[RefusalKey] as (string, string)? ?? ("missing", "Send a valid API token as 'Authorization: Bearer ert_...'.");
+        Response.Headers.WWWAuthenticate = $"Bearer error=\"invalid_token\", error_description=\"{reason}\"";
+        return WriteProblem(StatusCodes.Status401Unauthorized, "API token refused", detail, reason);
+    }
+
+    protected override Task HandleForbiddenAsync(AuthenticationProperties properties) =>
+        WriteProblem(StatusCodes.Status403Forbidden, "Not allowed", "This API token's scopes do not allow this request.", "scope");
+
+    private AuthenticateResult Refuse(string reason, string detail)
+    {
+        Context.Items[RefusalKey] = ((string, string)?)(reason, detail);
+        return AuthenticateResult.Fail(detail);
+    }
+
+    private Task WriteProblem(int status, string title, string detail, string reason)
+    {
+        Response.StatusCode = status;
+        return Results.Problem(detail: detail, statusCode: status, title: title, extensions: new Dictionary<string, object?> { ["reason"] = reason }).ExecuteAsync(Context);
     }
 }

@@ -10,6 +10,19 @@ public static class UserClaims
 {
     public const string DisplayName = "eventreview:display_name";
 
+    /// <summary>Carried only by API token principals: the token's id.</summary>
+    public const string TokenId = "eventreview:token_id";
+
+    /// <summary>One claim per scope of an API token (<see cref="TokenScopes"/>).</summary>
+    public const string Scope = "eventreview:scope";
+
+    /// <summary>A signed-in person (cookie), as opposed to an API token.</summary>
+    public static bool IsPerson(this ClaimsPrincipal user) => user.Identity?.IsAuthenticated == true && !user.HasClaim(c => c.Type == TokenId);
+
+    /// <summary>An API token principal that carries <paramref name="scope"/>.</summary>
+    public static bool HasScope(this ClaimsPrincipal user, string scope) =>
+        user.Identity?.IsAuthenticated == true && user.HasClaim(c => c.Type == TokenId) && user.HasClaim(Scope, scope);
+
     /// <summary>The actor for a principal (user or API token).</summary>
     public static Actor ToActor(this ClaimsPrincipal user) => new(
         user.FindFirstValue(ClaimTypes.NameIdentifier) ?? throw new UnauthorizedAccessException("Not signed in."),

@@ -8,25 +8,43 @@ namespace EventReview.Web.Tests.Api;
 /// <summary>Every API endpoint against every kind of caller; roles are checked on the server.</summary>
 public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFixture<EventReviewFactory>
 {
+    /// <summary>
+    /// Every endpoint and page against people (by role) and API tokens (by scope set). People are checked by role, tokens
+    /// only by scope; an expired or revoked token is refused (401) everywhere. Pages are for people only, and outside
+    /// /api an anonymous visitor is sent to the sign-in page (302) and a person without the role to /denied (302).
+    /// </summary>
     public static TheoryData<string, string, int> Matrix()
     {
         var data = new TheoryData<string, string, int>();
-        void Row(string endpoint, int anonymous, int observer, int reviewer, int coordinator, int token)
+        void Row(string endpoint, int anonymous, int observer, int reviewer, int coordinator, int read, int open, int evidence, int pipeline, int all)
         {
             data.Add(endpoint, Who.Anonymous, anonymous);
             data.Add(endpoint, Who.Observer, observer);
             data.Add(endpoint, Who.Reviewer, reviewer);
             data.Add(endpoint, Who.Coordinator, coordinator);
-            data.Add(endpoint, Who.Token, token);
+            data.Add(endpoint, Who.TokenRead, read);
+            data.Add(endpoint, Who.TokenOpen, open);
+            data.Add(endpoint, Who.TokenEvidence, evidence);
+            data.Add(endpoint, Who.TokenPipeline, pipeline);
+            data.Add(endpoint, Who.Token, all);
+            data.Add(endpoint, Who.TokenExpired, 401);
+            data.Add(endpoint, Who.TokenRevoked, 401);
         }
 
-        Row("POST /api/cases", 401, 403, 403, 201, 201);
-        Row("GET /api/cases", 401, 200, 200, 200, 200);
-        Row("GET /api/cases/{id}", 401, 200, 200, 200, 200);
-        Row("GET /api/sites", 401, 200, 200, 200, 200);
-        Row("POST /api/cases/{id}/items/{key}/notes", 401, 403, 201, 201, 201);
-        Row("POST /api/cases/{id}/items/{key}/attachments", 401, 403, 201, 201, 201);
-        Row("GET /openapi/v1.json", 401, 200, 200, 200, 200);
+        //                                                  anon obs  rev  coord | read open evid pipe all
+        Row("POST /api/cases",                              401, 403, 403, 201,   403, 201, 403, 201, 201);
+        Row("GET /api/cases",                               401, 200, 200, 200,   200, 403, 403, 403, 200);
+        Row("GET /api/cases/{id}",                          401, 200, 200, 200,   200, 403, 403, 403, 200);
+        Row("GET /api/sites",                               401, 200, 200, 200,   200, 403, 403, 403, 200);
+        Row("POST /api/cases/{id}/items/{key}/notes",       401, 403, 201, 201,   403, 403, 201, 201, 201);
+        Row("POST /api/cases/{id}/items/{key}/attachments", 401, 403, 201, 201,   403, 403, 201, 201, 201);
+        Row("GET /openapi/v1.json",                         401, 200, 200, 200,   200, 403, 403, 403, 200);
+        Row("GET /files/{sha}",                             302, 200, 200, 200,   200, 403, 403, 403, 200);
+        Row("GET /cases/{id}/dossier.zip",                  302, 200, 200, 200,   200, 403, 403, 403, 200);
+        Row("GET /network.json",                            302, 200, 200, 200,   200, 403, 403, 403, 200);
+        Row("GET /cases (page)",                            302, 200, 200, 200,   403, 403, 403, 403, 403);
+        Row("GET /team (page)",                             302, 302, 302, 200,   403, 403, 403, 403, 403);
+        Row("GET /tokens (page)",                           302, 302, 302, 200,   403, 403, 403, 403, 403);
         return data;
     }
 
@@ -35,7 +53,13 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
     public async Task Each_endpoint_answers_each_caller_with_the_expected_status(string endpoint, string who, int expected)
     {
         var client = await app.As(who);
-        var caseId = await (await app.As(Who.Coordinator)).CaseIdAsync("ER-C-0142");
+        var coordinator = await app.As(Who.Coordinator);
+        var caseId = await coordinator.CaseIdAsync("ER-C-0142");
+        var fileBytes = System.Text.Encoding.UTF8.GetBytes("matrix file");
+        if (endpoint == "GET /files/{sha}")
+        {
+            Assert.Equal(HttpStatusCode.Created, (await coordinator.AttachAsync(caseId, "timing.arrival", fileBytes, "matrix.txt")).StatusCode);
+        }
 
         using var response = endpoint switch
         {
@@ -46,6 +70,12 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
             "POST /api/cases/{id}/items/{key}/notes" => await client.AddNoteAsync(caseId, "timing.arrival", $"Note by {who}."),
             "POST /api/cases/{id}/items/{key}/attachments" => await client.AttachAsync(caseId, "timing.arrival", System.Text.Encoding.UTF8.GetBytes($"file by {who}")),
             "GET /openapi/v1.json" => await client.GetAsync("/openapi/v1.json"),
+            "GET /files/{sha}" => await client.GetAsync($"/files/{EventReview.Core.Evidence.Hashing.Sha256Hex(fileBytes)}?name=matrix.txt"),
+            "GET /cases/{id}/dossier.zip" => await client.GetAsync($"/cases/{caseId}/dossier.zip"),
+            "GET /network.json" => await client.GetAsync("/network.json"),
+            "GET /cases (page)" => await client.GetAsync("/cases"),
+            "GET /team (page)" => await client.GetAsync("/team"),
+            "GET /tokens (page)" => await client.GetAsync("/tokens"),
             _ => throw new ArgumentOutOfRangeException(nameof(endpoint), endpoint, "no such row"),
         };
 
@@ -54,6 +84,20 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
         {
             Assert.Null(response.Headers.Location);
         }
+
+        if (expected == 302)
+        {
+            var target = response.Headers.Location?.ToString() ?? string.Empty;
+            Assert.True(target.Contains("/signin", StringComparison.Ordinal) == (who == Who.Anonymous) && (target.Contains("/signin", StringComparison.Ordinal) || target.Contains("/denied", StringComparison.Ordinal)), target);
+        }
+    }
+
+    [Fact]
+    public void The_matrix_covers_every_caller_for_every_row()
+    {
+        var rows = Matrix().Select(r => ((string)r[0], (string)r[1])).ToList();
+
+        Assert.Equal(13 * (Who.People.Count + Who.Tokens.Count), rows.Distinct().Count());
     }
 
     [Fact]
@@ -76,7 +120,7 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
             var admin = scope.ServiceProvider.GetRequiredService<AccountAdmin>();
             var token = (await admin.ListTokensAsync()).Single(t => t.Name == "to be revoked");
             Assert.Equal(HttpStatusCode.OK, (await revoked.GetAsync("/api/sites")).StatusCode);
-            await admin.RevokeTokenAsync(token.Id);
+            await admin.RevokeTokenAsync(token.Id, "tests");
         }
 
         Assert.Equal(HttpStatusCode.Unauthorized, (await unknown.GetAsync("/api/sites")).StatusCode);

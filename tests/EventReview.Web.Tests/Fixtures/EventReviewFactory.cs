@@ -39,6 +39,10 @@ public partial class EventReviewFactory : WebApplicationFactory<Program>, IAsync
         builder.UseSetting("EventReview:DataDirectory", DataDirectory);
         builder.UseSetting("EventReview:SeedDemo", "true");
         builder.UseSetting("EventReview:MaxUploadBytes", MaxUploadBytes.ToString(System.Globalization.CultureInfo.InvariantCulture));
+
+        // Every in-memory request comes from the same (unknown) address: the sign-in limit is tested with its own host.
+        builder.UseSetting("EventReview:RateLimits:SignInPerMinute", "10000");
+        builder.UseSetting("EventReview:RateLimits:AddressPerMinute", "100000");
     }
 
     Task IAsyncLifetime.InitializeAsync()
@@ -78,7 +82,13 @@ public partial class EventReviewFactory : WebApplicationFactory<Program>, IAsync
             {
                 client = who switch
                 {
-                    Who.Token => await TokenClientAsync(),
+                    Who.Token => await TokenClientAsync("test token (all scopes)", TokenScopes.All),
+                    Who.TokenRead => await TokenClientAsync("test token (read)", [TokenScopes.CasesRead]),
+                    Who.TokenOpen => await TokenClientAsync("test token (open)", [TokenScopes.CasesOpen]),
+                    Who.TokenEvidence => await TokenClientAsync("test token (evidence)", [TokenScopes.EvidenceAdd]),
+                    Who.TokenPipeline => await TokenClientAsync("test token (pipeline)", null),
+                    Who.TokenExpired => await ExpiredTokenClientAsync("test token (expired)"),
+                    Who.TokenRevoked => await RevokedTokenClientAsync("test token (revoked)"),
                     Who.Anonymous => Anonymous(),
                     _ => await SignedInClientAsync(AccountFor(who)),
                 };
@@ -102,6 +112,24 @@ public partial class EventReviewFactory : WebApplicationFactory<Program>, IAsync
         Who.Coordinator => DemoAccounts.All.Single(a => a.Role == Roles.Coordinator),
         _ => throw new ArgumentOutOfRangeException(nameof(who), who, "not a person"),
     };
+
+    /// <summary>The antiforgery token of the form on <paramref name="page"/> (the client keeps the matching cookie).</summary>
+    public static async Task<string> AntiforgeryTokenAsync(HttpClient client, string page = "/signin")
+    {
+        var html = await client.GetStringAsync(page);
+        var token = AntiforgeryInput().Match(html);
+        return token.Success ? WebUtility.HtmlDecode(token.Groups["value"].Value) : throw new InvalidOperationException($"{page} has no __RequestVerificationToken input.");
+    }
+
+    /// <summary>Posts the sign-in form as a browser would (with the antiforgery token) and returns the raw answer.</summary>
+    public static async Task<HttpResponseMessage> PostSignInAsync(HttpClient client, string email, string password) =>
+        await client.PostAsync("/account/signin", new FormUrlEncodedContent(new Dictionary<string, string>
+        {
+            ["__RequestVerificationToken"] = await AntiforgeryTokenAsync(client),
+            ["email"] = email,
+            ["password"] = password,
+            ["returnUrl"] = "/cases",
+        }));
 
     /// <summary>Signs in through GET /signin and POST /account/signin with the antiforgery token; returns the client with the auth cookie.</summary>
     public async Task<HttpClient> SignedInClientAsync(DemoAccounts.Account account)
@@ -129,11 +157,43 @@ public partial class EventReviewFactory : WebApplicationFactory<Program>, IAsync
         return client;
     }
 
-    /// <summary>Creates an API token the way the tokens page and CLI do, and a client that sends it as a bearer token.</summary>
-    public async Task<HttpClient> TokenClientAsync(string name = "test pipeline")
+    /// <summary>
+    /// Creates an API token the way the tokens page and CLI do, and a client that sends it as a bearer token. Scopes
+    /// default to every scope here (tests read back what they wrote); pass null for the pipeline default.
+    /// </summary>
+    public async Task<HttpClient> TokenClientAsync(string name = "test pipeline") => await TokenClientAsync(name, TokenScopes.All);
+
+    /// <inheritdoc cref="TokenClientAsync(string)"/>
+    public async Task<HttpClient> TokenClientAsync(string name, IEnumerable<string>? scopes, int? lifetimeDays = null)
     {
         using var scope = Services.CreateScope();
-        var (_, secret) = await scope.ServiceProvider.GetRequiredService<AccountAdmin>().CreateTokenAsync(name, "tests");
+        var (_, secret) = await scope.ServiceProvider.GetRequiredService<AccountAdmin>().CreateTokenAsync(name, "tests", scopes, lifetimeDays);
+        return BearerClient(secret);
+    }
+
+    /// <summary>A client with a token (every scope) created ten days ago for one day (so it expired nine days ago).</summary>
+    public async Task<HttpClient> ExpiredTokenClientAsync(string name)
+    {
+        var (token, secret) = ApiToken.Create(name, "tests", DateTimeOffset.UtcNow.AddDays(-10), TokenScopes.All, 1);
+        await using var db = Db();
+        db.ApiTokens.Add(token);
+        await db.SaveChangesAsync();
+        return BearerClient(secret);
+    }
+
+    /// <summary>A client with a token (every scope) that was revoked.</summary>
+    public async Task<HttpClient> RevokedTokenClientAsync(string name)
+    {
+        using var scope = Services.CreateScope();
+        var admin = scope.ServiceProvider.GetRequiredService<AccountAdmin>();
+        var (token, secret) = await admin.CreateTokenAsync(name, "tests", TokenScopes.All);
+        await admin.RevokeTokenAsync(token.Id, "tests");
+        return BearerClient(secret);
+    }
+
+    /// <summary>A client that sends <paramref name="secret"/> as its bearer token.</summary>
+    public HttpClient BearerClient(string secret)
+    {
         var client = Anonymous();
         client.DefaultRequestHeaders.Authorization = new AuthenticationHeaderValue("Bearer", secret);
         return client;

@@ -50,7 +50,7 @@ public sealed class KillDuringUploadsTests(Xunit.Abstractions.ITestOutputHelper 
 
     private async Task<string> CreateTokenAsync()
     {
-        var (exit, json, error) = await ChildProcesses.RunCliAsync(CliTimeout, "tokens", "create", "--name", "crash test", "--data", _dir, "--json");
+        var (exit, json, error) = await ChildProcesses.RunCliAsync(CliTimeout, "tokens", "create", "--name", "crash test", "--scope", "cases:read,cases:open,evidence:add", "--data", _dir, "--json");
         Assert.True(exit == 0, $"tokens create exited {exit}: {error}");
         return JsonDocument.Parse(json).RootElement.GetProperty("token").GetString()!;
     }

@@ -174,6 +174,10 @@ namespace EventReview.Data.Migrations.Sqlite
                     b.HasIndex("CandidateId")
                         .IsUnique();
 
+                    b.HasIndex("GpsNanoseconds");
+
+                    b.HasIndex("State");
+
                     b.ToTable("Cases", (string)null);
                 });
 
@@ -672,6 +676,60 @@ namespace EventReview.Data.Migrations.Sqlite
                     b.ToTable("Sites", (string)null);
                 });
 
+            modelBuilder.Entity("EventReview.Data.Auth.AccountEvent", b =>
+                {
+                    b.Property<long>("Id")
+                        .ValueGeneratedOnAdd()
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Account")
+                        .IsRequired()
+                        .HasMaxLength(120)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Address")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("At")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("Detail")
+                        .IsRequired()
+                        .HasMaxLength(300)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Hash")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Kind")
+                        .IsRequired()
+                        .HasMaxLength(32)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("PreviousHash")
+                        .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.Property<long>("Sequence")
+                        .HasColumnType("INTEGER");
+
+                    b.Property<string>("UserId")
+                        .HasMaxLength(64)
+                        .HasColumnType("TEXT");
+
+                    b.HasKey("Id");
+
+                    b.HasIndex("Sequence")
+                        .IsUnique();
+
+                    b.ToTable("AccountEvents", (string)null);
+                });
+
             modelBuilder.Entity("EventReview.Data.Auth.ApiToken", b =>
                 {
                     b.Property<int>("Id")
@@ -685,6 +743,9 @@ namespace EventReview.Data.Migrations.Sqlite
                         .IsRequired()
                         .HasMaxLength(200)
                         .HasColumnType("TEXT");
+
+                    b.Property<long>("ExpiresAt")
+                        .HasColumnType("INTEGER");
 
                     b.Property<string>("Hash")
                         .IsRequired()
@@ -705,6 +766,11 @@ namespace EventReview.Data.Migrations.Sqlite
                     b.Property<string>("Role")
                         .IsRequired()
                         .HasMaxLength(32)
+                        .HasColumnType("TEXT");
+
+                    b.Property<string>("Scopes")
+                        .IsRequired()
+                        .HasMaxLength(200)
                         .HasColumnType("TEXT");
 
                     b.HasKey("Id");
