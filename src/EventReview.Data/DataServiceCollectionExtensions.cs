@@ -16,7 +16,7 @@ public static class DataServiceCollectionExtensions
         services.AddScoped(sp => sp.GetRequiredService<IDbContextFactory<AppDbContext>>().CreateDbContext());
         services.AddSingleton<Writes.IWriteGate>(_ => settings.Provider == DatabaseProvider.Sqlite
             ? new Writes.BatchingWriteGate(factory)
-            : new Writes.DirectWriteGate());
+            : new Writes.DirectWriteGate(factory));
         services.AddSingleton<AttachmentStore>();
         services.AddSingleton<IntegrityVerifier>();
         services.AddScoped<Auth.AccountAdmin>();

@@ -20,7 +20,7 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
     public const int MaxBatch = 64;
 
     private readonly AppDbContextFactory _factory;
-    private readonly Channel<PendingSave> _queue = Channel.CreateUnbounded<PendingSave>(new UnboundedChannelOptions { SingleReader = true });
+    private readonly Channel<PendingUnit> _queue = Channel.CreateUnbounded<PendingUnit>(new UnboundedChannelOptions { SingleReader = true });
     private readonly Task _loop;
 
     public BatchingWriteGate(AppDbContextFactory factory)
@@ -31,14 +31,25 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
     public Task SaveAsync(AppDbContext db, CancellationToken ct = default)
     {
-        ct.ThrowIfCancellationRequested();
         var save = new PendingSave(db, ct);
-        if (!_queue.Writer.TryWrite(save))
+        Enqueue(save, ct);
+        return save.Done.Task;
+    }
+
+    public Task<T> RunAsync<T>(Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken ct = default)
+    {
+        var run = new PendingRun<T>(_factory, work, ct);
+        Enqueue(run, ct);
+        return run.Result.Task;
+    }
+
+    private void Enqueue(PendingUnit unit, CancellationToken ct)
+    {
+        ct.ThrowIfCancellationRequested();
+        if (!_queue.Writer.TryWrite(unit))
         {
             throw new ObjectDisposedException(nameof(BatchingWriteGate), "The application is shutting down; nothing was stored.");
         }
-
-        return save.Done.Task;
     }
 
     public async ValueTask DisposeAsync()
@@ -49,7 +60,7 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
     private async Task LoopAsync()
     {
-        var batch = new List<PendingSave>(MaxBatch);
+        var batch = new List<PendingUnit>(MaxBatch);
         while (await _queue.Reader.WaitToReadAsync())
         {
             batch.Clear();
@@ -57,7 +68,7 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
             {
                 if (save.Cancelled.IsCancellationRequested)
                 {
-                    save.Done.TrySetCanceled(save.Cancelled);
+                    save.Cancel();
                 }
                 else
                 {
@@ -72,32 +83,27 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
         }
     }
 
-    private async Task RunBatchAsync(List<PendingSave> batch)
+    private async Task RunBatchAsync(List<PendingUnit> batch)
     {
-        var saved = new List<PendingSave>(batch.Count);
+        var saved = new List<PendingUnit>(batch.Count);
         try
         {
             await using var writer = _factory.CreateDbContext();
             var connection = writer.Database.GetDbConnection();
             await writer.Database.OpenConnectionAsync();
             await using var tx = await connection.BeginTransactionAsync();
-            foreach (var save in batch)
+            foreach (var unit in batch)
             {
                 try
                 {
-                    // The caller's context saves through the writer's connection and transaction; EF Core wraps the save
-                    // in a savepoint of that transaction and rolls back to it if the save fails.
-                    Enlist(save.Db, connection, tx);
-                    await save.Db.SaveChangesAsync(save.Cancelled);
-                    saved.Add(save);
+                    // Each unit saves through the writer's connection and transaction; EF Core wraps the save in a
+                    // savepoint of that transaction and rolls back to it if the save fails.
+                    await unit.ExecuteAsync(connection, tx);
+                    saved.Add(unit);
                 }
                 catch (Exception ex)
                 {
-                    save.Done.TrySetException(ex);
-                }
-                finally
-                {
-                    save.Db.Database.UseTransaction(null);
+                    unit.Fail(ex);
                 }
             }
 
@@ -106,17 +112,17 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
         catch (Exception ex)
         {
             // The transaction (or opening it) failed: nothing of this batch is stored.
-            foreach (var save in batch)
+            foreach (var unit in batch)
             {
-                save.Done.TrySetException(ex);
+                unit.Fail(ex);
             }
 
             return;
         }
 
-        foreach (var save in saved)
+        foreach (var unit in saved)
         {
-            save.Done.TrySetResult();
+            unit.Complete();
         }
     }
 
@@ -131,12 +137,72 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
         db.Database.UseTransaction(tx);
     }
 
-    private sealed class PendingSave(AppDbContext db, CancellationToken cancelled)
+    private abstract class PendingUnit(CancellationToken cancelled)
     {
-        public AppDbContext Db { get; } = db;
-
         public CancellationToken Cancelled { get; } = cancelled;
 
+        public abstract Task ExecuteAsync(DbConnection connection, DbTransaction tx);
+
+        public abstract void Complete();
+
+        public abstract void Fail(Exception ex);
+
+        public abstract void Cancel();
+    }
+
+    private sealed class PendingSave(AppDbContext db, CancellationToken cancelled) : PendingUnit(cancelled)
+    {
         public TaskCompletionSource Done { get; } = new(TaskCreationOptions.RunContinuationsAsynchronously);
+
+        public override async Task ExecuteAsync(DbConnection connection, DbTransaction tx)
+        {
+            try
+            {
+                Enlist(db, connection, tx);
+                await db.SaveChangesAsync(Cancelled);
+            }
+            finally
+            {
+                db.Database.UseTransaction(null);
+            }
+        }
+
+        public override void Complete() => Done.TrySetResult();
+
+        public override void Fail(Exception ex) => Done.TrySetException(ex);
+
+        public override void Cancel() => Done.TrySetCanceled(Cancelled);
+    }
+
+    private sealed class PendingRun<T>(AppDbContextFactory factory, Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken cancelled) : PendingUnit(cancelled)
+    {
+        private T? _value;
+
+        public TaskCompletionSource<T> Result { get; } = new(TaskCreationOptions.RunContinuationsAsynchronously);
+
+        public override async Task ExecuteAsync(DbConnection connection, DbTransaction tx)
+        {
+            await using var db = factory.CreateDbContext();
+            Enlist(db, connection, tx);
+            var savepoint = "eventreview_run";
+            await tx.SaveAsync(savepoint, Cancelled);
+            try
+            {
+                _value = await work(db, Cancelled);
+                await tx.ReleaseAsync(savepoint, Cancelled);
+            }
+            catch
+            {
+                // The work may have failed after a save: undo everything it did.
+                await tx.RollbackAsync(savepoint, CancellationToken.None);
+                throw;
+            }
+        }
+
+        public override void Complete() => Result.TrySetResult(_value!);
+
+        public override void Fail(Exception ex) => Result.TrySetException(ex);
+
+        public override void Cancel() => Result.TrySetCanceled(Cancelled);
     }
 }

@@ -10,4 +10,12 @@ public interface IWriteGate
 {
     /// <summary>Stores the pending changes of <paramref name="db"/> as one unit and returns after the commit.</summary>
     Task SaveAsync(AppDbContext db, CancellationToken ct = default);
+
+    /// <summary>
+    /// Runs <paramref name="work"/> on a fresh context that reads the latest committed state with no other writer in
+    /// between (for the embedded database: inside the writer itself), and returns its result after the commit. The work
+    /// reads, changes and calls <c>SaveChangesAsync</c> once at its end. Slower than <see cref="SaveAsync"/> under load;
+    /// meant for a retry after a conflict.
+    /// </summary>
+    Task<T> RunAsync<T>(Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken ct = default);
 }

@@ -354,23 +354,29 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
 
     private async Task<EvidenceReceipt> AppendAsync(int caseId, string itemKey, Func<DateTimeOffset, EvidenceItem> make, Actor actor, CancellationToken ct)
     {
+        // First try optimistically: read in parallel with others, then queue the save. After a conflict (someone else
+        // changed the case between the read and the save), run read-change-save again with no writer in between.
         for (var attempt = 1; ; attempt++)
         {
-            await using var db = await dbFactory.CreateDbContextAsync(ct);
-            var c = await db.LoadCaseWithOneItemAsync(caseId, itemKey, ct)
-                ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
-            var now = EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow());
-            var evidence = make(now);
-            c.AddEvidence(itemKey, evidence, actor, now);
             try
             {
-                await writes.SaveAsync(db, ct);
-                var item = c.Item(itemKey);
-                return new EvidenceReceipt(evidence.Id, evidence.ContentSha256, evidence.SizeBytes, evidence.FileName, item.State, item.Fingerprint());
+                if (attempt == 1)
+                {
+                    await using var db = await dbFactory.CreateDbContextAsync(ct);
+                    var receipt = await PrepareAppendAsync(db, caseId, itemKey, make, actor, ct);
+                    await writes.SaveAsync(db, ct);
+                    return receipt();
+                }
+
+                return await writes.RunAsync(async (db, token) =>
+                {
+                    var receipt = await PrepareAppendAsync(db, caseId, itemKey, make, actor, token);
+                    await db.SaveChangesAsync(token);
+                    return receipt();
+                }, ct);
             }
             catch (DbUpdateException) when (attempt < MaxAttempts)
             {
-                // Someone else changed the case in between (version token or timeline sequence): reload and re-apply.
                 await Task.Delay(Random.Shared.Next(1, 10) * attempt, ct);
             }
             catch (DbUpdateException)
@@ -380,32 +386,44 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
         }
     }
 
+    private async Task<Func<EvidenceReceipt>> PrepareAppendAsync(AppDbContext db, int caseId, string itemKey, Func<DateTimeOffset, EvidenceItem> make, Actor actor, CancellationToken ct)
+    {
+        var c = await db.LoadCaseWithOneItemAsync(caseId, itemKey, ct)
+            ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
+        var now = EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow());
+        var evidence = make(now);
+        c.AddEvidence(itemKey, evidence, actor, now);
+        return () =>
+        {
+            var item = c.Item(itemKey);
+            return new EvidenceReceipt(evidence.Id, evidence.ContentSha256, evidence.SizeBytes, evidence.FileName, item.State, item.Fingerprint());
+        };
+    }
+
     private async Task<ReviewCase> MutateCoreAsync(int caseId, string? itemKey, int? expectedItemVersion, Func<AppDbContext, ReviewCase, DateTimeOffset, Task> change, CancellationToken ct)
     {
+        // As for appends: optimistic first, then (after a conflict) read-change-save with no writer in between.
         for (var attempt = 1; ; attempt++)
         {
-            await using var db = await dbFactory.CreateDbContextAsync(ct);
-            var c = await db.CasesWithEverything().FirstOrDefaultAsync(x => x.Id == caseId, ct)
-                ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
-            if (itemKey is not null)
-            {
-                var item = c.Item(itemKey);
-                if (expectedItemVersion is not null && item.Version != expectedItemVersion)
-                {
-                    var last = c.Activity.Where(a => a.ItemKey == itemKey).MaxBy(a => a.Sequence);
-                    throw new ConflictException($"Item '{itemKey}' was changed by {last?.ActorName ?? "someone else"} while you were editing it ({last?.Text}). Your change was not applied; the item has been reloaded — check it and apply your change again.");
-                }
-            }
-
-            await change(db, c, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
             try
             {
-                await writes.SaveAsync(db, ct);
-                return c;
+                if (attempt == 1)
+                {
+                    await using var db = await dbFactory.CreateDbContextAsync(ct);
+                    var c = await PrepareMutationAsync(db, caseId, itemKey, expectedItemVersion, change, ct);
+                    await writes.SaveAsync(db, ct);
+                    return c;
+                }
+
+                return await writes.RunAsync(async (db, token) =>
+                {
+                    var c = await PrepareMutationAsync(db, caseId, itemKey, expectedItemVersion, change, token);
+                    await db.SaveChangesAsync(token);
+                    return c;
+                }, ct);
             }
             catch (DbUpdateException) when (attempt < MaxAttempts)
             {
-                // Someone else changed the case in between (version token or timeline sequence): reload and re-apply.
                 await Task.Delay(Random.Shared.Next(5, 40) * attempt, ct);
             }
             catch (DbUpdateException)
@@ -413,5 +431,24 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
                 throw new ConflictException("The case is being changed by others right now and your change could not be saved; nothing was applied. Try again.");
             }
         }
+    }
+
+    private async Task<ReviewCase> PrepareMutationAsync(AppDbContext db, int caseId, string? itemKey, int? expectedItemVersion,
+        Func<AppDbContext, ReviewCase, DateTimeOffset, Task> change, CancellationToken ct)
+    {
+        var c = await db.CasesWithEverything().FirstOrDefaultAsync(x => x.Id == caseId, ct)
+            ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
+        if (itemKey is not null)
+        {
+            var item = c.Item(itemKey);
+            if (expectedItemVersion is not null && item.Version != expectedItemVersion)
+            {
+                var last = c.Activity.Where(a => a.ItemKey == itemKey).MaxBy(a => a.Sequence);
+                throw new ConflictException($"Item '{itemKey}' was changed by {last?.ActorName ?? "someone else"} while you were editing it ({last?.Text}). Your change was not applied; the item has been reloaded — check it and apply your change again.");
+            }
+        }
+
+        await change(db, c, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
+        return c;
     }
 }
