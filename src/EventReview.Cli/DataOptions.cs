@@ -11,9 +11,9 @@ public sealed class DataOptions
 {
     public Option<string> Data { get; } = new("--data") { Description = "Data folder (SQLite file eventreview.db and attachments). Default: ./data or EventReview__DataDirectory." };
 
-    public Option<string> Connection { get; } = new("--connection") { Description = "Connection string (instead of --data), e.g. a PostgreSQL server." };
+    public Option<string> Connection { get; } = new("--connection") { Description = "Connection string (instead of --data), e.g. a PostgreSQL server. Default: ConnectionStrings__Default." };
 
-    public Option<string> Provider { get; } = new("--provider") { Description = "Sqlite (default) or Postgres, for --connection." };
+    public Option<string> Provider { get; } = new("--provider") { Description = "Sqlite (default) or Postgres, for --connection. Default: Database__Provider." };
 
     public Option<bool> Json { get; } = new("--json") { Description = "Write the result as camelCase JSON." };
 
@@ -30,7 +30,12 @@ public sealed class DataOptions
     public DatabaseSettings Settings(ParseResult parse)
     {
         var data = parse.GetValue(Data) ?? Environment.GetEnvironmentVariable("EventReview__DataDirectory") ?? "./data";
-        return DatabaseSettings.From(parse.GetValue(Provider), parse.GetValue(Connection), data);
+        // Same environment variables as the web app, so that on a server the tool finds the app's database unasked.
+        // An explicit --data or --connection always wins over the environment.
+        var explicitly = parse.GetValue(Data) is not null || parse.GetValue(Connection) is not null;
+        var connection = parse.GetValue(Connection) ?? (explicitly ? null : Environment.GetEnvironmentVariable("ConnectionStrings__Default"));
+        var provider = parse.GetValue(Provider) ?? (explicitly ? null : Environment.GetEnvironmentVariable("Database__Provider"));
+        return DatabaseSettings.From(provider, connection, data);
     }
 
     /// <summary>Opens the database (applying migrations) and returns a service provider for it.</summary>

@@ -18,6 +18,7 @@ public sealed class ApiTokenAuthenticationHandler(
     ILoggerFactory logger,
     UrlEncoder encoder,
     IDbContextFactory<AppDbContext> dbFactory,
+    EventReview.Data.Writes.IWriteGate writes,
     TimeProvider clock) : AuthenticationHandler<AuthenticationSchemeOptions>(options, logger, encoder)
 {
     public const string SchemeName = "ApiToken";
@@ -55,7 +56,7 @@ public sealed class ApiTokenAuthenticationHandler(
         if (token.LastUsedAt is null || now - token.LastUsedAt > TimeSpan.FromMinutes(1))
         {
             token.Touch(now);
-            await db.SaveChangesAsync(Context.RequestAborted);
+            await writes.SaveAsync(db, Context.RequestAborted);
         }
 
         List<Claim> claims =

@@ -1,5 +1,6 @@
 using System.Diagnostics;
 using System.Net;
+using Microsoft.AspNetCore.DataProtection;
 using Microsoft.AspNetCore.HttpOverrides;
 
 namespace EventReview.Web.Operations;
@@ -38,6 +39,13 @@ public static class OperationsSetup
 
         builder.Services.Configure<ForwardedHeadersOptions>(o => ConfigureProxies(o, options.TrustedProxies));
         builder.Services.AddScoped<HealthProbe>();
+
+        // Cookie and antiforgery keys live in the data folder, so that sign-ins survive a restart and the service
+        // account needs no home directory.
+        var dataDirectory = builder.Configuration["EventReview:DataDirectory"] ?? "./data";
+        builder.Services.AddDataProtection()
+            .PersistKeysToFileSystem(new DirectoryInfo(Path.Combine(Path.GetFullPath(dataDirectory), "keys")))
+            .SetApplicationName("EventReview");
         return builder;
     }
 

@@ -388,8 +388,11 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
 
     private async Task<Func<EvidenceReceipt>> PrepareAppendAsync(AppDbContext db, int caseId, string itemKey, Func<DateTimeOffset, EvidenceItem> make, Actor actor, CancellationToken ct)
     {
+        // One connection for the five reads (the embedded driver's pool is a single lock shared by every request).
+        await db.Database.OpenConnectionAsync(ct);
         var c = await db.LoadCaseWithOneItemAsync(caseId, itemKey, ct)
             ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
+        await db.Database.CloseConnectionAsync();
         var now = EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow());
         var evidence = make(now);
         c.AddEvidence(itemKey, evidence, actor, now);
