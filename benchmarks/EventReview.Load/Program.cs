@@ -39,18 +39,18 @@ writes.SetAction(async (p, ct) =>
     return result.Errors.Count == 0 ? 0 : 1;
 });
 
-var token = new Option<string>("--token") { Description = "One API token secret (needs cases:read, cases:open and evidence:add).", Required = true };
 var cases = new Option<int>("--cases") { Description = "Cases in the list.", DefaultValueFactory = _ => 10_000 };
 var bigChecklist = new Option<string>("--large-checklist") { Description = "Template of the large case (40 items in benchmarks/load/checklists).", DefaultValueFactory = _ => "forty-item-review" };
 var evidence = new Option<int>("--evidence-per-item") { Description = "Evidence entries per item of the large case.", DefaultValueFactory = _ => 500 };
 var repeats = new Option<int>("--repeats") { Description = "Timed repeats of each request.", DefaultValueFactory = _ => 30 };
 var reads = new Command("reads", "Seed many cases and one large case through the API, then time the reads.")
 {
-    url, json, token, cases, checklist, bigChecklist, evidence, repeats,
+    url, json, tokens, cases, checklist, bigChecklist, evidence, repeats,
 };
 reads.SetAction(async (p, ct) =>
 {
-    var results = await ReadLoad.RunAsync(new ReadLoad.Options(new Uri(p.GetValue(url)!), p.GetValue(token)!, p.GetValue(cases), p.GetValue(checklist)!, p.GetValue(bigChecklist)!,
+    var secrets = File.ReadAllLines(p.GetValue(tokens)!.FullName).Select(l => l.Trim()).Where(l => l.Length > 0).ToList();
+    var results = await ReadLoad.RunAsync(new ReadLoad.Options(new Uri(p.GetValue(url)!), secrets, p.GetValue(cases), p.GetValue(checklist)!, p.GetValue(bigChecklist)!,
         p.GetValue(evidence), p.GetValue(repeats), 16), Console.Out, ct);
     ReadLoad.Print(results, Console.Out);
     if (p.GetValue(json) is { } file)

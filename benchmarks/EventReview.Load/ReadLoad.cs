@@ -9,14 +9,15 @@ namespace EventReview.Load;
 /// </summary>
 public static class ReadLoad
 {
-    public sealed record Options(Uri BaseUrl, string Token, int Cases, string CaseChecklist, string BigChecklist, int EvidencePerItem, int Repeats, int SeedParallelism);
+    public sealed record Options(Uri BaseUrl, IReadOnlyList<string> Tokens, int Cases, string CaseChecklist, string BigChecklist, int EvidencePerItem, int Repeats, int SeedParallelism);
 
     public sealed record Measurement(string What, string Path, LatencyStats Server, LatencyStats Client, long ResponseBytes);
 
     public static async Task<IReadOnlyList<Measurement>> RunAsync(Options o, TextWriter log, CancellationToken ct)
     {
         using var http = new HttpClient(new SocketsHttpHandler { MaxConnectionsPerServer = 64 }) { BaseAddress = o.BaseUrl, Timeout = TimeSpan.FromMinutes(2) };
-        var api = new ApiClient(http, o.Token);
+        var apis = o.Tokens.Select(t => new ApiClient(http, t)).ToList();
+        var api = apis[0];
         var clock = Stopwatch.StartNew();
 
         var existing = await api.GetAsync("/api/cases?limit=1", ct);
@@ -27,7 +28,7 @@ public static class ReadLoad
             var next = total;
             await Parallel.ForEachAsync(Enumerable.Range(total, o.Cases - total), new ParallelOptions { MaxDegreeOfParallelism = o.SeedParallelism, CancellationToken = ct }, async (k, token) =>
             {
-                var call = await api.OpenCaseAsync($"READ-{k:000000}", 1_300_000_000m + (k * 37m), o.CaseChecklist, token);
+                var call = await Seed(() => apis[k % apis.Count].OpenCaseAsync($"READ-{k:000000}", 1_300_000_000m + (k * 37m), o.CaseChecklist, token), token);
                 if (call.Status is not (200 or 201))
                 {
                     throw new InvalidOperationException($"opening case {k} failed: {call.Status} {call.Error}");
@@ -51,7 +52,7 @@ public static class ReadLoad
             var work = items.SelectMany(i => Enumerable.Range(i.Count, Math.Max(0, o.EvidencePerItem - i.Count)).Select(n => (i.Key, n))).ToList();
             await Parallel.ForEachAsync(work, new ParallelOptions { MaxDegreeOfParallelism = o.SeedParallelism, CancellationToken = ct }, async (w, token) =>
             {
-                var call = await api.AddNoteAsync(bigId, w.Key, $"Seeded note {w.n} on `{w.Key}`.", token);
+                var call = await Seed(() => apis[w.n % apis.Count].AddNoteAsync(bigId, w.Key, $"Seeded note {w.n} on `{w.Key}`.", token), token);
                 if (call.Status != 201)
                 {
                     throw new InvalidOperationException($"note {w.n} on {w.Key} failed: {call.Status} {call.Error}");
@@ -100,6 +101,21 @@ public static class ReadLoad
         }
 
         return results;
+    }
+
+    // Seeding respects the server's rate limits: on 429 it waits as told (Retry-After) and sends again.
+    private static async Task<ApiClient.Call> Seed(Func<Task<ApiClient.Call>> send, CancellationToken ct)
+    {
+        while (true)
+        {
+            var call = await send();
+            if (call.Status != 429)
+            {
+                return call;
+            }
+
+            await Task.Delay(TimeSpan.FromSeconds(1), ct);
+        }
     }
 
     public static void Print(IReadOnlyList<Measurement> results, TextWriter w)

@@ -87,7 +87,7 @@ case "$MODE" in
     "${LOAD[@]}" writes --url "$URL" --tokens "$WORK/tokens.txt" --clients 32 --seconds 600 --warmup 10 \
       --server-pid "$SERVER_PID" --json "$OUT/soak-$STAMP.json" ;;
   reads)
-    "${LOAD[@]}" reads --url "$URL" --token "$(head -1 "$WORK/tokens.txt")" --cases 10000 --evidence-per-item 500 \
+    "${LOAD[@]}" reads --url "$URL" --tokens "$WORK/tokens.txt" --cases 10000 --evidence-per-item 500 \
       --json "$OUT/reads-$STAMP.json" ;;
   *) echo "unknown mode '$MODE' (writes, writes-postgres, reads, soak)"; exit 2 ;;
 esac

@@ -30,7 +30,7 @@ public abstract partial class DataStoreTests
     [Fact]
     public async Task The_sign_in_audit_is_a_hash_chain_that_direct_sql_cannot_change_or_delete()
     {
-        var audit = new AccountAudit(Factory, new FixedClock(new DateTimeOffset(2026, 5, 1, 8, 0, 0, TimeSpan.Zero)));
+        var audit = new AccountAudit(Factory, new FixedClock(new DateTimeOffset(2026, 5, 1, 8, 0, 0, TimeSpan.Zero)), Microsoft.Extensions.Logging.Abstractions.NullLogger<AccountAudit>.Instance);
         var marker = "audit-" + Guid.NewGuid().ToString("N")[..8] + "@demo.invalid";
         await audit.RecordAsync(AccountEventKinds.SignInFailed, null, marker, "192.0.2.7");
         await audit.RecordAsync(AccountEventKinds.SignInSucceeded, "u-1", marker, "192.0.2.7");

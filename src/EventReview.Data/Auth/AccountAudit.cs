@@ -1,4 +1,5 @@
 using Microsoft.EntityFrameworkCore;
+using Microsoft.Extensions.Logging;
 
 namespace EventReview.Data.Auth;
 
@@ -6,7 +7,7 @@ namespace EventReview.Data.Auth;
 /// Appends to and reads the sign-in audit (<see cref="AccountEvent"/>). Appends are serialised in this process and
 /// retried when another process took the same sequence number, so the chain has no gaps or forks.
 /// </summary>
-public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, TimeProvider clock)
+public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, TimeProvider clock, ILogger<AccountAudit> log)
 {
     private static readonly SemaphoreSlim Gate = new(1, 1);
 
@@ -24,6 +25,7 @@ public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, Time
                 try
                 {
                     await db.SaveChangesAsync(ct);
+                    log.LogInformation("Account event {Kind} for {Account} from {Address}", kind, account ?? "(none)", address ?? "(unknown)");
                     return;
                 }
                 catch (DbUpdateException) when (attempt < 5)

@@ -14,6 +14,13 @@ public sealed class OperationsOptions
     /// </summary>
     public int MinWorkerThreads { get; set; } = 64;
 
+    /// <summary>
+    /// Answer pages reached over plain HTTP with a page saying to use HTTPS (default: on outside Development). Sign-in
+    /// cookies are Secure there, so a page over HTTP could not work anyway; the API, <c>/openapi</c> and <c>/healthz</c>
+    /// still answer over HTTP for loopback checks and tools.
+    /// </summary>
+    public bool? RequireHttps { get; set; }
+
     /// <summary>Write logs as one JSON object per line (default: on outside Development).</summary>
     public bool? JsonLogs { get; set; }
 

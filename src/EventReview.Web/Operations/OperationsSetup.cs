@@ -71,10 +71,11 @@ public static class OperationsSetup
         }
     }
 
-    /// <summary>First in the pipeline: proxy headers, then the request id and server time headers.</summary>
+    /// <summary>First in the pipeline: proxy headers, then the request id and server time headers, then the HTTPS rule.</summary>
     public static WebApplication UseEventReviewOperations(this WebApplication app)
     {
         app.UseForwardedHeaders();
+        var requireHttps = app.Services.GetRequiredService<Microsoft.Extensions.Options.IOptions<OperationsOptions>>().Value.RequireHttps ?? !app.Environment.IsDevelopment();
         app.Use(static (context, next) =>
         {
             var started = Stopwatch.GetTimestamp();
@@ -88,7 +89,32 @@ public static class OperationsSetup
             }, (context, started));
             return next(context);
         });
+        if (requireHttps)
+        {
+            app.Use(static (context, next) => context.Request.IsHttps || IsMachinePath(context.Request.Path) ? next(context) : HttpsRequiredAsync(context));
+        }
+
         return app;
+    }
+
+    private static bool IsMachinePath(PathString path) =>
+        path.StartsWithSegments("/api") || path.StartsWithSegments("/openapi") || path.StartsWithSegments("/healthz");
+
+    private static Task HttpsRequiredAsync(HttpContext context)
+    {
+        context.Response.StatusCode = StatusCodes.Status400BadRequest;
+        context.Response.ContentType = "text/html; charset=utf-8";
+        return context.Response.WriteAsync("""
+            <!DOCTYPE html><html lang="en"><head><meta charset="utf-8"><title>HTTPS needed · EventReview</title></head>
+            <body style="font-family: sans-serif; max-width: 40rem; margin: 3rem auto; line-height: 1.5">
+            <h1>This EventReview server must be reached over HTTPS</h1>
+            <p>The request arrived over plain HTTP. Sign-in cookies on a team server are sent only over HTTPS, so the pages
+            cannot work this way. Open the server's https:// address. If you run the server: put it behind the reverse proxy
+            of the operations guide (docs/operations.md), which terminates HTTPS and sends <code>X-Forwarded-Proto: https</code>,
+            and list the proxy in <code>EventReview:Operations:TrustedProxies</code> unless it runs on this machine.</p>
+            <p>The API (<code>/api</code>) and <code>/healthz</code> still answer over HTTP for tools on the server itself.</p>
+            </body></html>
+            """);
     }
 
     /// <summary><c>GET /healthz</c> without sign-in: 200 when every part passes, 503 naming the failing part.</summary>

@@ -14,7 +14,7 @@ namespace EventReview.Web.Services;
 /// Changes load the case aggregate, apply one domain method and save; the case's version token serialises
 /// concurrent changes, and append-only changes (evidence, notes) are retried so that nothing is lost.
 /// </summary>
-public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWriteGate writes, TemplateCatalog templates, TimeProvider clock, AttachmentStore store)
+public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWriteGate writes, TemplateCatalog templates, TimeProvider clock, AttachmentStore store, ILogger<CaseService> log)
 {
     private const int MaxAttempts = 6;
 
@@ -187,6 +187,7 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
         {
             db.Cases.Add(c);
             await writes.SaveAsync(db, ct);
+            log.LogInformation("Case {CaseId} opened for candidate {CandidateId} by {Actor}", c.Id, c.CandidateId, c.CoordinatorName);
             return (c, true);
         }
         catch (DbUpdateException)

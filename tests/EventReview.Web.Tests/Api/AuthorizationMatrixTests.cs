@@ -36,6 +36,8 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
         Row("GET /api/cases",                               401, 200, 200, 200,   200, 403, 403, 403, 200);
         Row("GET /api/cases/{id}",                          401, 200, 200, 200,   200, 403, 403, 403, 200);
         Row("GET /api/sites",                               401, 200, 200, 200,   200, 403, 403, 403, 200);
+        Row("GET /api/cases/{id}/items/{key}/evidence",     401, 200, 200, 200,   200, 403, 403, 403, 200);
+        Row("GET /api/cases/{id}/timeline",                 401, 200, 200, 200,   200, 403, 403, 403, 200);
         Row("POST /api/cases/{id}/items/{key}/notes",       401, 403, 201, 201,   403, 403, 201, 201, 201);
         Row("POST /api/cases/{id}/items/{key}/attachments", 401, 403, 201, 201,   403, 403, 201, 201, 201);
         Row("GET /openapi/v1.json",                         401, 200, 200, 200,   200, 403, 403, 403, 200);
@@ -67,6 +69,8 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
             "GET /api/cases" => await client.GetAsync("/api/cases"),
             "GET /api/cases/{id}" => await client.GetAsync($"/api/cases/{caseId}"),
             "GET /api/sites" => await client.GetAsync("/api/sites"),
+            "GET /api/cases/{id}/items/{key}/evidence" => await client.GetAsync($"/api/cases/{caseId}/items/timing.arrival/evidence"),
+            "GET /api/cases/{id}/timeline" => await client.GetAsync($"/api/cases/{caseId}/timeline"),
             "POST /api/cases/{id}/items/{key}/notes" => await client.AddNoteAsync(caseId, "timing.arrival", $"Note by {who}."),
             "POST /api/cases/{id}/items/{key}/attachments" => await client.AttachAsync(caseId, "timing.arrival", System.Text.Encoding.UTF8.GetBytes($"file by {who}")),
             "GET /openapi/v1.json" => await client.GetAsync("/openapi/v1.json"),
@@ -97,7 +101,7 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
     {
         var rows = Matrix().Select(r => ((string)r[0], (string)r[1])).ToList();
 
-        Assert.Equal(13 * (Who.People.Count + Who.Tokens.Count), rows.Distinct().Count());
+        Assert.Equal(15 * (Who.People.Count + Who.Tokens.Count), rows.Distinct().Count());
     }
 
     [Fact]

@@ -24,7 +24,11 @@ public static class ChildProcesses
     }
 
     /// <summary>Runs the CLI to completion (bounded by <paramref name="timeout"/>); returns its exit code and output.</summary>
-    public static async Task<(int Exit, string Out, string Err)> RunCliAsync(TimeSpan timeout, params string[] args)
+    public static Task<(int Exit, string Out, string Err)> RunCliAsync(TimeSpan timeout, params string[] args) =>
+        RunCliAsync(timeout, new Dictionary<string, string>(), args);
+
+    /// <summary>Runs the CLI with extra environment variables (as a service's environment file would give).</summary>
+    public static async Task<(int Exit, string Out, string Err)> RunCliAsync(TimeSpan timeout, IReadOnlyDictionary<string, string> environment, params string[] args)
     {
         var psi = new ProcessStartInfo("dotnet")
         {
@@ -39,6 +43,11 @@ public static class ChildProcesses
         }
 
         psi.Environment["DOTNET_NOLOGO"] = "1";
+        foreach (var (key, value) in environment)
+        {
+            psi.Environment[key] = value;
+        }
+
         using var p = Process.Start(psi) ?? throw new InvalidOperationException("Could not start the CLI.");
         var stdout = p.StandardOutput.ReadToEndAsync();
         var stderr = p.StandardError.ReadToEndAsync();

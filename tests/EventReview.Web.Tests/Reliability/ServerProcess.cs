@@ -26,13 +26,16 @@ public sealed class ServerProcess : IAsyncDisposable
     public bool HasExited => _process.HasExited;
 
     /// <summary>Starts the app and waits (at most 3 minutes) until /signin answers 200.</summary>
-    public static async Task<ServerProcess> StartAsync(string dataDirectory)
+    public static Task<ServerProcess> StartAsync(string dataDirectory) => StartAsync(dataDirectory, new Dictionary<string, string>());
+
+    /// <summary>Starts the app with extra environment variables (they override the Development defaults set here).</summary>
+    public static async Task<ServerProcess> StartAsync(string dataDirectory, IReadOnlyDictionary<string, string> environment, string? workingDirectory = null, string readyPath = "/signin")
     {
         var baseUrl = $"http://127.0.0.1:{ChildProcesses.FreePort()}";
         var dll = ChildProcesses.WebAppDll();
         var psi = new ProcessStartInfo("dotnet")
         {
-            WorkingDirectory = Path.GetDirectoryName(dll)!,
+            WorkingDirectory = workingDirectory ?? Path.GetDirectoryName(dll)!,
             RedirectStandardOutput = true,
             RedirectStandardError = true,
             UseShellExecute = false,
@@ -42,6 +45,11 @@ public sealed class ServerProcess : IAsyncDisposable
         psi.Environment["ASPNETCORE_URLS"] = baseUrl;
         psi.Environment["EventReview__DataDirectory"] = dataDirectory;
         psi.Environment["DOTNET_NOLOGO"] = "1";
+        foreach (var (key, value) in environment)
+        {
+            psi.Environment[key] = value;
+        }
+
         var log = new ChildProcesses.OutputLog();
         var process = Process.Start(psi) ?? throw new InvalidOperationException("Could not start the web app.");
         process.OutputDataReceived += (_, e) => log.Append(e.Data);
@@ -61,7 +69,7 @@ public sealed class ServerProcess : IAsyncDisposable
 
             try
             {
-                using var response = await http.GetAsync($"{baseUrl}/signin");
+                using var response = await http.GetAsync($"{baseUrl}{readyPath}");
                 if (response.StatusCode == HttpStatusCode.OK)
                 {
                     return server;
@@ -78,7 +86,7 @@ public sealed class ServerProcess : IAsyncDisposable
         }
 
         await server.DisposeAsync();
-        throw new TimeoutException($"The web app did not answer /signin within 3 minutes:\n{log}");
+        throw new TimeoutException($"The web app did not answer {readyPath} within 3 minutes:\n{log}");
     }
 
     /// <summary>Kills the process at once (SIGKILL: no shutdown, no flushing) and waits for it to be gone.</summary>
