@@ -28,6 +28,7 @@ CLI=(dotnet "$ROOT/src/EventReview.Cli/bin/Release/net10.0/eventreview.dll")
 LOAD=(dotnet "$ROOT/benchmarks/EventReview.Load/bin/Release/net10.0/eventreview-load.dll")
 
 WORK="$(mktemp -d /tmp/eventreview-load.XXXXXX)"
+chmod 755 "$WORK"   # the PostgreSQL server runs as its own user and must reach its folder
 DATA="$WORK/data"
 CHECKLISTS="$WORK/checklists"
 mkdir -p "$DATA" "$CHECKLISTS"
