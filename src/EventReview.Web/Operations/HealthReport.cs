@@ -5,6 +5,7 @@ namespace EventReview.Web.Operations;
 /// <param name="Checks">Each part checked, in a fixed order.</param>
 public sealed record HealthReport(string Status, IReadOnlyList<HealthCheckLine> Checks)
 {
+    [System.Text.Json.Serialization.JsonIgnore]
     public bool Healthy => Checks.All(c => c.Ok);
 }
 

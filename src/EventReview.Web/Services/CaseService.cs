@@ -353,10 +353,16 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
             return Task.CompletedTask;
         }, ct);
 
-    private async Task<EvidenceReceipt> AppendAsync(int caseId, string itemKey, Func<DateTimeOffset, EvidenceItem> make, Actor actor, CancellationToken ct)
+    private Task<EvidenceReceipt> AppendAsync(int caseId, string itemKey, Func<DateTimeOffset, EvidenceItem> make, Actor actor, CancellationToken ct) =>
+        WriteAsync((db, token) => PrepareAppendAsync(db, caseId, itemKey, make, actor, token), ct);
+
+    /// <summary>
+    /// One change, never lost to a race: first optimistically (read in parallel with others, then queue the save);
+    /// after a conflict (someone changed the case between the read and the save), read-change-save again with no
+    /// writer in between. <paramref name="prepare"/> reads and changes, and returns what to answer once saved.
+    /// </summary>
+    private async Task<T> WriteAsync<T>(Func<AppDbContext, CancellationToken, Task<Func<T>>> prepare, CancellationToken ct)
     {
-        // First try optimistically: read in parallel with others, then queue the save. After a conflict (someone else
-        // changed the case between the read and the save), run read-change-save again with no writer in between.
         for (var attempt = 1; ; attempt++)
         {
             try
@@ -364,16 +370,16 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
                 if (attempt == 1)
                 {
                     await using var db = await dbFactory.CreateDbContextAsync(ct);
-                    var receipt = await PrepareAppendAsync(db, caseId, itemKey, make, actor, ct);
+                    var answer = await prepare(db, ct);
                     await writes.SaveAsync(db, ct);
-                    return receipt();
+                    return answer();
                 }
 
                 return await writes.RunAsync(async (db, token) =>
                 {
-                    var receipt = await PrepareAppendAsync(db, caseId, itemKey, make, actor, token);
+                    var answer = await prepare(db, token);
                     await db.SaveChangesAsync(token);
-                    return receipt();
+                    return answer();
                 }, ct);
             }
             catch (DbUpdateException) when (attempt < MaxAttempts)
@@ -404,38 +410,12 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
         };
     }
 
-    private async Task<ReviewCase> MutateCoreAsync(int caseId, string? itemKey, int? expectedItemVersion, Func<AppDbContext, ReviewCase, DateTimeOffset, Task> change, CancellationToken ct)
-    {
-        // As for appends: optimistic first, then (after a conflict) read-change-save with no writer in between.
-        for (var attempt = 1; ; attempt++)
+    private Task<ReviewCase> MutateCoreAsync(int caseId, string? itemKey, int? expectedItemVersion, Func<AppDbContext, ReviewCase, DateTimeOffset, Task> change, CancellationToken ct) =>
+        WriteAsync<ReviewCase>(async (db, token) =>
         {
-            try
-            {
-                if (attempt == 1)
-                {
-                    await using var db = await dbFactory.CreateDbContextAsync(ct);
-                    var c = await PrepareMutationAsync(db, caseId, itemKey, expectedItemVersion, change, ct);
-                    await writes.SaveAsync(db, ct);
-                    return c;
-                }
-
-                return await writes.RunAsync(async (db, token) =>
-                {
-                    var c = await PrepareMutationAsync(db, caseId, itemKey, expectedItemVersion, change, token);
-                    await db.SaveChangesAsync(token);
-                    return c;
-                }, ct);
-            }
-            catch (DbUpdateException) when (attempt < MaxAttempts)
-            {
-                await Task.Delay(Random.Shared.Next(5, 40) * attempt, ct);
-            }
-            catch (DbUpdateException)
-            {
-                throw new ConflictException("The case is being changed by others right now and your change could not be saved; nothing was applied. Try again.");
-            }
-        }
-    }
+            var c = await PrepareMutationAsync(db, caseId, itemKey, expectedItemVersion, change, token);
+            return () => c;
+        }, ct);
 
     private async Task<ReviewCase> PrepareMutationAsync(AppDbContext db, int caseId, string? itemKey, int? expectedItemVersion,
         Func<AppDbContext, ReviewCase, DateTimeOffset, Task> change, CancellationToken ct)
