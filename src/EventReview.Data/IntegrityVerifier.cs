@@ -4,8 +4,9 @@ using Microsoft.EntityFrameworkCore;
 namespace EventReview.Data;
 
 /// <summary>
-/// Verifies stored cases (one or all): the database's own integrity check (SQLite), then each case's timeline chain,
-/// evidence, attachments on disk, computation records and sign-offs (see <see cref="CaseIntegrity"/>).
+/// Verifies stored cases (one or all): the database's own integrity check (SQLite), the sign-in audit chain (when
+/// verifying all), then each case's timeline chain, evidence, attachments on disk, computation records and sign-offs
+/// (see <see cref="CaseIntegrity"/>).
 /// </summary>
 public sealed class IntegrityVerifier(IDbContextFactory<AppDbContext> dbFactory, AttachmentStore store, DatabaseSettings settings)
 {
@@ -37,6 +38,11 @@ public sealed class IntegrityVerifier(IDbContextFactory<AppDbContext> dbFactory,
         if (caseId is not null && !await db.Cases.AnyAsync(c => c.Id == caseId, ct))
         {
             throw new KeyNotFoundException($"There is no case with id {caseId}.");
+        }
+
+        if (caseId is null && await Auth.AccountAudit.FirstProblemInAsync(db, ct) is { } audit)
+        {
+            database.Add(new IntegrityProblem("(sign-in audit)", null, null, audit));
         }
 
         var results = new List<CaseResult>();

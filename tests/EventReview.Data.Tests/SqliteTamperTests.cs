@@ -69,6 +69,25 @@ public sealed class SqliteTamperTests : IAsyncLifetime
     private const string ItemAlphaOne = "(SELECT \"Id\" FROM \"ChecklistItems\" WHERE \"ReviewCaseId\" = @case AND \"Key\" = 'alpha.one')";
 
     [Fact]
+    public async Task A_changed_sign_in_audit_entry_is_named_by_the_whole_record_verification()
+    {
+        var audit = new EventReview.Data.Auth.AccountAudit(_factory, TimeProvider.System, Microsoft.Extensions.Logging.Abstractions.NullLogger<EventReview.Data.Auth.AccountAudit>.Instance);
+        await audit.RecordAsync(EventReview.Data.Auth.AccountEventKinds.SignInFailed, null, "someone@example.org", "198.51.100.4");
+        await audit.RecordAsync(EventReview.Data.Auth.AccountEventKinds.SignInSucceeded, "u1", "someone@example.org", "198.51.100.4");
+        var (_, before) = await new IntegrityVerifier(_factory, _store, _settings).VerifyAsync();
+        Assert.Empty(before);
+
+        await IntrudeAsync(
+            "DROP TRIGGER er_AccountEvents_no_update;",
+            "UPDATE \"AccountEvents\" SET \"Address\" = '192.0.2.99' WHERE \"Sequence\" = 1;");
+
+        var (_, database) = await new IntegrityVerifier(_factory, _store, _settings).VerifyAsync();
+        var problem = Assert.Single(database);
+        Assert.Equal("(sign-in audit)", problem.Case);
+        Assert.Contains("entry 1", problem.What, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task An_untouched_database_verifies_clean()
     {
         var (cases, database) = await new IntegrityVerifier(_factory, _store, _settings).VerifyAsync();

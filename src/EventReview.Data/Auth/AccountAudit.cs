@@ -55,6 +55,12 @@ public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, Time
     public async Task<string?> FirstProblemAsync(CancellationToken ct = default)
     {
         await using var db = await dbFactory.CreateDbContextAsync(ct);
+        return await FirstProblemInAsync(db, ct);
+    }
+
+    /// <summary>The same walk over the sign-in audit of <paramref name="db"/> (used by the whole-record verification).</summary>
+    public static async Task<string?> FirstProblemInAsync(AppDbContext db, CancellationToken ct = default)
+    {
         var prev = AccountEvent.GenesisHash;
         long expected = 1;
         await foreach (var e in db.AccountEvents.AsNoTracking().OrderBy(e => e.Sequence).AsAsyncEnumerable().WithCancellation(ct))
