@@ -192,10 +192,9 @@ public sealed class StoredScriptTests(RunningApp app) : IClassFixture<RunningApp
     private async Task OpenItemAsync(IPage page)
     {
         await page.GotoAsync($"{app.BaseUrl}/cases");
-        await page.GetByRole(AriaRole.Link, new() { Name = CaseId }).ClickAsync();
-        await page.WaitForURLAsync("**/cases/*");
-        var caseUrl = new Uri(page.Url).AbsolutePath.TrimEnd('/');
-        await page.GotoAsync($"{app.BaseUrl}{caseUrl}/items/{ItemKey}");
+        // The case's link gives its address; going there directly does not race the list page becoming interactive.
+        var caseUrl = (await page.GetByRole(AriaRole.Link, new() { Name = CaseId }).GetAttributeAsync("href"))!.TrimEnd('/');
+        await page.GotoAsync($"{app.BaseUrl}{(caseUrl.StartsWith('/') ? caseUrl : "/" + caseUrl)}/items/{ItemKey}");
         await WaitInteractiveAsync(page);
         await Assertions.Expect(page.Locator("#item-title")).ToBeVisibleAsync();
     }
