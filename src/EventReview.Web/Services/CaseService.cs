@@ -199,11 +199,11 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
         }
     }
 
-    public Task<ReviewCase> AddNoteAsync(ClaimsPrincipal user, int caseId, string itemKey, string markdown, CancellationToken ct = default)
+    /// <summary>Adds a note (see <see cref="AppendNoteAsync"/>) and returns the whole case as it is afterwards, for the pages.</summary>
+    public async Task<ReviewCase> AddNoteAsync(ClaimsPrincipal user, int caseId, string itemKey, string markdown, CancellationToken ct = default)
     {
-        Permissions.Require(user, Policies.AddEvidence, "add evidence");
-        var actor = user.ToActor();
-        return MutateAsync(caseId, itemKey, null, (c, now) => c.AddEvidence(itemKey, EvidenceItem.Note(markdown, actor, now), actor, now), ct);
+        await AppendNoteAsync(user, caseId, itemKey, markdown, ct);
+        return await GetAsync(user, caseId, ct);
     }
 
     /// <summary>
@@ -236,17 +236,13 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
         return MutateAsync(caseId, itemKey, null, (c, now) => c.AddEvidence(itemKey, EvidenceItem.Link(url, title, actor, now), actor, now), ct);
     }
 
-    /// <summary>Stores a file content-addressed and attaches it to the item.</summary>
+    /// <summary>Stores a file content-addressed, attaches it to the item and returns the whole case afterwards, for the pages.</summary>
     /// <exception cref="AttachmentTooLargeException">When the file exceeds <paramref name="maxBytes"/>.</exception>
     public async Task<ReviewCase> AddAttachmentAsync(ClaimsPrincipal user, int caseId, string itemKey, Stream content, string fileName, string contentType,
         string description, long maxBytes, CancellationToken ct = default)
     {
-        Permissions.Require(user, Policies.AddEvidence, "add evidence");
-        await EnsureItemExistsAsync(caseId, itemKey, ct);
-        var (sha, length) = await store.SaveAsync(content, maxBytes, ct);
-        var actor = user.ToActor();
-        return await MutateAsync(caseId, itemKey, null,
-            (c, now) => c.AddEvidence(itemKey, EvidenceItem.Attachment(fileName, contentType, length, sha, description, actor, now), actor, now), ct);
+        await AppendAttachmentAsync(user, caseId, itemKey, content, fileName, contentType, description, maxBytes, ct);
+        return await GetAsync(user, caseId, ct);
     }
 
     /// <summary>Attaches a computation record made by a built-in check.</summary>

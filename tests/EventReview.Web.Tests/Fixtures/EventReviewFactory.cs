@@ -117,8 +117,14 @@ public partial class EventReviewFactory : WebApplicationFactory<Program>, IAsync
     public static async Task<string> AntiforgeryTokenAsync(HttpClient client, string page = "/signin")
     {
         var html = await client.GetStringAsync(page);
+        return AntiforgeryTokenIn(html) ?? throw new InvalidOperationException($"{page} has no __RequestVerificationToken input.");
+    }
+
+    /// <summary>The antiforgery token of the form in a page's HTML, or null when it has none.</summary>
+    public static string? AntiforgeryTokenIn(string html)
+    {
         var token = AntiforgeryInput().Match(html);
-        return token.Success ? WebUtility.HtmlDecode(token.Groups["value"].Value) : throw new InvalidOperationException($"{page} has no __RequestVerificationToken input.");
+        return token.Success ? WebUtility.HtmlDecode(token.Groups["value"].Value) : null;
     }
 
     /// <summary>Posts the sign-in form as a browser would (with the antiforgery token) and returns the raw answer.</summary>

@@ -1,6 +1,5 @@
 using System.Net;
 using System.Text.Json;
-using System.Text.RegularExpressions;
 using EventReview.Data;
 using EventReview.Web.Tests.Reliability;
 using Microsoft.EntityFrameworkCore;
@@ -14,7 +13,7 @@ namespace EventReview.Web.Tests.Operations;
 /// the first coordinator and a pipeline token made with the command-line tool reading the same variables; a browser
 /// behind a proxy (X-Forwarded-For/-Proto from loopback); then the JSON log is read whole.
 /// </summary>
-public sealed partial class TeamServerStartTests
+public sealed class TeamServerStartTests
 {
     private const string Password = "Lead-Coordinator-Passphrase-42";
     private const string WrongPassword = "Not-The-Passphrase-77";
@@ -119,7 +118,7 @@ public sealed partial class TeamServerStartTests
         var page = await http.SendAsync(get);
         var html = await page.Content.ReadAsStringAsync();
         var cookie = page.Headers.GetValues("Set-Cookie").Select(c => c.Split(';')[0]).Single(c => c.Contains("Antiforgery", StringComparison.OrdinalIgnoreCase));
-        var token = WebUtility.HtmlDecode(AntiforgeryInput().Match(html).Groups["value"].Value);
+        var token = EventReview.Web.Tests.Fixtures.EventReviewFactory.AntiforgeryTokenIn(html);
         Assert.False(string.IsNullOrEmpty(token), "the sign-in page has no antiforgery token");
         return (cookie, token);
     }
@@ -191,7 +190,4 @@ public sealed partial class TeamServerStartTests
         {
         }
     }
-
-    [GeneratedRegex("<input[^>]*name=\"__RequestVerificationToken\"[^>]*value=\"(?<value>[^\"]+)\"", RegexOptions.IgnoreCase)]
-    private static partial Regex AntiforgeryInput();
 }
