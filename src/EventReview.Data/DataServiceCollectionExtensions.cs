@@ -19,6 +19,7 @@ public static class DataServiceCollectionExtensions
             : new Writes.DirectWriteGate(factory));
         services.AddSingleton<AttachmentStore>();
         services.AddSingleton<IntegrityVerifier>();
+        services.AddSingleton<Auth.TokenRevocations>();
         services.AddScoped<Auth.AccountAdmin>();
         services.AddSingleton<Auth.AccountAudit>();
         return services;

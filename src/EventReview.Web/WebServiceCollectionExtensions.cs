@@ -51,6 +51,7 @@ public static class WebServiceCollectionExtensions
         services.AddEventReviewSecurity(configuration);
         services.AddCascadingAuthenticationState();
 
+        services.AddSingleton<ApiTokenCache>();
         services.AddSingleton<TemplateCatalog>();
         services.AddSingleton<MarkdownRenderer>();
         services.AddScoped<CaseService>();

@@ -198,14 +198,7 @@ public sealed class ReviewCase
         var item = Mutable(key);
         var stale = item.AddEvidence(evidence, now);
         BeginReviewIfOpen();
-        var what = evidence.Kind switch
-        {
-            EvidenceKind.Note => $"Note added to '{key}' (sha256 {evidence.ContentSha256}).",
-            EvidenceKind.Attachment => $"File '{evidence.FileName}' ({evidence.SizeBytes} bytes, sha256 {evidence.ContentSha256}) attached to '{key}'.",
-            _ => $"Link {evidence.Url} added to '{key}'.",
-        };
-        what += $" Seal {evidence.Seal()}.";
-        Record(by, now, "evidence." + evidence.Kind.ToString().ToLowerInvariant(), key, what);
+        Record(by, now, EvidenceAppend.EntryKind(evidence), key, EvidenceAppend.EntryText(key, evidence));
         AfterStale(key, stale, by, now);
     }
 
@@ -297,16 +290,20 @@ public sealed class ReviewCase
     {
         if (State == CaseState.Closed)
         {
-            throw new DomainRuleException("case-closed", $"Case {CandidateId} is closed; nothing in it can change.");
+            throw ClosedError(CandidateId);
         }
     }
 
+    /// <summary>The refusal of any change to a closed case.</summary>
+    internal static DomainRuleException ClosedError(string candidateId) =>
+        new("case-closed", $"Case {candidateId} is closed; nothing in it can change.");
+
+    /// <summary>The case state once work on an item begins: an open case goes into review; any other state stays.</summary>
+    internal static CaseState StateWhenWorkBegins(CaseState state) => state == CaseState.Open ? CaseState.InReview : state;
+
     private void BeginReviewIfOpen()
     {
-        if (State == CaseState.Open)
-        {
-            State = CaseState.InReview;
-        }
+        State = StateWhenWorkBegins(State);
     }
 
     private void AfterStale(string key, bool stale, Actor by, DateTimeOffset now)

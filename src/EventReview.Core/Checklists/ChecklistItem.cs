@@ -219,18 +219,19 @@ public sealed class ChecklistItem
             madeStale = true;
         }
 
-        if (madeStale || State == ItemState.SignedOff)
-        {
-            State = ItemState.ReadyForSignOff;
-        }
-        else if (State == ItemState.Open)
-        {
-            State = ItemState.InProgress;
-        }
-
+        State = StateAfterEvidence(State, madeStale);
         Version++;
         return madeStale;
     }
+
+    /// <summary>
+    /// The item state after evidence is added: back to ready for sign-off when sign-offs were made stale (or it was
+    /// signed off); an open item goes in progress; otherwise unchanged.
+    /// </summary>
+    internal static ItemState StateAfterEvidence(ItemState state, bool madeStale) =>
+        madeStale || state == ItemState.SignedOff ? ItemState.ReadyForSignOff
+        : state == ItemState.Open ? ItemState.InProgress
+        : state;
 
     private static string Short(string hash) => hash.Length > 12 ? hash[..12] : hash;
 }

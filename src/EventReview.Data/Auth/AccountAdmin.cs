@@ -5,7 +5,7 @@ using Microsoft.EntityFrameworkCore;
 namespace EventReview.Data.Auth;
 
 /// <summary>Accounts, roles and API tokens: shared by the web app (team and tokens pages) and the CLI.</summary>
-public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<IdentityRole> roles, IDbContextFactory<AppDbContext> dbFactory, TimeProvider clock, AccountAudit audit)
+public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<IdentityRole> roles, IDbContextFactory<AppDbContext> dbFactory, TimeProvider clock, AccountAudit audit, TokenRevocations revocations)
 {
     /// <summary>Creates the three roles when missing.</summary>
     public async Task EnsureRolesAsync()
@@ -115,6 +115,7 @@ public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<Identit
         var token = await db.ApiTokens.FirstOrDefaultAsync(t => t.Id == id) ?? throw new KeyNotFoundException($"No API token with id {id}.");
         token.Revoke(clock.GetUtcNow());
         await db.SaveChangesAsync();
+        revocations.Revoked();
         await audit.RecordAsync(AccountEventKinds.TokenRevoked, null, revokedBy, address, $"token {token.Id} '{token.Name}'");
     }
 

@@ -12,7 +12,9 @@ namespace EventReview.Data.Writes;
 /// each on its one connection inside one transaction (each save in its own savepoint, so a failing save is undone
 /// alone and its caller gets the error), and commits once: one flush to disk serves the whole batch. Every caller's
 /// task completes only after the commit, so nothing is acknowledged before it is durable; if the commit fails, every
-/// save of the batch fails with that error and nothing of it is stored.
+/// save of the batch fails with that error and nothing of it is stored. The writer keeps its connection open, and the
+/// statements of hand-written units (<see cref="RunSqlAsync"/>) stay prepared on it; after any failure of a batch the
+/// connection is closed and a fresh one opened for the next.
 /// </summary>
 public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 {
@@ -22,6 +24,9 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
     private readonly AppDbContextFactory _factory;
     private readonly Channel<PendingUnit> _queue = Channel.CreateUnbounded<PendingUnit>(new UnboundedChannelOptions { SingleReader = true });
     private readonly Task _loop;
+    private readonly Dictionary<string, DbCommand> _prepared = new(StringComparer.Ordinal);
+    private AppDbContext? _owner;
+    private DbConnection? _connection;
 
     public BatchingWriteGate(AppDbContextFactory factory)
     {
@@ -43,6 +48,13 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
         return run.Result.Task;
     }
 
+    public Task<T> RunSqlAsync<T>(Func<SqlUnit, CancellationToken, Task<T>> work, CancellationToken ct = default)
+    {
+        var run = new PendingSql<T>(this, work, ct);
+        Enqueue(run, ct);
+        return run.Result.Task;
+    }
+
     private void Enqueue(PendingUnit unit, CancellationToken ct)
     {
         ct.ThrowIfCancellationRequested();
@@ -56,6 +68,40 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
     {
         _queue.Writer.TryComplete();
         await _loop;
+        await CloseWriterAsync();
+    }
+
+    /// <summary>The writer's open connection, opened through a context so that the provider sets it up as for any other.</summary>
+    private async Task<DbConnection> WriterConnectionAsync()
+    {
+        if (_connection is { State: System.Data.ConnectionState.Open })
+        {
+            return _connection;
+        }
+
+        await CloseWriterAsync();
+        _owner = _factory.CreateDbContext();
+        await _owner.Database.OpenConnectionAsync();
+        _connection = _owner.Database.GetDbConnection();
+        return _connection;
+    }
+
+    private async Task CloseWriterAsync()
+    {
+        foreach (var command in _prepared.Values)
+        {
+            await command.DisposeAsync();
+        }
+
+        _prepared.Clear();
+        if (_owner is not null)
+        {
+            await _owner.Database.CloseConnectionAsync();
+            await _owner.DisposeAsync();
+        }
+
+        _owner = null;
+        _connection = null;
     }
 
     private async Task LoopAsync()
@@ -88,9 +134,7 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
         var saved = new List<PendingUnit>(batch.Count);
         try
         {
-            await using var writer = _factory.CreateDbContext();
-            var connection = writer.Database.GetDbConnection();
-            await writer.Database.OpenConnectionAsync();
+            var connection = await WriterConnectionAsync();
             await using var tx = await connection.BeginTransactionAsync();
             foreach (var unit in batch)
             {
@@ -111,7 +155,8 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
         }
         catch (Exception ex)
         {
-            // The transaction (or opening it) failed: nothing of this batch is stored.
+            // The transaction (or opening it) failed: nothing of this batch is stored. Start the next on a fresh connection.
+            await CloseWriterAsync();
             foreach (var unit in batch)
             {
                 unit.Fail(ex);
@@ -172,6 +217,37 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
         public override void Fail(Exception ex) => Done.TrySetException(ex);
 
         public override void Cancel() => Done.TrySetCanceled(Cancelled);
+    }
+
+    private sealed class PendingSql<T>(BatchingWriteGate gate, Func<SqlUnit, CancellationToken, Task<T>> work, CancellationToken cancelled) : PendingUnit(cancelled)
+    {
+        private T? _value;
+
+        public TaskCompletionSource<T> Result { get; } = new(TaskCreationOptions.RunContinuationsAsynchronously);
+
+        public override async Task ExecuteAsync(DbConnection connection, DbTransaction tx)
+        {
+            using var unit = new SqlUnit(DatabaseProvider.Sqlite, connection, tx, gate._prepared);
+            await unit.Command("SAVEPOINT eventreview_sql").ExecuteNonQueryAsync(Cancelled);
+            try
+            {
+                _value = await work(unit, Cancelled);
+                await unit.Command("RELEASE eventreview_sql").ExecuteNonQueryAsync(Cancelled);
+            }
+            catch
+            {
+                // Undo whatever the work stored before it failed, keeping the rest of the batch.
+                await unit.Command("ROLLBACK TO eventreview_sql").ExecuteNonQueryAsync(CancellationToken.None);
+                await unit.Command("RELEASE eventreview_sql").ExecuteNonQueryAsync(CancellationToken.None);
+                throw;
+            }
+        }
+
+        public override void Complete() => Result.TrySetResult(_value!);
+
+        public override void Fail(Exception ex) => Result.TrySetException(ex);
+
+        public override void Cancel() => Result.TrySetCanceled(Cancelled);
     }
 
     private sealed class PendingRun<T>(AppDbContextFactory factory, Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken cancelled) : PendingUnit(cancelled)

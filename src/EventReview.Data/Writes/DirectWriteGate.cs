@@ -1,3 +1,5 @@
+using Microsoft.EntityFrameworkCore;
+
 namespace EventReview.Data.Writes;
 
 /// <summary>For servers that handle concurrent writers themselves (PostgreSQL): a plain save, which commits.</summary>
@@ -9,5 +11,17 @@ public sealed class DirectWriteGate(AppDbContextFactory factory) : IWriteGate
     {
         await using var db = factory.CreateDbContext();
         return await work(db, ct);
+    }
+
+    public async Task<T> RunSqlAsync<T>(Func<SqlUnit, CancellationToken, Task<T>> work, CancellationToken ct = default)
+    {
+        await using var db = factory.CreateDbContext();
+        var connection = db.Database.GetDbConnection();
+        await db.Database.OpenConnectionAsync(ct);
+        await using var tx = await connection.BeginTransactionAsync(ct);
+        using var unit = new SqlUnit(factory.Settings.Provider, connection, tx, prepared: null);
+        var result = await work(unit, ct);
+        await tx.CommitAsync(ct);
+        return result;
     }
 }

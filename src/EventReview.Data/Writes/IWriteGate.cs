@@ -18,4 +18,12 @@ public interface IWriteGate
     /// meant for a retry after a conflict.
     /// </summary>
     Task<T> RunAsync<T>(Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken ct = default);
+
+    /// <summary>
+    /// Runs hand-written SQL (<paramref name="work"/>) as one unit inside a transaction, stored completely or not at
+    /// all, and returns its result after the commit. For the embedded database it runs inside the single writer, with
+    /// no other writer in between, and its statements are prepared once; for a database server it runs in its own
+    /// transaction, and the SQL takes the locks it needs.
+    /// </summary>
+    Task<T> RunSqlAsync<T>(Func<SqlUnit, CancellationToken, Task<T>> work, CancellationToken ct = default);
 }

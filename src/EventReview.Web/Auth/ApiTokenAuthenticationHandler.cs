@@ -1,9 +1,7 @@
 using System.Security.Claims;
 using System.Text.Encodings.Web;
-using EventReview.Data;
 using EventReview.Data.Auth;
 using Microsoft.AspNetCore.Authentication;
-using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
 
 namespace EventReview.Web.Auth;
@@ -17,8 +15,7 @@ public sealed class ApiTokenAuthenticationHandler(
     IOptionsMonitor<AuthenticationSchemeOptions> options,
     ILoggerFactory logger,
     UrlEncoder encoder,
-    IDbContextFactory<AppDbContext> dbFactory,
-    EventReview.Data.Writes.IWriteGate writes,
+    ApiTokenCache tokens,
     TimeProvider clock) : AuthenticationHandler<AuthenticationSchemeOptions>(options, logger, encoder)
 {
     public const string SchemeName = "ApiToken";
@@ -40,8 +37,7 @@ public sealed class ApiTokenAuthenticationHandler(
         }
 
         var hash = ApiToken.HashOf(secret);
-        await using var db = await dbFactory.CreateDbContextAsync(Context.RequestAborted);
-        var token = await db.ApiTokens.FirstOrDefaultAsync(t => t.Hash == hash, Context.RequestAborted);
+        var token = await tokens.FindAsync(hash, Context.RequestAborted);
         var now = clock.GetUtcNow();
         switch (token?.StateAt(now))
         {
@@ -53,11 +49,7 @@ public sealed class ApiTokenAuthenticationHandler(
                 return Refuse("expired", $"This API token expired on {token.ExpiresAt.UtcDateTime:yyyy-MM-dd HH:mm} UTC; ask a coordinator for a new one.");
         }
 
-        if (token.LastUsedAt is null || now - token.LastUsedAt > TimeSpan.FromMinutes(1))
-        {
-            token.Touch(now);
-            await writes.SaveAsync(db, Context.RequestAborted);
-        }
+        await tokens.TouchAsync(token, Context.RequestAborted);
 
         List<Claim> claims =
         [

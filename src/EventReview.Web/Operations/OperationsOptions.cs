@@ -29,4 +29,11 @@ public sealed class OperationsOptions
     /// Requests from anywhere else keep their own address and scheme.
     /// </summary>
     public string[] TrustedProxies { get; set; } = [];
+
+    /// <summary>
+    /// Seconds a checked API token is remembered before it is read from the database again (default 5; 0: read on every
+    /// request). Revoking a token on the Tokens page takes effect at once; revoking it with the command-line tool, in
+    /// another process, takes effect within this time. Expiry is always checked on the request's own clock.
+    /// </summary>
+    public int TokenCacheSeconds { get; set; } = 5;
 }

@@ -1,0 +1,184 @@
+using System.Data.Common;
+using EventReview.Core.Cases;
+using EventReview.Core.Checklists;
+using EventReview.Core.Evidence;
+
+namespace EventReview.Data.Writes;
+
+/// <summary>What a short append stored: the evidence (with its new id), the item's state and evidence fingerprint after it.</summary>
+public sealed record AppendedEvidence(int EvidenceId, EvidenceItem Evidence, ItemState ItemState, string ItemFingerprint);
+
+/// <summary>
+/// The short path for adding evidence, the most frequent write: instead of loading the case, it reads the few values
+/// the change depends on (<see cref="EvidenceAppend.Head"/>), lets the domain rules (<see cref="EvidenceAppend.Plan"/>)
+/// decide, and stores the evidence row, the timeline entry and the new versions and states with five prepared
+/// statements. The rows are the same as the loaded case would store (a test compares them). It does not cover an item
+/// with current sign-offs; for that it stores nothing and returns null, and the caller takes the full path.
+/// Run it inside <see cref="IWriteGate.RunSqlAsync"/>: on PostgreSQL the case row is locked for the transaction; on
+/// SQLite the single writer already excludes every other writer.
+/// </summary>
+public static class EvidenceAppendSql
+{
+    private const string HeadSql = """
+        SELECT c."Id", c."CandidateId", c."State", c."Version", i."Id", i."State", i."Version",
+               (SELECT COUNT(*) FROM "SignOffs" s WHERE s."ChecklistItemId" = i."Id" AND NOT s."IsStale"),
+               a."Sequence", a."Hash"
+        FROM "Cases" c
+        LEFT JOIN "ChecklistItems" i ON i."ReviewCaseId" = c."Id" AND i."Key" = @key
+        LEFT JOIN "Activity" a ON a."ReviewCaseId" = c."Id"
+             AND a."Sequence" = (SELECT MAX(x."Sequence") FROM "Activity" x WHERE x."ReviewCaseId" = c."Id")
+        WHERE c."Id" = @case
+        """;
+
+    private const string InsertEvidenceSql = """
+        INSERT INTO "Evidence" ("ChecklistItemId", "Kind", "Text", "ContentSha256", "FileName", "ContentType", "SizeBytes", "Url", "AddedBy", "AddedByName", "AddedAt")
+        VALUES (@item, @kind, @text, @sha, @file, @type, @size, @url, @by, @byName, @at)
+        RETURNING "Id"
+        """;
+
+    private const string InsertActivitySql = """
+        INSERT INTO "Activity" ("ReviewCaseId", "CandidateId", "Sequence", "At", "ActorId", "ActorName", "Kind", "ItemKey", "Text", "PreviousHash", "Hash")
+        VALUES (@case, @candidate, @sequence, @at, @actor, @actorName, @kind, @key, @text, @previous, @hash)
+        """;
+
+    private const string UpdateItemSql = """
+        UPDATE "ChecklistItems" SET "State" = @state, "Version" = "Version" + 1 WHERE "Id" = @item AND "Version" = @version
+        """;
+
+    private const string UpdateCaseSql = """
+        UPDATE "Cases" SET "State" = @state, "Version" = "Version" + 1, "UpdatedAt" = @at WHERE "Id" = @case AND "Version" = @version
+        """;
+
+    private const string EvidenceLinesSql = """
+        SELECT "Kind", "ContentSha256", "AddedAt" FROM "Evidence" WHERE "ChecklistItemId" = @item ORDER BY "AddedAt", "Id"
+        """;
+
+    private const string ComputationLinesSql = """
+        SELECT "Kind", "ParametersJson", "InputFingerprint", "ToolVersion", "ResultJson", "Verdict", "RunAt"
+        FROM "Computations" WHERE "ChecklistItemId" = @item ORDER BY "RunAt", "Id"
+        """;
+
+    /// <summary>
+    /// Adds the evidence <paramref name="make"/> builds (given the time of the change) to item <paramref name="itemKey"/>
+    /// of case <paramref name="caseId"/>, or returns null, having stored nothing, when the item has current sign-offs.
+    /// </summary>
+    /// <exception cref="KeyNotFoundException">When the case or the item does not exist.</exception>
+    /// <exception cref="DomainRuleException">When the case is closed.</exception>
+    /// <exception cref="ArgumentException">When <paramref name="make"/> refuses the evidence.</exception>
+    /// <exception cref="AppendConflictException">When the case changed under the append (only without the lock or writer).</exception>
+    public static async Task<AppendedEvidence?> TryAppendAsync(SqlUnit unit, int caseId, string itemKey, Func<DateTimeOffset, EvidenceItem> make,
+        Actor actor, DateTimeOffset now, CancellationToken ct)
+    {
+        var head = unit.Command(unit.Provider == DatabaseProvider.Postgres ? HeadSql + " FOR UPDATE OF c" : HeadSql, "@key", "@case");
+        head.Parameters["@key"].Value = itemKey;
+        head.Parameters["@case"].Value = caseId;
+        int itemId, itemVersion, caseVersion;
+        EvidenceAppend.Head state;
+        await using (var r = await head.ExecuteReaderAsync(ct))
+        {
+            if (!await r.ReadAsync(ct))
+            {
+                throw new KeyNotFoundException($"There is no case with id {caseId}.");
+            }
+
+            var candidate = r.GetString(1);
+            if (r.IsDBNull(4))
+            {
+                throw new KeyNotFoundException($"Case {candidate} has no checklist item '{itemKey}'.");
+            }
+
+            caseVersion = r.GetInt32(3);
+            itemId = r.GetInt32(4);
+            itemVersion = r.GetInt32(6);
+            state = new EvidenceAppend.Head(candidate, Enum.Parse<CaseState>(r.GetString(2)), itemKey, Enum.Parse<ItemState>(r.GetString(5)),
+                r.IsDBNull(8) ? 0 : r.GetInt32(8), r.IsDBNull(9) ? ActivityEntry.GenesisHash : r.GetString(9), Convert.ToInt32(r.GetValue(7), System.Globalization.CultureInfo.InvariantCulture));
+        }
+
+        if (!EvidenceAppend.Covers(state))
+        {
+            return null;
+        }
+
+        var evidence = make(now);
+        var outcome = EvidenceAppend.Plan(state, evidence, actor, now);
+
+        var insert = unit.Command(InsertEvidenceSql, "@item", "@kind", "@text", "@sha", "@file", "@type", "@size", "@url", "@by", "@byName", "@at");
+        Set(insert, "@item", itemId);
+        Set(insert, "@kind", evidence.Kind.ToString());
+        Set(insert, "@text", evidence.Text);
+        Set(insert, "@sha", evidence.ContentSha256);
+        Set(insert, "@file", evidence.FileName);
+        Set(insert, "@type", evidence.ContentType);
+        Set(insert, "@size", evidence.SizeBytes);
+        Set(insert, "@url", evidence.Url);
+        Set(insert, "@by", evidence.AddedBy);
+        Set(insert, "@byName", evidence.AddedByName);
+        Set(insert, "@at", unit.Time(evidence.AddedAt));
+        var evidenceId = Convert.ToInt32(await insert.ExecuteScalarAsync(ct), System.Globalization.CultureInfo.InvariantCulture);
+
+        var e = outcome.Entry;
+        var activity = unit.Command(InsertActivitySql, "@case", "@candidate", "@sequence", "@at", "@actor", "@actorName", "@kind", "@key", "@text", "@previous", "@hash");
+        Set(activity, "@case", caseId);
+        Set(activity, "@candidate", e.CandidateId);
+        Set(activity, "@sequence", e.Sequence);
+        Set(activity, "@at", unit.Time(e.At));
+        Set(activity, "@actor", e.ActorId);
+        Set(activity, "@actorName", e.ActorName);
+        Set(activity, "@kind", e.Kind);
+        Set(activity, "@key", e.ItemKey);
+        Set(activity, "@text", e.Text);
+        Set(activity, "@previous", e.PreviousHash);
+        Set(activity, "@hash", e.Hash);
+        await activity.ExecuteNonQueryAsync(ct);
+
+        var item = unit.Command(UpdateItemSql, "@state", "@item", "@version");
+        Set(item, "@state", outcome.ItemState.ToString());
+        Set(item, "@item", itemId);
+        Set(item, "@version", itemVersion);
+        var c = unit.Command(UpdateCaseSql, "@state", "@at", "@case", "@version");
+        Set(c, "@state", outcome.CaseState.ToString());
+        Set(c, "@at", unit.Time(now));
+        Set(c, "@case", caseId);
+        Set(c, "@version", caseVersion);
+        if (await item.ExecuteNonQueryAsync(ct) != 1 || await c.ExecuteNonQueryAsync(ct) != 1)
+        {
+            throw new AppendConflictException($"Case {state.CandidateId} changed while evidence was being added to '{itemKey}'.");
+        }
+
+        return new AppendedEvidence(evidenceId, evidence, outcome.ItemState, await FingerprintAsync(unit, itemId, ct));
+    }
+
+    /// <summary>The item's evidence fingerprint as stored now (<see cref="EvidenceFingerprint"/>).</summary>
+    public static async Task<string> FingerprintAsync(SqlUnit unit, int itemId, CancellationToken ct)
+    {
+        var evidence = new List<EvidenceLine>();
+        var lines = unit.Command(EvidenceLinesSql, "@item");
+        Set(lines, "@item", itemId);
+        await using (var r = await lines.ExecuteReaderAsync(ct))
+        {
+            while (await r.ReadAsync(ct))
+            {
+                evidence.Add(new EvidenceLine(EvidenceFingerprint.KindName(Enum.Parse<EvidenceKind>(r.GetString(0))), r.GetString(1), unit.ReadTime(r, 2).UtcTicks));
+            }
+        }
+
+        var computations = new List<ComputationLine>();
+        var runs = unit.Command(ComputationLinesSql, "@item");
+        Set(runs, "@item", itemId);
+        await using (var r = await runs.ExecuteReaderAsync(ct))
+        {
+            while (await r.ReadAsync(ct))
+            {
+                var sha = ComputationRecord.ComputeContentSha256(r.GetString(0), r.GetString(1), r.GetString(2), r.GetString(3), r.GetString(4), r.GetString(5));
+                computations.Add(new ComputationLine(sha, unit.ReadTime(r, 6).UtcTicks));
+            }
+        }
+
+        return EvidenceFingerprint.Compute(evidence, computations);
+    }
+
+    private static void Set(DbCommand command, string name, object? value) => command.Parameters[name].Value = value ?? DBNull.Value;
+}
+
+/// <summary>The case changed between reading it and storing an append; nothing was stored (try again).</summary>
+public sealed class AppendConflictException(string message) : Exception(message);
