@@ -14,7 +14,7 @@ public sealed record AppendedEvidence(int EvidenceId, EvidenceItem Evidence, Ite
 /// decide, and stores the evidence row, the timeline entry and the new versions and states with five prepared
 /// statements. The rows are the same as the loaded case would store (a test compares them). It does not cover an item
 /// with current sign-offs; for that it stores nothing and returns null, and the caller takes the full path.
-/// Run it inside <see cref="IWriteGate.RunSqlAsync"/>: on PostgreSQL the case row is locked for the transaction; on
+/// Run it inside <see cref="IWriteGate.RunSqlAsync"/>: on PostgreSQL it first locks the case row for the transaction; on
 /// SQLite the single writer already excludes every other writer.
 /// </summary>
 public static class EvidenceAppendSql
@@ -29,6 +29,8 @@ public static class EvidenceAppendSql
              AND a."Sequence" = (SELECT MAX(x."Sequence") FROM "Activity" x WHERE x."ReviewCaseId" = c."Id")
         WHERE c."Id" = @case
         """;
+
+    private const string LockCaseSql = """SELECT 1 FROM "Cases" WHERE "Id" = @case FOR UPDATE""";
 
     private const string InsertEvidenceSql = """
         INSERT INTO "Evidence" ("ChecklistItemId", "Kind", "Text", "ContentSha256", "FileName", "ContentType", "SizeBytes", "Url", "AddedBy", "AddedByName", "AddedAt")
@@ -69,7 +71,16 @@ public static class EvidenceAppendSql
     public static async Task<AppendedEvidence?> TryAppendAsync(SqlUnit unit, int caseId, string itemKey, Func<DateTimeOffset, EvidenceItem> make,
         Actor actor, DateTimeOffset now, CancellationToken ct)
     {
-        var head = unit.Command(unit.Provider == DatabaseProvider.Postgres ? HeadSql + " FOR UPDATE OF c" : HeadSql, "@key", "@case");
+        if (unit.Provider == DatabaseProvider.Postgres)
+        {
+            // Lock the case row first, in its own statement: the head read after it starts from a snapshot that already
+            // includes whatever the previous holder of the lock committed.
+            var lockCase = unit.Command(LockCaseSql, "@case");
+            lockCase.Parameters["@case"].Value = caseId;
+            await lockCase.ExecuteNonQueryAsync(ct);
+        }
+
+        var head = unit.Command(HeadSql, "@key", "@case");
         head.Parameters["@key"].Value = itemKey;
         head.Parameters["@case"].Value = caseId;
         int itemId, itemVersion, caseVersion;
@@ -94,7 +105,7 @@ public static class EvidenceAppendSql
                 r.IsDBNull(8) ? 0 : r.GetInt32(8), r.IsDBNull(9) ? ActivityEntry.GenesisHash : r.GetString(9), Convert.ToInt32(r.GetValue(7), System.Globalization.CultureInfo.InvariantCulture));
         }
 
-        if (!EvidenceAppend.Covers(state))
+        if (!EvidenceAppend.Covers(state) && state.CaseState != CaseState.Closed)
         {
             return null;
         }
