@@ -32,4 +32,39 @@ public sealed class SqliteDataStoreTests : DataStoreTests
         Assert.True(File.Exists(Path.Combine(_folder.Path, DatabaseSettings.SqliteFileName)));
         Assert.True(Directory.Exists(Path.Combine(_folder.Path, "attachments")));
     }
+
+    [Fact]
+    public async Task The_writer_copies_committed_pages_into_the_database_file_in_the_background()
+    {
+        var file = Path.Combine(_folder.Path, DatabaseSettings.SqliteFileName);
+        await using (var db = Factory.CreateDbContext())
+        {
+            await db.Database.ExecuteSqlRawAsync("PRAGMA wal_checkpoint(TRUNCATE);");
+        }
+
+        var before = new FileInfo(file).Length;
+        var gate = new Writes.BatchingWriteGate(Factory);
+        try
+        {
+            // Well under the 1,000 pages at which SQLite's own automatic checkpoint would run.
+            for (var i = 0; i < 20; i++)
+            {
+                await using var db = Factory.CreateDbContext();
+                db.Cases.Add(SampleCases.Open(NewCandidateId()));
+                await gate.SaveAsync(db);
+            }
+
+            var waited = System.Diagnostics.Stopwatch.StartNew();
+            while (new FileInfo(file).Length == before && waited.Elapsed < TimeSpan.FromSeconds(5))
+            {
+                await Task.Delay(50);
+            }
+
+            Assert.True(new FileInfo(file).Length > before, $"the database file stayed at {before} bytes: nothing was checkpointed");
+        }
+        finally
+        {
+            await gate.DisposeAsync();
+        }
+    }
 }
