@@ -255,8 +255,6 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
         public long Queued { get; } = Stopwatch.GetTimestamp();
 
-        public long Queued { get; } = Stopwatch.GetTimestamp();
-
         public abstract Task ExecuteAsync(DbConnection connection, DbTransaction tx);
 
         public abstract void Complete();
