@@ -21,7 +21,9 @@ public sealed class AttachmentStore(DatabaseSettings settings)
         {
             long length = 0;
             using var sha = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
-            await using (var file = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None, 81920, FileOptions.Asynchronous))
+            // Reads may wait on the network (an upload in progress); writes go to the page cache and are done in place:
+            // on Linux an "asynchronous" file write is a synchronous one on another thread, which only adds a hop.
+            using (var file = new FileStream(temp, FileMode.CreateNew, FileAccess.Write, FileShare.None, bufferSize: 0))
             {
                 var buffer = new byte[81920];
                 int read;
@@ -34,10 +36,9 @@ public sealed class AttachmentStore(DatabaseSettings settings)
                     }
 
                     sha.AppendData(buffer, 0, read);
-                    await file.WriteAsync(buffer.AsMemory(0, read), ct);
+                    file.Write(buffer, 0, read);
                 }
 
-                await file.FlushAsync(ct);
                 file.Flush(flushToDisk: true);
             }
 
