@@ -82,7 +82,7 @@ STAMP="$(date -u +%Y%m%dT%H%M%SZ)"
 echo "machine: $(nproc) cores, $(uname -r), load average $(cut -d' ' -f1-3 /proc/loadavg)"
 case "$MODE" in
   writes|writes-postgres)
-    "${LOAD[@]}" writes --url "$URL" --tokens "$WORK/tokens.txt" --clients 32 --seconds "$SECONDS_ARG" --warmup 10 \
+    "${LOAD[@]}" writes --url "$URL" --tokens "$WORK/tokens.txt" --clients 32 --seconds "$SECONDS_ARG" --warmup 30 \
       --server-pid "$SERVER_PID" --json "$OUT/$MODE-$STAMP.json" ;;
   soak)
     "${LOAD[@]}" writes --url "$URL" --tokens "$WORK/tokens.txt" --clients 32 --seconds 600 --warmup 10 \

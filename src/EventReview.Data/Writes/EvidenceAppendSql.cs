@@ -5,12 +5,8 @@ using EventReview.Core.Evidence;
 
 namespace EventReview.Data.Writes;
 
-/// <summary>
-/// What a short append stored: the evidence (with its new id) and the item's state after it, with what is needed to
-/// compute the item's evidence fingerprint as of the append afterwards (<see cref="EvidenceAppendSql.FingerprintAsync"/>).
-/// </summary>
-/// <param name="LastComputationId">The item's newest computation record at the time of the append (null: none).</param>
-public sealed record AppendedEvidence(int EvidenceId, EvidenceItem Evidence, ItemState ItemState, int ItemId, int? LastComputationId);
+/// <summary>What a short append stored: the evidence (with its new id), the item's state and evidence fingerprint after it.</summary>
+public sealed record AppendedEvidence(int EvidenceId, EvidenceItem Evidence, ItemState ItemState, string ItemFingerprint);
 
 /// <summary>
 /// The short path for adding evidence, the most frequent write: instead of loading the case, it reads the few values
@@ -26,8 +22,7 @@ public static class EvidenceAppendSql
     private const string HeadSql = """
         SELECT c."Id", c."CandidateId", c."State", c."Version", i."Id", i."State", i."Version",
                (SELECT COUNT(*) FROM "SignOffs" s WHERE s."ChecklistItemId" = i."Id" AND NOT s."IsStale"),
-               a."Sequence", a."Hash",
-               (SELECT MAX(x."Id") FROM "Computations" x WHERE x."ChecklistItemId" = i."Id")
+               a."Sequence", a."Hash"
         FROM "Cases" c
         LEFT JOIN "ChecklistItems" i ON i."ReviewCaseId" = c."Id" AND i."Key" = @key
         LEFT JOIN "Activity" a ON a."ReviewCaseId" = c."Id"
@@ -57,12 +52,12 @@ public static class EvidenceAppendSql
         """;
 
     private const string EvidenceLinesSql = """
-        SELECT "Kind", "ContentSha256", "AddedAt" FROM "Evidence" WHERE "ChecklistItemId" = @item AND "Id" <= @upto ORDER BY "AddedAt", "Id"
+        SELECT "Kind", "ContentSha256", "AddedAt" FROM "Evidence" WHERE "ChecklistItemId" = @item ORDER BY "AddedAt", "Id"
         """;
 
     private const string ComputationLinesSql = """
         SELECT "Kind", "ParametersJson", "InputFingerprint", "ToolVersion", "ResultJson", "Verdict", "RunAt"
-        FROM "Computations" WHERE "ChecklistItemId" = @item AND "Id" <= @upto ORDER BY "RunAt", "Id"
+        FROM "Computations" WHERE "ChecklistItemId" = @item ORDER BY "RunAt", "Id"
         """;
 
     /// <summary>
@@ -89,7 +84,6 @@ public static class EvidenceAppendSql
         head.Parameters["@key"].Value = itemKey;
         head.Parameters["@case"].Value = caseId;
         int itemId, itemVersion, caseVersion;
-        int? lastComputation;
         EvidenceAppend.Head state;
         await using (var r = await head.ExecuteReaderAsync(ct))
         {
@@ -107,7 +101,6 @@ public static class EvidenceAppendSql
             caseVersion = r.GetInt32(3);
             itemId = r.GetInt32(4);
             itemVersion = r.GetInt32(6);
-            lastComputation = r.IsDBNull(10) ? null : Convert.ToInt32(r.GetValue(10), System.Globalization.CultureInfo.InvariantCulture);
             state = new EvidenceAppend.Head(candidate, Enum.Parse<CaseState>(r.GetString(2)), itemKey, Enum.Parse<ItemState>(r.GetString(5)),
                 r.IsDBNull(8) ? 0 : r.GetInt32(8), r.IsDBNull(9) ? ActivityEntry.GenesisHash : r.GetString(9), Convert.ToInt32(r.GetValue(7), System.Globalization.CultureInfo.InvariantCulture));
         }
@@ -163,21 +156,15 @@ public static class EvidenceAppendSql
             throw new AppendConflictException($"Case {state.CandidateId} changed while evidence was being added to '{itemKey}'.");
         }
 
-        return new AppendedEvidence(evidenceId, evidence, outcome.ItemState, itemId, lastComputation);
+        return new AppendedEvidence(evidenceId, evidence, outcome.ItemState, await FingerprintAsync(unit, itemId, ct));
     }
 
-    /// <summary>
-    /// The item's evidence fingerprint (<see cref="EvidenceFingerprint"/>) as it was right after <paramref name="appended"/>:
-    /// its evidence up to that row and its computation records up to the newest at that time. Run after the commit, on
-    /// any connection (<see cref="SqlUnit.ForReading"/>), so the writer does not spend its time on it. Exact because
-    /// appends to one item never overlap (the writer, or the case lock) and ids only grow.
-    /// </summary>
-    public static async Task<string> FingerprintAsync(SqlUnit unit, AppendedEvidence appended, CancellationToken ct)
+    /// <summary>The item's evidence fingerprint as stored now (<see cref="EvidenceFingerprint"/>).</summary>
+    public static async Task<string> FingerprintAsync(SqlUnit unit, int itemId, CancellationToken ct)
     {
         var evidence = new List<EvidenceLine>();
-        var lines = unit.Command(EvidenceLinesSql, "@item", "@upto");
-        Set(lines, "@item", appended.ItemId);
-        Set(lines, "@upto", appended.EvidenceId);
+        var lines = unit.Command(EvidenceLinesSql, "@item");
+        Set(lines, "@item", itemId);
         await using (var r = await lines.ExecuteReaderAsync(ct))
         {
             while (await r.ReadAsync(ct))
@@ -187,14 +174,8 @@ public static class EvidenceAppendSql
         }
 
         var computations = new List<ComputationLine>();
-        if (appended.LastComputationId is not { } upto)
-        {
-            return EvidenceFingerprint.Compute(evidence, computations);
-        }
-
-        var runs = unit.Command(ComputationLinesSql, "@item", "@upto");
-        Set(runs, "@item", appended.ItemId);
-        Set(runs, "@upto", upto);
+        var runs = unit.Command(ComputationLinesSql, "@item");
+        Set(runs, "@item", itemId);
         await using (var r = await runs.ExecuteReaderAsync(ct))
         {
             while (await r.ReadAsync(ct))

@@ -12,7 +12,7 @@ public sealed class SqlUnit : IDisposable
     private readonly Dictionary<string, DbCommand>? _prepared;
     private readonly List<DbCommand> _owned = [];
 
-    internal SqlUnit(DatabaseProvider provider, DbConnection connection, DbTransaction? transaction, Dictionary<string, DbCommand>? prepared)
+    internal SqlUnit(DatabaseProvider provider, DbConnection connection, DbTransaction transaction, Dictionary<string, DbCommand>? prepared)
     {
         Provider = provider;
         Connection = connection;
@@ -24,11 +24,7 @@ public sealed class SqlUnit : IDisposable
 
     public DbConnection Connection { get; }
 
-    /// <summary>The transaction of a write; null for a unit that only reads (<see cref="ForReading"/>).</summary>
-    public DbTransaction? Transaction { get; }
-
-    /// <summary>A unit for reads on an open connection outside the write gate (commands are not kept).</summary>
-    public static SqlUnit ForReading(DatabaseProvider provider, DbConnection connection) => new(provider, connection, null, null);
+    public DbTransaction Transaction { get; }
 
     /// <summary>
     /// A command for <paramref name="sql"/> with the named parameters (the caller sets their values before running it;

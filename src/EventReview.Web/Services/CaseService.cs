@@ -366,7 +366,7 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
                 }
 
                 var e = stored.Evidence;
-                return new EvidenceReceipt(stored.EvidenceId, e.ContentSha256, e.SizeBytes, e.FileName, stored.ItemState, await FingerprintAsync(stored, ct));
+                return new EvidenceReceipt(stored.EvidenceId, e.ContentSha256, e.SizeBytes, e.FileName, stored.ItemState, stored.ItemFingerprint);
             }
             catch (AppendConflictException) when (attempt < MaxAttempts)
             {
@@ -386,15 +386,6 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
     /// after a conflict (someone changed the case between the read and the save), read-change-save again with no
     /// writer in between. <paramref name="prepare"/> reads and changes, and returns what to answer once saved.
     /// </summary>
-    /// <summary>The item's fingerprint as of a short append, read after the commit on a connection of its own.</summary>
-    private async Task<string> FingerprintAsync(AppendedEvidence stored, CancellationToken ct)
-    {
-        await using var db = await dbFactory.CreateDbContextAsync(ct);
-        await db.Database.OpenConnectionAsync(ct);
-        using var unit = SqlUnit.ForReading(db.Database.IsNpgsql() ? DatabaseProvider.Postgres : DatabaseProvider.Sqlite, db.Database.GetDbConnection());
-        return await EvidenceAppendSql.FingerprintAsync(unit, stored, ct);
-    }
-
     private async Task<T> WriteAsync<T>(Func<AppDbContext, CancellationToken, Task<Func<T>>> prepare, CancellationToken ct)
     {
         for (var attempt = 1; ; attempt++)
