@@ -54,6 +54,7 @@ public static class WebServiceCollectionExtensions
         services.AddSingleton<ApiTokenCache>();
         services.AddSingleton<TemplateCatalog>();
         services.AddSingleton<MarkdownRenderer>();
+        services.AddSingleton<KnownItems>();
         services.AddScoped<CaseService>();
         services.AddScoped<NetworkService>();
         services.AddScoped<Services.Checks.TimingCheckService>();

@@ -14,7 +14,7 @@ namespace EventReview.Web.Services;
 /// Changes load the case aggregate, apply one domain method and save; the case's version token serialises
 /// concurrent changes, and append-only changes (evidence, notes) are retried so that nothing is lost.
 /// </summary>
-public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWriteGate writes, TemplateCatalog templates, TimeProvider clock, AttachmentStore store, ILogger<CaseService> log)
+public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWriteGate writes, TemplateCatalog templates, TimeProvider clock, AttachmentStore store, KnownItems known, ILogger<CaseService> log)
 {
     private const int MaxAttempts = 6;
 
@@ -187,6 +187,7 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
         {
             db.Cases.Add(c);
             await writes.SaveAsync(db, ct);
+            known.Remember(c.Id, c.Items.Select(i => i.Key));
             log.LogInformation("Case {CaseId} opened for candidate {CandidateId} by {Actor}", c.Id, c.CandidateId, c.CoordinatorName);
             return (c, true);
         }
@@ -317,9 +318,15 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
 
     private async Task EnsureItemExistsAsync(int caseId, string itemKey, CancellationToken ct)
     {
+        if (known.Contains(caseId, itemKey))
+        {
+            return;
+        }
+
         await using var db = await dbFactory.CreateDbContextAsync(ct);
         if (await db.Items.AnyAsync(i => i.ReviewCaseId == caseId && i.Key == itemKey, ct))
         {
+            known.Remember(caseId, [itemKey]);
             return;
         }
 
