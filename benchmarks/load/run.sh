@@ -85,7 +85,7 @@ case "$MODE" in
     "${LOAD[@]}" writes --url "$URL" --tokens "$WORK/tokens.txt" --clients 32 --seconds "$SECONDS_ARG" --warmup 30 \
       --server-pid "$SERVER_PID" --json "$OUT/$MODE-$STAMP.json" ;;
   soak)
-    "${LOAD[@]}" writes --url "$URL" --tokens "$WORK/tokens.txt" --clients 32 --seconds 600 --warmup 10 \
+    "${LOAD[@]}" writes --url "$URL" --tokens "$WORK/tokens.txt" --clients 32 --seconds 600 --warmup 30 \
       --server-pid "$SERVER_PID" --json "$OUT/soak-$STAMP.json" ;;
   reads)
     "${LOAD[@]}" reads --url "$URL" --tokens "$WORK/tokens.txt" --cases 10000 --evidence-per-item 500 \
