@@ -88,6 +88,35 @@ public sealed class SqliteTamperTests : IAsyncLifetime
     }
 
     [Fact]
+    public async Task The_team_page_check_walks_only_new_entries_yet_catches_changes_to_them_and_to_its_last_verified_one()
+    {
+        var audit = new EventReview.Data.Auth.AccountAudit(_factory, TimeProvider.System, Microsoft.Extensions.Logging.Abstractions.NullLogger<EventReview.Data.Auth.AccountAudit>.Instance);
+        for (var i = 0; i < 3; i++)
+        {
+            await audit.RecordAsync(EventReview.Data.Auth.AccountEventKinds.SignInSucceeded, "u1", "someone@example.org", "198.51.100.4");
+        }
+
+        Assert.Null(await audit.FirstProblemSinceLastCheckAsync()); // first call: the whole chain, entries 1-3
+        await audit.RecordAsync(EventReview.Data.Auth.AccountEventKinds.SignedOut, "u1", "someone@example.org", "198.51.100.4");
+        Assert.Null(await audit.FirstProblemSinceLastCheckAsync()); // entry 3 unchanged, entry 4 new
+
+        // A change to an entry added since the last check is caught.
+        await audit.RecordAsync(EventReview.Data.Auth.AccountEventKinds.SignInFailed, null, "someone@example.org", "198.51.100.4");
+        await IntrudeAsync("DROP TRIGGER er_AccountEvents_no_update;", "UPDATE \"AccountEvents\" SET \"Address\" = '192.0.2.99' WHERE \"Sequence\" = 5;");
+        Assert.Contains("entry 5", await audit.FirstProblemSinceLastCheckAsync(), StringComparison.Ordinal);
+
+        // The check then starts over with the whole chain; a change to its last verified entry is caught as well.
+        await IntrudeAsync("UPDATE \"AccountEvents\" SET \"Address\" = '198.51.100.4' WHERE \"Sequence\" = 5;");
+        Assert.Null(await audit.FirstProblemSinceLastCheckAsync());
+        await IntrudeAsync("UPDATE \"AccountEvents\" SET \"Detail\" = 'forged' WHERE \"Sequence\" = 5;");
+        Assert.Contains("entry 5", await audit.FirstProblemSinceLastCheckAsync(), StringComparison.Ordinal);
+
+        // Older entries are left to the whole walk (integrity page, eventreview verify), which still finds them.
+        await IntrudeAsync("UPDATE \"AccountEvents\" SET \"Detail\" = '' WHERE \"Sequence\" = 5;", "UPDATE \"AccountEvents\" SET \"Address\" = '192.0.2.1' WHERE \"Sequence\" = 2;");
+        Assert.Contains("entry 2", await audit.FirstProblemAsync(), StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task An_untouched_database_verifies_clean()
     {
         var (cases, database) = await new IntegrityVerifier(_factory, _store, _settings).VerifyAsync();

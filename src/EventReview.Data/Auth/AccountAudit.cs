@@ -55,30 +55,77 @@ public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, Time
     public async Task<string?> FirstProblemAsync(CancellationToken ct = default)
     {
         await using var db = await dbFactory.CreateDbContextAsync(ct);
-        return await FirstProblemInAsync(db, ct);
+        var (problem, last) = await WalkAsync(db, null, ct);
+        _verified = problem is null && last is { } l ? new Verified(l.Item1, l.Item2) : null;
+        return problem;
     }
 
+    /// <summary>
+    /// Like <see cref="FirstProblemAsync"/>, but after one whole walk by this process it checks only that the newest
+    /// entry it verified is unchanged and walks the entries added since (the Team page; a busy team's record grows by
+    /// thousands of entries a week). The whole chain is still walked by the integrity check and <c>eventreview verify</c>.
+    /// </summary>
+    public async Task<string?> FirstProblemSinceLastCheckAsync(CancellationToken ct = default)
+    {
+        if (Volatile.Read(ref _verified) is not { } from)
+        {
+            return await FirstProblemAsync(ct);
+        }
+
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        var (problem, last) = await WalkAsync(db, (from.Sequence, from.Hash), ct);
+        Volatile.Write(ref _verified, problem is null && last is { } l ? new Verified(l.Item1, l.Item2) : null);
+        return problem;
+    }
+
+    /// <summary>The newest entry this process has verified (with every entry before it), or null.</summary>
+    private Verified? _verified;
+
+    private sealed record Verified(long Sequence, string Hash);
+
     /// <summary>The same walk over the sign-in audit of <paramref name="db"/> (used by the whole-record verification).</summary>
-    public static async Task<string?> FirstProblemInAsync(AppDbContext db, CancellationToken ct = default)
+    public static async Task<string?> FirstProblemInAsync(AppDbContext db, CancellationToken ct = default) => (await WalkAsync(db, null, ct)).Problem;
+
+    /// <summary>
+    /// Walks the chain from the start, or from <paramref name="from"/> (an entry verified before, which must still be
+    /// there with the same hash); returns the first problem and the newest entry walked.
+    /// </summary>
+    private static async Task<(string? Problem, (long, string)? Last)> WalkAsync(AppDbContext db, (long Sequence, string Hash)? from, CancellationToken ct)
     {
         var prev = AccountEvent.GenesisHash;
         long expected = 1;
-        await foreach (var e in db.AccountEvents.AsNoTracking().OrderBy(e => e.Sequence).AsAsyncEnumerable().WithCancellation(ct))
+        var query = db.AccountEvents.AsNoTracking();
+        if (from is { } f)
+        {
+            var anchor = await query.FirstOrDefaultAsync(e => e.Sequence == f.Sequence, ct);
+            if (anchor is null || !string.Equals(anchor.Hash, f.Hash, StringComparison.Ordinal) || !anchor.HashMatches())
+            {
+                return ($"Sign-in audit entry {f.Sequence} was altered or removed after it was verified.", null);
+            }
+
+            prev = f.Hash;
+            expected = f.Sequence + 1;
+            query = query.Where(e => e.Sequence > f.Sequence);
+        }
+
+        (long, string)? last = from;
+        await foreach (var e in query.OrderBy(e => e.Sequence).AsAsyncEnumerable().WithCancellation(ct))
         {
             if (e.Sequence != expected)
             {
-                return $"Sign-in audit entry {expected} is missing.";
+                return ($"Sign-in audit entry {expected} is missing.", null);
             }
 
             if (!string.Equals(e.PreviousHash, prev, StringComparison.Ordinal) || !e.HashMatches())
             {
-                return $"Sign-in audit entry {e.Sequence} ({e.Kind}) was altered or does not link to the entry before it.";
+                return ($"Sign-in audit entry {e.Sequence} ({e.Kind}) was altered or does not link to the entry before it.", null);
             }
 
             prev = e.Hash;
             expected++;
+            last = (e.Sequence, e.Hash);
         }
 
-        return null;
+        return (null, last);
     }
 }
