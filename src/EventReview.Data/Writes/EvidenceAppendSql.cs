@@ -11,7 +11,7 @@ public sealed record AppendedEvidence(int EvidenceId, EvidenceItem Evidence, Ite
 /// <summary>
 /// The short path for adding evidence, the most frequent write: instead of loading the case, it reads the few values
 /// the change depends on (<see cref="EvidenceAppend.Head"/>), lets the domain rules (<see cref="EvidenceAppend.Plan"/>)
-/// decide, and stores the evidence row, the timeline entry and the new versions and states with five prepared
+/// decide, and stores the evidence row, the timeline entry and the new versions and states with four prepared
 /// statements. The rows are the same as the loaded case would store (a test compares them). It does not cover an item
 /// with current sign-offs; for that it stores nothing and returns null, and the caller takes the full path.
 /// Run it inside <see cref="IWriteGate.RunSqlAsync"/>: on PostgreSQL it first locks the case row for the transaction; on
