@@ -75,14 +75,10 @@ public static class EvidenceAppendSql
         {
             // Lock the case row first, in its own statement: the head read after it starts from a snapshot that already
             // includes whatever the previous holder of the lock committed.
-            var lockCase = unit.Command(LockCaseSql, "@case");
-            lockCase.Parameters["@case"].Value = caseId;
-            await lockCase.ExecuteNonQueryAsync(ct);
+            await unit.Bound(LockCaseSql, ("@case", caseId)).ExecuteNonQueryAsync(ct);
         }
 
-        var head = unit.Command(HeadSql, "@key", "@case");
-        head.Parameters["@key"].Value = itemKey;
-        head.Parameters["@case"].Value = caseId;
+        var head = unit.Bound(HeadSql, ("@key", itemKey), ("@case", caseId));
         int itemId, itemVersion, caseVersion;
         EvidenceAppend.Head state;
         await using (var r = await head.ExecuteReaderAsync(ct))
@@ -113,44 +109,44 @@ public static class EvidenceAppendSql
         var evidence = make(now);
         var outcome = EvidenceAppend.Plan(state, evidence, actor, now);
 
-        var insert = unit.Command(InsertEvidenceSql, "@item", "@kind", "@text", "@sha", "@file", "@type", "@size", "@url", "@by", "@byName", "@at");
-        Set(insert, "@item", itemId);
-        Set(insert, "@kind", evidence.Kind.ToString());
-        Set(insert, "@text", evidence.Text);
-        Set(insert, "@sha", evidence.ContentSha256);
-        Set(insert, "@file", evidence.FileName);
-        Set(insert, "@type", evidence.ContentType);
-        Set(insert, "@size", evidence.SizeBytes);
-        Set(insert, "@url", evidence.Url);
-        Set(insert, "@by", evidence.AddedBy);
-        Set(insert, "@byName", evidence.AddedByName);
-        Set(insert, "@at", unit.Time(evidence.AddedAt));
+        var insert = unit.Bound(InsertEvidenceSql,
+            ("@item", itemId),
+            ("@kind", evidence.Kind.ToString()),
+            ("@text", evidence.Text),
+            ("@sha", evidence.ContentSha256),
+            ("@file", evidence.FileName),
+            ("@type", evidence.ContentType),
+            ("@size", evidence.SizeBytes),
+            ("@url", evidence.Url),
+            ("@by", evidence.AddedBy),
+            ("@byName", evidence.AddedByName),
+            ("@at", unit.Time(evidence.AddedAt)));
         var evidenceId = Convert.ToInt32(await insert.ExecuteScalarAsync(ct), System.Globalization.CultureInfo.InvariantCulture);
 
         var e = outcome.Entry;
-        var activity = unit.Command(InsertActivitySql, "@case", "@candidate", "@sequence", "@at", "@actor", "@actorName", "@kind", "@key", "@text", "@previous", "@hash");
-        Set(activity, "@case", caseId);
-        Set(activity, "@candidate", e.CandidateId);
-        Set(activity, "@sequence", e.Sequence);
-        Set(activity, "@at", unit.Time(e.At));
-        Set(activity, "@actor", e.ActorId);
-        Set(activity, "@actorName", e.ActorName);
-        Set(activity, "@kind", e.Kind);
-        Set(activity, "@key", e.ItemKey);
-        Set(activity, "@text", e.Text);
-        Set(activity, "@previous", e.PreviousHash);
-        Set(activity, "@hash", e.Hash);
+        var activity = unit.Bound(InsertActivitySql,
+            ("@case", caseId),
+            ("@candidate", e.CandidateId),
+            ("@sequence", e.Sequence),
+            ("@at", unit.Time(e.At)),
+            ("@actor", e.ActorId),
+            ("@actorName", e.ActorName),
+            ("@kind", e.Kind),
+            ("@key", e.ItemKey),
+            ("@text", e.Text),
+            ("@previous", e.PreviousHash),
+            ("@hash", e.Hash));
         await activity.ExecuteNonQueryAsync(ct);
 
-        var item = unit.Command(UpdateItemSql, "@state", "@item", "@version");
-        Set(item, "@state", outcome.ItemState.ToString());
-        Set(item, "@item", itemId);
-        Set(item, "@version", itemVersion);
-        var c = unit.Command(UpdateCaseSql, "@state", "@at", "@case", "@version");
-        Set(c, "@state", outcome.CaseState.ToString());
-        Set(c, "@at", unit.Time(now));
-        Set(c, "@case", caseId);
-        Set(c, "@version", caseVersion);
+        var item = unit.Bound(UpdateItemSql,
+            ("@state", outcome.ItemState.ToString()),
+            ("@item", itemId),
+            ("@version", itemVersion));
+        var c = unit.Bound(UpdateCaseSql,
+            ("@state", outcome.CaseState.ToString()),
+            ("@at", unit.Time(now)),
+            ("@case", caseId),
+            ("@version", caseVersion));
         if (await item.ExecuteNonQueryAsync(ct) != 1 || await c.ExecuteNonQueryAsync(ct) != 1)
         {
             throw new AppendConflictException($"Case {state.CandidateId} changed while evidence was being added to '{itemKey}'.");
@@ -163,8 +159,8 @@ public static class EvidenceAppendSql
     public static async Task<string> FingerprintAsync(SqlUnit unit, int itemId, CancellationToken ct)
     {
         var evidence = new List<EvidenceLine>();
-        var lines = unit.Command(EvidenceLinesSql, "@item");
-        Set(lines, "@item", itemId);
+        var lines = unit.Bound(EvidenceLinesSql,
+            ("@item", itemId));
         await using (var r = await lines.ExecuteReaderAsync(ct))
         {
             while (await r.ReadAsync(ct))
@@ -174,8 +170,8 @@ public static class EvidenceAppendSql
         }
 
         var computations = new List<ComputationLine>();
-        var runs = unit.Command(ComputationLinesSql, "@item");
-        Set(runs, "@item", itemId);
+        var runs = unit.Bound(ComputationLinesSql,
+            ("@item", itemId));
         await using (var r = await runs.ExecuteReaderAsync(ct))
         {
             while (await r.ReadAsync(ct))
@@ -187,8 +183,6 @@ public static class EvidenceAppendSql
 
         return EvidenceFingerprint.Compute(evidence, computations);
     }
-
-    private static void Set(DbCommand command, string name, object? value) => command.Parameters[name].Value = value ?? DBNull.Value;
 }
 
 /// <summary>The case changed between reading it and storing an append; nothing was stored (try again).</summary>

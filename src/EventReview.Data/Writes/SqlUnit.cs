@@ -62,6 +62,21 @@ public sealed class SqlUnit : IDisposable
         return command;
     }
 
+    /// <summary>
+    /// The command for <paramref name="sql"/> (see <see cref="Command"/>) with its parameters set to the given values
+    /// (null becomes <see cref="DBNull.Value"/>), ready to run.
+    /// </summary>
+    public DbCommand Bound(string sql, params (string Name, object? Value)[] values)
+    {
+        var command = Command(sql, Array.ConvertAll(values, v => v.Name));
+        foreach (var (name, value) in values)
+        {
+            command.Parameters[name].Value = value ?? DBNull.Value;
+        }
+
+        return command;
+    }
+
     /// <summary>A time as the database stores it: exact UTC ticks in SQLite, <c>timestamp with time zone</c> in PostgreSQL.</summary>
     public object Time(DateTimeOffset t) => Provider == DatabaseProvider.Sqlite ? t.UtcTicks : t.ToUniversalTime();
 

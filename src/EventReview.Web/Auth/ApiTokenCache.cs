@@ -64,9 +64,7 @@ public sealed class ApiTokenCache(IDbContextFactory<AppDbContext> dbFactory, IWr
 
         await writes.RunSqlAsync(async (unit, token2) =>
         {
-            var update = unit.Command("""UPDATE "ApiTokens" SET "LastUsedAt" = @at WHERE "Id" = @id""", "@at", "@id");
-            update.Parameters["@at"].Value = unit.Time(now);
-            update.Parameters["@id"].Value = token.Id;
+            var update = unit.Bound("""UPDATE "ApiTokens" SET "LastUsedAt" = @at WHERE "Id" = @id""", ("@at", unit.Time(now)), ("@id", token.Id));
             return await update.ExecuteNonQueryAsync(token2);
         }, ct);
     }
