@@ -1,3 +1,4 @@
+using EventReview.Core.Inputs;
 using EventReview.Core.Time;
 
 namespace EventReview.Core.Cases;
@@ -11,19 +12,21 @@ public sealed class CaseArrival
     }
 
     /// <summary>Creates a validated arrival.</summary>
+    /// <exception cref="ArgumentOutOfRangeException">
+    /// Naming the field (<c>site</c>, <c>gpsTime</c>, <c>snr</c>): a site code that is not 1-8 letters or digits, a time
+    /// outside <see cref="GpsRange"/>, an SNR that is not finite or outside [0, <see cref="InputLimits.MaxSnr"/>].
+    /// </exception>
     public CaseArrival(string siteCode, GpsTime arrival, double snr)
     {
-        if (string.IsNullOrWhiteSpace(siteCode))
+        var code = (siteCode ?? string.Empty).Trim().ToUpperInvariant();
+        if (code.Length is < 1 or > 8 || !code.All(char.IsAsciiLetterOrDigit))
         {
-            throw new ArgumentOutOfRangeException(nameof(siteCode), siteCode, "Arrival site code must not be empty.");
+            throw new ArgumentOutOfRangeException("site", siteCode, "site: an arrival's site code must be 1-8 letters or digits.");
         }
 
-        if (!double.IsFinite(snr) || snr < 0)
-        {
-            throw new ArgumentOutOfRangeException(nameof(snr), snr, $"SNR at site {siteCode} must be a finite number >= 0.");
-        }
-
-        SiteCode = siteCode.Trim().ToUpperInvariant();
+        InputGuard.Gps(arrival, "gpsTime");
+        InputGuard.Finite(snr, 0, InputLimits.MaxSnr, "snr", $"the SNR at site {code}");
+        SiteCode = code;
         ArrivalNanoseconds = arrival.Nanoseconds;
         Snr = snr;
     }

@@ -1,5 +1,6 @@
 using EventReview.Core.Checklists;
 using EventReview.Core.Evidence;
+using EventReview.Core.Inputs;
 using EventReview.Core.Time;
 
 namespace EventReview.Core.Cases;
@@ -85,16 +86,8 @@ public sealed class ReviewCase
     public static ReviewCase Open(string candidateId, GpsTime gps, string search, string summary,
         IEnumerable<CaseArrival> arrivals, ChecklistTemplate template, Actor coordinator, DateTimeOffset now)
     {
-        candidateId = (candidateId ?? string.Empty).Trim();
-        if (candidateId.Length is < 1 or > 128 || candidateId.Any(char.IsControl))
-        {
-            throw new ArgumentException("candidateId must be 1-128 printable characters.", nameof(candidateId));
-        }
-
-        if (gps.Nanoseconds <= 0)
-        {
-            throw new ArgumentException("gpsTime must be a positive number of GPS seconds.", "gpsTime");
-        }
+        candidateId = InputGuard.Identifier(candidateId, InputLimits.MaxCandidateIdLength, nameof(candidateId));
+        InputGuard.Gps(gps, "gpsTime");
 
         // The stored limits (see the case's database configuration); beyond them SQLite would keep the text and PostgreSQL refuse it.
         if ((search ?? string.Empty).Length > MaxSearchLength)
@@ -245,6 +238,8 @@ public sealed class ReviewCase
             throw new DomainRuleException("invalid-transition", $"Case is '{StateNames.Of(State)}'; only a case awaiting decision can return to review.");
         }
 
+        InputGuard.Text(reason, InputLimits.MaxStatementLength, nameof(reason));
+
         State = CaseState.InReview;
         Record(by, now, "case.state", null, $"Case returned to review: {reason}");
     }
@@ -256,6 +251,12 @@ public sealed class ReviewCase
         if (string.IsNullOrWhiteSpace(statement))
         {
             throw new DomainRuleException("statement-required", "Closing a case needs a statement of the decision.");
+        }
+
+        InputGuard.Text(statement.Trim(), InputLimits.MaxStatementLength, nameof(statement));
+        if (!Enum.IsDefined(outcome))
+        {
+            throw new ArgumentOutOfRangeException(nameof(outcome), outcome, "outcome: not a known case outcome.");
         }
 
         EnsureAllSigned("close it");
@@ -295,7 +296,7 @@ public sealed class ReviewCase
     }
 
     /// <summary>The refusal of any change to a closed case.</summary>
-    internal static DomainRuleException ClosedError(string candidateId) =>
+    public static DomainRuleException ClosedError(string candidateId) =>
         new("case-closed", $"Case {candidateId} is closed; nothing in it can change.");
 
     /// <summary>The case state once work on an item begins: an open case goes into review; any other state stays.</summary>

@@ -1,5 +1,6 @@
 using EventReview.Core.Cases;
 using EventReview.Core.Evidence;
+using EventReview.Core.Inputs;
 using EventReview.Core.Time;
 
 namespace EventReview.Core.Checklists;
@@ -181,6 +182,12 @@ public sealed class ChecklistItem
         if (string.IsNullOrWhiteSpace(statement))
         {
             throw new DomainRuleException("statement-required", "A sign-off needs a statement saying what was checked.");
+        }
+
+        InputGuard.Text(statement.Trim(), InputLimits.MaxStatementLength, nameof(statement));
+        if (!Enum.IsDefined(meaning))
+        {
+            throw new ArgumentOutOfRangeException(nameof(meaning), meaning, "meaning: not a known sign-off meaning.");
         }
 
         var current = Fingerprint();

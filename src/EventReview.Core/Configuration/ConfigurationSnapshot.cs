@@ -148,6 +148,8 @@ public sealed class ConfigurationSnapshot
             throw new DomainRuleException("reason-required", "Freezing a configuration needs a reason.");
         }
 
+        Inputs.InputGuard.Text(reason.Trim(), Inputs.InputLimits.MaxStatementLength, nameof(reason));
+
         ReviewCaseId = reviewCaseId;
         IsFrozen = true;
         FrozenBy = by.UserId;

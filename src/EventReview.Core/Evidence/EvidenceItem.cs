@@ -1,3 +1,5 @@
+using EventReview.Core.Inputs;
+
 namespace EventReview.Core.Evidence;
 
 /// <summary>
@@ -73,18 +75,19 @@ public sealed class EvidenceItem
     {
         if (string.IsNullOrWhiteSpace(markdown))
         {
-            throw new ArgumentException("The note text is empty.", nameof(markdown));
+            throw new ArgumentException("text: the note is empty.", "text");
         }
 
         if (markdown.Length > 100_000)
         {
-            throw new ArgumentException("The note is longer than 100,000 characters; attach it as a file instead.", nameof(markdown));
+            throw new ArgumentException("text: the note is longer than 100,000 characters; attach it as a file instead.", "text");
         }
 
         return new EvidenceItem(EvidenceKind.Note, markdown, Hashing.Sha256Hex(markdown), null, null, null, null, by, at);
     }
 
     /// <summary>An attachment already stored under its SHA-256; <paramref name="fileName"/> is kept for display only.</summary>
+    /// <exception cref="ArgumentException">When the hash, size, content type or description is invalid (see <see cref="CheckAttachmentFields"/>).</exception>
     public static EvidenceItem Attachment(string fileName, string contentType, long sizeBytes, string sha256, string description, Cases.Actor by, DateTimeOffset at)
     {
         if (!Hashing.IsSha256Hex(sha256))
@@ -92,19 +95,40 @@ public sealed class EvidenceItem
             throw new ArgumentException("The attachment hash must be 64 lowercase hex digits.", nameof(sha256));
         }
 
+        if (sizeBytes < 0 || sizeBytes > InputLimits.MaxSizeBytes)
+        {
+            throw new ArgumentOutOfRangeException(nameof(sizeBytes), sizeBytes, $"sizeBytes must be from 0 to {InputLimits.MaxSizeBytes} bytes.");
+        }
+
+        CheckAttachmentFields(contentType, description);
         var safeName = SafeFileName.From(fileName);
 
         return new EvidenceItem(EvidenceKind.Attachment, description ?? string.Empty, sha256, safeName, contentType, sizeBytes, null, by, at);
     }
 
-    /// <summary>A link; only absolute http(s) URLs are accepted.</summary>
+    /// <summary>
+    /// The checks of an attachment's own fields, run before its bytes are stored so that a refused upload leaves nothing
+    /// behind: a description of at most <see cref="InputLimits.MaxDescriptionLength"/> characters and a content type of
+    /// at most <see cref="InputLimits.MaxContentTypeLength"/> characters without hidden characters.
+    /// </summary>
+    /// <exception cref="ArgumentException">Naming <c>description</c> or <c>contentType</c>.</exception>
+    public static void CheckAttachmentFields(string? contentType, string? description)
+    {
+        InputGuard.Text(description, InputLimits.MaxDescriptionLength, "description");
+        InputGuard.Identifier(contentType, InputLimits.MaxContentTypeLength, "contentType");
+    }
+
+    /// <summary>A link; only absolute http(s) URLs of at most <see cref="InputLimits.MaxUrlLength"/> characters are accepted.</summary>
+    /// <exception cref="ArgumentException">When the URL or the title is invalid or too long.</exception>
     public static EvidenceItem Link(string url, string title, Cases.Actor by, DateTimeOffset at)
     {
+        InputGuard.Text(url, InputLimits.MaxUrlLength, nameof(url));
         if (!Uri.TryCreate(url, UriKind.Absolute, out var uri) || (uri.Scheme != Uri.UriSchemeHttp && uri.Scheme != Uri.UriSchemeHttps))
         {
             throw new ArgumentException("The link must be an absolute http or https URL.", nameof(url));
         }
 
+        InputGuard.Text(title?.Trim(), InputLimits.MaxLinkTitleLength, nameof(title));
         return new EvidenceItem(EvidenceKind.Link, string.IsNullOrWhiteSpace(title) ? uri.ToString() : title.Trim(), Hashing.Sha256Hex(uri.ToString()), null, null, null, uri.ToString(), by, at);
     }
 }

@@ -13,7 +13,7 @@ public sealed class DetectorNetwork
     /// <summary>Creates an empty network.</summary>
     public DetectorNetwork(string name)
     {
-        Name = string.IsNullOrWhiteSpace(name) ? throw new ArgumentException("Network name must not be empty.", nameof(name)) : name.Trim();
+        Name = CheckedName(name);
     }
 
     public int Id { get; private set; }
@@ -43,6 +43,9 @@ public sealed class DetectorNetwork
         return s is not null && _sites.Remove(s);
     }
 
-    public void Rename(string name) =>
-        Name = string.IsNullOrWhiteSpace(name) ? throw new ArgumentException("Network name must not be empty.", nameof(name)) : name.Trim();
+    public void Rename(string name) => Name = CheckedName(name);
+
+    private static string CheckedName(string name) => string.IsNullOrWhiteSpace(name)
+        ? throw new ArgumentException("Network name must not be empty.", nameof(name))
+        : Inputs.InputGuard.Identifier(name, Inputs.InputLimits.MaxNameLength, nameof(name));
 }

@@ -62,6 +62,8 @@ public sealed class Site
             throw new ArgumentOutOfRangeException(nameof(name), name, "Site name must not be empty.");
         }
 
+        name = Inputs.InputGuard.Identifier(name, Inputs.InputLimits.MaxNameLength, nameof(name));
+
         Check(latitudeDegrees, -90, 90, nameof(latitudeDegrees), "Latitude must be within [-90, 90] degrees.");
         Check(longitudeDegrees, -180, 180, nameof(longitudeDegrees), "Longitude must be within [-180, 180] degrees.");
         Check(heightMeters, -12_000, 10_000, nameof(heightMeters), "Height must be within [-12000, 10000] m of the ellipsoid.");

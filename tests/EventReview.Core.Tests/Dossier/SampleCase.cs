@@ -63,8 +63,8 @@ internal sealed class SampleCase
     public static SampleCase Build()
     {
         var t = T0;
-        var c = ReviewCase.Open("C31-0314A", GpsTime.FromSeconds(1_931_500_000.25m), "burst-search", "A short loud candidate.",
-            [new CaseArrival("KX", GpsTime.FromSeconds(1_931_500_000.25m), 9.5), new CaseArrival("M2", GpsTime.FromSeconds(1_931_500_000.257m), 7.25)],
+        var c = ReviewCase.Open("C31-0314A", GpsTime.FromSeconds(1_615_248_000.25m), "burst-search", "A short loud candidate.",
+            [new CaseArrival("KX", GpsTime.FromSeconds(1_615_248_000.25m), 9.5), new CaseArrival("M2", GpsTime.FromSeconds(1_615_248_000.257m), 7.25)],
             Template(), Coordinator, t);
 
         t = t.AddMinutes(5);
@@ -81,14 +81,14 @@ internal sealed class SampleCase
         t = t.AddMinutes(1);
         c.MarkItemReady("timing.delay", Analyst, t);
         t = t.AddMinutes(1);
-        c.SignItem("timing.delay", Reviewer, SignOffMeaning.Reviewed, "Delays checked.", c.Item("timing.delay").Fingerprint(), t, GpsTime.FromSeconds(1_931_500_600m));
+        c.SignItem("timing.delay", Reviewer, SignOffMeaning.Reviewed, "Delays checked.", c.Item("timing.delay").Fingerprint(), t, GpsTime.FromSeconds(1_615_248_600m));
 
         // Second item: signed, then more evidence makes the sign-off stale.
         t = t.AddMinutes(1);
         c.AddEvidence("timing.notes", EvidenceItem.Note("Nothing odd.", Analyst, t), Analyst, t);
         c.MarkItemReady("timing.notes", Analyst, t);
         t = t.AddMinutes(1);
-        c.SignItem("timing.notes", Reviewer, SignOffMeaning.Approved, "Fine.", c.Item("timing.notes").Fingerprint(), t, GpsTime.FromSeconds(1_931_500_700m));
+        c.SignItem("timing.notes", Reviewer, SignOffMeaning.Approved, "Fine.", c.Item("timing.notes").Fingerprint(), t, GpsTime.FromSeconds(1_615_248_700m));
         t = t.AddMinutes(1);
         c.AddEvidence("timing.notes", EvidenceItem.Note("Correction: one glitch at 2 s.", Analyst, t), Analyst, t);
 

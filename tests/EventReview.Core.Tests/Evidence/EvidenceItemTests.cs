@@ -23,7 +23,7 @@ public class EvidenceItemTests
     [InlineData(" \n\t ")]
     public void An_empty_note_is_refused(string text)
     {
-        Assert.Equal("markdown", Assert.Throws<ArgumentException>(() => EvidenceItem.Note(text, People.ReviewerA, Clock.T0)).ParamName);
+        Assert.Equal("text", Assert.Throws<ArgumentException>(() => EvidenceItem.Note(text, People.ReviewerA, Clock.T0)).ParamName);
     }
 
     [Fact]
