@@ -65,6 +65,36 @@ public sealed class AttachmentStore(DatabaseSettings settings)
         }
     }
 
+    /// <summary>
+    /// Deletes the temporary files of uploads that never finished (<c>.incoming-*</c> at the top of the store, left by a
+    /// process that was killed while receiving a file). Call at start-up, before the app takes requests: no upload of
+    /// this store is in progress then, and no acknowledged file is ever a temporary one.
+    /// </summary>
+    /// <returns>The names of the files removed.</returns>
+    public IReadOnlyList<string> RemoveOrphanedUploads()
+    {
+        if (!Directory.Exists(_root))
+        {
+            return [];
+        }
+
+        var removed = new List<string>();
+        foreach (var path in Directory.EnumerateFiles(_root, ".incoming-*", SearchOption.TopDirectoryOnly))
+        {
+            try
+            {
+                File.Delete(path);
+                removed.Add(Path.GetFileName(path));
+            }
+            catch (IOException)
+            {
+                // Held open by something else: left for the next start.
+            }
+        }
+
+        return removed;
+    }
+
     /// <summary>Path of a stored file by hash (the file may not exist).</summary>
     public string PathFor(string sha256)
     {

@@ -33,16 +33,26 @@ using (var scope = app.Services.CreateScope())
     }
 }
 
-app.UseEventReviewOperations();
+var orphans = app.Services.GetRequiredService<AttachmentStore>().RemoveOrphanedUploads();
+if (orphans.Count > 0)
+{
+    app.Services.GetRequiredService<ILoggerFactory>().CreateLogger("EventReview").LogWarning(
+        "Removed {Count} unfinished upload file(s) left by an earlier run: {Files}", orphans.Count, string.Join(", ", orphans));
+}
+
+// Security headers first, so that every answer carries them (the "HTTPS needed" page and error answers too).
 app.UseEventReviewSecurityHeaders();
+app.UseEventReviewOperations();
 if (!app.Environment.IsDevelopment())
 {
     app.UseExceptionHandler("/error", createScopeForErrors: true);
 }
 
-app.UseWhen(ctx => !ctx.Request.Path.StartsWithSegments("/api") && !ctx.Request.Path.StartsWithSegments("/openapi"),
+app.UseApiProblems();
+app.UseWhen(ctx => !ApiProblems.IsProblemPath(ctx.Request.Path),
     branch => branch.UseStatusCodePagesWithReExecute("/not-found", createScopeForStatusCodePages: true));
 app.UseAuthentication();
+app.UseCrossSiteRequestGuard();
 app.UseRateLimiter();
 app.UseAuthorization();
 app.UseAntiforgery();

@@ -90,6 +90,9 @@ public static class WebServiceCollectionExtensions
         services.AddMudServices();
         services.AddOpenApi();
         services.AddProblemDetails();
+
+        // A query or route value of the wrong type throws (instead of an empty 400), so the problem answer can name it.
+        services.Configure<Microsoft.AspNetCore.Routing.RouteHandlerOptions>(o => o.ThrowOnBadRequest = true);
         services.ConfigureHttpJsonOptions(o => o.SerializerOptions.NumberHandling = System.Text.Json.Serialization.JsonNumberHandling.Strict);
         return services;
     }

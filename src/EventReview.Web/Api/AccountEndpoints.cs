@@ -13,16 +13,28 @@ namespace EventReview.Web.Api;
 /// </summary>
 public static class AccountEndpoints
 {
+    /// <summary>Longest email accepted on the sign-in form (RFC 5321 path limit), characters.</summary>
+    public const int MaxEmailLength = 254;
+
+    /// <summary>Longest password accepted on the sign-in form, characters.</summary>
+    public const int MaxPasswordLength = 1024;
+
     public static IEndpointRouteBuilder MapAccountEndpoints(this IEndpointRouteBuilder app)
     {
         // [FromForm] parameters make the framework validate the antiforgery token before this body runs (400 otherwise).
         app.MapPost("/account/signin", async ([FromForm] string? email, [FromForm] string? password, [FromForm] string? returnUrl,
             SignInManager<AppUser> signIn, AccountAudit audit, HttpContext http) =>
         {
-            var back = SafeReturn(returnUrl);
+            var back = ReturnUrls.Safe(returnUrl);
             if (string.IsNullOrWhiteSpace(email) || string.IsNullOrEmpty(password))
             {
                 return Results.Redirect($"/signin?error=missing&returnUrl={Uri.EscapeDataString(back)}");
+            }
+
+            // An email longer than any address, or a password longer than any real one, is refused before hashing it.
+            if (email.Length > MaxEmailLength || password.Length > MaxPasswordLength)
+            {
+                return Results.Redirect($"/signin?error=too-long&returnUrl={Uri.EscapeDataString(back)}");
             }
 
             var address = ClientAddress.Of(http);
@@ -57,7 +69,4 @@ public static class AccountEndpoints
         });
         return app;
     }
-
-    private static string SafeReturn(string? url) =>
-        !string.IsNullOrEmpty(url) && url.StartsWith('/') && !url.StartsWith("//", StringComparison.Ordinal) && !url.StartsWith("/\\", StringComparison.Ordinal) ? url : "/cases";
 }

@@ -51,6 +51,10 @@ public static class ApiResults
         {
             return Problem(StatusCodes.Status413PayloadTooLarge, "File too large", "The request body is larger than the upload limit.");
         }
+        catch (MalformedRequestException ex)
+        {
+            return Problem(StatusCodes.Status400BadRequest, "Malformed request", ex.Message, field: ex.Field);
+        }
         catch (ArgumentException ex)
         {
             return Problem(StatusCodes.Status422UnprocessableEntity, "Invalid value", ex.Message.Split(" (Parameter", 2)[0], field: ex.ParamName);
@@ -61,9 +65,10 @@ public static class ApiResults
     public static async Task<(T? Value, IResult? Error)> ReadJson<T>(HttpRequest request)
         where T : class
     {
-        if (request.ContentType is null || !request.ContentType.Contains("json", StringComparison.OrdinalIgnoreCase))
+        if (!IsJson(request.ContentType))
         {
-            return (null, Problem(StatusCodes.Status415UnsupportedMediaType, "JSON expected", "Send the body as application/json."));
+            return (null, Problem(StatusCodes.Status415UnsupportedMediaType, "JSON expected",
+                $"Send the body as application/json (got {(string.IsNullOrEmpty(request.ContentType) ? "no content type" : $"'{request.ContentType}'")}); nothing was stored."));
         }
 
         if (request.ContentLength > MaxJsonBytes)
@@ -85,6 +90,12 @@ public static class ApiResults
             body.Write(buffer, 0, read);
         }
 
+        // JSON is UTF-8 (RFC 8259 §8.1); the serializer would not look inside members it skips, so check the whole body.
+        if (!System.Text.Unicode.Utf8.IsValid(body.GetBuffer().AsSpan(0, (int)body.Length)))
+        {
+            return (null, Problem(StatusCodes.Status400BadRequest, "Malformed JSON", "Malformed JSON at '(body)': the text is not valid UTF-8 (send JSON encoded as UTF-8).", field: "(body)"));
+        }
+
         body.Position = 0;
         try
         {
@@ -94,10 +105,38 @@ public static class ApiResults
         catch (JsonException ex)
         {
             var field = string.IsNullOrEmpty(ex.Path) || ex.Path == "$" ? "(body)" : ex.Path.TrimStart('$', '.');
+            if (JsonNumbers.OutOfRange(body.ToArray(), ex.Path, typeof(T)) is { } number)
+            {
+                // Well-formed JSON holding a number no field can hold (1e400, a GPS time of 30 digits): a value out of range.
+                return (null, Problem(StatusCodes.Status422UnprocessableEntity, "Invalid value",
+                    $"{field}: the number {number} is out of range (it is not a finite number this field can hold); nothing was stored.", field: field));
+            }
+
             return (null, Problem(StatusCodes.Status400BadRequest, "Malformed JSON",
                 $"Malformed JSON at '{field}' (line {ex.LineNumber + 1}): {Explain(ex)}", field: field));
         }
     }
+
+    /// <summary>A 400 naming the first null member of a JSON array (<c>"arrivals": [null]</c>), or null when there is none.</summary>
+    public static IResult? NullMember<TItem>(IReadOnlyList<TItem?>? list, string field)
+        where TItem : class
+    {
+        for (var i = 0; i < (list?.Count ?? 0); i++)
+        {
+            if (list![i] is null)
+            {
+                return Problem(StatusCodes.Status400BadRequest, "Malformed JSON", $"Malformed JSON at '{field}[{i}]': expected an object, got null.", field: $"{field}[{i}]");
+            }
+        }
+
+        return null;
+    }
+
+    /// <summary>True for application/json and application/*+json (with any parameters, e.g. charset).</summary>
+    public static bool IsJson(string? contentType) =>
+        Microsoft.Net.Http.Headers.MediaTypeHeaderValue.TryParse(contentType, out var media) && media.MediaType.HasValue &&
+        (media.MediaType.Equals("application/json", StringComparison.OrdinalIgnoreCase) ||
+         (media.Type.Equals("application", StringComparison.OrdinalIgnoreCase) && media.SubType.EndsWith("+json", StringComparison.OrdinalIgnoreCase)));
 
     private static IResult TooLarge() => Problem(StatusCodes.Status413PayloadTooLarge, "JSON body too large",
         $"The JSON body is larger than {MaxJsonBytes / 1024} KiB; nothing was stored.");

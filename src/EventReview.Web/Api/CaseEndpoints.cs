@@ -9,6 +9,9 @@ namespace EventReview.Web.Api;
 /// <summary>The JSON HTTP API under /api (documented at /openapi/v1.json).</summary>
 public static class CaseEndpoints
 {
+    /// <summary>Longest text search accepted by <c>GET /api/cases?q=</c>, characters.</summary>
+    public const int MaxSearchLength = 200;
+
     public static IEndpointRouteBuilder MapEventReviewApi(this IEndpointRouteBuilder app)
     {
         // Each endpoint names its own policy (policies on a group add up, so none is set here: a pipeline token may open
@@ -18,9 +21,9 @@ public static class CaseEndpoints
         api.MapPost("/cases", async (HttpRequest request, ClaimsPrincipal user, CaseService cases) =>
         {
             var (body, error) = await ApiResults.ReadJson<OpenCaseRequest>(request);
-            if (error is not null)
+            if ((error ?? ApiResults.NullMember(body!.Arrivals, "arrivals")) is { } refused)
             {
-                return error;
+                return refused;
             }
 
             return await ApiResults.Guard(async () =>
@@ -43,8 +46,10 @@ public static class CaseEndpoints
             if (!string.IsNullOrWhiteSpace(state))
             {
                 s = Enum.GetValues<CaseState>().Cast<CaseState?>().FirstOrDefault(x => CaseDtos.Api(x!.Value) == state.Trim().ToLowerInvariant())
-                    ?? throw new ArgumentException($"state '{state}' is not one of open, in-review, awaiting-decision, closed.", nameof(state));
+                    ?? throw new ArgumentException($"state '{(state.Length > 40 ? state[..40] + "..." : state)}' is not one of open, in-review, awaiting-decision, closed.", nameof(state));
             }
+
+            Core.Inputs.InputGuard.Text(q, MaxSearchLength, nameof(q));
 
             var page = await cases.ListAsync(user, s, q, offset, limit);
             return Results.Ok(new CaseDtos.Page<CaseDtos.CaseSummary>(page.Total, page.Offset, page.Limit, page.Cases.Select(CaseDtos.Summary).ToList()));
@@ -101,9 +106,10 @@ public static class CaseEndpoints
         api.MapPost("/cases/{id:int}/items/{key}/attachments", (int id, string key, HttpRequest request, ClaimsPrincipal user, CaseService cases, IOptions<EventReviewOptions> options) =>
             ApiResults.Guard(async () =>
             {
-                if (!request.HasFormContentType)
+                if (!MultipartForms.IsMultipart(request.ContentType))
                 {
-                    throw new ArgumentException("Send the file as multipart/form-data with a field named 'file'.", "file");
+                    return ApiResults.Problem(StatusCodes.Status415UnsupportedMediaType, "Multipart form expected",
+                        $"Send the file as multipart/form-data with a field named 'file' (got {(string.IsNullOrEmpty(request.ContentType) ? "no content type" : $"'{request.ContentType}'")}); nothing was stored.");
                 }
 
                 var max = options.Value.MaxUploadBytes;
@@ -112,9 +118,14 @@ public static class CaseEndpoints
                     return ApiResults.Problem(StatusCodes.Status413PayloadTooLarge, "File too large", $"The upload limit is {max / (1024 * 1024)} MB.");
                 }
 
-                var form = await request.ReadFormAsync();
+                var form = await MultipartForms.ReadAsync(request);
                 var file = form.Files.GetFile("file") ?? form.Files.FirstOrDefault()
                     ?? throw new ArgumentException("The form has no file; send it in a field named 'file'.", "file");
+                if (form["description"].Count > 1)
+                {
+                    throw new MalformedRequestException("description", "The form has more than one 'description' field; send one.");
+                }
+
                 await using var stream = file.OpenReadStream();
                 var r = await cases.AppendAttachmentAsync(user, id, key, stream, file.FileName, string.IsNullOrWhiteSpace(file.ContentType) ? "application/octet-stream" : file.ContentType,
                     form["description"].ToString(), max);

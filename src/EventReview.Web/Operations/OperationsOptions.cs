@@ -25,8 +25,9 @@ public sealed class OperationsOptions
     public bool? JsonLogs { get; set; }
 
     /// <summary>
-    /// Addresses of reverse proxies whose X-Forwarded-For/-Proto headers are trusted (default: loopback only).
-    /// Requests from anywhere else keep their own address and scheme.
+    /// Addresses or networks of reverse proxies whose X-Forwarded-For/-Proto headers are trusted (default: none, not
+    /// even loopback; a proxy on the same machine is listed as <c>127.0.0.1</c> or <c>::1</c>). Requests from anywhere
+    /// else keep their own address and scheme.
     /// </summary>
     public string[] TrustedProxies { get; set; } = [];
 

@@ -49,11 +49,17 @@ public static class OperationsSetup
         return builder;
     }
 
-    /// <summary>Trust X-Forwarded-For and X-Forwarded-Proto only from loopback and the configured proxies.</summary>
+    /// <summary>
+    /// Trust X-Forwarded-For and X-Forwarded-Proto only from the configured proxies. The framework's default trusts
+    /// loopback; that is removed, because any program on the machine (or a local port forward) could then claim any
+    /// client address and HTTPS. A proxy on the same host is listed like any other (<c>127.0.0.1</c>, <c>::1</c>).
+    /// </summary>
     public static void ConfigureProxies(ForwardedHeadersOptions o, IEnumerable<string> trusted)
     {
         o.ForwardedHeaders = ForwardedHeaders.XForwardedFor | ForwardedHeaders.XForwardedProto;
         o.ForwardLimit = 1;
+        o.KnownProxies.Clear();
+        o.KnownIPNetworks.Clear();
         foreach (var entry in trusted.Where(t => !string.IsNullOrWhiteSpace(t)).Select(t => t.Trim()))
         {
             if (entry.Contains('/'))
@@ -111,7 +117,7 @@ public static class OperationsSetup
             <p>The request arrived over plain HTTP. Sign-in cookies on a team server are sent only over HTTPS, so the pages
             cannot work this way. Open the server's https:// address. If you run the server: put it behind the reverse proxy
             of the operations guide (docs/operations.md), which terminates HTTPS and sends <code>X-Forwarded-Proto: https</code>,
-            and list the proxy in <code>EventReview:Operations:TrustedProxies</code> unless it runs on this machine.</p>
+            and list the proxy's address in <code>EventReview:Operations:TrustedProxies</code> (also when it runs on this machine: <code>127.0.0.1</code>).</p>
             <p>The API (<code>/api</code>) and <code>/healthz</code> still answer over HTTP for tools on the server itself.</p>
             </body></html>
             """);

@@ -63,7 +63,7 @@ public sealed class CaseApiTests(EventReviewFactory app) : IClassFixture<EventRe
         Assert.Equal("application/problem+json", response.Content.Headers.ContentType?.MediaType);
         var problem = await response.JsonAsync();
         Assert.Contains("'ZZ9'", (string?)problem["detail"], StringComparison.Ordinal);
-        Assert.Equal("arrivals[0]", (string?)problem["field"]);
+        Assert.Equal("arrivals[0].site", (string?)problem["field"]);
         Assert.Equal(422, problem["status"]!.GetValue<int>());
     }
 
@@ -119,7 +119,7 @@ public sealed class CaseApiTests(EventReviewFactory app) : IClassFixture<EventRe
     [InlineData("""{"candidateId": "TC-NEG", "gpsTime": -3}""", "gpsTime")]
     [InlineData("""{"candidateId": "TC-CL", "gpsTime": 1400000000.5, "checklist": "no-such-list"}""", "checklist")]
     [InlineData("""{"candidateId": "TC-FAR", "gpsTime": 1400000000.5, "arrivals": [{"site": "KP", "gpsTime": 1400000003.5, "snr": 8}]}""", "arrivals")]
-    [InlineData("""{"candidateId": "TC-NOSITE", "gpsTime": 1400000000.5, "arrivals": [{"gpsTime": 1400000000.5}]}""", "arrivals[0]")]
+    [InlineData("""{"candidateId": "TC-NOSITE", "gpsTime": 1400000000.5, "arrivals": [{"gpsTime": 1400000000.5}]}""", "arrivals[0].site")]
     public async Task A_missing_or_invalid_field_is_refused_with_422_naming_it(string body, string field)
     {
         var client = await app.As(Who.Coordinator);
@@ -341,7 +341,7 @@ public sealed class CaseApiTests(EventReviewFactory app) : IClassFixture<EventRe
     }
 
     [Fact]
-    public async Task An_attachment_request_without_a_file_is_a_422_naming_the_field()
+    public async Task An_attachment_request_without_a_file_is_a_422_naming_the_field_and_one_that_is_not_a_form_a_415()
     {
         var client = await app.As(Who.Reviewer);
         var id = await client.CaseIdAsync("ER-C-0142");
@@ -352,7 +352,8 @@ public sealed class CaseApiTests(EventReviewFactory app) : IClassFixture<EventRe
 
         Assert.Equal(HttpStatusCode.UnprocessableEntity, response.StatusCode);
         Assert.Equal("file", (string?)(await response.JsonAsync())["field"]);
-        Assert.Equal(HttpStatusCode.UnprocessableEntity, notMultipart.StatusCode);
+        Assert.Equal(HttpStatusCode.UnsupportedMediaType, notMultipart.StatusCode);
+        Assert.Contains("multipart/form-data", (string?)(await notMultipart.JsonAsync())["detail"], StringComparison.Ordinal);
     }
 
     [Fact]

@@ -69,6 +69,9 @@ public partial class EventReviewFactory : WebApplicationFactory<Program>, IAsync
         }
     }
 
+    /// <summary>The origin of the in-memory server, as a browser on its pages would send it in an Origin header.</summary>
+    public const string OwnOrigin = "http://localhost";
+
     /// <summary>A client that follows no redirects and keeps no identity.</summary>
     public HttpClient Anonymous() => CreateClient(new WebApplicationFactoryClientOptions { AllowAutoRedirect = false, HandleCookies = true });
 
@@ -160,6 +163,8 @@ public partial class EventReviewFactory : WebApplicationFactory<Program>, IAsync
             throw new InvalidOperationException($"Sign-in as {account.Email} failed: {(int)post.StatusCode} to {post.Headers.Location}.");
         }
 
+        // A browser names the page's origin on every write; the app refuses cookie writes from other origins.
+        client.DefaultRequestHeaders.Add("Origin", OwnOrigin);
         return client;
     }
 

@@ -11,7 +11,8 @@ namespace EventReview.Web.Tests.Operations;
 /// The team-server start of docs/operations.md, for real: the built app in Production (no demo), started from a
 /// folder that is not its own, its settings only in environment variables as a systemd environment file gives them;
 /// the first coordinator and a pipeline token made with the command-line tool reading the same variables; a browser
-/// behind a proxy (X-Forwarded-For/-Proto from loopback); then the JSON log is read whole.
+/// behind a proxy on the same machine (X-Forwarded-For/-Proto from loopback, listed as a trusted proxy); then the JSON
+/// log is read whole.
 /// </summary>
 public sealed class TeamServerStartTests
 {
@@ -30,6 +31,9 @@ public sealed class TeamServerStartTests
             ["ASPNETCORE_ENVIRONMENT"] = "Production",
             ["EventReview__DataDirectory"] = data,
             ["EventReview__SeedDemo"] = "false",
+
+            // The proxy of the guide runs on this machine; it must be listed (loopback is not trusted by default).
+            ["EventReview__Operations__TrustedProxies__0"] = "127.0.0.1",
         };
         if (provider == "Postgres")
         {
@@ -143,7 +147,7 @@ public sealed class TeamServerStartTests
 
     private static HttpRequestMessage ViaProxy(HttpRequestMessage request)
     {
-        // What the nginx example sends; the app trusts it because the connection comes from loopback.
+        // What the nginx example sends; the app trusts it because the connection comes from 127.0.0.1, listed in TrustedProxies.
         request.Headers.Add("X-Forwarded-For", "203.0.113.7");
         request.Headers.Add("X-Forwarded-Proto", "https");
         return request;
