@@ -127,4 +127,31 @@ public sealed class AttachmentStoreTests : IDisposable
 
         Assert.False(_store.Verify(sha));
     }
+
+    [Fact]
+    public async Task Removing_orphaned_uploads_deletes_only_unfinished_temporary_files()
+    {
+        var (sha, _) = await _store.SaveAsync(new MemoryStream("kept"u8.ToArray()), 1024);
+        var orphans = new[] { ".incoming-0123abcd", ".incoming-" + Guid.NewGuid().ToString("N") };
+        foreach (var o in orphans)
+        {
+            await File.WriteAllBytesAsync(Path.Combine(Root, o), new byte[100]);
+        }
+
+        var other = Path.Combine(Root, "notes.txt");
+        await File.WriteAllTextAsync(other, "not an upload");
+
+        var removed = _store.RemoveOrphanedUploads();
+
+        Assert.Equal(orphans.Order(StringComparer.Ordinal), removed.Order(StringComparer.Ordinal));
+        Assert.Equal(new[] { _store.PathFor(sha), other }.Order(StringComparer.Ordinal), StoredFiles().Order(StringComparer.Ordinal));
+        Assert.Empty(_store.RemoveOrphanedUploads());
+    }
+
+    [Fact]
+    public void Removing_orphaned_uploads_from_a_store_never_used_does_nothing()
+    {
+        Assert.Empty(_store.RemoveOrphanedUploads());
+        Assert.False(Directory.Exists(Root));
+    }
 }

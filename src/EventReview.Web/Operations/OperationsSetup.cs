@@ -56,15 +56,17 @@ public static class OperationsSetup
     /// </summary>
     public static void ConfigureProxies(ForwardedHeadersOptions o, IEnumerable<string> trusted)
     {
-        o.ForwardedHeaders = ForwardedHeaders.XForwardedFor | ForwardedHeaders.XForwardedProto;
         o.ForwardLimit = 1;
         o.KnownProxies.Clear();
         o.KnownIPNetworks.Clear();
+
+        // With both lists empty the framework would believe every sender: read no forwarded header at all instead.
+        o.ForwardedHeaders = ForwardedHeaders.None;
         foreach (var entry in trusted.Where(t => !string.IsNullOrWhiteSpace(t)).Select(t => t.Trim()))
         {
-            if (entry.Contains('/'))
+            if (entry.Contains('/') && System.Net.IPNetwork.TryParse(entry, out var network))
             {
-                o.KnownIPNetworks.Add(System.Net.IPNetwork.Parse(entry));
+                o.KnownIPNetworks.Add(network);
             }
             else if (IPAddress.TryParse(entry, out var address))
             {
@@ -74,6 +76,8 @@ public static class OperationsSetup
             {
                 throw new ArgumentException($"EventReview:Operations:TrustedProxies entry '{entry}' is neither an IP address nor a network like 10.0.0.0/8.", nameof(trusted));
             }
+
+            o.ForwardedHeaders = ForwardedHeaders.XForwardedFor | ForwardedHeaders.XForwardedProto;
         }
     }
 
