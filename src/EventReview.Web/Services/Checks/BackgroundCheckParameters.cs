@@ -25,6 +25,15 @@ public sealed record BackgroundCheckParameters(
     /// <summary>The step must be at least this many times the window ("much longer"; common practice).</summary>
     public const double MinStepOverWindow = 10.0;
 
+    /// <summary>Longest slide step accepted, s (about 116 days, longer than any analysed stretch).</summary>
+    public const double MaxStepSeconds = 1e7;
+
+    /// <summary>Largest ranking statistic accepted (SNR-like statistics are far below it).</summary>
+    public const double MaxCandidateStatistic = 1e6;
+
+    /// <summary>Longest observing time accepted, s (about a century).</summary>
+    public const double MaxObservingTimeSeconds = 3.2e9;
+
     /// <summary>Largest K accepted from the app (2K slides per pair).</summary>
     public const int MaxSlidesK = 100_000;
 
@@ -59,9 +68,9 @@ public sealed record BackgroundCheckParameters(
             throw new ArgumentException("The timing tolerance must be between 0 and 1000 ms.", nameof(ToleranceMs));
         }
 
-        if (!double.IsFinite(StepSeconds) || StepSeconds <= 0)
+        if (!double.IsFinite(StepSeconds) || StepSeconds <= 0 || StepSeconds > MaxStepSeconds)
         {
-            throw new ArgumentException("The slide step must be a positive number of seconds.", nameof(StepSeconds));
+            throw new ArgumentException($"The slide step must be a positive number of seconds, at most {MaxStepSeconds:0.#e0} s.", nameof(StepSeconds));
         }
 
         if (SlidesK < 1 || SlidesK > MaxSlidesK)
@@ -69,14 +78,14 @@ public sealed record BackgroundCheckParameters(
             throw new ArgumentException($"K (slides each way) must be between 1 and {MaxSlidesK:N0}.", nameof(SlidesK));
         }
 
-        if (CandidateStatistic is { } x && (!double.IsFinite(x) || x <= 0))
+        if (CandidateStatistic is { } x && (!double.IsFinite(x) || x <= 0 || x > MaxCandidateStatistic))
         {
-            throw new ArgumentException("The candidate's ranking statistic must be a positive number.", nameof(CandidateStatistic));
+            throw new ArgumentException($"The candidate's ranking statistic must be a positive number, at most {MaxCandidateStatistic:0.#e0}.", nameof(CandidateStatistic));
         }
 
-        if (ObservingTimeSeconds is { } t && (!double.IsFinite(t) || t <= 0))
+        if (ObservingTimeSeconds is { } t && (!double.IsFinite(t) || t <= 0 || t > MaxObservingTimeSeconds))
         {
-            throw new ArgumentException("The observing time must be a positive number of seconds.", nameof(ObservingTimeSeconds));
+            throw new ArgumentException($"The observing time must be a positive number of seconds, at most {MaxObservingTimeSeconds:0.#e0} s (about a century).", nameof(ObservingTimeSeconds));
         }
     }
 
