@@ -13,25 +13,28 @@ namespace EventReview.Core.Inputs;
 public static class HiddenCharacters
 {
     /// <summary>The first hidden character of <paramref name="text"/> as "U+XXXX", or null when there is none.</summary>
-    public static string? FirstIn(string text)
+    public static string? FirstIn(string text) => Find(text) is var (code, _) && code >= 0 ? $"U+{code:X4}" : null;
+
+    /// <summary>The code point of the first hidden character and its position (1-based, in UTF-16 units), or (-1, -1).</summary>
+    public static (int CodePoint, int Position) Find(string text)
     {
         ArgumentNullException.ThrowIfNull(text);
         for (var i = 0; i < text.Length; i++)
         {
             if (Rune.DecodeFromUtf16(text.AsSpan(i), out var rune, out var used) != System.Buffers.OperationStatus.Done)
             {
-                return $"U+{(int)text[i]:X4}";
+                return (text[i], i + 1);
             }
 
             if (IsHidden(rune))
             {
-                return $"U+{rune.Value:X4}";
+                return (rune.Value, i + 1);
             }
 
             i += used - 1;
         }
 
-        return null;
+        return (-1, -1);
     }
 
     /// <summary>True for a character that is invisible, reorders text, or is a control character.</summary>

@@ -71,9 +71,10 @@ public static class InputGuard
             throw new ArgumentException($"{field} must be at most {maxLength} characters (got {id.Length}).", field);
         }
 
-        if (HiddenCharacters.FirstIn(id) is { } hidden)
+        var (code, position) = HiddenCharacters.Find(id);
+        if (code >= 0)
         {
-            throw new ArgumentException($"{field} must hold only visible characters; it contains {hidden}, an invisible, control or bidirectional character.", field);
+            throw new ArgumentException($"{field} must hold only visible characters; character {position} is U+{code:X4}, an invisible, control or bidirectional character.", field);
         }
 
         return id;

@@ -41,4 +41,12 @@ public class HiddenCharactersTests
         Assert.Equal("U+D800", HiddenCharacters.FirstIn("TC-\uD800"));
         Assert.Equal("U+DC00", HiddenCharacters.FirstIn("\uDC00TC"));
     }
+
+    [Fact]
+    public void The_position_of_the_first_hidden_character_is_given_so_a_reader_can_find_it()
+    {
+        Assert.Equal((0x202E, 4), HiddenCharacters.Find("TC-\u202Eexe.1"));
+        Assert.Equal((0x200B, 6), HiddenCharacters.Find("😀TC-\u200B")); // the emoji is two UTF-16 units
+        Assert.Equal((-1, -1), HiddenCharacters.Find("TC-0001"));
+    }
 }

@@ -76,6 +76,6 @@ public sealed class ReturnUrlTests(EventReviewFactory app) : IClassFixture<Event
 
         Assert.Equal(HttpStatusCode.Redirect, response.StatusCode);
         var page = await client.GetStringAsync(response.Headers.Location!.OriginalString);
-        Assert.Contains("longer than any account", page, StringComparison.Ordinal);
+        Assert.Contains("That email or password is too long", page, StringComparison.Ordinal);
     }
 }
