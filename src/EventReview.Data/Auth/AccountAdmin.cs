@@ -24,9 +24,16 @@ public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<Identit
     public async Task<(AppUser User, string Password, bool Generated)> CreateUserAsync(string email, string role, string? password, string? displayName)
     {
         email = (email ?? string.Empty).Trim();
-        if (!email.Contains('@', StringComparison.Ordinal) || email.Length > 256)
+        if (!email.Contains('@', StringComparison.Ordinal) || email.Length > 254)
         {
-            throw new ArgumentException($"'{email}' is not an email address.", nameof(email));
+            throw new ArgumentException($"'{(email.Length > 60 ? email[..60] + "..." : email)}' is not an email address (at most 254 characters, with an @).", nameof(email));
+        }
+
+        // Names and addresses are shown in the timeline and the sign-in audit: no hidden or reordering characters.
+        Core.Inputs.InputGuard.Identifier(email, 254, nameof(email));
+        if (!string.IsNullOrWhiteSpace(displayName))
+        {
+            displayName = Core.Inputs.InputGuard.Identifier(displayName, Core.Inputs.InputLimits.MaxNameLength, nameof(displayName));
         }
 
         if (!Roles.IsKnown(role))

@@ -78,6 +78,9 @@ public sealed class ApiToken
             throw new ArgumentException("Token name must be 1-100 characters.", nameof(name));
         }
 
+        // The name is shown as the actor of every change the token makes: what is shown must be what is stored.
+        Core.Inputs.InputGuard.Identifier(name, 100, nameof(name));
+
         var secret = Prefix + Convert.ToHexStringLower(RandomNumberGenerator.GetBytes(24));
         return (new ApiToken { Name = name, Hash = HashOf(secret), Role = Roles.Pipeline, CreatedBy = createdBy, CreatedAt = now,
             Scopes = TokenScopes.Join(scopeList), ExpiresAt = now.AddDays(days) }, secret);

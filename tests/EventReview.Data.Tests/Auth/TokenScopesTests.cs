@@ -42,4 +42,11 @@ public sealed class TokenScopesTests
         token.Revoke(now.AddDays(1));
         Assert.Equal(TokenState.Revoked, token.StateAt(now.AddDays(200)));
     }
+
+    [Theory]
+    [InlineData("search A\u202E")]
+    [InlineData("\u200Bsearch A")]
+    [InlineData("search\u0007A")]
+    public void A_token_name_with_a_hidden_or_reordering_character_is_refused(string name) =>
+        Assert.Equal("name", Assert.Throws<ArgumentException>(() => ApiToken.Create(name, "tests", DateTimeOffset.UnixEpoch)).ParamName);
 }
