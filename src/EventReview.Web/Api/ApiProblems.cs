@@ -21,7 +21,13 @@ public static class ApiProblems
     {
         app.UseWhen(ctx => IsProblemPath(ctx.Request.Path), branch =>
         {
-            branch.UseExceptionHandler(new ExceptionHandlerOptions { ExceptionHandler = WriteExceptionAsync });
+            branch.UseExceptionHandler(new ExceptionHandlerOptions
+            {
+                ExceptionHandler = WriteExceptionAsync,
+
+                // A request the framework could not read is the caller's mistake, answered 4xx: not logged as a server error.
+                SuppressDiagnosticsCallback = c => c.Exception is BadHttpRequestException,
+            });
             branch.UseStatusCodePages(new StatusCodePagesOptions { HandleAsync = ctx => WriteStatusAsync(ctx.HttpContext) });
             branch.Use(static (context, next) =>
             {

@@ -84,6 +84,31 @@ public sealed class MalformedInputTests(EventReviewFactory app) : IClassFixture<
     }
 
     [Fact]
+    public async Task The_reported_poison_snr_is_refused_naming_the_field_and_every_page_and_export_still_reads()
+    {
+        // The reported request: a finite SNR whose square overflows stored a case with an infinite network SNR, answered
+        // 500, and from then on its page, the case list and its dossier failed.
+        var pipeline = await app.As(Who.TokenPipeline);
+        var candidate = ApiCalls.NewCandidateId();
+        var before = await StateAsync();
+        var body = $$"""{"candidateId": "{{candidate}}", "gpsTime": 1400000000.125, "arrivals": [{"site": "KP", "gpsTime": 1400000000.127, "snr": 1e308}]}""";
+
+        using var response = await pipeline.PostAsync("/api/cases", ApiCalls.Json(body));
+
+        Assert.Equal(HttpStatusCode.UnprocessableEntity, response.StatusCode);
+        var problem = await response.JsonAsync();
+        Assert.Equal("arrivals[0].snr", (string?)problem["field"]);
+        Assert.Contains("from 0 to 10000", (string?)problem["detail"], StringComparison.Ordinal);
+        Assert.Equal(before, await StateAsync());
+        var reader = await app.As(Who.Observer);
+        Assert.Empty((await (await reader.GetAsync($"/api/cases?q={candidate}")).JsonAsync())["items"]!.AsArray());
+        Assert.Equal(HttpStatusCode.OK, (await reader.GetAsync("/cases")).StatusCode);
+        Assert.Equal(HttpStatusCode.OK, (await reader.GetAsync("/api/cases")).StatusCode);
+        var id = await reader.CaseIdAsync("ER-C-0142");
+        Assert.Equal(HttpStatusCode.OK, (await reader.GetAsync($"/cases/{id}")).StatusCode);
+    }
+
+    [Fact]
     public async Task A_5_mb_single_line_case_body_is_refused_as_too_large_and_creates_nothing()
     {
         var candidate = ApiCalls.NewCandidateId();
