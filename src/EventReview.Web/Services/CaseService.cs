@@ -146,47 +146,13 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
 
         await using var db = await dbFactory.CreateDbContextAsync(ct);
         var template = templates.Find(string.IsNullOrWhiteSpace(request.Checklist) ? "candidate-review" : request.Checklist.Trim())
-            ?? throw new ArgumentException($"checklist '{Shown(request.Checklist)}' is not a known template (known: {string.Join(", ", templates.All.Select(t => t.Name))}).", "checklist");
+            ?? throw new ArgumentException($"checklist '{OpenCaseInput.Shown(request.Checklist)}' is not a known template (known: {string.Join(", ", templates.All.Select(t => t.Name))}).", "checklist");
         var network = await db.Networks.Include(n => n.Sites).AsNoTracking().FirstOrDefaultAsync(ct);
-        var arrivals = new List<CaseArrival>();
-        var index = 0;
-        foreach (var a in request.Arrivals ?? [])
-        {
-            var field = $"arrivals[{index++}]";
-            if (a is null)
-            {
-                throw new ArgumentException($"{field} is null; send an object with site, gpsTime and snr.", field);
-            }
-
-            if (string.IsNullOrWhiteSpace(a.Site))
-            {
-                throw new ArgumentException($"{field}.site is required.", $"{field}.site");
-            }
-
-            if (network?.Find(a.Site) is null)
-            {
-                throw new ArgumentException($"{field}.site: the network has no site '{Shown(a.Site)}' (known: {string.Join(", ", network?.Sites.Select(s => s.Code) ?? [])}).", $"{field}.site");
-            }
-
-            if (a.GpsTime is null)
-            {
-                throw new ArgumentException($"{field}.gpsTime is required.", $"{field}.gpsTime");
-            }
-
-            try
-            {
-                arrivals.Add(new CaseArrival(a.Site, GpsFrom(a.GpsTime.Value, "gpsTime"), a.Snr ?? 0));
-            }
-            catch (ArgumentException ex)
-            {
-                // The arrival names its own field (site, gpsTime, snr); the request calls it arrivals[i].field.
-                throw new ArgumentException($"{field}.{ex.Message.Split(" (Parameter", 2)[0]}", $"{field}.{ex.ParamName}", ex);
-            }
-        }
+        var arrivals = OpenCaseInput.Arrivals(request.Arrivals, network);
 
         // The case is made (and every value checked) before anything is looked up or stored: an invalid request is
         // refused even when its candidate id already has a case.
-        var c = ReviewCase.Open(candidateId, GpsFrom(request.GpsTime.Value, "gpsTime"), request.Search ?? string.Empty,
+        var c = ReviewCase.Open(candidateId, OpenCaseInput.Gps(request.GpsTime.Value, "gpsTime"), request.Search ?? string.Empty,
             request.Summary ?? string.Empty, arrivals, template, user.ToActor(), EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
         var existing = await db.CasesWithEverything().AsNoTracking().FirstOrDefaultAsync(x => x.CandidateId == candidateId, ct);
         if (existing is not null)
@@ -210,21 +176,6 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
             return winner is not null ? (winner, false) : throw new ConflictException("The case could not be stored; try again.");
         }
     }
-
-    private static GpsTime GpsFrom(decimal seconds, string field)
-    {
-        try
-        {
-            return GpsTime.FromSeconds(seconds);
-        }
-        catch (ArgumentOutOfRangeException)
-        {
-            throw new ArgumentOutOfRangeException(field, seconds, $"{field}: a GPS time must be {EventReview.Core.Inputs.GpsRange.Describe()} (got {seconds}).");
-        }
-    }
-
-    /// <summary>A user-supplied value for a message: at most 40 characters.</summary>
-    private static string Shown(string? value) => value is null ? string.Empty : value.Length <= 40 ? value : value[..40] + "...";
 
     /// <summary>Adds a note (see <see cref="AppendNoteAsync"/>) and returns the whole case as it is afterwards, for the pages.</summary>
     public async Task<ReviewCase> AddNoteAsync(ClaimsPrincipal user, int caseId, string itemKey, string markdown, CancellationToken ct = default)
