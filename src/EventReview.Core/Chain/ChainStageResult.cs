@@ -17,6 +17,12 @@ public sealed record ChainStageResult
     /// <summary>1.4826 x median absolute deviation of the off-source residual (floored at 1e-12 x output RMS for round-off).</summary>
     public required double RobustSigma { get; init; }
 
+    /// <summary>
+    /// 1 sigma statistical uncertainty of <see cref="RobustSigma"/>: 1.1664 sigma / sqrt(off-source samples), from the asymptotic
+    /// variance 1.3605 sigma^2 / n of the normalised MAD for Gaussian data (Rousseeuw and Croux 1993, efficiency 36.75 %).
+    /// </summary>
+    public double RobustSigmaUncertainty => OffSourceSamples > 0 ? 1.1664 * RobustSigma / Math.Sqrt(OffSourceSamples) : double.NaN;
+
     /// <summary>Largest |residual - off-source median| inside the on-source window, in robust sigma.</summary>
     public required double MaxExcessSigma { get; init; }
 

@@ -49,6 +49,19 @@ public static class DriftCheck
     public static DriftReport Compare(string siteCode, IReadOnlyDictionary<string, string> frozenItems, IReadOnlyDictionary<string, string> laterItems) =>
         Judge(siteCode, frozenItems, laterItems, null, null);
 
+    /// <summary>
+    /// The status of a frozen record given the drift of every later snapshot against it: "concern" when any changed during
+    /// the freeze period, otherwise "frozen".
+    /// </summary>
+    public static Judgement FreezeStatus(IEnumerable<DriftReport> drifts)
+    {
+        ArgumentNullException.ThrowIfNull(drifts);
+        var concerns = drifts.Where(d => d.IsConcern).ToList();
+        return concerns.Count > 0
+            ? new Judgement(Verdict.Concern, string.Join(" ", concerns.Select(d => d.Summary)))
+            : new Judgement(Verdict.Frozen, "no snapshot captured during the freeze period differs from the frozen one");
+    }
+
     private static DriftReport Judge(string siteCode, IReadOnlyDictionary<string, string> frozenItems, IReadOnlyDictionary<string, string> laterItems,
         DateTimeOffset? capturedAt, bool? during)
     {

@@ -36,4 +36,8 @@ public sealed record ChannelSafety(
     double DeadtimeSeconds,
     double DeadtimeFraction,
     Judgement Judgement,
-    string? Note = null);
+    string? Note = null)
+{
+    /// <summary>1 sigma Poisson uncertainty of <see cref="RateHz"/>, sqrt(N) / T; NaN when no trigger was counted.</summary>
+    public double RateUncertaintyHz => RateTriggers > 0 && RateExposureSeconds > 0 ? Math.Sqrt(RateTriggers) / RateExposureSeconds : double.NaN;
+}

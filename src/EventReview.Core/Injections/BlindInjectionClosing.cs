@@ -49,7 +49,8 @@ public static class BlindInjectionClosing
     /// <param name="openedRecord">The revealed record bytes, or null when not opened.</param>
     /// <param name="caseTime">The case's GPS time.</param>
     /// <param name="arrivals">The case's arrival per site.</param>
-    public static SealState StateOf(string label, byte[]? openedRecord, GpsTime caseTime, IReadOnlyDictionary<string, GpsTime> arrivals)
+    /// <param name="marginSeconds">Margin around each blind injection's span, s (default <see cref="MarginSeconds"/>).</param>
+    public static SealState StateOf(string label, byte[]? openedRecord, GpsTime caseTime, IReadOnlyDictionary<string, GpsTime> arrivals, double marginSeconds = MarginSeconds)
     {
         ArgumentNullException.ThrowIfNull(arrivals);
         if (openedRecord is null)
@@ -57,7 +58,7 @@ public static class BlindInjectionClosing
             return new SealState(label, false, null);
         }
 
-        var report = InjectionOverlap.Find(BlindInjectionRecord.Parse(openedRecord, null), caseTime, arrivals, arrivals.Keys, MarginSeconds);
+        var report = InjectionOverlap.Find(BlindInjectionRecord.Parse(openedRecord, null), caseTime, arrivals, arrivals.Keys, marginSeconds);
         return new SealState(label, true, report);
     }
 }

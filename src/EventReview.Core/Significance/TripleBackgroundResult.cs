@@ -43,6 +43,9 @@ public sealed record TripleBackgroundResult(
     /// <summary>True when the slide p-value is only the floor 1 / (2K + 1).</summary>
     public bool SlidePValueIsFloor => SlidesWithLouder == 0;
 
+    /// <summary>The largest sigma this background time could give over the observing time (nothing as loud at all).</summary>
+    public double MaxReachableSigma => SignificanceBand.MaxReachableSigma(BackgroundSeconds, ObservingTimeSeconds);
+
     /// <summary>Time all three sites analysed at zero lag, s.</summary>
     public double ZeroLagSeconds { get; init; }
 }
