@@ -67,7 +67,7 @@ public static class DataChainSvg
 
     /// <summary>The one-line caption drawn under the stage picture.</summary>
     public static string Caption(ChainStageResult r) => F(
-        $"Stage {r.Stage}: largest on-source excursion {r.MaxExcessSigma:0.0} sigma (threshold {r.ThresholdSigma:0.00}) at GPS {r.MaxExcessGps:0.0000}; {r.OutsideWindowCount} outside the window; {r.SkippedStartSeconds:0.###} s skipped at each end (grey); {r.Judgement.Word}.");
+        $"Stage {r.Stage}: on-source max {r.MaxExcessSigma:0.0} sigma (threshold {r.ThresholdSigma:0.00}); {r.OutsideWindowCount} excursion(s) outside the window; {r.SkippedStartSeconds:0.###} s skipped at each end (grey); {r.Judgement.Word}.");
 
     private static void Polyline(StringBuilder sb, double[] v, Func<int, double> x, double top, double max, string colour)
     {

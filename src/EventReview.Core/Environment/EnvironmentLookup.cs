@@ -71,7 +71,7 @@ public static class EnvironmentLookup
                 var concern = safe != false;
                 hits.Add(new EnvironmentHit(site, trig.Channel, kind.ToString().ToLowerInvariant(), trig.Time.Seconds, offset, trig.Snr,
                     trig.FrequencyHz, w, rate, Poisson.ChanceCoincidence(w, rate), safe, coupling?.Ratio, coupling?.StrainEstimate,
-                    coupling?.Flagged ?? false, concern, coupling is null ? null : $"candidate strain {coupling.CandidateStrainSource}, sensor amplitude {coupling.SensorAmplitudeSource}",
+                    coupling?.Flagged ?? false, concern, coupling is null ? null : $"candidate strain: {coupling.CandidateStrainSource}; sensor amplitude: {coupling.SensorAmplitudeSource}",
                     Math.Sqrt(count) / options.RateWindowSeconds));
                 if (concern)
                 {

@@ -50,8 +50,8 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
             // default candidate statistic: network SNR of the pair's arrivals (rounded to 1e-3 in the plan)
             Assert.Equal(Math.Sqrt((arrivalA.Snr * arrivalA.Snr) + (arrivalB.Snr * arrivalB.Snr)), p.Plan.CandidateStatistic!.Value, 1e-3);
 
-            // the same options written out by hand: window from the plan, step 5 s, K 2000, candidate near site A's arrival
-            var options = TimeSlideOptions.Create(p.Plan.WindowMs, 5.0, 2000) with
+            // the same options written out by hand: window from the plan, step 5 s, the demo's K, candidate near site A's arrival
+            var options = TimeSlideOptions.Create(p.Plan.WindowMs, 5.0, BackgroundDemoStep.SlidesK) with
             {
                 CandidateStatistic = p.Plan.CandidateStatistic!.Value,
                 RemoveCandidateTriggers = true,
@@ -69,7 +69,7 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
             Assert.Equal(direct.BackgroundSeconds, p.Result.BackgroundSeconds);
             Assert.Equal(direct.WithoutCandidateTriggers, p.Result.WithoutCandidateTriggers);
             Assert.Equal(direct.SlidePValue, p.Result.SlidePValue);
-            Assert.Equal(4000, p.Result.Slides);
+            Assert.Equal(2 * BackgroundDemoStep.SlidesK, p.Result.Slides);
             Assert.True(p.Result.Curve.Count <= BackgroundCheckService.CurvePointsKept);
 
             // the candidate's own coincident triggers were found at zero lag, at the arrivals
@@ -82,7 +82,7 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
         Assert.All(pictures, s => Assert.StartsWith("<svg", s, StringComparison.Ordinal));
         Assert.Contains("FAR", record.Summary, StringComparison.Ordinal);
         Assert.Contains("per year", record.Summary, StringComparison.Ordinal);
-        Assert.Contains("4,000 slides", record.Summary, StringComparison.Ordinal);
+        Assert.Contains("10,000 slides", record.Summary, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -92,7 +92,7 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
         var c = await Case(scope, "ER-C-0142");
         var before = c.Item(Item).Computations.Count;
         var stored = Read(Latest(c, Item)!);
-        var parameters = new BackgroundCheckParameters([.. stored.Sites.Select(s => new BackgroundSiteFiles(s.SiteCode, s.TriggersSha256, s.SegmentsSha256))]);
+        var parameters = new BackgroundCheckParameters([.. stored.Sites.Select(s => new BackgroundSiteFiles(s.SiteCode, s.TriggersSha256, s.SegmentsSha256))], SlidesK: BackgroundDemoStep.SlidesK);
 
         var (updated, added, _) = await Service(scope).RunAsync(BackgroundAppFactory.Reviewer, c.Id, Item, parameters);
 

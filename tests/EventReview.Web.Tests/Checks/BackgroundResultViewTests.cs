@@ -47,7 +47,7 @@ public sealed class BackgroundResultViewTests(BackgroundAppFactory app) : IClass
             }
         }
 
-        Assert.Contains("joint:", text, StringComparison.Ordinal);
+        Assert.Contains("joint (headline)", text, StringComparison.Ordinal);
         Assert.Contains("(three sites)", text, StringComparison.Ordinal);
         Assert.DoesNotContain("consistent", view.Markup, StringComparison.Ordinal);
 

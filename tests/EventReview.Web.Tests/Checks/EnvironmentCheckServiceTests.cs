@@ -43,7 +43,7 @@ public sealed class EnvironmentCheckServiceTests(LocalCausesHarness app) : IClas
         // coupling 1.2e-13 strain/T at 60 Hz (tabulated) x SNR 23.5 x 10 pT / 1e-21 = 0.0282 (hand calculation)
         Assert.Equal(0.0282, mag.CouplingRatio!.Value, 6);
         Assert.False(mag.CouplingFlagged);
-        Assert.Equal("candidate strain typed, sensor amplitude typed", mag.CouplingInputs);
+        Assert.Equal("candidate strain: typed; sensor amplitude: typed", mag.CouplingInputs);
         Assert.All(result.Safety!.Channels.Where(ch => ch.Channel.EndsWith("INST-ACT-READBACK", StringComparison.Ordinal)), ch =>
         {
             // the actuator readback fires at all 5 injections: binomial P = q^5 with q from its rate away from the injections
