@@ -17,7 +17,7 @@ public sealed class BackgroundDemoStep(CaseService cases, BackgroundCheckService
 
     public const string ItemKey = "significance.time-slides";
 
-    /// <summary>K of the demo run: slides k = ±1..±K.</summary>
+    /// <summary>K of the demo run (the app's default): slides k = ±1..±K.</summary>
     public const int SlidesK = 5000;
 
     public int Order => 60;

@@ -9,7 +9,8 @@ namespace EventReview.Web.Services.Checks;
 /// <param name="WindowMs">Coincidence window ± in ms for every pair; null = each pair's light-travel time + <paramref name="ToleranceMs"/>.</param>
 /// <param name="ToleranceMs">Timing tolerance added to the light-travel time when the window is not given, in ms.</param>
 /// <param name="StepSeconds">Slide step in s; must be much longer than the window (at least <see cref="MinStepOverWindow"/> × window).</param>
-/// <param name="SlidesK">K: slides k = ±1..±K (2K slides per pair).</param>
+/// <param name="SlidesK">K: slides k = ±1..±K (2K slides per pair; default 5,000, enough for the 90 % bound of a joint
+/// three-site figure over a few days of data to pass 3σ).</param>
 /// <param name="CandidateStatistic">Ranking statistic of the candidate for every pair; null = each pair's network SNR from the case's
 /// arrivals (and, for three sites, the three-site network SNR for the triple).</param>
 /// <param name="ObservingTimeSeconds">Observing time for the false-alarm probability in s; null = each pair's zero-lag coincident analysed time.</param>
@@ -19,7 +20,7 @@ public sealed record BackgroundCheckParameters(
     double? WindowMs = null,
     double ToleranceMs = 5.0,
     double StepSeconds = 5.0,
-    int SlidesK = 2000,
+    int SlidesK = 5000,
     double? CandidateStatistic = null,
     double? ObservingTimeSeconds = null,
     bool RemoveCandidateTriggers = true)
