@@ -1,3 +1,6 @@
+using EventReview.Core.Network;
+using EventReview.Core.Signal;
+using EventReview.Core.Signal.Io;
 using EventReview.Core.Time;
 
 namespace EventReview.Cli;
@@ -46,6 +49,78 @@ internal static class LocalCausesInput
         {
             throw new FormatException($"{option} {path}: {ex.Message}");
         }
+    }
+
+    /// <summary>Reads a text series ("gps_time value" per line), naming the option and file in any error.</summary>
+    public static TimeSeries Series(string path, string option)
+    {
+        if (!File.Exists(path))
+        {
+            throw new FileNotFoundException($"{option}: file '{path}' not found");
+        }
+
+        try
+        {
+            return StrainTextReader.ReadFile(path);
+        }
+        catch (StrainFormatException ex)
+        {
+            throw new FormatException($"{option} {path}: {ex.Message}");
+        }
+    }
+
+    /// <summary>Reads a network file, naming the option in the error.</summary>
+    public static NetworkDefinition Network(string path, string option)
+    {
+        if (!File.Exists(path))
+        {
+            throw new FileNotFoundException($"{option}: file '{path}' not found");
+        }
+
+        try
+        {
+            return NetworkFile.Read(path);
+        }
+        catch (FormatException ex)
+        {
+            throw new FormatException($"{option} {path}: {ex.Message}");
+        }
+    }
+
+    /// <summary>The leap-second state behind the UTC of <paramref name="gps"/>, now from the system clock.</summary>
+    public static LeapSecondNotice Leap(GpsTime gps) => LeapSecondNotice.For(gps, TimeProvider.System.GetUtcNow().UtcDateTime);
+
+    /// <summary>Writes the leap-second warning, if any, to standard error (text output).</summary>
+    public static void WarnLeap(LeapSecondNotice notice)
+    {
+        if (notice.Warning is { } w)
+        {
+            Console.Error.WriteLine("warning: " + w);
+        }
+    }
+
+    /// <summary>Parses repeated CODE=FILE values (site code upper-cased), refusing a site named twice.</summary>
+    public static List<(string Code, string File)> CodeFiles(IEnumerable<string>? values, string option)
+    {
+        var list = new List<(string, string)>();
+        foreach (var v in values ?? [])
+        {
+            var eq = v.IndexOf('=', StringComparison.Ordinal);
+            if (eq <= 0 || eq == v.Length - 1)
+            {
+                throw new ArgumentException($"{option} expects CODE=FILE, got '{v}'.");
+            }
+
+            var code = v[..eq].Trim().ToUpperInvariant();
+            if (list.Any(p => p.Item1 == code))
+            {
+                throw new ArgumentException($"{option} names site {code} twice.");
+            }
+
+            list.Add((code, v[(eq + 1)..]));
+        }
+
+        return list;
     }
 
     /// <summary>Runs a verb body, turning bad input into exit code 2 with a one-line message.</summary>

@@ -2,134 +2,161 @@ using System.CommandLine;
 using System.Diagnostics;
 using System.Globalization;
 using EventReview.Core.Significance;
+using EventReview.Core.Time;
 
 namespace EventReview.Cli.Commands;
 
 /// <summary>
-/// <c>eventreview background</c>: time-slide background of a two-site candidate, its false-alarm rate,
-/// probability and sigma.
+/// <c>eventreview background</c>: time-slide background of a candidate seen by two or three sites, with the same Core code and
+/// verdict as the app (<see cref="BackgroundCheck"/>): every pair, and for three sites the three-site background with a window
+/// per pair and the joint significance. The verdict is the significance band; bounds are marked.
 /// </summary>
 public static class BackgroundCommand
 {
-    /// <summary>The JSON written with --json.</summary>
-    public sealed record Output(int Slides, double BackgroundSeconds, long BackgroundCoincidences, long Louder, double FarHz, bool FarIsBound, double Fap, double Sigma, long ElapsedMs);
+    /// <summary>
+    /// The JSON written with --json. The headline figures are the pair's for two sites and the joint ones for three; the pairs,
+    /// the triple and the joint figure are given in full besides.
+    /// </summary>
+    public sealed record Output(
+        string Verdict,
+        string Reason,
+        string SignificanceBand,
+        int Slides,
+        double BackgroundSeconds,
+        long BackgroundCoincidences,
+        long Louder,
+        double FarHz,
+        bool FarIsBound,
+        double? FarBoundConfidence,
+        double Fap,
+        bool FapIsBound,
+        double Sigma,
+        bool SigmaIsBound,
+        double? SlidePValue,
+        bool SlidePValueIsFloor,
+        IReadOnlyList<BackgroundPairOutcome> Pairs,
+        TripleBackgroundResult? Triple,
+        JointSignificanceResult? Joint,
+        IReadOnlyList<string> Notes,
+        string? CandidateUtc,
+        LeapSecondNotice? LeapSeconds,
+        long ElapsedMs);
 
     public static Command Build()
     {
-        var triggers = new Option<string[]>("--triggers") { Description = "Trigger list of one site as CODE=FILE (CSV: gps_time,snr[,chirp_mass,frequency_hz]); give it once per site, the second site slides.", AllowMultipleArgumentsPerToken = false };
+        var triggers = new Option<string[]>("--triggers") { Description = "Trigger list of one site as CODE=FILE (CSV: gps_time,snr[,chirp_mass,frequency_hz]); give it for two or three sites (the first by code stays fixed)." };
         var segments = new Option<string[]>("--segments") { Description = "Analysed time of one site as CODE=FILE (CSV: start_gps,end_gps); once per site." };
-        var window = new Option<double?>("--window-ms") { Description = "Coincidence window in ms (light-travel time plus tolerance)." };
-        var step = new Option<double?>("--step-s") { Description = "Slide step in s (longer than twice the window)." };
+        var window = new Option<double?>("--window-ms") { Description = "Coincidence window in ms for every pair (default: each pair's light-travel time from --network plus --tolerance-ms)." };
+        var network = new Option<string?>("--network") { Description = "Network file: each pair's window is its light-travel time plus --tolerance-ms." };
+        var tolerance = new Option<double>("--tolerance-ms") { Description = "Timing tolerance added to each light-travel time, ms.", DefaultValueFactory = _ => 5.0 };
+        var step = new Option<double?>("--step-s") { Description = "Slide step in s (at least 10 × every window)." };
         var slides = new Option<int?>("--slides") { Description = "K: slides k = ±1..±K (2K slides)." };
-        var candidate = new Option<double?>("--candidate-stat") { Description = "Ranking statistic (network SNR) of the candidate." };
+        var candidate = new Option<double?>("--candidate-stat") { Description = "Ranking statistic of the candidate: the pair's network SNR for two sites, the three-site network SNR for three (default: the zero-lag coincidence nearest --candidate-time)." };
+        var candidateTime = new Option<string?>("--candidate-time") { Description = "Candidate GPS time: its zero-lag coincidence is the one nearest to it (default: the loudest)." };
+        var remove = new Option<bool>("--remove-candidate-triggers") { Description = "Also report the figures without any background coincidence that uses one of the candidate's own triggers." };
         var observing = new Option<double?>("--observing-time-s") { Description = "Observing time for the false-alarm probability, in s (default: zero-lag coincident analysed time)." };
         var chirp = new Option<double?>("--chirp-mass-tolerance") { Description = "Optional relative chirp-mass agreement cut (e.g. 0.1)." };
-        var json = new Option<bool>("--json") { Description = "Write the result as JSON." };
-        var command = new Command("background", "Time-slide background: FAR, false-alarm probability and sigma of a two-site candidate.");
-        foreach (var o in new Option[] { triggers, segments, window, step, slides, candidate, observing, chirp, json })
+        var json = new Option<bool>("--json") { Description = "Write the result as JSON (verdict, significanceBand, fapIsBound, pairs, triple, joint)." };
+        var command = new Command("background", "Time-slide background: FAR, false-alarm probability and sigma of a two- or three-site candidate, and its significance band.");
+        foreach (var o in new Option[] { triggers, segments, window, network, tolerance, step, slides, candidate, candidateTime, remove, observing, chirp, json })
         {
             command.Options.Add(o);
         }
 
-        command.SetAction(parseResult =>
+        command.SetAction(parseResult => LocalCausesInput.Guard(() =>
         {
-            try
+            var watch = Stopwatch.StartNew();
+            var trig = LocalCausesInput.CodeFiles(parseResult.GetValue(triggers), "--triggers");
+            var segs = LocalCausesInput.CodeFiles(parseResult.GetValue(segments), "--segments");
+            if (trig.Count is not (2 or 3))
             {
-                var watch = Stopwatch.StartNew();
-                var trig = Pairs(parseResult.GetValue(triggers), "--triggers");
-                var segs = Pairs(parseResult.GetValue(segments), "--segments");
-                if (trig.Count != 2)
-                {
-                    return CliOutput.Fail($"--triggers must be given for exactly two sites (got {trig.Count}).");
-                }
-
-                var sites = new List<SiteTriggers>();
-                foreach (var (code, file) in trig)
-                {
-                    var seg = segs.FirstOrDefault(s => string.Equals(s.Code, code, StringComparison.OrdinalIgnoreCase));
-                    if (seg.File is null)
-                    {
-                        return CliOutput.Fail($"--segments is missing for site {code}.");
-                    }
-
-                    sites.Add(SiteTriggers.Create(code, TriggerCsv.Load(file), SegmentCsv.Load(seg.File).Segments));
-                }
-
-                var windowMs = Require(parseResult.GetValue(window), "--window-ms");
-                var stepS = Require(parseResult.GetValue(step), "--step-s");
-                var k = parseResult.GetValue(slides) ?? throw new ArgumentException("--slides is required.");
-                var stat = Require(parseResult.GetValue(candidate), "--candidate-stat");
-                if (!(windowMs >= 0) || !(stepS > 0) || !double.IsFinite(stat))
-                {
-                    return CliOutput.Fail("--window-ms must be >= 0, --step-s > 0 and --candidate-stat finite.");
-                }
-
-                var options = TimeSlideOptions.Create(windowMs, stepS, k) with
-                {
-                    CandidateStatistic = stat,
-                    ObservingTimeSeconds = parseResult.GetValue(observing),
-                    ChirpMassRelativeTolerance = parseResult.GetValue(chirp),
-                };
-                var result = TimeSlideBackground.Run(sites[0], sites[1], options);
-                var output = new Output(result.Slides, result.BackgroundSeconds, result.BackgroundCoincidences, result.Louder, result.FarHz, result.FarIsBound, result.Fap, result.Sigma, watch.ElapsedMilliseconds);
-                if (parseResult.GetValue(json))
-                {
-                    CliOutput.WriteJson(output);
-                }
-                else
-                {
-                    WriteText(result, output);
-                }
-
-                return CliOutput.Success;
+                return CliOutput.Fail($"--triggers must be given for two or three sites (got {trig.Count}).");
             }
-            catch (Exception ex) when (ex is FormatException or ArgumentException or IOException or UnauthorizedAccessException)
+
+            var sites = new Dictionary<string, SiteTriggers>(StringComparer.Ordinal);
+            foreach (var (code, file) in trig)
             {
-                return CliOutput.Fail(ex.Message);
+                var seg = segs.FirstOrDefault(s => s.Code == code);
+                if (seg.File is null)
+                {
+                    return CliOutput.Fail($"--segments is missing for site {code}.");
+                }
+
+                sites[code] = SiteTriggers.Create(code, TriggerCsv.Load(file), SegmentCsv.Load(seg.File).Segments);
             }
-        });
+
+            var windowMs = parseResult.GetValue(window);
+            var net = parseResult.GetValue(network) is { } netPath ? LocalCausesInput.Network(netPath, "--network") : null;
+            if (windowMs is null && net is null)
+            {
+                return CliOutput.Fail("give --window-ms, or --network to derive each pair's window from its light-travel time.");
+            }
+
+            var stepS = parseResult.GetValue(step) ?? throw new ArgumentException("--step-s is required.");
+            var k = parseResult.GetValue(slides) ?? throw new ArgumentException("--slides is required.");
+            var stat = parseResult.GetValue(candidate);
+            if ((windowMs is { } w && !(w >= 0)) || !(stepS > 0) || (stat is { } x && !double.IsFinite(x)))
+            {
+                return CliOutput.Fail("--window-ms must be >= 0, --step-s > 0 and --candidate-stat finite.");
+            }
+
+            GpsTime? t0 = parseResult.GetValue(candidateTime) is { } ct ? LocalCausesInput.Gps(ct, "--candidate-time") : null;
+            var codes = sites.Keys.Order(StringComparer.Ordinal).ToList();
+            var plans = BackgroundPlanner.Pairs(codes, code => net?.Sites.FirstOrDefault(s => string.Equals(s.Code, code, StringComparison.OrdinalIgnoreCase)),
+                windowMs, parseResult.GetValue(tolerance), _ => null, codes.Count == 2 ? stat : null);
+            var settings = new BackgroundCheckSettings
+            {
+                StepSeconds = stepS,
+                Slides = k,
+                ObservingTimeSeconds = parseResult.GetValue(observing),
+                ChirpMassRelativeTolerance = parseResult.GetValue(chirp),
+                RemoveCandidateTriggers = parseResult.GetValue(remove),
+                CandidateTime = t0,
+                TripleStatistic = codes.Count == 3 ? stat : null,
+                TripleStatisticRule = codes.Count == 3 && stat is not null ? "given (--candidate-stat)" : "the zero-lag triple nearest the candidate time",
+            };
+            var check = BackgroundCheck.Run(sites, plans, settings);
+            var leap = t0 is { } t ? LocalCausesInput.Leap(t) : null;
+            var output = Summarise(check, leap, watch.ElapsedMilliseconds);
+            if (parseResult.GetValue(json))
+            {
+                CliOutput.WriteJsonWithVerdicts(output);
+            }
+            else
+            {
+                if (leap is not null)
+                {
+                    LocalCausesInput.WarnLeap(leap);
+                }
+
+                Console.Out.WriteLine(SignificanceText.Summary(check, stepS));
+                foreach (var a in check.Method)
+                {
+                    Console.Out.WriteLine("  " + a);
+                }
+
+                Console.Out.WriteLine($"verdict: {check.Judgement.Word} ({check.Judgement.Reason}) ({output.ElapsedMs} ms)");
+            }
+
+            return CliOutput.Success;
+        }));
         return command;
     }
 
-    private static double Require(double? value, string name) => value ?? throw new ArgumentException($"{name} is required.");
-
-    private static List<(string Code, string File)> Pairs(string[]? values, string option)
+    private static Output Summarise(BackgroundCheckResult check, LeapSecondNotice? leap, long elapsedMs)
     {
-        if (values is null || values.Length == 0)
+        var j = check.Judgement;
+        if (check.Joint is { } joint && check.Triple is { } t)
         {
-            throw new ArgumentException($"{option} is required (CODE=FILE, once per site).");
+            var f = joint.Figures;
+            return new Output(j.Word, j.Reason, SignificanceBand.Word(f.Sigma, f.SigmaIsBound), t.Slides, t.BackgroundSeconds, t.Figures.BackgroundCoincidences, f.Louder,
+                f.FarHz, f.FarIsBound, f.BoundConfidence, f.Fap, f.FapIsBound, f.Sigma, f.SigmaIsBound, t.SlidePValue, t.SlidePValueIsFloor,
+                check.Pairs, t, joint, check.Notes, leap?.Utc, leap, elapsedMs);
         }
 
-        var list = new List<(string, string)>();
-        foreach (var v in values)
-        {
-            var eq = v.IndexOf('=', StringComparison.Ordinal);
-            if (eq <= 0 || eq == v.Length - 1)
-            {
-                throw new ArgumentException($"{option} expects CODE=FILE, got '{v}'.");
-            }
-
-            var code = v[..eq].Trim();
-            if (list.Any(p => string.Equals(p.Item1, code, StringComparison.OrdinalIgnoreCase)))
-            {
-                throw new ArgumentException($"{option} names site {code} twice.");
-            }
-
-            list.Add((code, v[(eq + 1)..]));
-        }
-
-        return list;
-    }
-
-    private static void WriteText(BackgroundResult r, Output o)
-    {
-        var inv = CultureInfo.InvariantCulture;
-        Console.Out.WriteLine(string.Create(inv, $"sites {r.SiteA} (fixed) and {r.SiteB} (sliding), {o.Slides} slides"));
-        Console.Out.WriteLine(string.Create(inv, $"background time {o.BackgroundSeconds:G6} s, {o.BackgroundCoincidences} background coincidences, {o.Louder} at least as loud as {r.CandidateStatistic:G6}"));
-        Console.Out.WriteLine(string.Create(inv, $"FAR {(o.FarIsBound ? "< " : string.Empty)}{o.FarHz:G4} Hz, FAP {o.Fap:G4} over {r.ObservingTimeSeconds:G6} s, {o.Sigma:F2} sigma ({o.ElapsedMs} ms)"));
-        foreach (var a in r.Assumptions)
-        {
-            Console.Out.WriteLine("  " + a);
-        }
+        var r = check.Pairs[check.HeadlinePair].Result;
+        return new Output(j.Word, j.Reason, SignificanceBand.Word(r.Sigma, r.SigmaIsBound), r.Slides, r.BackgroundSeconds, r.BackgroundCoincidences, r.Louder,
+            r.FarHz, r.FarIsBound, r.FarBoundConfidence, r.Fap, r.FapIsBound, r.Sigma, r.SigmaIsBound, r.SlidePValue, r.SlidePValueIsFloor,
+            check.Pairs, check.Triple, null, check.Notes, leap?.Utc, leap, elapsedMs);
     }
 }

@@ -5,7 +5,8 @@ namespace EventReview.Core.Chain;
 
 /// <summary>
 /// Reads a data-chain model file: <c>{"stages": [{"zerosHz": [[re, im], ..], "polesHz": [[re, im], ..], "gain": g,
-/// "delaySeconds": 0, "prewarpHz": null}]}</c>. zerosHz, polesHz, delaySeconds and prewarpHz may be omitted (empty, 0, null).
+/// "delaySeconds": 0, "prewarpHz": null, "expectedNoiseRms": null}]}</c>. zerosHz, polesHz, delaySeconds, prewarpHz and
+/// expectedNoiseRms (the residual RMS expected when nothing is wrong, output units) may be omitted (empty, 0, null, null).
 /// </summary>
 public static class ChainModelJson
 {
@@ -47,7 +48,7 @@ public static class ChainModelJson
                 var gain = Number(s, "gain", n) ?? throw new FormatException($"stage {n}: \"gain\" is required");
                 var delay = Number(s, "delaySeconds", n) ?? 0;
                 var prewarp = Number(s, "prewarpHz", n);
-                var model = new ChainStageModel(zeros, poles, gain, delay, prewarp);
+                var model = new ChainStageModel(zeros, poles, gain, delay, prewarp, Number(s, "expectedNoiseRms", n));
                 try
                 {
                     model.Validate(n);

@@ -14,7 +14,10 @@ namespace EventReview.Core.Chain;
 /// <param name="DelaySeconds">Pure delay; positive means the output lags the input.</param>
 /// <param name="PrewarpHz">Frequency where the bilinear transform is matched exactly; null uses the geometric mean of the
 /// magnitudes of the non-zero roots (no pre-warp when there is none); 0 means no pre-warp (K = 2 fs).</param>
-public sealed record ChainStageModel(IReadOnlyList<Complex> ZerosHz, IReadOnlyList<Complex> PolesHz, double Gain, double DelaySeconds = 0, double? PrewarpHz = null)
+/// <param name="ExpectedNoiseRms">RMS of the residual expected from the stage when nothing is wrong (for example the output's
+/// quantisation, step / sqrt 12), in output units; null when not stated (the off-source residual is then not compared with it).</param>
+public sealed record ChainStageModel(IReadOnlyList<Complex> ZerosHz, IReadOnlyList<Complex> PolesHz, double Gain, double DelaySeconds = 0, double? PrewarpHz = null,
+    double? ExpectedNoiseRms = null)
 {
     /// <summary>The analogue filter in rad/s (roots multiplied by 2 pi), as used by <see cref="Bilinear"/>.</summary>
     public Zpk ToAnalog() => new(
@@ -57,6 +60,11 @@ public sealed record ChainStageModel(IReadOnlyList<Complex> ZerosHz, IReadOnlyLi
         if (!double.IsFinite(DelaySeconds))
         {
             throw new ArgumentException($"stage {stageNumber}: delaySeconds must be finite", nameof(DelaySeconds));
+        }
+
+        if (ExpectedNoiseRms is { } noise && (!double.IsFinite(noise) || noise <= 0))
+        {
+            throw new ArgumentException($"stage {stageNumber}: expectedNoiseRms must be > 0 or null", nameof(ExpectedNoiseRms));
         }
 
         if (PrewarpHz is { } pw && (!double.IsFinite(pw) || pw < 0))

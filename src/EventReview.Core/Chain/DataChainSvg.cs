@@ -5,8 +5,8 @@ namespace EventReview.Core.Chain;
 
 /// <summary>
 /// Draws one stage of the data-chain check as SVG: top panel recorded (black) and predicted (orange) output, bottom panel
-/// the residual with the +-N sigma threshold band and the largest excursion marked; x axis in seconds relative to the
-/// candidate; settling time greyed; a one-line caption. Long traces are reduced to min/max pairs per pixel column.
+/// the residual with the ±z threshold band (the on-source threshold in robust sigma) and the largest on-source excursion
+/// marked; the on-source window tinted; x axis in seconds relative to the candidate; settling time greyed; a one-line caption. Long traces are reduced to min/max pairs per pixel column.
 /// </summary>
 public static class DataChainSvg
 {
@@ -19,11 +19,12 @@ public static class DataChainSvg
     /// <param name="trace">Traces from <see cref="DataChainCheck.RunWithTraces"/>.</param>
     /// <param name="result">The stage's result (same stage).</param>
     /// <param name="centerGps">Candidate time, GPS seconds (x = 0).</param>
-    /// <param name="sigmaThreshold">Threshold N drawn as +-N robust sigma around zero.</param>
-    public static string Render(ChainStageTrace trace, ChainStageResult result, double centerGps, double sigmaThreshold)
+    /// <param name="windowSeconds">On-source half window, seconds (tinted).</param>
+    public static string Render(ChainStageTrace trace, ChainStageResult result, double centerGps, double windowSeconds)
     {
         ArgumentNullException.ThrowIfNull(trace);
         ArgumentNullException.ThrowIfNull(result);
+        var sigmaThreshold = result.ThresholdSigma;
         var n = trace.Recorded.Length;
         var t0 = trace.StartGps - centerGps;
         var t1 = t0 + ((n - 1) / trace.SampleRateHz);
@@ -35,6 +36,9 @@ public static class DataChainSvg
         {
             sb.Append(F($"<rect x=\"{Left}\" y=\"{top}\" width=\"{X(trace.FirstValid) - Left}\" height=\"{PanelHeight}\" fill=\"#eee\"/>"));
             sb.Append(F($"<rect x=\"{X(trace.LastValid)}\" y=\"{top}\" width=\"{Width - Right - X(trace.LastValid)}\" height=\"{PanelHeight}\" fill=\"#eee\"/>"));
+            var a = Math.Clamp((int)Math.Round((centerGps - windowSeconds - trace.StartGps) * trace.SampleRateHz), 0, n - 1);
+            var b = Math.Clamp((int)Math.Round((centerGps + windowSeconds - trace.StartGps) * trace.SampleRateHz), 0, n - 1);
+            sb.Append(F($"<rect x=\"{X(a)}\" y=\"{top}\" width=\"{X(b) - X(a)}\" height=\"{PanelHeight}\" fill=\"#fdf2e0\"/>"));
             sb.Append(F($"<rect x=\"{Left}\" y=\"{top}\" width=\"{Width - Left - Right}\" height=\"{PanelHeight}\" fill=\"none\" stroke=\"#000\"/>"));
         }
 
@@ -53,7 +57,7 @@ public static class DataChainSvg
         var best = (int)Math.Round((result.MaxExcessGps - trace.StartGps) * trace.SampleRateHz);
         sb.Append(F($"<line x1=\"{X(Math.Clamp(best, 0, n - 1))}\" y1=\"{y0}\" x2=\"{X(Math.Clamp(best, 0, n - 1))}\" y2=\"{y0 + PanelHeight}\" stroke=\"#c0392b\"/>"));
         sb.Append(F($"<text x=\"{Left + 4}\" y=\"24\">recorded (black) and predicted (orange) output</text>"));
-        sb.Append(F($"<text x=\"{Left + 4}\" y=\"{y0 + 14}\">residual, ±{sigmaThreshold} robust sigma dashed</text>"));
+        sb.Append(F($"<text x=\"{Left + 4}\" y=\"{y0 + 14}\">residual, ±{sigmaThreshold:0.00} robust sigma (on-source threshold) dashed; on-source window tinted</text>"));
         var axisY = y0 + PanelHeight + 14;
         sb.Append(F($"<text x=\"{Left}\" y=\"{axisY}\">{t0:0.###} s</text><text x=\"{Width - Right}\" y=\"{axisY}\" text-anchor=\"end\">{t1:0.###} s</text>"));
         sb.Append(F($"<text x=\"{Width / 2}\" y=\"{axisY}\" text-anchor=\"middle\">seconds relative to the candidate</text>"));
@@ -63,7 +67,7 @@ public static class DataChainSvg
 
     /// <summary>The one-line caption drawn under the stage picture.</summary>
     public static string Caption(ChainStageResult r) => F(
-        $"Stage {r.Stage}: largest residual excursion {r.MaxExcessSigma:0.0} sigma at GPS {r.MaxExcessGps:0.0000}; {r.SkippedStartSeconds:0.###} s skipped at each end (grey); {r.Verdict}.");
+        $"Stage {r.Stage}: on-source max {r.MaxExcessSigma:0.0} sigma (threshold {r.ThresholdSigma:0.00}); {r.OutsideWindowCount} excursion(s) outside the window; {r.SkippedStartSeconds:0.###} s skipped at each end (grey); {r.Judgement.Word}.");
 
     private static void Polyline(StringBuilder sb, double[] v, Func<int, double> x, double top, double max, string colour)
     {

@@ -110,7 +110,7 @@ public static class DossierBuilder
                 if (frozen is not null)
                 {
                     var r = DriftCheck.Run(frozen, s);
-                    drift = new DossierDrift(frozen.Id, r.Verdict, r.Summary, r.CapturedDuringFreeze, r.Diff.Added, r.Diff.Removed, r.Diff.Changed, r.Diff.Unchanged);
+                    drift = new DossierDrift(frozen.Id, r.Verdict, r.Summary, r.CapturedDuringFreeze == true, r.Diff.Added, r.Diff.Removed, r.Diff.Changed, r.Diff.Unchanged);
                 }
             }
 

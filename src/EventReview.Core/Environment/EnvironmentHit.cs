@@ -16,6 +16,8 @@ namespace EventReview.Core.Environment;
 /// <param name="CouplingStrain">Estimated strain from the coupling model, or null.</param>
 /// <param name="CouplingFlagged">True when the coupling ratio reaches the flag fraction.</param>
 /// <param name="Concern">True when this hit needs a human look (channel not shown unsafe).</param>
+/// <param name="ChannelRateUncertaintyHz">1 sigma Poisson uncertainty of the channel rate, sqrt(N) / rate window.</param>
+/// <param name="CouplingInputs">Which amplitudes the coupling estimate used ("candidate strain from strain data, sensor noise typed"), or null.</param>
 public sealed record EnvironmentHit(
     string Site,
     string Channel,
@@ -31,4 +33,6 @@ public sealed record EnvironmentHit(
     double? CouplingRatio,
     double? CouplingStrain,
     bool CouplingFlagged,
-    bool Concern);
+    bool Concern,
+    string? CouplingInputs = null,
+    double ChannelRateUncertaintyHz = double.NaN);

@@ -1,6 +1,7 @@
 using System.Globalization;
 using EventReview.Core.Statistics;
 using EventReview.Core.Time;
+using EventReview.Core.Verdicts;
 
 namespace EventReview.Core.Environment;
 
@@ -70,7 +71,8 @@ public static class EnvironmentLookup
                 var concern = safe != false;
                 hits.Add(new EnvironmentHit(site, trig.Channel, kind.ToString().ToLowerInvariant(), trig.Time.Seconds, offset, trig.Snr,
                     trig.FrequencyHz, w, rate, Poisson.ChanceCoincidence(w, rate), safe, coupling?.Ratio, coupling?.StrainEstimate,
-                    coupling?.Flagged ?? false, concern));
+                    coupling?.Flagged ?? false, concern, coupling is null ? null : $"candidate strain: {coupling.CandidateStrainSource}; sensor amplitude: {coupling.SensorAmplitudeSource}",
+                    Math.Sqrt(count) / options.RateWindowSeconds));
                 if (concern)
                 {
                     reasons.Add(string.Create(CultureInfo.InvariantCulture,
@@ -97,14 +99,30 @@ public static class EnvironmentLookup
                 reasons.Add($"data-quality flag '{seg.Flag}' active [{seg.Start}, {seg.End})");
             }
 
-            verdicts.Add(new SiteVerdict(site, at.Seconds, fromArrival, reasons.Count > 0 ? "concern" : "clear", reasons));
+            verdicts.Add(new SiteVerdict(site, at.Seconds, fromArrival, SiteJudgement(site, reasons), reasons));
         }
 
         hits.Sort((a, b) => a.Site != b.Site ? string.CompareOrdinal(a.Site, b.Site) : a.OffsetSeconds.CompareTo(b.OffsetSeconds));
         var coincidences = FindCoincidences(hits, options.LightTravelWindowSeconds);
         var assumptions = Assumptions(options, channelsMissing);
-        var verdict = verdicts.Any(v => v.Verdict == "concern") ? "concern" : "clear";
-        return new EnvironmentReport(input.CaseTime.Seconds, hits, segments, coincidences, verdicts, verdict, warnings, assumptions);
+        return new EnvironmentReport(input.CaseTime.Seconds, hits, segments, coincidences, verdicts, Overall(verdicts, coincidences), warnings, assumptions);
+    }
+
+    private static Judgement SiteJudgement(string site, List<string> reasons) => reasons.Count > 0
+        ? new Judgement(Verdict.Concern, $"{site}: " + string.Join("; ", reasons))
+        : new Judgement(Verdict.Clear, $"{site}: no trigger of a channel not shown unsafe, no coupling flag and no data-quality segment in the window");
+
+    private static Judgement Overall(List<SiteVerdict> sites, List<CrossSiteCoincidence> coincidences)
+    {
+        var concern = sites.Where(s => s.Judgement.Verdict == Verdict.Concern).ToList();
+        var clear = sites.Where(s => s.Judgement.Verdict != Verdict.Concern).Select(s => s.Site).ToList();
+        var cross = coincidences.Count > 0 ? $"; {coincidences.Count} cross-site coincidence(s) of the same kind" : string.Empty;
+        if (concern.Count == 0)
+        {
+            return new Judgement(Verdict.Clear, $"nothing needs a look at {(clear.Count > 0 ? string.Join(", ", clear) : "any site")}{cross}");
+        }
+
+        return new Judgement(Verdict.Concern, string.Join(" | ", concern.Select(s => s.Judgement.Reason)) + (clear.Count > 0 ? $"; clear at {string.Join(", ", clear)}" : string.Empty) + cross);
     }
 
     private static List<CrossSiteCoincidence> FindCoincidences(List<EnvironmentHit> hits, double window)
@@ -144,7 +162,7 @@ public static class EnvironmentLookup
         if (o.Coupling is { } c)
         {
             list.Add(string.Create(CultureInfo.InvariantCulture,
-                $"coupling: strain = coupling(f) x sensor amplitude (measured spectrum, else SNR x sensor noise amplitude) in {c.BandLowHz}-{c.BandHighHz} Hz vs candidate strain {c.CandidateStrainAmplitude:G4}; flagged at >= {c.FlagFraction:P0} (common-practice margin)"));
+                $"coupling: strain = coupling(f) x sensor amplitude (measured spectrum, else SNR x sensor noise amplitude, the noise read from sensor data where given, else typed) in {c.BandLowHz}-{c.BandHighHz} Hz vs the candidate's strain amplitude ({CandidateText(c)}); flagged at >= {c.FlagFraction:P0} (common-practice margin)"));
         }
 
         if (missing.Count > 0)
@@ -153,6 +171,15 @@ public static class EnvironmentLookup
         }
 
         return list;
+    }
+
+    private static string CandidateText(CouplingOptions c)
+    {
+        var measured = c.MeasuredStrainAmplitudes is { Count: > 0 } m
+            ? "read from strain data at " + string.Join(", ", m.Select(kv => string.Create(CultureInfo.InvariantCulture, $"{kv.Key} {kv.Value:G4}")))
+            : null;
+        var typed = c.CandidateStrainAmplitude is { } h ? string.Create(CultureInfo.InvariantCulture, $"typed {h:G4}") : "none typed";
+        return measured is null ? typed : $"{measured}; elsewhere {typed}";
     }
 
     private static void Validate(EnvironmentLookupOptions o)

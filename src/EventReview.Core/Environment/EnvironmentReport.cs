@@ -1,3 +1,5 @@
+using EventReview.Core.Verdicts;
+
 namespace EventReview.Core.Environment;
 
 /// <summary>Result of the environment and veto lookup for one case.</summary>
@@ -6,7 +8,7 @@ namespace EventReview.Core.Environment;
 /// <param name="Segments">Every data-quality segment active inside a site window.</param>
 /// <param name="Coincidences">Same-kind hits at different sites within the light-travel window.</param>
 /// <param name="Sites">Per-site verdicts.</param>
-/// <param name="Verdict">"concern" when any site is of concern, otherwise "clear". The verdict flags; people decide.</param>
+/// <param name="Judgement">"concern" when any site is of concern, otherwise "clear", with the reason. The verdict flags; people decide.</param>
 /// <param name="Warnings">Problems with the inputs found during the lookup (e.g. a hit outside observing segments).</param>
 /// <param name="Assumptions">Windows, rate model, coupling model and thresholds used, in words.</param>
 public sealed record EnvironmentReport(
@@ -15,6 +17,6 @@ public sealed record EnvironmentReport(
     IReadOnlyList<ActiveSegment> Segments,
     IReadOnlyList<CrossSiteCoincidence> Coincidences,
     IReadOnlyList<SiteVerdict> Sites,
-    string Verdict,
+    Judgement Judgement,
     IReadOnlyList<string> Warnings,
     IReadOnlyList<string> Assumptions);

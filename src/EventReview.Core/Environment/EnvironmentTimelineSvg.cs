@@ -31,7 +31,7 @@ public static class EnvironmentTimelineSvg
         var rows = new List<(string Label, Action<StringBuilder, double> Draw)>();
         foreach (var site in report.Sites)
         {
-            rows.Add(($"{site.Site} ({site.Verdict})", (_, _) => { }));
+            rows.Add(($"{site.Site} ({site.Judgement.Word})", (_, _) => { }));
             foreach (var channel in report.Hits.Where(h => h.Site == site.Site).GroupBy(h => h.Channel))
             {
                 var list = channel.ToList();
@@ -76,7 +76,7 @@ public static class EnvironmentTimelineSvg
 
     /// <summary>The one-line caption drawn under the timeline.</summary>
     public static string Caption(EnvironmentReport report, double windowSeconds) => F(
-        $"Environment and veto lookup: {report.Hits.Count} trigger(s) and {report.Segments.Count} data-quality segment(s) within ±{windowSeconds} s (shaded); overall verdict {report.Verdict}.");
+        $"Environment and veto lookup: {report.Hits.Count} trigger(s) and {report.Segments.Count} data-quality segment(s) within ±{windowSeconds} s (shaded); overall verdict {report.Judgement.Word}.");
 
     private static void DrawHits(StringBuilder sb, double y, List<EnvironmentHit> hits, double span)
     {

@@ -6,4 +6,6 @@ namespace EventReview.Core.Environment;
 /// <param name="Kind">What the sensor measures.</param>
 /// <param name="Location">Where the sensor sits (free text).</param>
 /// <param name="CouplingFile">File name of the channel's coupling function, or null.</param>
-public sealed record Sensor(string Site, string Channel, SensorKind Kind, string Location, string? CouplingFile);
+/// <param name="DataFile">File name of the sensor's own series around the event ("gps_time value" per line), from which its noise
+/// amplitude is read for the coupling estimate, or null (then the typed noise amplitude is used).</param>
+public sealed record Sensor(string Site, string Channel, SensorKind Kind, string Location, string? CouplingFile, string? DataFile = null);

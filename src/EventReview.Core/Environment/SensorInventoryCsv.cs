@@ -3,7 +3,7 @@ using EventReview.Core.Imports;
 namespace EventReview.Core.Environment;
 
 /// <summary>
-/// Imports a sensor inventory from CSV with header <c>site,channel,kind,location[,coupling_file]</c>; kind is one of
+/// Imports a sensor inventory from CSV with header <c>site,channel,kind,location[,coupling_file,data_file]</c>; kind is one of
 /// seismic, acoustic, magnetic, radio, weather, power, instrument, other (case-insensitive). A (site, channel) pair may appear once.
 /// </summary>
 public static class SensorInventoryCsv
@@ -31,7 +31,7 @@ public static class SensorInventoryCsv
                 throw row.Error("channel", $"channel '{channel}' of site {site} is listed twice");
             }
 
-            list.Add(new Sensor(site, channel, kind, row.Text("location"), row.Optional("coupling_file")));
+            list.Add(new Sensor(site, channel, kind, row.Text("location"), row.Optional("coupling_file"), row.Optional("data_file")));
         }
 
         return list;

@@ -1,4 +1,6 @@
+using System.Globalization;
 using EventReview.Core.Time;
+using EventReview.Core.Verdicts;
 
 namespace EventReview.Core.Injections;
 
@@ -42,19 +44,25 @@ public static class InjectionOverlap
                 {
                     var offset = before > 0 ? -before : after > 0 ? after : 0.0;
                     hits.Add(new InjectionOverlapHit(site, inj.Start.Seconds, inj.End.Seconds, inj.Kind, inj.WaveformRef,
-                        inj.Status.ToString().ToLowerInvariant(), offset));
+                        inj.Status.ToString().ToLowerInvariant(), offset, inj.Status != InjectionStatus.Aborted));
                 }
             }
         }
 
-        var concern = hits.Any(h => h.Status != "aborted");
+        var concerning = hits.Where(h => h.Concern).ToList();
+        var sitesText = string.Join(", ", checkedSites.Select(s => s.Site));
+        var judgement = concerning.Count > 0
+            ? new Judgement(Verdict.Concern, string.Create(CultureInfo.InvariantCulture,
+                $"{concerning.Count} injection(s) overlap the candidate (margin ±{marginSeconds:0.###} s): {string.Join("; ", concerning.Select(h => $"{h.Site} {h.Status} {h.Kind} '{h.WaveformRef}' ({h.OffsetSeconds:+0.###;-0.###;0} s)"))}"))
+            : new Judgement(Verdict.Clear, string.Create(CultureInfo.InvariantCulture,
+                $"no performed or scheduled injection overlaps the candidate at {sitesText} (margin ±{marginSeconds:0.###} s){(hits.Count > 0 ? $"; {hits.Count} aborted one(s) listed" : string.Empty)}"));
         var assumptions = new List<string>
         {
             $"an injection overlaps when its span widened by {marginSeconds} s on both sides contains the site's arrival time",
             "sites without an arrival time are looked up at the case time",
             "aborted injections are listed but do not raise a concern",
         };
-        return new InjectionOverlapReport(hits, checkedSites, marginSeconds, concern ? "concern" : "clear", assumptions);
+        return new InjectionOverlapReport(hits, checkedSites, marginSeconds, judgement, assumptions);
     }
 
     private static bool TryArrival(IReadOnlyDictionary<string, GpsTime> arrivals, string site, out GpsTime t)

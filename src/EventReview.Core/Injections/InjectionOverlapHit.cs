@@ -8,4 +8,5 @@ namespace EventReview.Core.Injections;
 /// <param name="WaveformRef">Waveform reference.</param>
 /// <param name="Status">"scheduled", "performed" or "aborted".</param>
 /// <param name="OffsetSeconds">Site arrival time minus the nearest point of the injection span (0 when inside it; positive after the end).</param>
-public sealed record InjectionOverlapHit(string Site, double StartGps, double EndGps, string Kind, string WaveformRef, string Status, double OffsetSeconds);
+/// <param name="Concern">True when this overlap needs a person's look (performed or scheduled); false for an aborted injection, which is only listed.</param>
+public sealed record InjectionOverlapHit(string Site, double StartGps, double EndGps, string Kind, string WaveformRef, string Status, double OffsetSeconds, bool Concern = true);

@@ -8,6 +8,10 @@ public sealed class BackgroundAccumulator : ICoincidenceSink<BackgroundAccumulat
 {
     private const int MaxBins = 1 << 22;
     private readonly double _threshold;
+    private readonly double _extraThreshold;
+    private readonly double _lowest;
+    private readonly HashSet<int> _slidesLouder = [];
+    private readonly HashSet<int> _slidesLouderWithout = [];
     private readonly int _candidateA;
     private readonly int _candidateB;
     private readonly double _binWidth;
@@ -23,9 +27,14 @@ public sealed class BackgroundAccumulator : ICoincidenceSink<BackgroundAccumulat
     /// <param name="keepLoudest">How many of the loudest coincidences to keep.</param>
     /// <param name="candidateIndexA">Site-A trigger of the candidate, or -1.</param>
     /// <param name="candidateIndexB">Site-B trigger of the candidate, or -1.</param>
-    public BackgroundAccumulator(double candidateStatistic, double binWidth, int keepLoudest, int candidateIndexA = -1, int candidateIndexB = -1)
+    /// <param name="extraThreshold">A second statistic to count louder coincidences against (for example a three-site
+    /// candidate's, when this pair's background is combined with others), or +infinity for none.</param>
+    public BackgroundAccumulator(double candidateStatistic, double binWidth, int keepLoudest, int candidateIndexA = -1, int candidateIndexB = -1,
+        double extraThreshold = double.PositiveInfinity)
     {
         _threshold = candidateStatistic;
+        _extraThreshold = extraThreshold;
+        _lowest = Math.Min(candidateStatistic, extraThreshold);
         _binWidth = binWidth;
         _inverseBinWidth = 1.0 / binWidth;
         _keep = keepLoudest;
@@ -39,6 +48,15 @@ public sealed class BackgroundAccumulator : ICoincidenceSink<BackgroundAccumulat
 
     /// <summary>Those with statistic &gt;= the candidate's.</summary>
     public long Louder { get; private set; }
+
+    /// <summary>Those with statistic &gt;= the extra threshold.</summary>
+    public long LouderThanExtra { get; private set; }
+
+    /// <summary>Slides with at least one coincidence as loud as the candidate.</summary>
+    public int SlidesWithLouder => _slidesLouder.Count;
+
+    /// <summary>Slides with at least one such coincidence that uses none of the candidate's triggers.</summary>
+    public int SlidesWithLouderWithoutCandidateTriggers => _slidesLouderWithout.Count;
 
     /// <summary>Coincidences that use one of the candidate's own triggers.</summary>
     public long CountWithCandidateTriggers { get; private set; }
@@ -72,14 +90,15 @@ public sealed class BackgroundAccumulator : ICoincidenceSink<BackgroundAccumulat
         // the common case, kept tight: counts, histogram and the loudest-N floor in locals
         long louder = 0;
         var threshold = _threshold;
+        var lowest = _lowest;
         var inverse = _inverseBinWidth;
         var hist = _histogram;
         foreach (var c in batch)
         {
             var stat = c.Statistic;
-            if (stat >= threshold)
+            if (stat >= lowest)
             {
-                louder++;
+                Loud(c.Slide, stat, threshold, ref louder);
             }
 
             var bin = stat * inverse;
@@ -106,9 +125,11 @@ public sealed class BackgroundAccumulator : ICoincidenceSink<BackgroundAccumulat
     {
         Count++;
         var louder = statistic >= _threshold;
-        if (louder)
+        if (statistic >= _lowest)
         {
-            Louder++;
+            long counted = 0;
+            Loud(slide, statistic, _threshold, ref counted);
+            Louder += counted;
         }
 
         if (indexA == _candidateA || indexB == _candidateB)
@@ -118,6 +139,10 @@ public sealed class BackgroundAccumulator : ICoincidenceSink<BackgroundAccumulat
             {
                 LouderWithCandidateTriggers++;
             }
+        }
+        else if (louder)
+        {
+            _slidesLouderWithout.Add(slide);
         }
 
         var bin = statistic * _inverseBinWidth;
@@ -135,7 +160,7 @@ public sealed class BackgroundAccumulator : ICoincidenceSink<BackgroundAccumulat
     }
 
     /// <inheritdoc />
-    public BackgroundAccumulator CreatePart() => new(_threshold, _binWidth, _keep, _candidateA, _candidateB);
+    public BackgroundAccumulator CreatePart() => new(_threshold, _binWidth, _keep, _candidateA, _candidateB, _extraThreshold);
 
     /// <inheritdoc />
     public void Merge(BackgroundAccumulator part)
@@ -143,6 +168,9 @@ public sealed class BackgroundAccumulator : ICoincidenceSink<BackgroundAccumulat
         ArgumentNullException.ThrowIfNull(part);
         Count += part.Count;
         Louder += part.Louder;
+        LouderThanExtra += part.LouderThanExtra;
+        _slidesLouder.UnionWith(part._slidesLouder);
+        _slidesLouderWithout.UnionWith(part._slidesLouderWithout);
         CountWithCandidateTriggers += part.CountWithCandidateTriggers;
         LouderWithCandidateTriggers += part.LouderWithCandidateTriggers;
         if (part._histogram.Length > _histogram.Length)
@@ -158,6 +186,20 @@ public sealed class BackgroundAccumulator : ICoincidenceSink<BackgroundAccumulat
         foreach (var (e, _) in part._loudest.UnorderedItems)
         {
             Offer(e.Slide, e.IndexA, e.IndexB, e.Statistic);
+        }
+    }
+
+    private void Loud(int slide, double statistic, double threshold, ref long louder)
+    {
+        if (statistic >= threshold)
+        {
+            louder++;
+            _slidesLouder.Add(slide);
+        }
+
+        if (statistic >= _extraThreshold)
+        {
+            LouderThanExtra++;
         }
     }
 

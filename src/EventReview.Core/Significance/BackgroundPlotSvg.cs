@@ -96,12 +96,12 @@ public static class BackgroundPlotSvg
         var cy = Y(result.FarHz);
         svg.Append(F($"<line x1=\"{cx:F1}\" y1=\"{Top}\" x2=\"{cx:F1}\" y2=\"{Top + plotH:F1}\" stroke=\"#a01010\" stroke-dasharray=\"2 3\"/>"));
         svg.Append(F($"<circle cx=\"{cx:F1}\" cy=\"{cy:F1}\" r=\"5\" fill=\"{(result.FarIsBound ? "white" : "#a01010")}\" stroke=\"#a01010\" stroke-width=\"2\"/>"));
-        svg.Append(F($"<text x=\"{cx - 8:F1}\" y=\"{cy - 9:F1}\" text-anchor=\"end\" fill=\"#a01010\">candidate {(result.FarIsBound ? "≤ " : string.Empty)}{result.FarHz:G3} Hz</text>"));
+        svg.Append(F($"<text x=\"{cx - 8:F1}\" y=\"{cy - 9:F1}\" text-anchor=\"end\" fill=\"#a01010\">candidate {(result.FarIsBound ? "< " : string.Empty)}{result.FarHz:G3} Hz{(result.FarIsBound ? " (90 % bound)" : string.Empty)}</text>"));
 
         // axis labels and caption
         svg.Append(F($"<text x=\"{Left + (plotW / 2):F1}\" y=\"{Top + plotH + 38:F1}\" text-anchor=\"middle\">Ranking statistic (network SNR, dimensionless)</text>"));
         svg.Append(F($"<text transform=\"translate(16 {Top + (plotH / 2):F1}) rotate(-90)\" text-anchor=\"middle\">Background rate at or above statistic (1/s)</text>"));
-        var caption = F($"Cumulative background of {result.SiteA}-{result.SiteB} coincidences from {result.Slides} time slides ({result.BackgroundSeconds:G4} s); candidate {result.CandidateStatistic:G4}: FAR {(result.FarIsBound ? "< " : string.Empty)}{result.FarHz:G3} Hz, {result.Sigma:F1} sigma over {result.ObservingTimeSeconds:G4} s.");
+        var caption = F($"Cumulative background of {result.SiteA}-{result.SiteB} coincidences from {result.Slides} time slides ({result.BackgroundSeconds:G4} s); candidate {result.CandidateStatistic:G4}: FAR {(result.FarIsBound ? "< " : string.Empty)}{result.FarHz:G3} Hz{(result.FarIsBound ? " (90 % upper bound: nothing as loud)" : string.Empty)}, {(result.SigmaIsBound ? "≥ " : string.Empty)}{result.Sigma:F1} sigma over {result.ObservingTimeSeconds:G4} s.");
         svg.Append(F($"<text x=\"{width / 2.0:F1}\" y=\"{height - 10}\" text-anchor=\"middle\" font-size=\"11\">{SecurityElement.Escape(caption)}</text>"));
         svg.Append("</svg>");
         return svg.ToString();

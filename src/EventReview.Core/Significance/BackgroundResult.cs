@@ -51,17 +51,41 @@ public sealed record BackgroundResult
     /// <summary>Background coincidences with statistic &gt;= the candidate's.</summary>
     public required long Louder { get; init; }
 
-    /// <summary>False-alarm rate in Hz (Louder / BackgroundSeconds, or the bound 1 / BackgroundSeconds).</summary>
+    /// <summary>False-alarm rate in Hz (Louder / BackgroundSeconds, or the 90 % upper bound 2.3026 / BackgroundSeconds).</summary>
     public required double FarHz { get; init; }
 
     /// <summary>True when no background coincidence was as loud and FarHz is an upper bound.</summary>
     public required bool FarIsBound { get; init; }
 
-    /// <summary>False-alarm probability 1 - exp(-FAR T_obs).</summary>
+    /// <summary>Confidence level of the FAR bound (0.9), or null when the FAR is measured.</summary>
+    public double? FarBoundConfidence { get; init; }
+
+    /// <summary>False-alarm probability 1 - exp(-FAR T_obs); an upper bound when <see cref="FapIsBound"/>.</summary>
     public required double Fap { get; init; }
 
-    /// <summary>One-sided Gaussian significance of Fap (0 when Fap &gt;= 0.5).</summary>
+    /// <summary>True when the FAP is an upper bound (nothing as loud in the background).</summary>
+    public bool FapIsBound => FarIsBound;
+
+    /// <summary>One-sided Gaussian significance of Fap (0 when Fap &gt;= 0.5); a lower bound when <see cref="SigmaIsBound"/>.</summary>
     public required double Sigma { get; init; }
+
+    /// <summary>True when the sigma is a lower bound.</summary>
+    public bool SigmaIsBound => FarIsBound;
+
+    /// <summary>Slides with at least one background coincidence as loud as the candidate (m).</summary>
+    public int SlidesWithLouder { get; init; }
+
+    /// <summary>
+    /// Empirical p-value over slides, (m + 1) / (2K + 1) (North, Curtis and Sham 2002, Am. J. Hum. Genet. 71, 439): each slide is
+    /// one background realisation of the analysed time. Its floor 1 / (2K + 1) is reached when m = 0, and is then an upper bound.
+    /// </summary>
+    public double SlidePValue { get; init; }
+
+    /// <summary>True when no slide had a louder coincidence, so <see cref="SlidePValue"/> is only the floor (an upper bound, "≤").</summary>
+    public bool SlidePValueIsFloor => SlidesWithLouder == 0;
+
+    /// <summary>Background coincidences at least as loud as <see cref="TimeSlideOptions.JointStatistic"/> (for combining with other coincidence types); 0 when none was given.</summary>
+    public long LouderThanJoint { get; init; }
 
     /// <summary>The same figures with every background coincidence that uses one of the candidate's triggers removed; null when not asked for or no candidate was found.</summary>
     public SignificanceFigures? WithoutCandidateTriggers { get; init; }

@@ -55,7 +55,8 @@ public static class TimeSlideBackground
             options.CurveBinWidth,
             options.LoudestCount,
             remove ? candidate!.Value.IndexA : -1,
-            remove ? candidate!.Value.IndexB : -1);
+            remove ? candidate!.Value.IndexB : -1,
+            options.JointStatistic);
         if (options.Algorithm == TimeSlideAlgorithm.Naive)
         {
             NaiveTimeSlides.Find(pair, options, acc, progress, cancellationToken);
@@ -100,8 +101,12 @@ public static class TimeSlideBackground
             Louder = figures.Louder,
             FarHz = figures.FarHz,
             FarIsBound = figures.FarIsBound,
+            FarBoundConfidence = figures.BoundConfidence,
             Fap = figures.Fap,
             Sigma = figures.Sigma,
+            SlidesWithLouder = acc.SlidesWithLouder,
+            SlidePValue = (acc.SlidesWithLouder + 1.0) / ((2.0 * options.Slides) + 1),
+            LouderThanJoint = double.IsPositiveInfinity(options.JointStatistic) ? 0 : acc.LouderThanExtra,
             WithoutCandidateTriggers = without,
             Candidate = candidate is { } c ? Show(pair, c) : null,
             Curve = BackgroundCurve.Build(acc, [.. loudest.Select(l => l.Statistic)], options.LoudestCount, backgroundSeconds),
@@ -127,7 +132,8 @@ public static class TimeSlideBackground
             string.Create(inv, $"Coincidence: |t_{pair.SiteA.Code} - t_{pair.SiteB.Code}| <= {Seconds(o.WindowNs) * 1e3:G9} ms (inclusive, decided in integer ns); ranking statistic = network SNR, sqrt of the sum of squared SNRs."),
             string.Create(inv, $"Time slides: {pair.SiteB.Code} triggers and segments moved by k x {Seconds(o.StepNs):G9} s, k = ±1..±{o.Slides} ({2 * o.Slides} slides), on a ring over [{new GpsTime(pair.OriginNs)}, {new GpsTime(pair.OriginNs + pair.SpanNs)}) GPS ({Seconds(pair.SpanNs):G9} s); shifts wrap modulo the span, coincidences across the seam count, zero lag is never background."),
             "Background time: for each slide, the overlap of the two sites' analysed time after the shift, computed exactly on the ring; summed over slides.",
-            "FAR = louder / background time; when no background coincidence is as loud, 1 / background time is reported as an upper bound.",
+            "FAR = louder / background time; when no background coincidence is as loud, the 90 % confidence upper bound 2.3026 / background time is reported (Gehrels 1986), the FAP then an upper bound and the sigma a lower bound.",
+            string.Create(inv, $"Slide p-value = (slides with a coincidence as loud + 1) / ({2 * o.Slides} slides + 1) (North, Curtis and Sham 2002); each slide is one background realisation of the analysed time (slides share triggers, so they are not fully independent); its floor 1 / {2 * o.Slides + 1} is an upper bound."),
             string.Create(inv, $"FAP = 1 - exp(-FAR x T_obs) with T_obs = {observing:G9} s ({(o.ObservingTimeSeconds is null ? "the zero-lag coincident analysed time" : "given")}); sigma = one-sided Gaussian Q^-1(FAP), 0 when FAP >= 0.5."),
             string.Create(inv, $"Triggers outside their site's segments dropped: {pair.SiteA.Code} {pair.SiteA.DroppedOutsideSegments}, {pair.SiteB.Code} {pair.SiteB.DroppedOutsideSegments}; segments merged: {pair.SiteA.Code} {pair.SiteA.MergedSegments}, {pair.SiteB.Code} {pair.SiteB.MergedSegments}."),
         };

@@ -20,6 +20,9 @@ public sealed record TimeSlideOptions
     /// <summary>Ranking statistic of the candidate; background coincidences with statistic &gt;= this are "louder".</summary>
     public double CandidateStatistic { get; init; } = double.PositiveInfinity;
 
+    /// <summary>A second ranking statistic (a three-site candidate's) against which louder background coincidences are also counted, for combining coincidence types; +infinity for none.</summary>
+    public double JointStatistic { get; init; } = double.PositiveInfinity;
+
     /// <summary>Observing time for the false-alarm probability, in s; null means the zero-lag coincident analysed time.</summary>
     public double? ObservingTimeSeconds { get; init; }
 

@@ -23,4 +23,29 @@ public sealed record TripleBackgroundResult(
     double ObservingTimeSeconds,
     long ZeroLagTriples,
     IReadOnlyList<TripleCoincidence> Loudest,
-    IReadOnlyList<string> Assumptions);
+    IReadOnlyList<string> Assumptions)
+{
+    /// <summary>Windows of the three pairs in ms: first-second, first-third, second-third.</summary>
+    public IReadOnlyList<double> WindowsMs { get; init; } = [];
+
+    /// <summary>The figures without any background triple that uses one of the candidate's own triggers; null when not asked for.</summary>
+    public SignificanceFigures? WithoutCandidateTriggers { get; init; }
+
+    /// <summary>The zero-lag triple taken as the candidate, if any.</summary>
+    public TripleCoincidence? Candidate { get; init; }
+
+    /// <summary>Slides with at least one background triple as loud as the candidate.</summary>
+    public int SlidesWithLouder { get; init; }
+
+    /// <summary>Empirical p-value over slides (m + 1) / (2K + 1); its floor is an upper bound.</summary>
+    public double SlidePValue { get; init; }
+
+    /// <summary>True when the slide p-value is only the floor 1 / (2K + 1).</summary>
+    public bool SlidePValueIsFloor => SlidesWithLouder == 0;
+
+    /// <summary>The largest sigma this background time could give over the observing time (nothing as loud at all).</summary>
+    public double MaxReachableSigma => SignificanceBand.MaxReachableSigma(BackgroundSeconds, ObservingTimeSeconds);
+
+    /// <summary>Time all three sites analysed at zero lag, s.</summary>
+    public double ZeroLagSeconds { get; init; }
+}

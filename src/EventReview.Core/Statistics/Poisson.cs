@@ -72,6 +72,23 @@ public static class Poisson
     }
 
 
+    /// <summary>
+    /// Upper limit on a Poisson mean when no event was seen, at confidence level <paramref name="confidence"/>:
+    /// the mean mu with P(0 | mu) = exp(-mu) = 1 - CL, so mu = -ln(1 - CL); 2.3026 at 90 % (Gehrels 1986, ApJ 303, 336, table 1).
+    /// Divide by the time observed for a rate bound.
+    /// </summary>
+    /// <param name="confidence">Confidence level in (0, 1), e.g. 0.9.</param>
+    /// <exception cref="ArgumentOutOfRangeException">When the level is not strictly between 0 and 1.</exception>
+    public static double UpperLimitForNoEvents(double confidence)
+    {
+        if (!(confidence > 0 && confidence < 1))
+        {
+            throw new ArgumentOutOfRangeException(nameof(confidence), confidence, "A confidence level strictly between 0 and 1 was expected.");
+        }
+
+        return -Math.Log(1 - confidence);
+    }
+
     /// <summary>P(N &gt;= k) for a Poisson count with the given mean (same as <see cref="AtLeast"/>, for 64-bit counts).</summary>
     public static double ProbabilityAtLeast(long k, double mean) =>
         k > int.MaxValue ? (mean == 0 ? 0.0 : SpecialFunctions.GammaLowerRegularized(k, mean)) : AtLeast((int)Math.Max(k, int.MinValue), mean);

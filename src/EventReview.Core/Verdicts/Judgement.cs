@@ -7,6 +7,7 @@ namespace EventReview.Core.Verdicts;
 /// </summary>
 /// <param name="Verdict">The typed verdict.</param>
 /// <param name="Reason">Why, with the numbers, their units and the tolerance they were judged against.</param>
+[System.Text.Json.Serialization.JsonConverter(typeof(JudgementJson))]
 public sealed record Judgement(Verdict Verdict, string Reason)
 {
     /// <summary>The stored word (<see cref="VerdictWords.Word"/>).</summary>
@@ -14,4 +15,28 @@ public sealed record Judgement(Verdict Verdict, string Reason)
 
     /// <summary>The tone it is drawn with.</summary>
     public VerdictTone Tone => VerdictWords.Tone(Verdict);
+
+    /// <summary>The worst of several judgements by tone (bad, then attention, then neutral, then good), the first on a tie; null for none.</summary>
+    public static Judgement? Worst(IEnumerable<Judgement> judgements)
+    {
+        ArgumentNullException.ThrowIfNull(judgements);
+        Judgement? worst = null;
+        foreach (var j in judgements)
+        {
+            if (worst is null || Rank(j.Tone) > Rank(worst.Tone))
+            {
+                worst = j;
+            }
+        }
+
+        return worst;
+    }
+
+    private static int Rank(VerdictTone tone) => tone switch
+    {
+        VerdictTone.Bad => 3,
+        VerdictTone.Attention => 2,
+        VerdictTone.Neutral => 1,
+        _ => 0,
+    };
 }

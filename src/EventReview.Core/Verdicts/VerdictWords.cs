@@ -17,6 +17,21 @@ public static class VerdictWords
         (Verdict.SomethingAdded, "something added", VerdictTone.Bad),
         (Verdict.NoDrift, "no drift", VerdictTone.Good),
         (Verdict.Drift, "drift", VerdictTone.Attention),
+        (Verdict.Frozen, "frozen", VerdictTone.Good),
+
+        // record format 2
+        (Verdict.ResidualIsNoise, "residual is noise", VerdictTone.Good),
+        (Verdict.ExcessFound, "excess found", VerdictTone.Bad),
+        (Verdict.ModelDoesNotFit, "model does not fit", VerdictTone.Attention),
+        (Verdict.BelowThreeSigma, "below 3 sigma", VerdictTone.Neutral),
+        (Verdict.ThreeToFiveSigma, "3 to 5 sigma", VerdictTone.Neutral),
+        (Verdict.FiveSigmaOrMore, "5 sigma or more", VerdictTone.Neutral),
+        (Verdict.AtLeastThreeSigma, "at least 3 sigma", VerdictTone.Neutral),
+        (Verdict.VetoSafe, "safe", VerdictTone.Good),
+        (Verdict.VetoUnsafe, "unsafe", VerdictTone.Attention),
+        (Verdict.SealValid, "valid", VerdictTone.Good),
+        (Verdict.SealInvalid, "invalid", VerdictTone.Bad),
+        (Verdict.Sealed, "sealed", VerdictTone.Attention),
     ];
 
     /// <summary>The stored word of <paramref name="verdict"/> (lower case, stable across versions).</summary>

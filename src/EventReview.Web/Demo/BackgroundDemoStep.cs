@@ -8,13 +8,17 @@ namespace EventReview.Web.Demo;
 
 /// <summary>
 /// Demo data for the time-slide background of ER-C-0142: simulated trigger and segment files for its three sites over
-/// three days around the candidate, attached to <c>significance.time-slides</c>, and the check run once on them.
+/// three days around the candidate, attached to <c>significance.time-slides</c>, and the check run once on them with
+/// K = 5,000 (10,000 slides): enough background for the joint bound over the three pairs and the triple to pass 3 sigma.
 /// </summary>
 public sealed class BackgroundDemoStep(CaseService cases, BackgroundCheckService background, ILogger<BackgroundDemoStep> logger) : IDemoSeedStep
 {
     public const string CandidateId = "ER-C-0142";
 
     public const string ItemKey = "significance.time-slides";
+
+    /// <summary>K of the demo run (the app's default): slides k = ±1..±K.</summary>
+    public const int SlidesK = 5000;
 
     public int Order => 60;
 
@@ -45,7 +49,7 @@ public sealed class BackgroundDemoStep(CaseService cases, BackgroundCheckService
             picks.Add(new BackgroundSiteFiles(a.SiteCode, trigSha, segSha));
         }
 
-        var (_, _, summary) = await background.RunAsync(user, caseId, ItemKey, new BackgroundCheckParameters(picks), ct: ct);
+        var (_, _, summary) = await background.RunAsync(user, caseId, ItemKey, new BackgroundCheckParameters(picks, SlidesK: SlidesK), ct: ct);
         logger.LogInformation("Background demo on {Candidate} in {Seconds:F1} s: {Summary}", CandidateId, watch.Elapsed.TotalSeconds, summary);
     }
 

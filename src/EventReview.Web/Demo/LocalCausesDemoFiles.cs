@@ -14,7 +14,8 @@ namespace EventReview.Web.Demo;
 /// Invented input files for the local-causes checks (environment, injections, data chain): background triggers of a
 /// few channels per site at fixed rates, data-quality segments away from the candidate, a sensor inventory with one
 /// coupling function, an injection log with performed injections (to which each site's actuator readback responds), an
-/// optional coincident magnetic and mains disturbance at one site, and one data-chain stage with nothing added.
+/// optional coincident magnetic and mains disturbance at one site with the magnetometer's own series, and one data-chain
+/// stage whose residual is its quantisation noise.
 /// Deterministic for a given seed.
 /// </summary>
 public static class LocalCausesDemoFiles
@@ -35,6 +36,9 @@ public static class LocalCausesDemoFiles
 
     /// <summary>Name of the coupling function file the inventory names for the disturbed site's magnetometer.</summary>
     public static string CouplingFileName(string site) => $"coupling-{site}-MAG-VAULT-X.csv";
+
+    /// <summary>Name of the magnetometer's own series the inventory names for the disturbed site (its noise is read from it).</summary>
+    public static string SensorDataFileName(string site) => $"data-{site}-MAG-VAULT-X.txt";
 
     /// <summary>Data-quality segments: a few flags per site, none within a minute of the candidate; two overlapping rows (merged on import).</summary>
     public static string Segments(GpsTime t, IEnumerable<string> sites)
@@ -111,17 +115,40 @@ public static class LocalCausesDemoFiles
     /// <summary>The sensor inventory; the magnetometer of <paramref name="couplingSite"/> names its coupling file.</summary>
     public static string Inventory(IEnumerable<string> sites, string? couplingSite)
     {
-        var sb = new StringBuilder("site,channel,kind,location,coupling_file\n");
+        var sb = new StringBuilder("site,channel,kind,location,coupling_file,data_file\n");
         foreach (var s in sites)
         {
             foreach (var (channel, kind, location, _) in Channels)
             {
-                var coupling = s == couplingSite && channel == "MAG-VAULT-X" ? CouplingFileName(s) : string.Empty;
-                sb.Append($"{s},{s}:{channel},{kind},{location},{coupling}\n");
+                var ours = s == couplingSite && channel == "MAG-VAULT-X";
+                sb.Append($"{s},{s}:{channel},{kind},{location},{(ours ? CouplingFileName(s) : string.Empty)},{(ours ? SensorDataFileName(s) : string.Empty)}\n");
             }
         }
 
         return sb.ToString();
+    }
+
+    /// <summary>
+    /// The disturbed site's magnetometer around the candidate: 32 s at 512 Hz of white noise of 1e-11 T RMS (fixed seed) with
+    /// the disturbance that made its trigger, a 20 ms burst 0.182 s before the arrival. Text "gps_time value" per line.
+    /// </summary>
+    public static string MagnetometerSeries(GpsTime t, GpsTime arrival, int seed)
+    {
+        const double fs = 512;
+        var start = new GpsTime(t.WholeSeconds * GpsTime.NanosecondsPerSecond).AddSeconds(-16);
+        var random = new Random(seed);
+        var x = new double[32 * (int)fs];
+        var burst = arrival.AddSeconds(-0.182).SecondsSince(start);
+        for (var i = 0; i < x.Length; i++)
+        {
+            var dt = (i / fs) - burst;
+            x[i] = (1e-11 * Math.Sqrt(-2 * Math.Log(1 - random.NextDouble())) * Math.Cos(2 * Math.PI * random.NextDouble()))
+                + (2.3e-10 * Math.Exp(-dt * dt / (2 * 0.01 * 0.01)) * Math.Sin(2 * Math.PI * 75 * dt));
+        }
+
+        using var w = new StringWriter(CultureInfo.InvariantCulture);
+        StrainTextWriter.Write(w, new TimeSeries(start, fs, x), ["magnetometer, electronics vault, tesla (invented demo data)"]);
+        return w.ToString();
     }
 
     /// <summary>An invented magnetic coupling function (strain per tesla), falling with frequency.</summary>
@@ -157,17 +184,24 @@ public static class LocalCausesDemoFiles
         return new ChainStageModel([], [new Complex(-r, r), new Complex(-r, -r)], Math.Pow(2 * Math.PI * 100, 2));
     }
 
-    /// <summary>The stage model as JSON in the chain model format.</summary>
+    /// <summary>Quantisation step of the demo stage's recorded output.</summary>
+    public const double QuantisationStep = 1e-4;
+
+    /// <summary>
+    /// The stage model as JSON in the chain model format, with the residual expected when nothing is wrong: the output's
+    /// quantisation noise, step / sqrt 12 (Widrow's uniform-quantisation model).
+    /// </summary>
     public static string StageModelJson()
     {
         var m = StageModel();
         var poles = string.Join(", ", m.PolesHz.Select(p => string.Create(CultureInfo.InvariantCulture, $"[{p.Real:R}, {p.Imaginary:R}]")));
-        return string.Create(CultureInfo.InvariantCulture, $"{{\"stages\": [{{\"zerosHz\": [], \"polesHz\": [{poles}], \"gain\": {m.Gain:R}, \"delaySeconds\": 0, \"prewarpHz\": null}}]}}\n");
+        var noise = QuantisationStep / Math.Sqrt(12);
+        return string.Create(CultureInfo.InvariantCulture, $"{{\"stages\": [{{\"zerosHz\": [], \"polesHz\": [{poles}], \"gain\": {m.Gain:R}, \"delaySeconds\": 0, \"prewarpHz\": null, \"expectedNoiseRms\": {noise:G6}}}]}}\n");
     }
 
     /// <summary>
     /// One stage over 32 s around the case time at 512 Hz: the input is white noise, the output is the stage filter applied to
-    /// it and quantised to steps of 1e-4 (nothing added). Returns the two files' text.
+    /// it and quantised to steps of 1e-4 (its residual is the quantisation noise). Returns the two files' text.
     /// </summary>
     public static (string Input, string Output) ChainStage(GpsTime t, int seed, Action<double[], double>? tamper = null)
     {
@@ -184,7 +218,7 @@ public static class LocalCausesDemoFiles
         tamper?.Invoke(y, fs);
         for (var i = 0; i < y.Length; i++)
         {
-            y[i] = Math.Round(y[i] / 1e-4) * 1e-4;
+            y[i] = Math.Round(y[i] / QuantisationStep) * QuantisationStep;
         }
 
         return (Write(new TimeSeries(start, fs, x), "stage 1 input (invented demo data)"), Write(new TimeSeries(start, fs, y), "stage 1 output (invented demo data)"));

@@ -9,9 +9,12 @@ namespace EventReview.Web.Demo;
 
 /// <summary>
 /// Demo data for the local-causes checks (invented scenario). ER-C-0142: a magnetic and a mains trigger 0.18 s before
-/// the arrival at site AB (environment: concern at AB, clear elsewhere), an injection log with nothing near the candidate
-/// (clear), one data-chain stage with nothing added, and a registered sealed blind-injection record whose record and
-/// salt are given in a demo-only note on injection.blind-open. ER-C-0157: environment files with nothing near (clear).
+/// the arrival at site AB (environment: concern at AB, clear elsewhere; the magnetometer's coupling is read from its own
+/// series and the candidate's strain at AB, and stays a few per cent of the signal), an injection log with nothing near
+/// the candidate (clear; each site's actuator readback fires at every injection and is unsafe as a veto), one data-chain
+/// stage whose residual is its quantisation noise, and a registered sealed blind-injection record whose record and salt
+/// are given in a demo-only note on injection.blind-open. ER-C-0157: environment files with nothing near (clear).
+/// Runs after the overlap step so that the strain files it attaches can be read.
 /// </summary>
 public sealed class LocalCausesDemoStep(CaseService cases, EnvironmentCheckService environment, InjectionCheckService injections,
     ChainCheckService chain, SealedRecordService seals) : IDemoSeedStep
@@ -19,7 +22,7 @@ public sealed class LocalCausesDemoStep(CaseService cases, EnvironmentCheckServi
     /// <summary>The fixed demo salt (32 bytes, hex). Demo only: a real salt is random and secret until opening.</summary>
     public const string DemoSalt = "5eed0f1e2d3c4b5a69788796a5b4c3d2e1f00112233445566778899aabbccdd0";
 
-    public int Order => 40;
+    public int Order => 45;
 
     public async Task SeedAsync(DemoContext demo, CancellationToken ct)
     {
@@ -38,9 +41,11 @@ public sealed class LocalCausesDemoStep(CaseService cases, EnvironmentCheckServi
         var triggers = await Attach(who, id, "env.triggers", "triggers-ER-C-0142.csv", LocalCausesDemoFiles.Triggers(c.Gps, arrivals, "AB", 142), "Auxiliary and environmental triggers, ±1 h (invented demo data).", ct);
         var inventory = await Attach(who, id, "env.triggers", "sensor-inventory.csv", LocalCausesDemoFiles.Inventory(sites, "AB"), "Sensor inventory of the three sites (invented).", ct);
         await Attach(who, id, "env.coupling", LocalCausesDemoFiles.CouplingFileName("AB"), LocalCausesDemoFiles.MagneticCoupling(), "Magnetic coupling function of AB's vault magnetometer, strain per tesla (invented).", ct);
+        await Attach(who, id, "env.coupling", LocalCausesDemoFiles.SensorDataFileName("AB"), LocalCausesDemoFiles.MagnetometerSeries(c.Gps, arrivals["AB"], 1421), "AB vault magnetometer, 32 s at 512 Hz around the candidate, tesla (invented demo data).", ct);
         var log = await Attach(who, id, "injection.system-records", "injection-log-ER-C-0142.csv", LocalCausesDemoFiles.InjectionLog(c.Gps, sites), "Injection log of the three sites, ±2 h (invented demo data).", ct);
 
-        var p = DemoEnvironmentParameters(segments, triggers, inventory, log);
+        var strain = CaseFiles.List(await cases.GetAsync(who, id, ct)).FirstOrDefault(f => f.FileName == "AB-strain.txt")?.Sha256;
+        var p = DemoEnvironmentParameters(segments, triggers, inventory, log) with { StrainShas = strain is null ? null : new Dictionary<string, string> { ["AB"] = strain } };
         foreach (var item in new[] { "env.triggers", "env.veto-safety", "env.coupling", "state.dq-segments" })
         {
             await environment.RunAsync(who, id, item, p, ct);

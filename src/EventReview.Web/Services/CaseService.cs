@@ -290,7 +290,7 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
         var actor = user.ToActor();
         return MutateCoreAsync(caseId, null, null, async (db, c, now) =>
         {
-            await Checks.SealedRecordService.EnsureNoUnopenedSealsAsync(db, outcome, ct);
+            await Checks.SealedRecordService.EnsureMayCloseAsync(db, c, outcome, ct);
             c.Close(outcome, statement, actor, now);
         }, ct);
     }

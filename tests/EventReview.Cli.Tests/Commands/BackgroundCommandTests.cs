@@ -21,16 +21,44 @@ public sealed class BackgroundCommandTests : IDisposable
         Assert.True(code == 0, stderr);
         using var doc = JsonDocument.Parse(stdout);
         var root = doc.RootElement;
-        string[] expected = ["slides", "backgroundSeconds", "backgroundCoincidences", "louder", "farHz", "farIsBound", "fap", "sigma", "elapsedMs"];
-        Assert.Equal(expected, root.EnumerateObject().Select(p => p.Name));
+        // the fields of earlier versions stay; the verdict and the bound flags are added (issue contract)
+        string[] expected = ["slides", "backgroundSeconds", "backgroundCoincidences", "louder", "farHz", "farIsBound", "fap", "sigma", "elapsedMs",
+            "verdict", "reason", "significanceBand", "fapIsBound", "sigmaIsBound", "farBoundConfidence", "slidePValue", "pairs"];
+        Assert.All(expected, name => Assert.True(root.TryGetProperty(name, out _), name));
         Assert.Equal(400, root.GetProperty("slides").GetInt32());
         Assert.Equal(400 * 20_000.0, root.GetProperty("backgroundSeconds").GetDouble(), 1e-6); // both sites analyse the whole 20,000 s
         var louder = root.GetProperty("louder").GetInt64();
         Assert.Equal(louder == 0, root.GetProperty("farIsBound").GetBoolean());
         Assert.True(root.GetProperty("backgroundCoincidences").GetInt64() > 0);
         var far = root.GetProperty("farHz").GetDouble();
-        Assert.Equal(Math.Max(1, louder) / 8e6, far, 1e-18);
+        Assert.Equal((louder == 0 ? 2.302585092994046 : louder) / 8e6, far, 1e-18); // 90 % bound when nothing is as loud (Gehrels 1986)
+        Assert.Equal(louder == 0, root.GetProperty("fapIsBound").GetBoolean());
+        Assert.Equal(root.GetProperty("verdict").GetString() == "concern" ? "background too short" : root.GetProperty("verdict").GetString(), root.GetProperty("significanceBand").GetString());
+        Assert.NotEqual("consistent", root.GetProperty("verdict").GetString());
         Assert.Equal(1 - Math.Exp(-far * 20_000), root.GetProperty("fap").GetDouble(), 1e-12); // T_obs = zero-lag coincident time
+    }
+
+    [Fact]
+    public void Three_sites_use_a_window_per_pair_from_the_network_and_give_the_joint_figure()
+    {
+        var args = Files(sites: 3) + $" --network {Network()} --tolerance-ms 2 --step-s 7 --slides 100 --candidate-time 1300010000 --remove-candidate-triggers --json";
+        var (code, stdout, stderr) = Run(args.Split(' '));
+        Assert.True(code == 0, stderr);
+        using var doc = JsonDocument.Parse(stdout);
+        var root = doc.RootElement;
+        var pairs = root.GetProperty("pairs").EnumerateArray().ToList();
+        Assert.Equal(3, pairs.Count);
+        Assert.All(pairs, p => Assert.StartsWith("light-travel", p.GetProperty("plan").GetProperty("windowRule").GetString(), StringComparison.Ordinal));
+        Assert.Equal(3, pairs.Select(p => p.GetProperty("plan").GetProperty("windowMs").GetDouble()).Distinct().Count()); // three baselines, three windows
+        var triple = root.GetProperty("triple");
+        Assert.Equal(3, triple.GetProperty("windowsMs").GetArrayLength());
+        Assert.Equal(JsonValueKind.Object, triple.GetProperty("withoutCandidateTriggers").ValueKind);
+        var joint = root.GetProperty("joint");
+        Assert.Equal(4, joint.GetProperty("types").GetArrayLength());
+        Assert.Equal(joint.GetProperty("figures").GetProperty("farHz").GetDouble(), root.GetProperty("farHz").GetDouble());
+        Assert.Equal(joint.GetProperty("verdict").GetString(), root.GetProperty("verdict").GetString());
+        Assert.StartsWith("2021-03-17T09:53:02", root.GetProperty("candidateUtc").GetString(), StringComparison.Ordinal); // CHECKS.md: GPS 1167264018 = 2017-01-01T00:00:00, no leap second since (Python datetime for the difference)
+        Assert.True(root.GetProperty("leapSeconds").TryGetProperty("tableExpires", out _));
     }
 
     [Fact]
@@ -55,10 +83,23 @@ public sealed class BackgroundCommandTests : IDisposable
         Assert.Contains("M2", stderr);
     }
 
-    private string Files(bool writeTriggers = true)
+    private string Network()
+    {
+        // three invented sites (letters only) on different baselines
+        var path = Path.Combine(_dir, "net.json");
+        File.WriteAllText(path, """
+            {"name": "Invented", "sites": [
+              {"code": "KX", "name": "Site KX", "latitudeDegrees": 12, "longitudeDegrees": 31, "heightMeters": 100, "xArmAzimuthDegrees": 10, "yArmAzimuthDegrees": 100, "timingUncertaintySeconds": 0.0001},
+              {"code": "M2", "name": "Site M2", "latitudeDegrees": -20, "longitudeDegrees": 80, "heightMeters": 0, "xArmAzimuthDegrees": 200, "yArmAzimuthDegrees": 290, "timingUncertaintySeconds": 0.0001},
+              {"code": "PQ", "name": "Site PQ", "latitudeDegrees": 50, "longitudeDegrees": 95, "heightMeters": 30, "xArmAzimuthDegrees": 70, "yArmAzimuthDegrees": 160, "timingUncertaintySeconds": 0.0001}]}
+            """);
+        return path;
+    }
+
+    private string Files(bool writeTriggers = true, int sites = 2)
     {
         var rng = new Random(4);
-        foreach (var code in new[] { "a", "b" })
+        foreach (var code in new[] { "a", "b", "c" }.Take(sites))
         {
             if (writeTriggers || code == "b")
             {
@@ -68,13 +109,19 @@ public sealed class BackgroundCommandTests : IDisposable
                     sb.Append(CultureInfo.InvariantCulture, $"{5 + (rng.NextDouble() * 3):F3},{1_300_000_000 + t:F6}\n");
                 }
 
+                if (sites == 3)
+                {
+                    sb.Append(CultureInfo.InvariantCulture, $"12.000,{1_300_010_000 + (code == "b" ? 0.004 : code == "c" ? -0.003 : 0):F6}\n"); // the candidate, seen by all three
+                }
+
                 File.WriteAllText(Path.Combine(_dir, code + ".csv"), sb.ToString());
             }
 
             File.WriteAllText(Path.Combine(_dir, code + "-seg.csv"), "start_gps,end_gps\n1300000000,1300010000\n1300010000,1300020000\n");
         }
 
-        return $"background --triggers KX={_dir}/a.csv --triggers M2={_dir}/b.csv --segments KX={_dir}/a-seg.csv --segments M2={_dir}/b-seg.csv";
+        var third = sites == 3 ? $" --triggers PQ={_dir}/c.csv --segments PQ={_dir}/c-seg.csv" : string.Empty;
+        return $"background --triggers KX={_dir}/a.csv --triggers M2={_dir}/b.csv --segments KX={_dir}/a-seg.csv --segments M2={_dir}/b-seg.csv" + third;
     }
 
     private static (int Code, string Stdout, string Stderr) Run(string[] args)

@@ -24,6 +24,33 @@ public class ConfigCommandTests
         Assert.Equal("4.2.1", changed.GetProperty("old").GetString());
         Assert.Equal("4.2.2", changed.GetProperty("new").GetString());
         Assert.Equal(1, root.GetProperty("unchanged").GetInt32());
+        Assert.Equal("drift", root.GetProperty("verdict").GetString());
+        Assert.Contains("freeze period not known", root.GetProperty("reason").GetString());
+    }
+
+    [Fact]
+    public void Diff_inside_a_given_freeze_period_is_a_concern_as_in_the_app()
+    {
+        var frozen = CliRunner.TempFile("daq.firmware = 4.2.1\n", ".conf");
+        var later = CliRunner.TempFile("daq.firmware = 4.2.2\n", ".conf");
+        string[] args = ["config", "diff", "--frozen", frozen, "--snapshot", later, "--freeze-from", "2026-12-01T00:00:00Z", "--freeze-until", "2026-12-15T00:00:00Z", "--json"];
+
+        var (code, output, _) = CliRunner.Run(ConfigCommand.Build(), [.. args, "--captured-at", "2026-12-03T10:00:00Z"]);
+        Assert.Equal(1, code);
+        using (var doc = JsonDocument.Parse(output))
+        {
+            Assert.Equal("concern", doc.RootElement.GetProperty("verdict").GetString());
+        }
+
+        var (_, outside, _) = CliRunner.Run(ConfigCommand.Build(), [.. args, "--captured-at", "2026-12-20T10:00:00Z"]);
+        using (var doc = JsonDocument.Parse(outside))
+        {
+            Assert.Equal("drift", doc.RootElement.GetProperty("verdict").GetString());
+        }
+
+        var (bad, _, err) = CliRunner.Run(ConfigCommand.Build(), [.. args, "--captured-at", "yesterday"]);
+        Assert.Equal(2, bad);
+        Assert.Contains("--captured-at", err);
     }
 
     [Fact]
@@ -35,7 +62,9 @@ public class ConfigCommandTests
         var (code, output, _) = CliRunner.Run(ConfigCommand.Build(), "config", "diff", "--frozen", a, "--snapshot", b);
 
         Assert.Equal(0, code);
-        Assert.Equal("0 added, 0 removed, 0 changed, 1 unchanged", output.Trim());
+        var lines = output.Trim().Split('\n');
+        Assert.Equal("0 added, 0 removed, 0 changed, 1 unchanged", lines[0]);
+        Assert.StartsWith("verdict: no drift", lines[1], StringComparison.Ordinal);
     }
 
     [Fact]

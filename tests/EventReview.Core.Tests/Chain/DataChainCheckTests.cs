@@ -3,6 +3,7 @@ using EventReview.Core.Chain;
 using EventReview.Core.Signal;
 using EventReview.Core.Signal.Filters;
 using EventReview.Core.Time;
+using EventReview.Core.Verdicts;
 
 namespace EventReview.Core.Tests.Chain;
 
@@ -39,34 +40,144 @@ public class DataChainCheckTests
     }
 
     [Fact]
-    public void A_simulated_stage_with_nothing_added_passes()
+    public void A_simulated_stage_with_nothing_added_is_noise_and_its_model_fits()
     {
         var (input, output, _) = Simulate(seed: 11, burstAmplitudeSigma: 0);
-        var report = DataChainCheck.Run(input, [output], [Stage], Start.AddSeconds(10));
+        var report = DataChainCheck.Run(input, [output], [Stage with { ExpectedNoiseRms = NoiseSigma }], Start.AddSeconds(10));
         var s = Assert.Single(report.Stages);
         Assert.False(s.Added);
-        Assert.Equal("nothing added", report.Verdict);
-        Assert.InRange(s.MaxExcessSigma, 2, 5);
-        // Residual is the measurement noise: robust sigma within 5 % of it (statistical).
+        Assert.True(s.ModelFits);
+        Assert.Equal(Verdict.ResidualIsNoise, s.Judgement.Verdict);
+        Assert.Equal("residual is noise", report.Judgement.Word);
+        Assert.True(s.MaxExcessSigma < s.ThresholdSigma);
+        // Residual is the measurement noise: robust sigma and off-source RMS within 5 % of it (statistical).
         Assert.Equal(1.0, s.RobustSigma / NoiseSigma, 0.05);
+        Assert.Equal(1.0, s.NoiseRatio!.Value, 0.05);
         Assert.Equal(1.0, s.ResidualRms / s.OffSourceRms, 0.2);
+        Assert.InRange(s.CoherentFraction, 0, 0.2);
         Assert.True(s.SkippedStartSeconds > 0.1 && s.SkippedStartSeconds < 1);
-        Assert.Equal(N - (2 * (int)Math.Round(s.SkippedStartSeconds * Fs)), s.SamplesTested);
-        // Q(5) = 2.86651571879e-7, Abramowitz & Stegun table 26.1 (from memory): 1 - (1 - 2 Q)^n
-        Assert.Equal(1 - Math.Pow(1 - (2 * 2.86651571879e-7), s.SamplesTested), s.NoiseFalseAlarmProbability, 1e-9);
+        // Only the on-source window is tested: +-1 s at 1024 Hz.
+        Assert.Equal(2049, s.SamplesTested);
+        Assert.Equal(N - (2 * (int)Math.Round(s.SkippedStartSeconds * Fs)) - 2049, s.OffSourceSamples);
+        Assert.Empty(s.OutsideWindow);
     }
 
     [Fact]
-    public void A_small_added_chirp_is_caught_at_the_right_time()
+    public void The_threshold_is_the_trials_corrected_two_sided_normal_quantile()
+    {
+        // One sample at 2 Q(3) = 2.69979606326e-3: z = 3 (Q(3) = 1.34989803163e-3, Abramowitz & Stegun table 26.1, from memory).
+        Assert.Equal(3.0, ChainStageCheck.Threshold(2.69979606326e-3, 1), 1e-9);
+
+        // n samples: 1 - (1 - 2 Q(z))^n = P (identity), and z grows with n.
+        foreach (var n in new[] { 10, 2049, 1_000_000 })
+        {
+            var z = ChainStageCheck.Threshold(1e-3, n);
+            var perSample = 2 * EventReview.Core.Statistics.GaussianTail.Q(z);
+            Assert.Equal(1.0, (1 - Math.Pow(1 - perSample, n)) / 1e-3, 1e-6); // double rounding of 1 - 1e-9 limits the digits
+        }
+
+        Assert.True(ChainStageCheck.Threshold(1e-3, 1_000_000) > ChainStageCheck.Threshold(1e-3, 2049));
+    }
+
+    [Fact]
+    public void A_small_added_chirp_inside_the_window_is_an_excess_at_the_right_time()
     {
         var (input, output, burstGps) = Simulate(seed: 11, burstAmplitudeSigma: 12);
         var report = DataChainCheck.Run(input, [output], [Stage], Start.AddSeconds(10), new DataChainOptions(WindowSeconds: 0.5));
         var s = Assert.Single(report.Stages);
         Assert.True(s.Added);
-        Assert.Equal("something added", s.Verdict);
+        Assert.True(s.ModelFits);
+        Assert.Equal(Verdict.ExcessFound, s.Judgement.Verdict);
+        Assert.Equal("excess found", report.Judgement.Word);
         Assert.InRange(s.MaxExcessSigma, 8, 14);
         Assert.InRange(s.MaxExcessGps, burstGps - 0.05, burstGps + 0.05);
         Assert.True(s.ResidualRms > 1.5 * s.OffSourceRms);
+    }
+
+    [Fact]
+    public void An_excursion_outside_the_window_is_listed_but_never_sets_the_candidate_verdict()
+    {
+        // The same 12-sigma burst at +10.2 s, but the candidate sits at +14 s. The old statistic searched the whole record
+        // and would have said "something added" for the candidate; only the on-source window may decide.
+        var (input, output, burstGps) = Simulate(seed: 11, burstAmplitudeSigma: 12);
+        var report = DataChainCheck.Run(input, [output], [Stage], Start.AddSeconds(14));
+        var s = Assert.Single(report.Stages);
+        var wholeRecordMax = Math.Max(s.MaxExcessSigma, s.OutsideWindow.Max(e => e.Sigma));
+        Assert.True(wholeRecordMax > 5, "the old whole-record statistic would have flagged this record");
+        Assert.False(s.Added);
+        Assert.Equal(Verdict.ResidualIsNoise, report.Judgement.Verdict);
+        var e = s.OutsideWindow[0];
+        Assert.InRange(e.Gps, burstGps - 0.05, burstGps + 0.05);
+        Assert.Equal(e.Gps - (Start.Seconds + 14), e.OffsetSeconds, 1e-9);
+        Assert.True(e.Sigma > s.OutsideThresholdSigma);
+        Assert.Equal(s.OutsideWindow.Count, s.OutsideWindowCount);
+    }
+
+    [Fact]
+    public void A_stage_model_twenty_percent_off_in_gain_does_not_fit_while_the_old_statistic_passed_it()
+    {
+        var (input, output, _) = Simulate(seed: 11, burstAmplitudeSigma: 0);
+        var wrong = Stage with { Gain = Stage.Gain * 1.2 };
+        var report = DataChainCheck.Run(input, [output], [wrong], Start.AddSeconds(10));
+        var s = Assert.Single(report.Stages);
+
+        // The old statistic judged the residual only against its own scatter: its largest excursion anywhere stays
+        // below 5 robust sigma, so it said "nothing added" about a model that does not describe the stage.
+        Assert.True(Math.Max(s.MaxExcessSigma, s.OutsideWindow.Select(e => e.Sigma).DefaultIfEmpty(0).Max()) < 5);
+        Assert.False(s.ModelFits);
+        Assert.True(s.CoherentFraction > 0.9, $"coherent fraction {s.CoherentFraction}");
+        Assert.True(s.ResidualToOutputPower > 1e-2);
+        Assert.Equal(Verdict.ModelDoesNotFit, report.Judgement.Verdict);
+        Assert.Contains("does not fit", report.Judgement.Reason, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_residual_well_above_the_stated_expected_noise_means_the_model_does_not_fit()
+    {
+        var (input, output, _) = Simulate(seed: 11, burstAmplitudeSigma: 0);
+        var fits = DataChainCheck.Run(input, [output], [Stage with { ExpectedNoiseRms = NoiseSigma }], Start.AddSeconds(10)).Stages[0];
+        var tooQuiet = DataChainCheck.Run(input, [output], [Stage with { ExpectedNoiseRms = NoiseSigma / 3 }], Start.AddSeconds(10)).Stages[0];
+        Assert.True(fits.ModelFits);
+        Assert.False(tooQuiet.ModelFits);
+        Assert.Equal(3.0, tooQuiet.NoiseRatio!.Value, 0.15);
+        Assert.Equal(Verdict.ModelDoesNotFit, tooQuiet.Judgement.Verdict);
+    }
+
+    [Fact]
+    public void Over_1000_clean_records_the_false_alarm_rate_is_within_the_stated_probability()
+    {
+        // Short records: 8 s at 256 Hz, white input through a one-pole low-pass, white measurement noise on the output.
+        const double fs = 256;
+        const int n = 2048;
+        const double stated = 0.05;
+        var model = new ChainStageModel([], [new Complex(-20, 0)], 2 * Math.PI * 20);
+        var sos = SecondOrderSections.FromZpk(DataChainCheck.Discretise(model, fs));
+        var random = new Random(20261205);
+        int excess = 0, misfit = 0;
+        for (var r = 0; r < 1000; r++)
+        {
+            var x = new double[n];
+            for (var i = 0; i < n; i++)
+            {
+                x[i] = Gauss(random);
+            }
+
+            var y = SosFilter.Apply(sos, x);
+            for (var i = 0; i < n; i++)
+            {
+                y[i] += 0.01 * Gauss(random);
+            }
+
+            var report = DataChainCheck.Run(new TimeSeries(Start, fs, x), [new TimeSeries(Start, fs, y)], [model], Start.AddSeconds(4),
+                new DataChainOptions(WindowSeconds: 1, FalseAlarmProbability: stated));
+            excess += report.Stages[0].Added ? 1 : 0;
+            misfit += report.Stages[0].ModelFits ? 0 : 1;
+        }
+
+        // Binomial(1000, 0.05): mean 50, sd 6.9; the rate must not exceed the stated probability beyond 3 sd, and the
+        // threshold must not be so loose that it never fires (then it would state a probability it does not have).
+        Assert.InRange(excess, 25, 71);
+        Assert.Equal(0, misfit);
     }
 
     [Fact]
@@ -74,10 +185,10 @@ public class DataChainCheckTests
     {
         var (input, output, _) = Simulate(seed: 11, burstAmplitudeSigma: 12);
         var (report, traces) = DataChainCheck.RunWithTraces(input, [output], [Stage], Start.AddSeconds(10));
-        var svg = DataChainSvg.Render(traces[0], report.Stages[0], report.CenterGps, report.SigmaThreshold);
+        var svg = DataChainSvg.Render(traces[0], report.Stages[0], report.CenterGps, report.WindowSeconds);
         var doc = System.Xml.Linq.XDocument.Parse(svg);
         Assert.Equal(3, doc.Descendants("{http://www.w3.org/2000/svg}polyline").Count());
-        Assert.Contains("something added", svg);
+        Assert.Contains("excess found", svg);
         Assert.Equal(N, traces[0].Residual.Length);
     }
 
@@ -100,8 +211,9 @@ public class DataChainCheckTests
         Assert.Equal(2, report.Stages.Count);
         Assert.False(report.Stages[0].Added);
         Assert.True(report.Stages[1].Added);
+        Assert.True(report.Stages[1].ModelFits);
         Assert.InRange(report.Stages[1].MaxExcessGps, Start.Seconds + 11.95, Start.Seconds + 12.05);
-        Assert.Equal("something added", report.Verdict);
+        Assert.Equal("excess found", report.Judgement.Word);
     }
 
     [Fact]
@@ -126,6 +238,10 @@ public class DataChainCheckTests
         Assert.Equal(3.5, s.Gain);
         Assert.Equal(0.001, s.DelaySeconds);
         Assert.Equal(50, s.PrewarpHz);
+        Assert.Null(s.ExpectedNoiseRms);
+        var noisy = Assert.Single(ChainModelJson.Parse("""{"stages": [{"polesHz": [[-3, 0]], "gain": 1, "expectedNoiseRms": 2.9e-5}]}"""));
+        Assert.Equal(2.9e-5, noisy.ExpectedNoiseRms);
+        Assert.Throws<FormatException>(() => ChainModelJson.Parse("""{"stages": [{"polesHz": [[-3, 0]], "gain": 1, "expectedNoiseRms": -1}]}"""));
     }
 
     [Fact]

@@ -1,6 +1,7 @@
 using EventReview.Core.Environment;
 using EventReview.Core.Injections;
 using EventReview.Core.Time;
+using EventReview.Core.Verdicts;
 
 namespace EventReview.Core.Tests.Environment;
 
@@ -10,6 +11,11 @@ public class EnvironmentLookupTests
 
     private static AuxiliaryTrigger Trig(string site, string channel, double offset, double snr = 10, double? f = null) =>
         new(site, channel, Case.AddSeconds(offset), snr, f, null);
+
+    // A safety report in which KX:MAG_Z responded to 40 of 50 injections (made by hand, not computed).
+    private static VetoSafetyReport UnsafeMagnetometer() => new(
+        [new ChannelSafety("KX", "MAG_Z", 50, 40, 0.1, 0.002, 1e-30, false, 0.001, 10, 1e4, 20, 2e-3, new Judgement(Verdict.VetoUnsafe, "by hand"))],
+        1, 1e-3, 1, new Judgement(Verdict.VetoUnsafe, "by hand"), []);
 
     private static readonly Sensor[] Sensors =
     [
@@ -37,10 +43,10 @@ public class EnvironmentLookupTests
         // Poisson formula: 1 - exp(-2 w R)
         Assert.Equal(1 - Math.Exp(-2 * 1.0 * 6 / 3600.0), hit.ChanceProbability, 1e-15);
         Assert.Null(hit.Safe);
-        Assert.Equal("concern", report.Verdict);
-        Assert.Equal("concern", report.Sites.Single(s => s.Site == "KX").Verdict);
+        Assert.Equal("concern", report.Judgement.Word);
+        Assert.Equal("concern", report.Sites.Single(s => s.Site == "KX").Judgement.Word);
         var m2 = report.Sites.Single(s => s.Site == "M2");
-        Assert.Equal("clear", m2.Verdict);
+        Assert.Equal("clear", m2.Judgement.Word);
         Assert.False(m2.FromArrival);
         Assert.Equal(Case.Seconds, m2.Gps);
     }
@@ -49,7 +55,7 @@ public class EnvironmentLookupTests
     public void Per_kind_windows_and_unsafe_channels_are_respected()
     {
         var triggers = new[] { Trig("KX", "SEIS_X", 1.5), Trig("KX", "MAG_Z", 0.2) };
-        var safety = new VetoSafetyReport([new ChannelSafety("KX", "MAG_Z", 50, 40, 0.1, 1e-30, false, 0.001)], 1, 1e-3, []);
+        var safety = UnsafeMagnetometer();
         var input = new EnvironmentLookupInput(Case, new Dictionary<string, GpsTime>(), ["KX"], [], triggers, Sensors, safety);
         var options = new EnvironmentLookupOptions(WindowSecondsByKind: new Dictionary<SensorKind, double> { [SensorKind.Seismic] = 2.0 });
 
@@ -67,11 +73,11 @@ public class EnvironmentLookupTests
     public void Only_unsafe_hits_and_no_segment_give_a_clear_verdict()
     {
         var triggers = new[] { Trig("KX", "MAG_Z", 0.2) };
-        var safety = new VetoSafetyReport([new ChannelSafety("KX", "MAG_Z", 50, 40, 0.1, 1e-30, false, 0.001)], 1, 1e-3, []);
+        var safety = UnsafeMagnetometer();
         var segments = new[] { new DataQualitySegment("KX", "FAR_AWAY", Case.AddSeconds(10), Case.AddSeconds(20), null) };
         var input = new EnvironmentLookupInput(Case, new Dictionary<string, GpsTime>(), ["KX"], segments, triggers, Sensors, safety);
         var report = EnvironmentLookup.Run(input);
-        Assert.Equal("clear", report.Verdict);
+        Assert.Equal("clear", report.Judgement.Word);
         Assert.Empty(report.Segments);
     }
 
@@ -83,8 +89,8 @@ public class EnvironmentLookupTests
         var report = EnvironmentLookup.Run(input);
         var seg = Assert.Single(report.Segments);
         Assert.Equal("WIND_HIGH", seg.Flag);
-        Assert.Equal("concern", report.Sites.Single(s => s.Site == "M2").Verdict);
-        Assert.Equal("concern", report.Verdict);
+        Assert.Equal("concern", report.Sites.Single(s => s.Site == "M2").Judgement.Word);
+        Assert.Equal("concern", report.Judgement.Word);
     }
 
     [Fact]
@@ -99,71 +105,6 @@ public class EnvironmentLookupTests
         Assert.Equal(("KX", "M2"), (c.SiteA, c.SiteB));
         Assert.Equal(0.004, c.SeparationSeconds, 1e-6);
         Assert.Equal(0.098, report.Hits.Single(h => h.Site == "M2").OffsetSeconds, 1e-9);
-    }
-
-    [Fact]
-    public void Veto_safety_marks_a_channel_coupled_to_injections_unsafe_and_an_uncoupled_one_safe()
-    {
-        var random = new Random(7);
-        var start = 1_300_000_000.0;
-        const double span = 1e6;
-        var injections = Enumerable.Range(0, 100)
-            .Select(i => start + 5000 + (i * 9000.0) + (random.NextDouble() * 100))
-            .Select(t => new InjectionRecord("KX", GpsTime.FromSeconds(t), GpsTime.FromSeconds(t + 0.2), "burst", "w.txt", InjectionStatus.Performed))
-            .ToList();
-        var triggers = new List<AuxiliaryTrigger>();
-        foreach (var channel in new[] { "COUPLED", "UNCOUPLED" })
-        {
-            var t = start;
-            while ((t += -Math.Log(1 - random.NextDouble()) / 0.002) < start + span)
-            {
-                triggers.Add(new AuxiliaryTrigger("KX", channel, GpsTime.FromSeconds(t), 6, null, null));
-            }
-        }
-
-        // The coupled channel sees 60 % of the injections, 0.1 s after their start.
-        triggers.AddRange(injections.Where((_, i) => i % 5 < 3)
-            .Select(inj => new AuxiliaryTrigger("KX", "COUPLED", inj.Start.AddSeconds(0.1), 20, null, null)));
-        // An aborted injection must not count.
-        injections.Add(new InjectionRecord("KX", GpsTime.FromSeconds(start + 10), GpsTime.FromSeconds(start + 10), "burst", "w", InjectionStatus.Aborted));
-
-        var report = VetoSafety.Evaluate(triggers, injections, new VetoSafetyOptions(WindowSeconds: 0.5, LiveTimeSeconds: span));
-
-        var coupled = report.Channels.Single(c => c.Channel == "COUPLED");
-        var uncoupled = report.Channels.Single(c => c.Channel == "UNCOUPLED");
-        Assert.Equal(100, coupled.Injections);
-        Assert.InRange(coupled.Coincident, 60, 65);
-        Assert.False(coupled.Safe);
-        Assert.True(uncoupled.Safe);
-        // Expected count = R x sum(2 w + duration) = R x 100 x 1.2 s.
-        Assert.Equal(1.0, uncoupled.Expected / (uncoupled.RateHz * 100 * 1.2), 1e-6); // durations are rounded to the nanosecond
-        Assert.Equal(EventReview.Core.Statistics.Poisson.AtLeast(uncoupled.Coincident, uncoupled.Expected), uncoupled.Probability, 1e-15);
-    }
-
-    [Fact]
-    public void Veto_safety_expected_count_is_n_inj_times_two_w_r_for_short_injections()
-    {
-        var t0 = GpsTime.FromSeconds(1000m);
-        var triggers = Enumerable.Range(0, 10).Select(i => new AuxiliaryTrigger("KX", "C", t0.AddSeconds(i * 100), 5, null, null)).ToList();
-        var injections = Enumerable.Range(0, 4).Select(i => new InjectionRecord("KX", t0.AddSeconds(50 + (i * 200)), t0.AddSeconds(50 + (i * 200)), "b", "w", InjectionStatus.Performed)).ToList();
-        var report = VetoSafety.Evaluate(triggers, injections, new VetoSafetyOptions(WindowSeconds: 2, LiveTimeSeconds: 1000));
-        var c = Assert.Single(report.Channels);
-        Assert.Equal(4 * 2 * 2 * (10 / 1000.0), c.Expected, 1e-12);
-        Assert.Equal(0, c.Coincident);
-        Assert.Equal(1.0, c.Probability);
-        Assert.True(c.Safe);
-    }
-
-    [Fact]
-    public void Veto_safety_leaves_a_channel_untested_when_its_rate_cannot_be_measured()
-    {
-        var t0 = GpsTime.FromSeconds(1000m);
-        var triggers = new[] { new AuxiliaryTrigger("KX", "C", t0, 5, null, null) };
-        var injections = new[] { new InjectionRecord("KX", t0, t0, "b", "w", InjectionStatus.Performed) };
-        var c = Assert.Single(VetoSafety.Evaluate(triggers, injections).Channels);
-        Assert.Equal(1, c.Coincident);
-        Assert.Null(c.Safe);
-        Assert.Contains("live time", c.Note);
     }
 
     [Fact]

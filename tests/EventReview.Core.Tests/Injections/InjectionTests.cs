@@ -44,12 +44,12 @@ public class InjectionTests
         // KX arrives 0.5 s after its injection ended: outside a 0.1 s margin; M2 (case time 1000.7) overlaps an aborted one.
         var m2 = Assert.Single(none.Hits);
         Assert.Equal("aborted", m2.Status);
-        Assert.Equal("clear", none.Verdict);
+        Assert.Equal("clear", none.Judgement.Word);
 
         var withMargin = InjectionOverlap.Find(list, GpsTime.FromSeconds(1000.7m), arrivals, [], marginSeconds: 1);
         var k1 = withMargin.Hits.Single(h => h.Site == "KX");
         Assert.Equal(0.5, k1.OffsetSeconds, 1e-9);
-        Assert.Equal("concern", withMargin.Verdict);
+        Assert.Equal("concern", withMargin.Judgement.Word);
     }
 
     [Fact]
@@ -93,7 +93,7 @@ public class InjectionTests
         var arrivals = new Dictionary<string, GpsTime>();
         var opened = BlindInjectionRecord.Open(seal.Commitment, record, seal.Salt, GpsTime.FromSeconds(2000.5m), arrivals, ["KX", "M2"], 0);
         Assert.NotNull(opened);
-        Assert.Equal("concern", opened.Verdict);
+        Assert.Equal("concern", opened.Judgement.Word);
         Assert.Equal("blind_1.txt", Assert.Single(opened.Hits).WaveformRef);
         Assert.Null(BlindInjectionRecord.Open(new string('0', 64), record, seal.Salt, GpsTime.FromSeconds(2000.5m), arrivals, ["KX"], 0));
         var empty = Encoding.UTF8.GetBytes("site,start_gps,end_gps,kind,waveform_ref,status\n");

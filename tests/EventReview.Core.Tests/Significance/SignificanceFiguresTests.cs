@@ -15,12 +15,16 @@ public class SignificanceFiguresTests
     }
 
     [Fact]
-    public void No_louder_background_gives_a_bound_of_one_over_the_background_time()
+    public void No_louder_background_gives_a_ninety_percent_bound_of_2_3_over_the_background_time()
     {
         var f = SignificanceFigures.Compute(10, 0, 2e8, 1e6);
         Assert.True(f.FarIsBound);
-        Assert.Equal(5e-9, f.FarHz, 1e-22);
-        Assert.Equal(1 - Math.Exp(-5e-3), f.Fap, 1e-15); // 1 - exp(-FAR T_obs)
+        Assert.True(f.FapIsBound);
+        Assert.True(f.SigmaIsBound);
+        Assert.Equal(0.9, f.BoundConfidence);
+        Assert.Equal(2.3026 / 2e8, f.FarHz, 1e-13); // CHECKS.md: 2.3026 / T at 90 % (Gehrels 1986, table 1, from memory)
+        Assert.Equal(1 - Math.Exp(-1.151292546497023e-2), f.Fap, 1e-15); // 1 - exp(-FAR T_obs)
+        Assert.Null(SignificanceFigures.Compute(10, 3, 2e8, 1e6).BoundConfidence);
     }
 
     [Fact]

@@ -42,7 +42,7 @@ public class TimeSlideBackgroundTests
         var result = TimeSlideBackground.Run(a, b, options);
 
         Assert.Equal(10_000 * 30.0 * 86_400, result.BackgroundSeconds, 1e-3); // 2.592e10 s = 2.592e19 ns > long.MaxValue (9.2e18)
-        Assert.Equal(1 / result.BackgroundSeconds, result.FarHz, 1e-25);
+        Assert.Equal(2.302585092994046 / result.BackgroundSeconds, result.FarHz, 1e-25); // 90 % bound, -ln(0.1) / T_bg (Gehrels 1986)
     }
 
     [Fact]
@@ -62,13 +62,20 @@ public class TimeSlideBackgroundTests
         Assert.Equal(0, result.Candidate!.Slide);
         Assert.Equal(0, result.Louder);
         Assert.True(result.FarIsBound);
-        Assert.Equal(1 / result.BackgroundSeconds, result.FarHz, 1e-20);
+        Assert.True(result.FapIsBound);
+        Assert.Equal(0.9, result.FarBoundConfidence);
+        Assert.Equal(2.302585092994046 / result.BackgroundSeconds, result.FarHz, 1e-20); // 90 % bound (CHECKS.md, Gehrels 1986)
+        Assert.Equal(0, result.SlidesWithLouder);
+        Assert.True(result.SlidePValueIsFloor);
+        Assert.Equal(1 / 1001.0, result.SlidePValue, 1e-15); // floor 1 / (2K + 1)
         Assert.DoesNotContain(result.Loudest, c => c.Slide == 0);
         Assert.True(result.BackgroundCoincidences > 100);
 
         // with a lower threshold, the candidate's own loud triggers make louder background; removing them leaves none
         var lower = TimeSlideBackground.Run(a, b, options with { CandidateStatistic = 45 });
         Assert.True(lower.Louder > 0);
+        Assert.InRange(lower.SlidesWithLouder, 1, lower.Louder);
+        Assert.Equal((lower.SlidesWithLouder + 1) / 1001.0, lower.SlidePValue, 1e-15);
         Assert.Equal(0, lower.WithoutCandidateTriggers!.Louder);
         Assert.True(lower.WithoutCandidateTriggers.FarIsBound);
         Assert.True(lower.WithoutCandidateTriggers.BackgroundCoincidences < lower.BackgroundCoincidences);
@@ -85,6 +92,9 @@ public class TimeSlideBackgroundTests
         var naive = TimeSlideBackground.Run(a, b, options with { Algorithm = TimeSlideAlgorithm.Naive });
         Assert.Equal(naive.BackgroundCoincidences, fast.BackgroundCoincidences);
         Assert.Equal(naive.Louder, fast.Louder);
+        Assert.Equal(naive.SlidesWithLouder, fast.SlidesWithLouder);
+        var all = TimeSlideBackground.Run(a, b, options with { LoudestCount = (int)fast.Louder }); // keep every louder one: count their slides by hand
+        Assert.Equal(all.Loudest.Where(l => l.Statistic >= 12).Select(l => l.Slide).Distinct().Count(), fast.SlidesWithLouder);
         Assert.Equal(naive.Curve, fast.Curve);
         Assert.Equal(naive.Loudest.Select(l => l.Statistic), fast.Loudest.Select(l => l.Statistic));
         Assert.True(fast.Curve.Count is > 10 and <= 502);

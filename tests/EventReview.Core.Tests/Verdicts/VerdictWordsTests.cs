@@ -27,4 +27,38 @@ public class VerdictWordsTests
         Assert.Equal(VerdictTone.Neutral, VerdictWords.ToneOf("a word no version used"));
         Assert.False(VerdictWords.TryParse("Consistent", out _));
     }
+
+    [Fact]
+    public void Format_2_adds_our_own_chain_words_and_neutral_significance_bands()
+    {
+        Assert.Equal("residual is noise", VerdictWords.Word(Verdict.ResidualIsNoise));
+        Assert.Equal("excess found", VerdictWords.Word(Verdict.ExcessFound));
+        Assert.Equal("model does not fit", VerdictWords.Word(Verdict.ModelDoesNotFit));
+        foreach (var band in new[] { Verdict.BelowThreeSigma, Verdict.ThreeToFiveSigma, Verdict.FiveSigmaOrMore, Verdict.AtLeastThreeSigma })
+        {
+            Assert.Equal(VerdictTone.Neutral, VerdictWords.Tone(band));
+        }
+
+        Assert.Equal(2, RecordFormat.Current);
+        Assert.Equal(1, RecordFormat.Of(null));
+        Assert.Equal(1, RecordFormat.Of(0));
+    }
+
+    [Fact]
+    public void A_judgement_serialises_as_its_stored_word_and_reason_and_reads_back()
+    {
+        var j = new Judgement(Verdict.ModelDoesNotFit, "stage 1: 97 % coherent");
+        var json = System.Text.Json.JsonSerializer.Serialize(j, new System.Text.Json.JsonSerializerOptions(System.Text.Json.JsonSerializerDefaults.Web));
+        Assert.Equal("{\"verdict\":\"model does not fit\",\"reason\":\"stage 1: 97 % coherent\"}", json);
+        Assert.Equal(j, System.Text.Json.JsonSerializer.Deserialize<Judgement>(json));
+        Assert.Throws<System.Text.Json.JsonException>(() => System.Text.Json.JsonSerializer.Deserialize<Judgement>("{\"verdict\":\"fine\",\"reason\":\"\"}"));
+    }
+
+    [Fact]
+    public void The_worst_judgement_goes_by_tone()
+    {
+        var worst = Judgement.Worst([new Judgement(Verdict.Clear, "a"), new Judgement(Verdict.Concern, "b"), new Judgement(Verdict.ThreeToFiveSigma, "c")]);
+        Assert.Equal(Verdict.Concern, worst!.Verdict);
+        Assert.Null(Judgement.Worst([]));
+    }
 }

@@ -3,6 +3,7 @@ using EventReview.Core.Cases;
 using EventReview.Core.Evidence;
 using EventReview.Core.Significance;
 using EventReview.Core.Time;
+using EventReview.Core.Verdicts;
 using EventReview.Web.Demo;
 using EventReview.Web.Services;
 using EventReview.Web.Services.Checks;
@@ -23,10 +24,23 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
         var stored = Read(record);
         var files = scope.ServiceProvider.GetRequiredService<CaseFiles>();
 
-        Assert.Equal(3, stored.Pairs.Count);
-        Assert.Equal(record.Verdict, stored.Verdict);
-        Assert.Contains(record.Verdict, new[] { "consistent", "concern" });
-        foreach (var p in stored.Pairs)
+        var check = stored.Check;
+        Assert.Equal(RecordFormat.Current, stored.Format);
+        Assert.Equal(3, check.Pairs.Count);
+        Assert.Equal(record.Verdict, check.Judgement.Word);
+        Assert.Contains(record.Verdict, new[] { "below 3 sigma", "3 to 5 sigma", "5 sigma or more", "at least 3 sigma", "concern" });
+        Assert.DoesNotContain("consistent", record.Summary, StringComparison.Ordinal);
+
+        // three sites: the triple (a window per pair) and the joint figure, which sums the types' rates at the triple's statistic
+        var triple = Assert.IsType<TripleBackgroundResult>(check.Triple);
+        var joint = Assert.IsType<JointSignificanceResult>(check.Joint);
+        Assert.Equal(check.Pairs.Select(p => p.Plan.WindowMs).OrderBy(w => w), triple.WindowsMs.OrderBy(w => w));
+        Assert.Equal(Math.Sqrt(c.Arrivals.Sum(a => a.Snr * a.Snr)), triple.CandidateStatistic, 1e-3);
+        var sum = check.Pairs.Sum(p => (p.Result.LouderThanJoint == 0 ? 2.302585092994046 : p.Result.LouderThanJoint) / p.Result.BackgroundSeconds)
+            + ((triple.Figures.Louder == 0 ? 2.302585092994046 : triple.Figures.Louder) / triple.BackgroundSeconds);
+        Assert.Equal(sum, joint.Figures.FarHz, 1e-20);
+        Assert.Equal(joint.Judgement.Verdict, check.Judgement.Verdict);
+        foreach (var p in check.Pairs)
         {
             var a = await Site(files, stored.Sites.Single(s => s.SiteCode == p.Plan.SiteA));
             var b = await Site(files, stored.Sites.Single(s => s.SiteCode == p.Plan.SiteB));
@@ -34,12 +48,12 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
             var arrivalB = c.Arrivals.Single(x => x.SiteCode == p.Plan.SiteB);
 
             // default candidate statistic: network SNR of the pair's arrivals (rounded to 1e-3 in the plan)
-            Assert.Equal(Math.Sqrt((arrivalA.Snr * arrivalA.Snr) + (arrivalB.Snr * arrivalB.Snr)), p.Plan.CandidateStatistic, 1e-3);
+            Assert.Equal(Math.Sqrt((arrivalA.Snr * arrivalA.Snr) + (arrivalB.Snr * arrivalB.Snr)), p.Plan.CandidateStatistic!.Value, 1e-3);
 
-            // the same options written out by hand: window from the plan, step 5 s, K 2000, candidate near site A's arrival
-            var options = TimeSlideOptions.Create(p.Plan.WindowMs, 5.0, 2000) with
+            // the same options written out by hand: window from the plan, step 5 s, the demo's K, candidate near site A's arrival
+            var options = TimeSlideOptions.Create(p.Plan.WindowMs, 5.0, BackgroundDemoStep.SlidesK) with
             {
-                CandidateStatistic = p.Plan.CandidateStatistic,
+                CandidateStatistic = p.Plan.CandidateStatistic!.Value,
                 RemoveCandidateTriggers = true,
                 CandidateTime = arrivalA.Arrival,
                 LoudestCount = 20,
@@ -54,7 +68,8 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
             Assert.Equal(direct.BackgroundCoincidences, p.Result.BackgroundCoincidences);
             Assert.Equal(direct.BackgroundSeconds, p.Result.BackgroundSeconds);
             Assert.Equal(direct.WithoutCandidateTriggers, p.Result.WithoutCandidateTriggers);
-            Assert.Equal(4000, p.Result.Slides);
+            Assert.Equal(direct.SlidePValue, p.Result.SlidePValue);
+            Assert.Equal(2 * BackgroundDemoStep.SlidesK, p.Result.Slides);
             Assert.True(p.Result.Curve.Count <= BackgroundCheckService.CurvePointsKept);
 
             // the candidate's own coincident triggers were found at zero lag, at the arrivals
@@ -67,7 +82,7 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
         Assert.All(pictures, s => Assert.StartsWith("<svg", s, StringComparison.Ordinal));
         Assert.Contains("FAR", record.Summary, StringComparison.Ordinal);
         Assert.Contains("per year", record.Summary, StringComparison.Ordinal);
-        Assert.Contains("4,000 slides", record.Summary, StringComparison.Ordinal);
+        Assert.Contains("10,000 slides", record.Summary, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -77,7 +92,7 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
         var c = await Case(scope, "ER-C-0142");
         var before = c.Item(Item).Computations.Count;
         var stored = Read(Latest(c, Item)!);
-        var parameters = new BackgroundCheckParameters([.. stored.Sites.Select(s => new BackgroundSiteFiles(s.SiteCode, s.TriggersSha256, s.SegmentsSha256))]);
+        var parameters = new BackgroundCheckParameters([.. stored.Sites.Select(s => new BackgroundSiteFiles(s.SiteCode, s.TriggersSha256, s.SegmentsSha256))], SlidesK: BackgroundDemoStep.SlidesK);
 
         var (updated, added, _) = await Service(scope).RunAsync(BackgroundAppFactory.Reviewer, c.Id, Item, parameters);
 
@@ -150,12 +165,14 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
         Assert.True(added);
         var record = Latest(updated, item)!;
         Assert.Equal("concern", record.Verdict);
-        var pair = Assert.Single(Read(record).Pairs);
-        Assert.Equal("concern", pair.Verdict);
+        var pair = Assert.Single(Read(record).Check.Pairs);
+        Assert.Equal(Verdict.Concern, pair.Judgement.Verdict);
+        Assert.Equal("background too short", pair.Band);
         Assert.True(pair.MaxReachableSigma < 3);
-        Assert.Contains("cannot exceed", pair.VerdictReason, StringComparison.Ordinal);
-        Assert.Contains("Concern:", summary, StringComparison.Ordinal);
-        Assert.Contains("< 3σ", summary, StringComparison.Ordinal);
+        Assert.Contains("3σ needs at least", pair.Judgement.Reason, StringComparison.Ordinal);
+        Assert.StartsWith("concern:", summary, StringComparison.Ordinal);
+        Assert.Contains("FAR < ", summary, StringComparison.Ordinal);
+        Assert.Contains("90 % upper bound", summary, StringComparison.Ordinal);
     }
 
     private static BackgroundCheckService Service(IServiceScope scope) => scope.ServiceProvider.GetRequiredService<BackgroundCheckService>();

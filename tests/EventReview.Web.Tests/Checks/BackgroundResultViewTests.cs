@@ -33,15 +33,23 @@ public sealed class BackgroundResultViewTests(BackgroundAppFactory app) : IClass
         Assert.Contains("FAR (Hz)", text, StringComparison.Ordinal);
         Assert.Contains("FAR (per year)", text, StringComparison.Ordinal);
         Assert.Contains("without the candidate's own triggers", text, StringComparison.Ordinal);
-        foreach (var p in stored.Pairs)
+        foreach (var p in stored.Check.Pairs)
         {
             Assert.Contains(p.Plan.Name, text, StringComparison.Ordinal);
             if (p.Result.FarIsBound)
             {
-                Assert.Contains("< " + p.Result.FarHz.ToString("0.##e+0", System.Globalization.CultureInfo.InvariantCulture), text, StringComparison.Ordinal);
+                Assert.Contains("< " + p.Result.FarHz.ToString("0.##e+0", System.Globalization.CultureInfo.InvariantCulture) + " (90 %)", text, StringComparison.Ordinal);
                 Assert.Contains("≥ " + p.Result.Sigma.ToString("F2", System.Globalization.CultureInfo.InvariantCulture), text, StringComparison.Ordinal);
             }
+            else
+            {
+                Assert.Contains(" ± ", text, StringComparison.Ordinal); // a measured FAR carries its Poisson uncertainty
+            }
         }
+
+        Assert.Contains("joint (headline)", text, StringComparison.Ordinal);
+        Assert.Contains("(three sites)", text, StringComparison.Ordinal);
+        Assert.DoesNotContain("consistent", view.Markup, StringComparison.Ordinal);
 
         Assert.Contains("Was et al. 2010", view.Markup, StringComparison.Ordinal);
         Assert.Contains("outside the site's analysed segments", view.Markup, StringComparison.Ordinal);

@@ -18,7 +18,7 @@ public sealed class ChainCheckServiceTests(LocalCausesHarness app) : IClassFixtu
     }
 
     [Fact]
-    public async Task Chain_check_on_a_clean_simulated_stage_says_nothing_added_and_a_rerun_adds_nothing()
+    public async Task Chain_check_on_a_clean_simulated_stage_says_the_residual_is_noise_and_a_rerun_adds_nothing()
     {
         var (caseId, p, _) = await CaseWithStageAsync("T-CHAIN-1", null);
         var progress = new List<string>();
@@ -28,9 +28,13 @@ public sealed class ChainCheckServiceTests(LocalCausesHarness app) : IClassFixtu
 
         Assert.True(added);
         var record = Assert.Single(c.Item("chain.residual").Computations);
-        Assert.Equal("nothing added", record.Verdict);
+        Assert.Equal("residual is noise", record.Verdict);
         var result = JsonSerializer.Deserialize<ChainRecordResult>(record.ResultJson, CheckRecords.Json)!;
+        Assert.Equal(EventReview.Core.Verdicts.RecordFormat.Current, result.Format);
         var stage = Assert.Single(result.Report.Stages);
+        Assert.True(stage.ModelFits);
+        // the stated expected noise is the quantisation noise q / sqrt 12 (Widrow); the off-source residual matches it
+        Assert.Equal(1.0, stage.NoiseRatio!.Value, 0.05);
         // the output is the model applied to the input, rounded to steps q = 1e-4: the residual is rounding error, uniform in ±q/2,
         // whose largest excursion is (q/2) / (1.4826 x q/4) = 1.35 robust sigma at most (uniform MAD = q/4, from memory)
         Assert.InRange(stage.MaxExcessSigma, 0.5, 1.4);
@@ -56,7 +60,7 @@ public sealed class ChainCheckServiceTests(LocalCausesHarness app) : IClassFixtu
         var (c, _) = await app.Get<ChainCheckService>().RunAsync(app.Reviewer, caseId, "chain.residual", p);
 
         var record = Assert.Single(c.Item("chain.residual").Computations);
-        Assert.Equal("something added", record.Verdict);
+        Assert.Equal("excess found", record.Verdict);
         var stage = JsonSerializer.Deserialize<ChainRecordResult>(record.ResultJson, CheckRecords.Json)!.Report.Stages[0];
         Assert.InRange(stage.MaxExcessGps - center, burstAt - 0.03, burstAt + 0.03);
     }

@@ -1,4 +1,5 @@
 using System.Text.Json;
+using EventReview.Core.Verdicts;
 using EventReview.Web.Demo;
 using EventReview.Web.Services;
 using EventReview.Web.Services.Checks;
@@ -32,7 +33,7 @@ public sealed class EnvironmentCheckServiceTests(LocalCausesHarness app) : IClas
         var record = Assert.Single(c.Item("env.triggers").Computations);
         Assert.Equal("concern", record.Verdict);
         var result = JsonSerializer.Deserialize<EnvironmentRecordResult>(record.ResultJson, CheckRecords.Json)!;
-        Assert.Equal(["AB:concern", "KP:clear", "SM:clear"], result.Report.Sites.Select(s => $"{s.Site}:{s.Verdict}"));
+        Assert.Equal(["AB:concern", "KP:clear", "SM:clear"], result.Report.Sites.Select(s => $"{s.Site}:{s.Judgement.Word}"));
         Assert.All(result.Report.Hits, h => Assert.Equal("AB", h.Site));
         var mag = Assert.Single(result.Report.Hits, h => h.Channel == "AB:MAG-VAULT-X");
         Assert.Equal(-0.182, mag.OffsetSeconds, 6);
@@ -42,7 +43,16 @@ public sealed class EnvironmentCheckServiceTests(LocalCausesHarness app) : IClas
         // coupling 1.2e-13 strain/T at 60 Hz (tabulated) x SNR 23.5 x 10 pT / 1e-21 = 0.0282 (hand calculation)
         Assert.Equal(0.0282, mag.CouplingRatio!.Value, 6);
         Assert.False(mag.CouplingFlagged);
-        Assert.All(result.Safety!.Channels.Where(ch => ch.Channel.EndsWith("INST-ACT-READBACK", StringComparison.Ordinal)), ch => Assert.False(ch.Safe));
+        Assert.Equal("candidate strain: typed; sensor amplitude: typed", mag.CouplingInputs);
+        Assert.All(result.Safety!.Channels.Where(ch => ch.Channel.EndsWith("INST-ACT-READBACK", StringComparison.Ordinal)), ch =>
+        {
+            // the actuator readback fires at all 5 injections: binomial P = q^5 with q from its rate away from the injections
+            Assert.False(ch.Safe);
+            Assert.Equal(5, ch.Coincident);
+            Assert.Equal(Math.Pow(ch.ChanceProbabilityPerInjection, 5), ch.BinomialProbability, 1e-20);
+            Assert.True(ch.DeadtimeSeconds > 0);
+        });
+        Assert.Equal(RecordFormat.Current, result.Format);
         Assert.Contains(result.Files, f => f.FileName == LocalCausesDemoFiles.CouplingFileName("AB"));
         Assert.Contains("<svg", record.PicturesSvg, StringComparison.Ordinal);
 
@@ -63,7 +73,7 @@ public sealed class EnvironmentCheckServiceTests(LocalCausesHarness app) : IClas
         var result = JsonSerializer.Deserialize<EnvironmentRecordResult>(record.ResultJson, CheckRecords.Json)!;
         Assert.Empty(result.Report.Hits);
         Assert.Empty(result.Report.Segments);
-        Assert.All(result.Report.Sites, s => Assert.Equal("clear", s.Verdict));
+        Assert.All(result.Report.Sites, s => Assert.Equal("clear", s.Judgement.Word));
     }
 
     [Fact]

@@ -60,9 +60,9 @@ public sealed class InjectionChecksTests(LocalCausesHarness app) : IClassFixture
         Assert.Single((await app.Get<CaseService>().GetAsync(app.Reviewer, c.Id)).Item("injection.blind-seal").Evidence);
 
         Assert.True(await seals.AnyUnopenedAsync());
-        var refused = await Assert.ThrowsAsync<DomainRuleException>(() => seals.EnsureNoUnopenedSealsAsync(CaseOutcome.Astrophysical));
+        var refused = await Assert.ThrowsAsync<DomainRuleException>(() => seals.EnsureMayCloseAsync(c, CaseOutcome.Astrophysical));
         Assert.Equal("sealed-record-unopened", refused.Rule);
-        await seals.EnsureNoUnopenedSealsAsync(CaseOutcome.Instrumental); // other outcomes are not blocked
+        await seals.EnsureMayCloseAsync(c, CaseOutcome.Instrumental); // other outcomes are not blocked
 
         var wrongSalt = new string(sealResult.Salt.Select(ch => ch == '0' ? '1' : '0').ToArray());
         var mismatch = await Assert.ThrowsAsync<DomainRuleException>(() => seals.OpenAsync(app.Coordinator, seal.Id, c.Id, "injection.blind-open", record, wrongSalt));
@@ -85,7 +85,13 @@ public sealed class InjectionChecksTests(LocalCausesHarness app) : IClassFixture
         Assert.True(after.IsOpened);
         Assert.Equal(c.Id, after.OpenedInCaseId);
         Assert.Equal(record, after.OpenedRecord);
-        await seals.EnsureNoUnopenedSealsAsync(CaseOutcome.Astrophysical);
+        // Opened: the old rule let this case close as astrophysical; its arrivals fall on the blind injection, so it may not.
+        var overlap = await Assert.ThrowsAsync<DomainRuleException>(() => seals.EnsureMayCloseAsync(c, CaseOutcome.Astrophysical));
+        Assert.Equal("blind-injection-overlap", overlap.Rule);
+        Assert.Contains("blind-3", overlap.Message, StringComparison.Ordinal);
+        await seals.EnsureMayCloseAsync(c, CaseOutcome.Injection);
+        var far = await app.OpenCaseAsync("T-SEAL-2", 1_400_100_300m, "candidate-review", ("KP", 0.0), ("AB", 0.006));
+        Assert.True((await seals.DecideClosingAsync(far, CaseOutcome.Astrophysical)).Allowed); // both rules agree: opened, nothing near
         var twice = await Assert.ThrowsAsync<DomainRuleException>(() => seals.OpenAsync(app.Coordinator, seal.Id, c.Id, "injection.blind-open", record, sealResult.Salt));
         Assert.Equal("seal-already-opened", twice.Rule);
 

@@ -97,8 +97,11 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
         Assert.Equal(DriftCheck.Concern, record.Verdict);
         Assert.Contains("CONCERN", record.Summary, StringComparison.Ordinal);
         using var result = JsonDocument.Parse(record.ResultJson);
-        var diff = result.RootElement.GetProperty("diff");
-        Assert.True(result.RootElement.GetProperty("capturedDuringFreeze").GetBoolean());
+        Assert.Equal(EventReview.Core.Verdicts.RecordFormat.Current, result.RootElement.GetProperty("format").GetInt32());
+        var report = result.RootElement.GetProperty("report");
+        var diff = report.GetProperty("diff");
+        Assert.True(report.GetProperty("capturedDuringFreeze").GetBoolean());
+        Assert.Equal("concern", report.GetProperty("judgement").GetProperty("verdict").GetString());
         Assert.Equal("filters.sha256", diff.GetProperty("added").EnumerateArray().Single().GetProperty("key").GetString());
         Assert.Equal("seal.rack3", diff.GetProperty("removed").EnumerateArray().Single().GetProperty("key").GetString());
         var changed = diff.GetProperty("changed").EnumerateArray().Single();

@@ -2,10 +2,10 @@ namespace EventReview.Web.Services.Checks;
 
 /// <summary>
 /// Parameters of the data-chain check as run from a case: the attached recorded input of the first stage, the recorded
-/// output of each stage in order, the stage-model JSON (all by SHA-256), the on-source half window and the threshold in
-/// robust sigma. The centre is the case time.
+/// output of each stage in order, the stage-model JSON (all by SHA-256), the on-source half window and the false-alarm
+/// probability the per-sample threshold is set from (over the on-source samples). The centre is the case time.
 /// </summary>
-public sealed record ChainCheckParameters(string? InputSha, IReadOnlyList<string> OutputShas, string? ModelSha, double WindowSeconds = 1.0, double SigmaThreshold = 5.0)
+public sealed record ChainCheckParameters(string? InputSha, IReadOnlyList<string> OutputShas, string? ModelSha, double WindowSeconds = 1.0, double FalseAlarmProbability = 1e-3)
 {
     /// <exception cref="ArgumentException">When a pick is missing or a value is out of range.</exception>
     public void Validate()
@@ -20,9 +20,9 @@ public sealed record ChainCheckParameters(string? InputSha, IReadOnlyList<string
             throw new ArgumentException("Window must be > 0 and at most 3600 s.", nameof(WindowSeconds));
         }
 
-        if (!double.IsFinite(SigmaThreshold) || SigmaThreshold <= 0 || SigmaThreshold > 100)
+        if (!(FalseAlarmProbability is >= 1e-12 and <= 0.5))
         {
-            throw new ArgumentException("Threshold must be > 0 and at most 100 sigma.", nameof(SigmaThreshold));
+            throw new ArgumentException("False-alarm probability must be between 1e-12 and 0.5.", nameof(FalseAlarmProbability));
         }
     }
 }

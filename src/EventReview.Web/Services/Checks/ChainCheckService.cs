@@ -6,6 +6,7 @@ using EventReview.Core.Checklists;
 using EventReview.Core.Evidence;
 using EventReview.Core.Signal;
 using EventReview.Core.Signal.Io;
+using EventReview.Core.Verdicts;
 using EventReview.Web.Auth;
 
 namespace EventReview.Web.Services.Checks;
@@ -61,20 +62,20 @@ public sealed class ChainCheckService(CaseService cases, CaseFiles files)
 
         ct.ThrowIfCancellationRequested();
         progress((steps - 1) / steps, $"predicting and testing {models.Count} stage(s), {input.Length:N0} input samples");
-        var (report, traces) = DataChainCheck.RunWithTraces(input, outputs, models, c.Gps, new DataChainOptions(parameters.WindowSeconds, parameters.SigmaThreshold));
-        var pictures = string.Join(CheckRecords.PictureSeparator, traces.Select((t, i) => DataChainSvg.Render(t, report.Stages[i], report.CenterGps, report.SigmaThreshold)));
-        var result = new ChainRecordResult(report, refs);
+        var (report, traces) = DataChainCheck.RunWithTraces(input, outputs, models, c.Gps, new DataChainOptions(parameters.WindowSeconds, parameters.FalseAlarmProbability));
+        var pictures = string.Join(CheckRecords.PictureSeparator, traces.Select((t, i) => DataChainSvg.Render(t, report.Stages[i], report.CenterGps, report.WindowSeconds)));
+        var result = new ChainRecordResult(RecordFormat.Current, report, refs);
         var summary = Summarise(report);
         ct.ThrowIfCancellationRequested();
         var updated = await cases.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(CheckKind.Chain, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
-                report.Verdict, summary, pictures, user.ToActor(), now), ct);
+                report.Judgement.Word, summary, pictures, user.ToActor(), now), ct);
         return (updated, true);
     }
 
-    /// <summary>One line: per stage the largest excursion in robust sigma against the threshold.</summary>
+    /// <summary>One line: per stage the largest on-source excursion against its threshold, and whether the model fits.</summary>
     public static string Summarise(DataChainReport r) =>
-        $"{r.Verdict}: " + string.Join("; ", r.Stages.Select(s => string.Create(CultureInfo.InvariantCulture,
-            $"stage {s.Stage} max residual {s.MaxExcessSigma:0.0}σ at {s.MaxExcessGps - r.CenterGps:+0.000;-0.000} s (threshold {r.SigmaThreshold:0.#}σ), on-source RMS {s.ResidualRms:G3} vs off-source {s.OffSourceRms:G3}"))) + ".";
+        $"{r.Judgement.Word}: " + string.Join("; ", r.Stages.Select(s => string.Create(CultureInfo.InvariantCulture,
+            $"stage {s.Stage} max on-source residual {s.MaxExcessSigma:0.0}σ at {s.MaxExcessGps - r.CenterGps:+0.000;-0.000} s (threshold {s.ThresholdSigma:0.00}σ for false-alarm probability {s.FalseAlarmProbability:G2} over {s.SamplesTested:N0} samples), model {(s.ModelFits ? "fits" : "does not fit")} (coherent fraction {s.CoherentFraction:P0}){(s.OutsideWindowCount > 0 ? $", {s.OutsideWindowCount} excursion(s) outside the window" : string.Empty)}"))) + ".";
 
 }

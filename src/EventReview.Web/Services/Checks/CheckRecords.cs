@@ -25,6 +25,22 @@ public static class CheckRecords
     /// <summary>SHA-256 of the canonical JSON of the inputs.</summary>
     public static string Fingerprint<T>(T inputs) => Hashing.Sha256Hex(Serialize(inputs));
 
+    /// <summary>The record format of a stored result: its "format" property, or 1 when it has none (or is not an object).</summary>
+    public static int FormatOf(string resultJson)
+    {
+        try
+        {
+            using var doc = JsonDocument.Parse(resultJson);
+            return doc.RootElement.ValueKind == JsonValueKind.Object && doc.RootElement.TryGetProperty("format", out var f) && f.TryGetInt32(out var v)
+                ? Core.Verdicts.RecordFormat.Of(v)
+                : Core.Verdicts.RecordFormat.Legacy;
+        }
+        catch (JsonException)
+        {
+            return Core.Verdicts.RecordFormat.Legacy;
+        }
+    }
+
     /// <summary>Separator between SVG pictures in <see cref="ComputationRecord.PicturesSvg"/>.</summary>
     public const string PictureSeparator = "<!--next-->";
 }

@@ -4,6 +4,7 @@ using EventReview.Core.Cases;
 using EventReview.Core.Checklists;
 using EventReview.Core.Configuration;
 using EventReview.Core.Evidence;
+using EventReview.Core.Verdicts;
 using EventReview.Data;
 using EventReview.Web.Auth;
 using Microsoft.EntityFrameworkCore;
@@ -71,7 +72,7 @@ public sealed class ConfigurationService(IDbContextFactory<AppDbContext> dbFacto
                 var parameters = CheckRecords.Serialize(new { site = siteCode, frozenId = f.Id, frozenFingerprint = f.Fingerprint, laterId = snapshot.Id });
                 var input = CheckRecords.Fingerprint(new { frozen = f.Fingerprint, later = snapshot.ItemsJson });
                 await cases.AddComputationAsync(user, c.Id, driftItem.Key, now => new ComputationRecord(CheckKind.Configuration, parameters, input, CheckRecords.ToolVersion,
-                    CheckRecords.Serialize(report), report.Verdict, report.Summary, string.Empty, actor, now), ct);
+                    CheckRecords.Serialize(new DriftRecordResult(RecordFormat.Current, report)), report.Verdict, report.Summary, string.Empty, actor, now), ct);
             }
         }
 
@@ -104,7 +105,7 @@ public sealed class ConfigurationService(IDbContextFactory<AppDbContext> dbFacto
             var summary = string.Create(CultureInfo.InvariantCulture,
                 $"{snapshot.SiteCode} configuration '{snapshot.Label}' frozen ({snapshot.Items.Count} items) from {snapshot.FreezeFrom:yyyy-MM-dd HH:mm} to {snapshot.FreezeUntil:yyyy-MM-dd HH:mm} UTC; fingerprint {snapshot.Fingerprint![..16]}…");
             return new ComputationRecord(CheckKind.Configuration, CheckRecords.Serialize(new { snapshotId, from, until, reason }),
-                snapshot.Fingerprint!, CheckRecords.ToolVersion, CheckRecords.Serialize(result), "frozen", summary, string.Empty, actor, now);
+                snapshot.Fingerprint!, CheckRecords.ToolVersion, CheckRecords.Serialize(result), VerdictWords.Word(Verdict.Frozen), summary, string.Empty, actor, now);
         }, ct);
     }
 }

@@ -5,8 +5,11 @@ namespace EventReview.Web.Services.Checks;
 /// <summary>
 /// Parameters of the environment and veto lookup as run from a case: the attached input files (by SHA-256), the
 /// windows, and the coupling screen. The light-travel window defaults to the largest light-travel time between the
-/// case's sites in the network. Coupling is estimated only when the candidate's strain amplitude is given.
+/// case's sites in the network. Coupling is estimated when a candidate strain amplitude is known at a site: read from
+/// that site's strain data (<paramref name="StrainShas"/>) or typed (<paramref name="CandidateStrainAmplitude"/>); a sensor's
+/// noise amplitude is read from the data file the inventory names for it, else typed (<paramref name="SensorNoiseAmplitude"/>).
 /// </summary>
+/// <param name="StrainShas">Strain text files ("gps_time value") per site code, for reading the candidate's strain amplitude; null for none.</param>
 public sealed record EnvironmentCheckParameters(
     string? SegmentsSha,
     string? TriggersSha,
@@ -20,7 +23,8 @@ public sealed record EnvironmentCheckParameters(
     double? CandidateStrainAmplitude = null,
     double CouplingBandLowHz = 20.0,
     double CouplingBandHighHz = 500.0,
-    double? SensorNoiseAmplitude = null)
+    double? SensorNoiseAmplitude = null,
+    IReadOnlyDictionary<string, string>? StrainShas = null)
 {
     /// <summary>The per-kind windows as the Core wants them.</summary>
     public IReadOnlyDictionary<SensorKind, double>? KindWindows() => WindowSecondsByKind?.ToDictionary(kv => Enum.Parse<SensorKind>(kv.Key, true), kv => kv.Value);
@@ -53,6 +57,11 @@ public sealed record EnvironmentCheckParameters(
             {
                 throw new ArgumentException("Coupling band must satisfy 0 < low < high (Hz).", nameof(CouplingBandLowHz));
             }
+        }
+
+        if (CouplingBandLowHz <= 0 || CouplingBandHighHz <= CouplingBandLowHz || !double.IsFinite(CouplingBandHighHz))
+        {
+            throw new ArgumentException("Coupling band must satisfy 0 < low < high (Hz).", nameof(CouplingBandLowHz));
         }
 
         if (SensorNoiseAmplitude is { } n)

@@ -3,9 +3,11 @@ using System.Security.Claims;
 using EventReview.Core.Cases;
 using EventReview.Core.Environment;
 using EventReview.Core.Evidence;
-using EventReview.Core.Geodesy;
 using EventReview.Core.Injections;
+using EventReview.Core.Signal;
+using EventReview.Core.Signal.Io;
 using EventReview.Core.Time;
+using EventReview.Core.Verdicts;
 using EventReview.Web.Auth;
 
 namespace EventReview.Web.Services.Checks;
@@ -80,19 +82,28 @@ public sealed class EnvironmentCheckService(CaseService cases, NetworkService ne
         var arrivals = c.Arrivals.ToDictionary(a => a.SiteCode, a => a.Arrival, StringComparer.OrdinalIgnoreCase);
         var siteCodes = arrivals.Keys.Select(k => k.ToUpperInvariant()).Concat(segments.Segments.Select(s => s.Site)).Concat(triggers.Select(t => t.Site))
             .Distinct().Order(StringComparer.Ordinal).ToList();
-        var (lightTravel, lightSource) = LightTravel(net.Sites, siteCodes, parameters.LightTravelWindowSeconds);
-        CouplingOptions? couplingOptions = null;
-        if (parameters.CandidateStrainAmplitude is { } h)
+        var (lightTravel, lightSource) = CrossSiteWindow.Choose(net.Sites, siteCodes, parameters.LightTravelWindowSeconds);
+        var strain = new Dictionary<string, TimeSeries>(StringComparer.Ordinal);
+        foreach (var (site, sha) in (parameters.StrainShas ?? new Dictionary<string, string>()).OrderBy(kv => kv.Key, StringComparer.Ordinal))
         {
-            couplingOptions = new CouplingOptions(h, parameters.CouplingBandLowHz, parameters.CouplingBandHighHz, parameters.CouplingFraction, parameters.SensorNoiseAmplitude);
-            if (parameters.SensorNoiseAmplitude is null)
-            {
-                notes.Add("no typical sensor noise amplitude given: coupling can only be estimated where a measured sensor spectrum exists (none here)");
-            }
+            var (series, f) = await CheckInputs.ReadTextAsync(files, attached, sha, $"strain of {site.ToUpperInvariant()}", r => StrainTextReader.Read(r), ct);
+            strain[site.ToUpperInvariant()] = series;
+            refs.Add(f);
         }
-        else if (coupling.Count > 0)
+
+        var sensorData = new Dictionary<string, TimeSeries>(StringComparer.Ordinal);
+        foreach (var sensor in sensors.Where(s => s.DataFile is not null))
         {
-            notes.Add("coupling functions found but the candidate's strain amplitude was not given: coupling not estimated");
+            var match = attached.FirstOrDefault(a => string.Equals(a.FileName, sensor.DataFile, StringComparison.OrdinalIgnoreCase));
+            if (match is null)
+            {
+                notes.Add($"sensor data file '{sensor.DataFile}' named for {sensor.Site}:{sensor.Channel} is not attached to this case: its typed noise amplitude is used");
+                continue;
+            }
+
+            var (series, f) = await CheckInputs.ReadTextAsync(files, attached, match.Sha256, $"data of {sensor.Channel} ({sensor.Site})", r => StrainTextReader.Read(r), ct);
+            sensorData[EnvironmentLookupInput.Key(sensor.Site, sensor.Channel)] = series;
+            refs.Add(f);
         }
 
         var inputs = new
@@ -110,15 +121,16 @@ public sealed class EnvironmentCheckService(CaseService cases, NetworkService ne
             return (c, false);
         }
 
+        var couplingOptions = Coupling(parameters, coupling.Count > 0, strain, sensorData, site => arrivals.TryGetValue(site, out var t) ? t : c.Gps, notes);
         var input = new EnvironmentLookupInput(c.Gps, arrivals, siteCodes, segments.Segments, triggers, sensors, safety, coupling.Count > 0 ? coupling : null);
         var options = new EnvironmentLookupOptions(parameters.WindowSeconds, parameters.KindWindows(), parameters.RateWindowSeconds, lightTravel, couplingOptions);
         var report = EnvironmentLookup.Run(input, options);
-        var result = new EnvironmentRecordResult(report, safety, lightTravel, lightSource, notes, refs);
+        var result = new EnvironmentRecordResult(RecordFormat.Current, report, safety, lightTravel, lightSource, notes, refs);
         var svg = EnvironmentTimelineSvg.Render(report, parameters.WindowSeconds);
         var summary = Summarise(report, parameters);
         var updated = await cases.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(Core.Checklists.CheckKind.Environment, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
-                report.Verdict, summary, svg, user.ToActor(), now), ct);
+                report.Judgement.Word, summary, svg, user.ToActor(), now), ct);
         return (updated, true);
     }
 
@@ -129,29 +141,34 @@ public sealed class EnvironmentCheckService(CaseService cases, NetworkService ne
         {
             var hits = report.Hits.Count(h => h.Site == s.Site);
             var segs = report.Segments.Count(g => g.Site == s.Site);
-            return $"{s.Site} {s.Verdict}" + (hits + segs > 0 ? $" ({hits} trigger(s), {segs} DQ segment(s))" : string.Empty);
+            return $"{s.Site} {s.Judgement.Word}" + (hits + segs > 0 ? $" ({hits} trigger(s), {segs} DQ segment(s))" : string.Empty);
         }));
         return string.Create(CultureInfo.InvariantCulture,
             $"{sites}. Window ±{p.WindowSeconds:0.###} s around each arrival, rates over {p.RateWindowSeconds:0} s; {report.Coincidences.Count} cross-site coincidence(s).");
     }
 
-    private static (double Seconds, string Source) LightTravel(IReadOnlyList<Core.Network.Site> sites, IReadOnlyList<string> codes, double? given)
+    /// <summary>The coupling settings: typed numbers, with the amplitudes read from strain and sensor data where given; null when no candidate amplitude is known anywhere.</summary>
+    private static CouplingOptions? Coupling(EnvironmentCheckParameters p, bool haveFunctions, Dictionary<string, TimeSeries> strain, Dictionary<string, TimeSeries> sensorData,
+        Func<string, GpsTime> arrivalOf, List<string> notes)
     {
-        if (given is { } g)
+        if (p.CandidateStrainAmplitude is null && strain.Count == 0)
         {
-            return (g, "given");
-        }
-
-        var used = sites.Where(s => codes.Contains(s.Code)).ToList();
-        var max = 0.0;
-        for (var i = 0; i < used.Count; i++)
-        {
-            for (var j = i + 1; j < used.Count; j++)
+            if (haveFunctions)
             {
-                max = Math.Max(max, Baseline.Between(used[i], used[j]).LightTravelSeconds);
+                notes.Add("coupling functions found but neither the candidate's strain amplitude nor strain data was given: coupling not estimated");
             }
+
+            return null;
         }
 
-        return (Math.Round(max, 6), "network (largest light-travel time between the case's sites)");
+        var typed = new CouplingOptions(p.CandidateStrainAmplitude, p.CouplingBandLowHz, p.CouplingBandHighHz, p.CouplingFraction, p.SensorNoiseAmplitude);
+        var (options, read) = CouplingMeasurement.FromData(typed, strain, sensorData, arrivalOf);
+        notes.AddRange(read);
+        if (p.SensorNoiseAmplitude is null && sensorData.Count == 0)
+        {
+            notes.Add("no typical sensor noise amplitude and no sensor data given: coupling can only be estimated where a measured sensor spectrum exists (none here)");
+        }
+
+        return options;
     }
 }

@@ -4,6 +4,7 @@ using EventReview.Core.Cases;
 using EventReview.Core.Checklists;
 using EventReview.Core.Evidence;
 using EventReview.Core.Injections;
+using EventReview.Core.Verdicts;
 using EventReview.Web.Auth;
 
 namespace EventReview.Web.Services.Checks;
@@ -40,11 +41,11 @@ public sealed class InjectionCheckService(CaseService cases, NetworkService netw
         }
 
         var report = InjectionOverlap.Find(log, c.Gps, Arrivals(c), c.Arrivals.Select(a => a.SiteCode), parameters.MarginSeconds);
-        var result = new InjectionRecordResult("log", report, log.Count, [file], null);
+        var result = new InjectionRecordResult(RecordFormat.Current, "log", report, log.Count, [file], null);
         var summary = Summarise(report, log.Count, $"log '{file.FileName}'");
         var updated = await cases.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(CheckKind.Injections, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
-                report.Verdict, summary, string.Empty, user.ToActor(), now), ct);
+                report.Judgement.Word, summary, string.Empty, user.ToActor(), now), ct);
         return (updated, true);
     }
 

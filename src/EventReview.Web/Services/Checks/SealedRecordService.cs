@@ -3,6 +3,7 @@ using EventReview.Core.Cases;
 using EventReview.Core.Checklists;
 using EventReview.Core.Evidence;
 using EventReview.Core.Injections;
+using EventReview.Core.Verdicts;
 using EventReview.Data;
 using EventReview.Web.Auth;
 using Microsoft.EntityFrameworkCore;
@@ -11,7 +12,8 @@ namespace EventReview.Web.Services.Checks;
 
 /// <summary>
 /// Sealed blind-injection records: coordinators register a commitment (the tool never sees the record), the case shows
-/// that an unopened seal exists, a case cannot be closed as astrophysical while one is unopened, and at the end a
+/// that an unopened seal exists, a case cannot be closed as astrophysical while one is unopened or an opened one holds a
+/// blind injection at the candidate (the rule is Core's <see cref="BlindInjectionClosing"/>), and at the end a
 /// coordinator opens it with the record and the salt: on a match the seal is marked opened and a computation record
 /// (kind "injections") with the blind injections overlapping the case goes on the item and its timeline.
 /// </summary>
@@ -35,35 +37,44 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
     }
 
     /// <summary>
-    /// Refuses to close a case as astrophysical while a sealed blind-injection record is unopened. Call before
-    /// <see cref="CaseService.CloseAsync"/>; other outcomes are not affected.
+    /// What the sealed records say about closing <paramref name="c"/> with <paramref name="outcome"/> (Core's
+    /// <see cref="BlindInjectionClosing"/>: every seal opened, and no opened record with a blind injection at the candidate).
     /// </summary>
-    /// <exception cref="DomainRuleException">Rule "sealed-record-unopened".</exception>
-    public async Task EnsureNoUnopenedSealsAsync(CaseOutcome outcome, CancellationToken ct = default)
+    public async Task<ClosingDecision> DecideClosingAsync(ReviewCase c, CaseOutcome outcome, CancellationToken ct = default)
     {
-        if (outcome != CaseOutcome.Astrophysical)
-        {
-            return;
-        }
-
         await using var db = await dbFactory.CreateDbContextAsync(ct);
-        await EnsureNoUnopenedSealsAsync(db, outcome, ct);
+        return await DecideClosingAsync(db, c, outcome, ct);
+    }
+
+    /// <summary>Refuses to close <paramref name="c"/> with <paramref name="outcome"/> when the sealed records stand in the way.</summary>
+    /// <exception cref="DomainRuleException">Rule "sealed-record-unopened" or "blind-injection-overlap".</exception>
+    public async Task EnsureMayCloseAsync(ReviewCase c, CaseOutcome outcome, CancellationToken ct = default)
+    {
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        await EnsureMayCloseAsync(db, c, outcome, ct);
     }
 
     /// <summary>Same rule, inside an existing unit of work (used by <see cref="CaseService.CloseAsync"/>).</summary>
-    public static async Task EnsureNoUnopenedSealsAsync(AppDbContext db, CaseOutcome outcome, CancellationToken ct = default)
+    /// <exception cref="DomainRuleException">Rule "sealed-record-unopened" or "blind-injection-overlap".</exception>
+    public static async Task EnsureMayCloseAsync(AppDbContext db, ReviewCase c, CaseOutcome outcome, CancellationToken ct = default)
+    {
+        var decision = await DecideClosingAsync(db, c, outcome, ct);
+        if (!decision.Allowed)
+        {
+            throw new DomainRuleException(decision.Rule!, decision.Judgement.Reason);
+        }
+    }
+
+    private static async Task<ClosingDecision> DecideClosingAsync(AppDbContext db, ReviewCase c, CaseOutcome outcome, CancellationToken ct)
     {
         if (outcome != CaseOutcome.Astrophysical)
         {
-            return;
+            return BlindInjectionClosing.Decide(outcome, []);
         }
 
-        var open = await db.SealedInjectionRecords.AsNoTracking().Where(s => s.OpenedAt == null).Select(s => s.Label).ToListAsync(ct);
-        if (open.Count > 0)
-        {
-            throw new DomainRuleException("sealed-record-unopened",
-                $"A sealed blind-injection record is not opened yet ({string.Join(", ", open.Select(l => $"'{l}'"))}): a case cannot be closed as astrophysical until it is opened and compared (item injection.blind-open).");
-        }
+        var seals = await db.SealedInjectionRecords.AsNoTracking().Select(s => new { s.Label, s.OpenedRecord }).ToListAsync(ct);
+        var arrivals = InjectionCheckService.Arrivals(c);
+        return BlindInjectionClosing.Decide(outcome, [.. seals.Select(s => BlindInjectionClosing.StateOf(s.Label, s.OpenedRecord, c.Gps, arrivals))]);
     }
 
     /// <summary>Registers a seal (coordinators). When <paramref name="caseId"/> and <paramref name="itemKey"/> are given, a note
@@ -171,7 +182,7 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
     private async Task<ReviewCase> AddComparisonAsync(ClaimsPrincipal user, SealedInjectionRecord seal, ReviewCase c, string itemKey, InjectionOverlapReport report, int rows, double margin, CancellationToken ct)
     {
         var info = new SealInfo(seal.Id, seal.Label, seal.Commitment, Hashing.Sha256Hex(seal.OpenedRecord!), seal.SealedByName, seal.SealedAt, seal.OpenedByName!, seal.OpenedAt!.Value);
-        var result = new InjectionRecordResult("sealed-record", report, rows, [], info);
+        var result = new InjectionRecordResult(RecordFormat.Current, "sealed-record", report, rows, [], info);
         var parametersJson = CheckRecords.Serialize(new { sealId = seal.Id, commitment = seal.Commitment, marginSeconds = margin });
         var fingerprint = CheckRecords.Fingerprint(new
         {
@@ -183,7 +194,7 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
                       InjectionCheckService.Summarise(report, rows, "record");
         return await cases.AddComputationAsync(user, c.Id, itemKey,
             now => new ComputationRecord(CheckKind.Injections, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
-                report.Verdict, Clip(summary, 1000), string.Empty, user.ToActor(), now), ct);
+                report.Judgement.Word, Clip(summary, 1000), string.Empty, user.ToActor(), now), ct);
     }
 
     private static string Clip(string s, int max) => s.Length <= max ? s : s[..(max - 1)] + "…";
