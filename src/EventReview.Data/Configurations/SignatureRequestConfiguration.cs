@@ -17,5 +17,6 @@ public sealed class SignatureRequestConfiguration : IEntityTypeConfiguration<Sig
         b.Property(r => r.Meaning).HasConversion<string>().HasMaxLength(32);
         b.Property(r => r.Statement).HasMaxLength(4000);
         b.Property(r => r.SeenFingerprint).HasMaxLength(64);
+        b.Property(r => r.Outcome).HasMaxLength(500);
     }
 }

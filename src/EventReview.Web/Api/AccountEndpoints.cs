@@ -17,9 +17,15 @@ public static class AccountEndpoints
     {
         // [FromForm] parameters make the framework validate the antiforgery token before this body runs (400 otherwise).
         app.MapPost("/account/signin", async ([FromForm] string? email, [FromForm] string? password, [FromForm] string? returnUrl,
-            SignInManager<AppUser> signIn, AccountAudit audit, HttpContext http) =>
+            SignInManager<AppUser> signIn, AccountAudit audit, HttpContext http, Microsoft.Extensions.Options.IOptions<Auth.SignInSettings> ways) =>
         {
             var back = SafeReturn(returnUrl);
+            if (!ways.Value.LocalAccounts)
+            {
+                await audit.RecordAsync(AccountEventKinds.SignInFailed, null, email?.Trim(), ClientAddress.Of(http), "local accounts are switched off");
+                return Results.Redirect($"/signin?error=local-off&returnUrl={Uri.EscapeDataString(back)}");
+            }
+
             if (string.IsNullOrWhiteSpace(email) || string.IsNullOrEmpty(password))
             {
                 return Results.Redirect($"/signin?error=missing&returnUrl={Uri.EscapeDataString(back)}");
@@ -58,6 +64,7 @@ public static class AccountEndpoints
         return app;
     }
 
-    private static string SafeReturn(string? url) =>
+    /// <summary>A path inside this app to go back to after signing in (anything else gives the case list).</summary>
+    internal static string SafeReturn(string? url) =>
         !string.IsNullOrEmpty(url) && url.StartsWith('/') && !url.StartsWith("//", StringComparison.Ordinal) && !url.StartsWith("/\\", StringComparison.Ordinal) ? url : "/cases";
 }

@@ -904,10 +904,17 @@ namespace EventReview.Data.Migrations.Postgres
                         .HasMaxLength(32)
                         .HasColumnType("character varying(32)");
 
+                    b.Property<string>("Outcome")
+                        .HasMaxLength(500)
+                        .HasColumnType("character varying(500)");
+
                     b.Property<string>("SeenFingerprint")
                         .IsRequired()
                         .HasMaxLength(64)
                         .HasColumnType("character varying(64)");
+
+                    b.Property<bool>("Signed")
+                        .HasColumnType("boolean");
 
                     b.Property<string>("Statement")
                         .IsRequired()

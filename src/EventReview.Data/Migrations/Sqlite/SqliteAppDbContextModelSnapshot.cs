@@ -871,10 +871,17 @@ namespace EventReview.Data.Migrations.Sqlite
                         .HasMaxLength(32)
                         .HasColumnType("TEXT");
 
+                    b.Property<string>("Outcome")
+                        .HasMaxLength(500)
+                        .HasColumnType("TEXT");
+
                     b.Property<string>("SeenFingerprint")
                         .IsRequired()
                         .HasMaxLength(64)
                         .HasColumnType("TEXT");
+
+                    b.Property<bool>("Signed")
+                        .HasColumnType("INTEGER");
 
                     b.Property<string>("Statement")
                         .IsRequired()

@@ -11,7 +11,7 @@ using Microsoft.EntityFrameworkCore.Storage.ValueConversion;
 namespace EventReview.Data.Migrations.Sqlite
 {
     [DbContext(typeof(SqliteAppDbContext))]
-    [Migration("20261205112051_ServerIdentity")]
+    [Migration("20261205112446_ServerIdentity")]
     partial class ServerIdentity
     {
         /// <inheritdoc />
@@ -874,10 +874,17 @@ namespace EventReview.Data.Migrations.Sqlite
                         .HasMaxLength(32)
                         .HasColumnType("TEXT");
 
+                    b.Property<string>("Outcome")
+                        .HasMaxLength(500)
+                        .HasColumnType("TEXT");
+
                     b.Property<string>("SeenFingerprint")
                         .IsRequired()
                         .HasMaxLength(64)
                         .HasColumnType("TEXT");
+
+                    b.Property<bool>("Signed")
+                        .HasColumnType("INTEGER");
 
                     b.Property<string>("Statement")
                         .IsRequired()

@@ -113,7 +113,9 @@ namespace EventReview.Data.Migrations.Sqlite
                     Statement = table.Column<string>(type: "TEXT", maxLength: 4000, nullable: false),
                     SeenFingerprint = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
                     CreatedAt = table.Column<long>(type: "INTEGER", nullable: false),
-                    UsedAt = table.Column<long>(type: "INTEGER", nullable: true)
+                    UsedAt = table.Column<long>(type: "INTEGER", nullable: true),
+                    Signed = table.Column<bool>(type: "INTEGER", nullable: false),
+                    Outcome = table.Column<string>(type: "TEXT", maxLength: 500, nullable: true)
                 },
                 constraints: table =>
                 {

@@ -12,7 +12,7 @@ using Npgsql.EntityFrameworkCore.PostgreSQL.Metadata;
 namespace EventReview.Data.Migrations.Postgres
 {
     [DbContext(typeof(PostgresAppDbContext))]
-    [Migration("20261205112053_ServerIdentity")]
+    [Migration("20261205112449_ServerIdentity")]
     partial class ServerIdentity
     {
         /// <inheritdoc />
@@ -907,10 +907,17 @@ namespace EventReview.Data.Migrations.Postgres
                         .HasMaxLength(32)
                         .HasColumnType("character varying(32)");
 
+                    b.Property<string>("Outcome")
+                        .HasMaxLength(500)
+                        .HasColumnType("character varying(500)");
+
                     b.Property<string>("SeenFingerprint")
                         .IsRequired()
                         .HasMaxLength(64)
                         .HasColumnType("character varying(64)");
+
+                    b.Property<bool>("Signed")
+                        .HasColumnType("boolean");
 
                     b.Property<string>("Statement")
                         .IsRequired()

@@ -115,7 +115,9 @@ namespace EventReview.Data.Migrations.Postgres
                     Statement = table.Column<string>(type: "character varying(4000)", maxLength: 4000, nullable: false),
                     SeenFingerprint = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: false),
                     CreatedAt = table.Column<DateTimeOffset>(type: "timestamp with time zone", nullable: false),
-                    UsedAt = table.Column<DateTimeOffset>(type: "timestamp with time zone", nullable: true)
+                    UsedAt = table.Column<DateTimeOffset>(type: "timestamp with time zone", nullable: true),
+                    Signed = table.Column<bool>(type: "boolean", nullable: false),
+                    Outcome = table.Column<string>(type: "character varying(500)", maxLength: 500, nullable: true)
                 },
                 constraints: table =>
                 {
