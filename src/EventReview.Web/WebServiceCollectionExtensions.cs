@@ -52,6 +52,7 @@ public static class WebServiceCollectionExtensions
         services.AddEventReviewSecurity(configuration);
         services.AddCascadingAuthenticationState();
 
+        Notifications.NotificationServiceCollectionExtensions.AddEventReviewNotifications(services, configuration);
         services.AddSingleton<ApiTokenCache>();
         services.AddSingleton<TemplateCatalog>();
         services.AddSingleton<MarkdownRenderer>();

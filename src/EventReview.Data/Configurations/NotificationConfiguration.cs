@@ -20,6 +20,9 @@ public sealed class NotificationConfiguration : IEntityTypeConfiguration<Notific
         b.Property(n => n.Text).HasMaxLength(2000);
         b.Property(n => n.Link).HasMaxLength(300);
         b.Property(n => n.DedupKey).HasMaxLength(200);
-        b.Property(n => n.Route).HasMaxLength(32);
+        b.Property(n => n.Route).HasMaxLength(32).IsConcurrencyToken();
+
+        // Two app instances routing the same notification: the second save finds it changed and is refused.
+        b.Property(n => n.RoutedAt).IsConcurrencyToken();
     }
 }

@@ -46,8 +46,11 @@ public sealed class Notification
     /// <summary>When the worker routed it (messages made, put into a digest, or skipped); null while waiting.</summary>
     public DateTimeOffset? RoutedAt { get; private set; }
 
-    /// <summary>How it was routed: "immediate", "digest", "not wanted", "no channel".</summary>
+    /// <summary>How it was routed: "immediate", "digest", "not wanted", "no channel"; <see cref="WaitingForDigest"/> while held.</summary>
     public string? Route { get; private set; }
+
+    /// <summary>The <see cref="Route"/> of a notification held for its person's next daily digest.</summary>
+    public const string WaitingForDigest = "waiting for digest";
 
     public static Notification Create(string userId, string kind, int? caseId, string? itemKey, string subject, string text, string link, string dedupKey, DateTimeOffset now) => new()
     {
@@ -61,6 +64,9 @@ public sealed class Notification
         DedupKey = Cut(dedupKey, 200),
         CreatedAt = now,
     };
+
+    /// <summary>Holds it for the next daily digest (still not routed).</summary>
+    public void Hold() => Route = WaitingForDigest;
 
     /// <summary>Marks it routed.</summary>
     public void Routed(string route, DateTimeOffset now)

@@ -970,10 +970,12 @@ namespace EventReview.Data.Migrations.Postgres
                         .HasColumnType("character varying(300)");
 
                     b.Property<string>("Route")
+                        .IsConcurrencyToken()
                         .HasMaxLength(32)
                         .HasColumnType("character varying(32)");
 
                     b.Property<DateTimeOffset?>("RoutedAt")
+                        .IsConcurrencyToken()
                         .HasColumnType("timestamp with time zone");
 
                     b.Property<string>("Subject")

@@ -935,10 +935,12 @@ namespace EventReview.Data.Migrations.Sqlite
                         .HasColumnType("TEXT");
 
                     b.Property<string>("Route")
+                        .IsConcurrencyToken()
                         .HasMaxLength(32)
                         .HasColumnType("TEXT");
 
                     b.Property<long?>("RoutedAt")
+                        .IsConcurrencyToken()
                         .HasColumnType("INTEGER");
 
                     b.Property<string>("Subject")
