@@ -111,6 +111,14 @@ public sealed class TestIdentityProvider : IAsyncDisposable
         app.MapGet("/login", (string? returnUrl) => Results.Content(LoginForm(returnUrl ?? "/"), "text/html"));
         app.MapPost("/login", (Func<HttpContext, Task<IResult>>)provider.LoginAsync);
         await app.StartAsync();
+
+        // Answer the discovery document and the keys once now, so that the first sign-in of a busy test run is not slow.
+        using (var warm = new HttpClient { BaseAddress = new Uri(baseUrl), Timeout = TimeSpan.FromSeconds(60) })
+        {
+            (await warm.GetAsync(".well-known/openid-configuration")).EnsureSuccessStatusCode();
+            (await warm.GetAsync(".well-known/jwks")).EnsureSuccessStatusCode();
+        }
+
         return provider;
     }
 
@@ -122,11 +130,19 @@ public sealed class TestIdentityProvider : IAsyncDisposable
         return person;
     }
 
-    public async ValueTask DisposeAsync()
+    /// <summary>Stops answering (a provider that is down); idempotent.</summary>
+    public async Task StopAsync()
     {
-        await _app.StopAsync();
-        await _app.DisposeAsync();
+        if (Interlocked.Exchange(ref _stopped, 1) == 0)
+        {
+            await _app.StopAsync();
+            await _app.DisposeAsync();
+        }
     }
+
+    public async ValueTask DisposeAsync() => await StopAsync();
+
+    private int _stopped;
 
     private async Task<IResult> AuthorizeAsync(HttpContext http)
     {
