@@ -27,7 +27,7 @@ public sealed class SingleSignOnBrowserTests(SsoRunningApp app) : IClassFixture<
         });
         var size = new BrowserNewContextOptions { ViewportSize = new ViewportSize { Width = 1440, Height = 900 } };
         var context = await browser.NewContextAsync(size);
-        context.SetDefaultTimeout(30_000);
+        context.SetDefaultTimeout(60_000);
         var page = await context.NewPageAsync();
         try
         {
@@ -38,7 +38,8 @@ public sealed class SingleSignOnBrowserTests(SsoRunningApp app) : IClassFixture<
             await Assertions.Expect(page.Locator("#signin-sso")).ToContainTextAsync($"Sign in with {SsoRunningApp.ProviderName}");
             await Shot(page, "sso-1-sign-in");
             await page.Locator("#signin-sso").ClickAsync();
-            await page.WaitForURLAsync($"{app.Provider.BaseUrl}login**");
+            await page.WaitForURLAsync(AtProviderLogin);
+
             await LogInAtProviderAsync(page);
             await page.WaitForURLAsync("**/cases");
             await Assertions.Expect(page.Locator(".profile-link")).ToContainTextAsync("Rita Reviewer · reviewer");
@@ -47,18 +48,25 @@ public sealed class SingleSignOnBrowserTests(SsoRunningApp app) : IClassFixture<
             await page.GotoAsync(itemUrl);
             await page.Locator("#interactive-ready").WaitForAsync(new() { State = WaitForSelectorState.Attached });
             await page.Locator("#sign-statement").FillAsync("Compared each site's timing uncertainty with its calibration report.");
+
+            // Leave the field so that its value reaches the server before the click (the field updates on change).
+            await page.Locator("#sign-statement").PressAsync("Tab");
+            await Task.Delay(1000);
             await Assertions.Expect(page.Locator("#sign-sso-button")).ToBeVisibleAsync();
-            await Shot(page, "sso-2-sign-form", fullPage: true);
+            await page.Locator(".sign-form").ScrollIntoViewIfNeededAsync();
+            await Shot(page, "sso-2-sign-form");
+            await page.Locator(".sign-form").ScreenshotAsync(new() { Path = Path.Combine(Screenshots, "sso-2-sign-form-detail.png") });
             var logins = app.Provider.Logins;
             await page.Locator("#sign-sso-button").ClickAsync();
-            await page.WaitForURLAsync($"{app.Provider.BaseUrl}login**");
+            await page.WaitForURLAsync(AtProviderLogin);
             await Shot(page, "sso-3-provider-asks-again");
             await LogInAtProviderAsync(page);
             await page.WaitForURLAsync("**/items/**");
             await Assertions.Expect(page.Locator(".mud-alert-message").First).ToContainTextAsync("Signed after you signed in again");
             await Assertions.Expect(page.Locator("ul.signoffs")).ToContainTextAsync("Rita Reviewer");
             Assert.Equal(logins + 1, app.Provider.Logins);
-            await Shot(page, "sso-4-signed", fullPage: true);
+            await Shot(page, "sso-4-signed");
+            await page.Locator(".item-panel").ScreenshotAsync(new() { Path = Path.Combine(Screenshots, "sso-4-signed-panel.png") });
 
             // Her profile: how she signed in, her notification choices, a test message the unreachable SMTP server delays.
             await page.GotoAsync($"{app.BaseUrl}/profile");
@@ -69,6 +77,9 @@ public sealed class SingleSignOnBrowserTests(SsoRunningApp app) : IClassFixture<
             await page.ReloadAsync();
             await Assertions.Expect(page.Locator("#messages")).ToContainTextAsync("retrying");
             await Shot(page, "sso-5-profile", fullPage: true);
+
+            // The coordinators' Team page says where roles of single sign-on accounts come from.
+            await ShowTeamAsync(browser, size);
 
             // The provider goes down: the sign-in page says so, and the local form still works.
             await page.Locator("button.signout").ClickAsync();
@@ -82,6 +93,7 @@ public sealed class SingleSignOnBrowserTests(SsoRunningApp app) : IClassFixture<
         catch
         {
             await page.ScreenshotAsync(new() { Path = Path.Combine(Screenshots, "sso-failure.png"), FullPage = true });
+            await File.WriteAllTextAsync(Path.Combine(Screenshots, "sso-failure.log"), $"at {page.Url}\n{app.Log}");
             throw;
         }
     }
@@ -90,7 +102,7 @@ public sealed class SingleSignOnBrowserTests(SsoRunningApp app) : IClassFixture<
     private async Task<string> PrepareItemAsync(IBrowser browser, BrowserNewContextOptions size)
     {
         await using var context = await browser.NewContextAsync(size);
-        context.SetDefaultTimeout(30_000);
+        context.SetDefaultTimeout(60_000);
         var page = await context.NewPageAsync();
         await page.GotoAsync($"{app.BaseUrl}/signin");
         await page.Locator("#email").FillAsync("reviewer.a@demo.invalid");
@@ -109,6 +121,25 @@ public sealed class SingleSignOnBrowserTests(SsoRunningApp app) : IClassFixture<
         await Assertions.Expect(page.Locator(".item-panel .state").First).ToContainTextAsync("ready for sign-off");
         return itemUrl;
     }
+
+    /// <summary>The demo coordinator (local account) opens the Team page, which lists the new account and says roles follow the groups.</summary>
+    private async Task ShowTeamAsync(IBrowser browser, BrowserNewContextOptions size)
+    {
+        await using var context = await browser.NewContextAsync(size);
+        context.SetDefaultTimeout(60_000);
+        var page = await context.NewPageAsync();
+        await page.GotoAsync($"{app.BaseUrl}/signin");
+        await page.Locator("#email").FillAsync("coordinator@demo.invalid");
+        await page.Locator("#password").FillAsync("DemoCoordinator1");
+        await page.GetByRole(AriaRole.Button, new() { Name = "Sign in", Exact = true }).ClickAsync();
+        await page.WaitForURLAsync("**/cases");
+        await page.GotoAsync($"{app.BaseUrl}/team");
+        await Assertions.Expect(page.Locator("main, body").First).ToContainTextAsync("get their role from their groups there");
+        await Assertions.Expect(page.Locator("table.data").First).ToContainTextAsync("rita.reviewer@collab.example.org");
+        await Shot(page, "sso-7-team", fullPage: true);
+    }
+
+    private bool AtProviderLogin(string url) => url.StartsWith(app.Provider.BaseUrl + "login", StringComparison.Ordinal);
 
     private async Task LogInAtProviderAsync(IPage page)
     {

@@ -155,8 +155,9 @@ public static class SingleSignOnSetup
     }
 
     /// <summary>
-    /// True when the provider's discovery document can be read now (fetched once, then cached by the handler). Asked
-    /// before sending a person there, so that a provider that is down gives a page saying so instead of an error.
+    /// True when the provider's discovery document can be read now (the handler's copy, and one request to the provider
+    /// itself). Asked before sending a person there, so that a provider that is down gives a page saying so instead of
+    /// the browser's connection error.
     /// </summary>
     public static async Task<bool> ProviderAnswersAsync(HttpContext http)
     {
@@ -171,6 +172,11 @@ public static class SingleSignOnSetup
         try
         {
             await options.ConfigurationManager.GetConfigurationAsync(timeout.Token);
+
+            // The handler keeps the document for hours: ask the provider itself whether it answers now.
+            using var probe = new HttpRequestMessage(HttpMethod.Get, options.MetadataAddress);
+            using var answer = await options.Backchannel.SendAsync(probe, HttpCompletionOption.ResponseHeadersRead, timeout.Token);
+            answer.EnsureSuccessStatusCode();
             return true;
         }
         catch (Exception ex) when (ex is InvalidOperationException or HttpRequestException or IOException or OperationCanceledException)

@@ -71,6 +71,26 @@ public sealed class SingleSignOnFailureTests
     }
 
     [Fact]
+    public async Task A_provider_that_goes_down_after_answering_once_still_gives_the_page_not_a_broken_redirect()
+    {
+        await using var factory = new SingleSignOnFactory();
+        await ((IAsyncLifetime)factory).InitializeAsync();
+        var person = factory.Provider.Add("early", "early@collab.example.org", "Early", "gw-reviewers");
+        using (var first = new SsoBrowser(factory, factory.Provider))
+        {
+            await first.SignInAsync(person);
+            Assert.Equal("/cases", first.Location.AbsolutePath); // the app now holds the provider's discovery document
+        }
+
+        await factory.Provider.StopAsync();
+        using var browser = new SsoBrowser(factory, factory.Provider);
+        await browser.GoAsync("/account/sso");
+
+        Assert.Equal(("/signin", "sso-unavailable"), (browser.Location.AbsolutePath, browser.ErrorCode));
+        await ((IAsyncLifetime)factory).DisposeAsync();
+    }
+
+    [Fact]
     public async Task A_refusal_at_the_provider_gives_a_page_and_signs_nobody_in()
     {
         await using var factory = new SingleSignOnFactory();
