@@ -19,12 +19,7 @@ public sealed class SingleSignOnBrowserTests(SsoRunningApp app) : IClassFixture<
     {
         Directory.CreateDirectory(Screenshots);
         using var playwright = await Playwright.CreateAsync();
-        await using var browser = await playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions
-        {
-            ExecutablePath = "/usr/bin/chromium",
-            Headless = true,
-            Args = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
-        });
+        await using var browser = await Chromium.LaunchAsync(playwright);
         var size = new BrowserNewContextOptions { ViewportSize = new ViewportSize { Width = 1440, Height = 900 } };
         var context = await browser.NewContextAsync(size);
         context.SetDefaultTimeout(60_000);

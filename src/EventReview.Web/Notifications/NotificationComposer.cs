@@ -24,18 +24,7 @@ public sealed class NotificationComposer(IOptions<NotificationOptions> options)
     public (string Subject, string Body) Email(Notification n) =>
         ("[EventReview] " + n.Subject, $"{n.Text}\n\nOpen: {Link(n.Link)}\n\n-- \n{string.Format(System.Globalization.CultureInfo.InvariantCulture, Footer, Link("/profile"))}\n");
 
-    public string Webhook(Notification n, string recipient) => JsonSerializer.Serialize(new
-    {
-        @event = n.Kind,
-        id = n.Id,
-        recipient,
-        createdAt = n.CreatedAt.UtcDateTime,
-        subject = n.Subject,
-        text = n.Text,
-        link = Link(n.Link),
-        caseId = n.CaseId,
-        itemKey = n.ItemKey,
-    }, Json);
+    public string Webhook(Notification n, string recipient) => JsonSerializer.Serialize(Item(n, recipient), Json);
 
     public (string Subject, string Body) DigestEmail(IReadOnlyList<Notification> list, DateTimeOffset now)
     {
@@ -50,16 +39,21 @@ public sealed class NotificationComposer(IOptions<NotificationOptions> options)
         @event = NotificationKind.Digest,
         recipient,
         createdAt = now.UtcDateTime,
-        items = list.OrderBy(n => n.CreatedAt).Select(n => new
-        {
-            @event = n.Kind,
-            id = n.Id,
-            createdAt = n.CreatedAt.UtcDateTime,
-            subject = n.Subject,
-            text = n.Text,
-            link = Link(n.Link),
-            caseId = n.CaseId,
-            itemKey = n.ItemKey,
-        }),
+        items = list.OrderBy(n => n.CreatedAt).Select(n => Item(n, null)),
     }, Json);
+
+    private WebhookItem Item(Notification n, string? recipient) =>
+        new(n.Kind, n.Id, recipient, n.CreatedAt.UtcDateTime, n.Subject, n.Text, Link(n.Link), n.CaseId, n.ItemKey);
+
+    /// <summary>One notification in a webhook body (the recipient only on a single notification, not inside a digest).</summary>
+    private sealed record WebhookItem(
+        string Event,
+        long Id,
+        [property: System.Text.Json.Serialization.JsonIgnore(Condition = System.Text.Json.Serialization.JsonIgnoreCondition.WhenWritingNull)] string? Recipient,
+        DateTime CreatedAt,
+        string Subject,
+        string Text,
+        string Link,
+        int? CaseId,
+        string? ItemKey);
 }

@@ -34,7 +34,7 @@ public sealed class NotificationPump(
             var notices = await Step("read the timeline", () => CollectTimelineAsync(ct));
             notices += await Step("look at due dates", () => CollectDueAsync(ct));
             var messages = await Step("route notifications", () => RouteAsync(ct));
-            var (sent, failed) = await StepPair("send messages", () => sender.SendDueAsync(clock.GetUtcNow(), ct));
+            var (sent, failed) = await Step("send messages", () => sender.SendDueAsync(clock.GetUtcNow(), ct));
             return new Pass(notices, messages, sent, failed);
         }
         finally
@@ -101,7 +101,7 @@ public sealed class NotificationPump(
         return made;
     }
 
-    private async Task<int> Step(string what, Func<Task<int>> step)
+    private async Task<T> Step<T>(string what, Func<Task<T>> step)
     {
         try
         {
@@ -111,20 +111,7 @@ public sealed class NotificationPump(
         {
             // Another instance did the same work at the same moment (unique keys, concurrency tokens): next pass.
             log.LogInformation("Notifications: could not {Step} this pass ({Reason}); trying again next pass", what, ex.InnerException?.Message ?? ex.Message);
-            return 0;
-        }
-    }
-
-    private async Task<(int, int)> StepPair(string what, Func<Task<(int, int)>> step)
-    {
-        try
-        {
-            return await step();
-        }
-        catch (DbUpdateException ex)
-        {
-            log.LogInformation("Notifications: could not {Step} this pass ({Reason}); trying again next pass", what, ex.InnerException?.Message ?? ex.Message);
-            return (0, 0);
+            return default!;
         }
     }
 }
