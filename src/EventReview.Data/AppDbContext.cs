@@ -3,6 +3,7 @@ using EventReview.Core.Checklists;
 using EventReview.Core.Evidence;
 using EventReview.Core.Network;
 using EventReview.Data.Auth;
+using Microsoft.AspNetCore.DataProtection.EntityFrameworkCore;
 using Microsoft.AspNetCore.Identity.EntityFrameworkCore;
 using Microsoft.EntityFrameworkCore;
 
@@ -16,8 +17,29 @@ namespace EventReview.Data;
 /// dotnet ef migrations add NAME --project src/EventReview.Data --context PostgresAppDbContext --output-dir Migrations/Postgres
 /// </code>
 /// </summary>
-public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext<AppUser>(options)
+public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext<AppUser>(options), IDataProtectionKeyContext
 {
+    /// <summary>
+    /// The ASP.NET Core data-protection key ring (cookie, antiforgery and sign-in state keys), shared by every app
+    /// instance on this database so that a cookie made by one is read by another.
+    /// </summary>
+    public DbSet<DataProtectionKey> DataProtectionKeys => Set<DataProtectionKey>();
+
+    /// <summary>Sign-offs waiting for their signer to re-authenticate at the identity provider.</summary>
+    public DbSet<SignatureRequest> SignatureRequests => Set<SignatureRequest>();
+
+    /// <summary>Each person's notification choices.</summary>
+    public DbSet<Notifications.NotificationSettings> NotificationSettings => Set<Notifications.NotificationSettings>();
+
+    /// <summary>What each person is to be told.</summary>
+    public DbSet<Notifications.Notification> Notifications => Set<Notifications.Notification>();
+
+    /// <summary>E-mails and webhook requests to send, being retried, sent or given up.</summary>
+    public DbSet<Notifications.OutboxMessage> OutboxMessages => Set<Notifications.OutboxMessage>();
+
+    /// <summary>How far the notification worker has read the timeline.</summary>
+    public DbSet<Notifications.NotificationCursor> NotificationCursors => Set<Notifications.NotificationCursor>();
+
     public DbSet<ReviewCase> Cases => Set<ReviewCase>();
 
     public DbSet<ChecklistItem> Items => Set<ChecklistItem>();

@@ -62,6 +62,7 @@ app.MapHealth();
 app.MapOpenApi().RequireAuthorization(EventReview.Web.Auth.Policies.Read);
 app.MapEventReviewApi();
 app.MapAccountEndpoints();
+app.MapSingleSignOnEndpoints();
 app.MapRazorComponents<App>()
     .AddInteractiveServerRenderMode();
 

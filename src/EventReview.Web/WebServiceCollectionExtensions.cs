@@ -26,7 +26,7 @@ public static class WebServiceCollectionExtensions
             .AddClaimsPrincipalFactory<AppClaimsFactory>()
             .AddDefaultTokenProviders();
 
-        services.AddAuthentication(o =>
+        var authentication = services.AddAuthentication(o =>
             {
                 o.DefaultScheme = "smart";
                 o.DefaultChallengeScheme = "smart";
@@ -35,8 +35,9 @@ public static class WebServiceCollectionExtensions
                 ctx.Request.Headers.Authorization.ToString().StartsWith("Bearer ", StringComparison.OrdinalIgnoreCase)
                     ? ApiTokenAuthenticationHandler.SchemeName
                     : IdentityConstants.ApplicationScheme)
-            .AddScheme<AuthenticationSchemeOptions, ApiTokenAuthenticationHandler>(ApiTokenAuthenticationHandler.SchemeName, null)
-            .AddIdentityCookies();
+            .AddScheme<AuthenticationSchemeOptions, ApiTokenAuthenticationHandler>(ApiTokenAuthenticationHandler.SchemeName, null);
+        authentication.AddIdentityCookies();
+        authentication.AddEventReviewSignIn(configuration);
         services.ConfigureApplicationCookie(o =>
         {
             o.LoginPath = "/signin";
@@ -51,6 +52,7 @@ public static class WebServiceCollectionExtensions
         services.AddEventReviewSecurity(configuration);
         services.AddCascadingAuthenticationState();
 
+        Notifications.NotificationServiceCollectionExtensions.AddEventReviewNotifications(services, configuration);
         services.AddSingleton<ApiTokenCache>();
         services.AddSingleton<TemplateCatalog>();
         services.AddSingleton<MarkdownRenderer>();

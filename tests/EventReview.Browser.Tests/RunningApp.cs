@@ -10,7 +10,7 @@ namespace EventReview.Browser.Tests;
 /// as a child process in Development (demo seeded) on a free local port, with its own temp data folder.
 /// Killed and cleaned up on dispose.
 /// </summary>
-public sealed class RunningApp : IAsyncLifetime
+public class RunningApp : IAsyncLifetime
 {
     private readonly StringBuilder _log = new();
     private Process? _process;
@@ -36,6 +36,7 @@ public sealed class RunningApp : IAsyncLifetime
         var dll = WebAppDll();
         var port = FreePort();
         BaseUrl = $"http://127.0.0.1:{port}";
+        await BeforeStartAsync();
         Directory.CreateDirectory(DataDirectory);
         var psi = new ProcessStartInfo("dotnet")
         {
@@ -49,6 +50,11 @@ public sealed class RunningApp : IAsyncLifetime
         psi.Environment["ASPNETCORE_URLS"] = BaseUrl;
         psi.Environment["EventReview__DataDirectory"] = DataDirectory;
         psi.Environment["DOTNET_NOLOGO"] = "1";
+        foreach (var (key, value) in Settings)
+        {
+            psi.Environment[key] = value;
+        }
+
         _process = Process.Start(psi) ?? throw new InvalidOperationException("Could not start the web app.");
         _process.OutputDataReceived += (_, e) => Append(e.Data);
         _process.ErrorDataReceived += (_, e) => Append(e.Data);
@@ -85,6 +91,15 @@ public sealed class RunningApp : IAsyncLifetime
         throw new TimeoutException($"The web app did not answer /signin within 3 minutes:\n{Log}");
     }
 
+    /// <summary>More environment variables for the app (a subclass fills them in <see cref="BeforeStartAsync"/>).</summary>
+    protected Dictionary<string, string> Settings { get; } = new(StringComparer.Ordinal);
+
+    /// <summary>Runs once <see cref="BaseUrl"/> is known and before the app starts (start what the app needs here).</summary>
+    protected virtual Task BeforeStartAsync() => Task.CompletedTask;
+
+    /// <summary>Runs after the app has stopped.</summary>
+    protected virtual Task AfterStopAsync() => Task.CompletedTask;
+
     public async Task DisposeAsync()
     {
         if (_process is { HasExited: false })
@@ -94,6 +109,7 @@ public sealed class RunningApp : IAsyncLifetime
         }
 
         _process?.Dispose();
+        await AfterStopAsync();
         try
         {
             Directory.Delete(DataDirectory, recursive: true);

@@ -146,12 +146,7 @@ public sealed class StoredScriptTests(RunningApp app) : IClassFixture<RunningApp
     {
         Directory.CreateDirectory(Screenshots);
         using var playwright = await Playwright.CreateAsync();
-        await using var browser = await playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions
-        {
-            ExecutablePath = "/usr/bin/chromium",
-            Headless = true,
-            Args = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
-        });
+        await using var browser = await Chromium.LaunchAsync(playwright);
         var context = await browser.NewContextAsync(new BrowserNewContextOptions { ViewportSize = new ViewportSize { Width = 1400, Height = 1000 }, AcceptDownloads = true });
         context.SetDefaultTimeout(30_000);
         await context.AddInitScriptAsync(Watch);

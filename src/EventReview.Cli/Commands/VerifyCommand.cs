@@ -24,6 +24,16 @@ public static class VerifyCommand
                 await using var provider = await data.OpenAsync(parse);
                 var (cases, database) = await provider.GetRequiredService<IntegrityVerifier>().VerifyAsync(parse.GetValue(caseId), ct);
                 var problems = database.Concat(cases.SelectMany(c => c.Problems)).ToList();
+                try
+                {
+                    // Coordinators hear of it through the web app's notifications; the report below stands either way.
+                    await EventReview.Data.Notifications.VerifyFailureNotices.RecordAsync(provider, "eventreview verify", problems, ct);
+                }
+                catch (Exception ex) when (ex is Microsoft.EntityFrameworkCore.DbUpdateException or System.Data.Common.DbException or InvalidOperationException)
+                {
+                    Console.Error.WriteLine($"warning: the problems could not be recorded for the coordinators' notifications: {ex.Message}");
+                }
+
                 if (parse.GetValue(data.Json))
                 {
                     CliOutput.WriteJson(new

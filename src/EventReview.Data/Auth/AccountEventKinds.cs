@@ -10,6 +10,21 @@ public static class AccountEventKinds
     public const string TokenCreated = "token.created";
     public const string TokenRevoked = "token.revoked";
 
+    /// <summary>First single sign-on of a person: their account was made.</summary>
+    public const string AccountCreated = "account.created";
+
+    /// <summary>A single sign-on identity was joined to an existing account with the same, provider-verified e-mail.</summary>
+    public const string AccountLinked = "account.linked";
+
+    /// <summary>A role changed because the person's groups at the identity provider changed.</summary>
+    public const string RoleChanged = "role.changed";
+
+    /// <summary>A signer re-authenticated at the identity provider to sign a review item.</summary>
+    public const string SignatureReauthenticated = "signature.reauthenticated";
+
+    /// <summary>A signature was refused because re-authentication did not prove the signer (stale, another person, failed).</summary>
+    public const string SignatureRefused = "signature.refused";
+
     /// <summary>A short English label for the sign-in activity page.</summary>
     public static string Label(string kind) => kind switch
     {
@@ -19,6 +34,11 @@ public static class AccountEventKinds
         SignedOut => "signed out",
         TokenCreated => "token created",
         TokenRevoked => "token revoked",
+        AccountCreated => "account created",
+        AccountLinked => "account linked",
+        RoleChanged => "role changed",
+        SignatureReauthenticated => "re-authenticated to sign",
+        SignatureRefused => "signature refused",
         _ => kind,
     };
 }

@@ -23,9 +23,15 @@ public static class AccountEndpoints
     {
         // [FromForm] parameters make the framework validate the antiforgery token before this body runs (400 otherwise).
         app.MapPost("/account/signin", async ([FromForm] string? email, [FromForm] string? password, [FromForm] string? returnUrl,
-            SignInManager<AppUser> signIn, AccountAudit audit, HttpContext http) =>
+            SignInManager<AppUser> signIn, AccountAudit audit, HttpContext http, Microsoft.Extensions.Options.IOptions<Auth.SignInSettings> ways) =>
         {
             var back = ReturnUrls.Safe(returnUrl);
+            if (!ways.Value.LocalAccounts)
+            {
+                await audit.RecordAsync(AccountEventKinds.SignInFailed, null, email?.Trim(), ClientAddress.Of(http), "local accounts are switched off");
+                return Results.Redirect($"/signin?error=local-off&returnUrl={Uri.EscapeDataString(back)}");
+            }
+
             if (string.IsNullOrWhiteSpace(email) || string.IsNullOrEmpty(password))
             {
                 return Results.Redirect($"/signin?error=missing&returnUrl={Uri.EscapeDataString(back)}");

@@ -40,11 +40,10 @@ public static class OperationsSetup
         builder.Services.Configure<ForwardedHeadersOptions>(o => ConfigureProxies(o, options.TrustedProxies));
         builder.Services.AddScoped<HealthProbe>();
 
-        // Cookie and antiforgery keys live in the data folder, so that sign-ins survive a restart and the service
-        // account needs no home directory.
-        var dataDirectory = builder.Configuration["EventReview:DataDirectory"] ?? "./data";
+        // Cookie, antiforgery and sign-in state keys live in the database (table DataProtectionKeys), so that sign-ins
+        // survive a restart and every app instance on the same database reads the cookies the others made.
         builder.Services.AddDataProtection()
-            .PersistKeysToFileSystem(new DirectoryInfo(Path.Combine(Path.GetFullPath(dataDirectory), "keys")))
+            .PersistKeysToDbContext<EventReview.Data.AppDbContext>()
             .SetApplicationName("EventReview");
         return builder;
     }

@@ -129,6 +129,26 @@ public sealed class VerifyCommandTests : IAsyncLifetime
     }
 
     [Fact]
+    public async Task Problems_found_are_recorded_once_a_day_as_a_notification_to_every_coordinator()
+    {
+        var (added, _, addError) = CliRunner.Run(UsersCommand.Build(), "users", "add", "--email", "lead@example.org", "--role", "coordinator", "--password", "Lead-Coordinator-Passphrase-42", "--data", _dir);
+        Assert.True(added == 0, addError);
+        var path = new AttachmentStore(DatabaseSettings.ForSqlite(_dir)).PathFor(Core.Evidence.Hashing.Sha256Hex(SampleCase.AttachmentBytes));
+        await File.WriteAllTextAsync(path, "gps_time,value\n1.0,2.5\n");
+
+        var (first, _, _) = CliRunner.Run(VerifyCommand.Build(), "verify", "--data", _dir);
+        var (again, _, _) = CliRunner.Run(VerifyCommand.Build(), "verify", "--data", _dir);
+
+        Assert.Equal((1, 1), (first, again));
+        await using var db = new AppDbContextFactory(DatabaseSettings.ForSqlite(_dir)).CreateDbContext();
+        var lead = await db.Users.SingleAsync(u => u.Email == "lead@example.org");
+        var notice = Assert.Single(await db.Notifications.Where(n => n.UserId == lead.Id).ToListAsync());
+        Assert.Equal(Core.Notifications.NotificationKind.VerifyFailed, notice.Kind);
+        Assert.Contains("from eventreview verify", notice.Text, StringComparison.Ordinal);
+        Assert.Contains("missing or altered", notice.Text, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public void An_unknown_case_exits_2_with_a_one_line_error()
     {
         var (code, _, error) = CliRunner.Run(VerifyCommand.Build(), "verify", "--data", _dir, "--case", "9999");

@@ -45,13 +45,19 @@ public partial class EventReviewFactory : WebApplicationFactory<Program>, IAsync
         builder.UseSetting("EventReview:RateLimits:AddressPerMinute", "100000");
     }
 
-    Task IAsyncLifetime.InitializeAsync()
+    Task IAsyncLifetime.InitializeAsync() => StartAsync();
+
+    Task IAsyncLifetime.DisposeAsync() => StopAsync();
+
+    /// <summary>Starts the app (migrate and seed) once, before the first test; subclasses start what it needs first.</summary>
+    protected virtual Task StartAsync()
     {
-        _ = Server; // start the app (migrate and seed) once, before the first test
+        _ = Server;
         return Task.CompletedTask;
     }
 
-    async Task IAsyncLifetime.DisposeAsync()
+    /// <summary>Stops the app and deletes its data folder.</summary>
+    protected virtual async Task StopAsync()
     {
         foreach (var c in _clients.Values)
         {

@@ -38,7 +38,7 @@ public sealed class TeamServerStartTests
         if (provider == "Postgres")
         {
             env["Database__Provider"] = "Postgres";
-            env["ConnectionStrings__Default"] = await FreshPostgresDatabaseAsync();
+            env["ConnectionStrings__Default"] = await EventReview.Web.Tests.Fixtures.PostgresDatabases.FreshAsync("er_ops");
         }
 
         try
@@ -163,22 +163,6 @@ public sealed class TeamServerStartTests
     {
         var settings = DatabaseSettings.From(provider, provider == "Postgres" ? env["ConnectionStrings__Default"] : null, data);
         return new AppDbContextFactory(settings).CreateDbContext();
-    }
-
-    private static async Task<string> FreshPostgresDatabaseAsync()
-    {
-        var admin = Environment.GetEnvironmentVariable("EVENTREVIEW_TEST_POSTGRES");
-        Assert.False(string.IsNullOrWhiteSpace(admin),
-            "EVENTREVIEW_TEST_POSTGRES is not set: run ./test.sh (it starts a throwaway PostgreSQL server) or set it to a throwaway server's connection string.");
-        var name = $"er_ops_{Guid.NewGuid():N}"[..24];
-        await using (var conn = new NpgsqlConnection(admin))
-        {
-            await conn.OpenAsync();
-            await using var create = new NpgsqlCommand($"CREATE DATABASE \"{name}\"", conn);
-            await create.ExecuteNonQueryAsync();
-        }
-
-        return new NpgsqlConnectionStringBuilder(admin) { Database = name }.ConnectionString;
     }
 
     private static void TryDelete(string dir)

@@ -8,8 +8,9 @@ namespace EventReview.Web.Services.Checks;
 /// <summary>Maps a check kind to the component that shows its run form (parameters with their defaults).</summary>
 public static class CheckRunners
 {
-    private static readonly Dictionary<string, Type> Runners = new(StringComparer.Ordinal);
-    private static readonly Dictionary<string, Type> ResultViews = new(StringComparer.Ordinal);
+    // Concurrent: test hosts (and any two hosts in one process) register at start-up at the same time.
+    private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, Type> Runners = new(StringComparer.Ordinal);
+    private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, Type> ResultViews = new(StringComparer.Ordinal);
 
     /// <summary>Registers the component that shows a record's result of this kind; it receives a "Record" parameter.</summary>
     public static void RegisterResultView(string kind, Type component) => ResultViews[kind] = component;
