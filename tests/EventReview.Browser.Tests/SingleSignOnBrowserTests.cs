@@ -42,11 +42,13 @@ public sealed class SingleSignOnBrowserTests(SsoRunningApp app) : IClassFixture<
             // Signing sends her to the provider again (prompt=login), and back to the item, signed.
             await page.GotoAsync(itemUrl);
             await page.Locator("#interactive-ready").WaitForAsync(new() { State = WaitForSelectorState.Attached });
-            await page.Locator("#sign-statement").FillAsync("Compared each site's timing uncertainty with its calibration report.");
+            const string statement = "Compared each site's timing uncertainty with its calibration report.";
+            await page.Locator("#sign-statement").FillAsync(statement);
 
-            // Leave the field so that its value reaches the server before the click (the field updates on change).
+            // Leave the field so that its value reaches the server before the click (the field updates on change); the
+            // counter under it shows the length the server holds, so wait for that rather than for a fixed time.
             await page.Locator("#sign-statement").PressAsync("Tab");
-            await Task.Delay(1000);
+            await Assertions.Expect(page.Locator(".sign-form")).ToContainTextAsync($"{statement.Length} / 4000"); // InputLimits.MaxStatementLength
             await Assertions.Expect(page.Locator("#sign-sso-button")).ToBeVisibleAsync();
             await page.Locator(".sign-form").ScrollIntoViewIfNeededAsync();
             await Shot(page, "sso-2-sign-form");
