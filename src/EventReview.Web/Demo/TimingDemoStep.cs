@@ -1,3 +1,4 @@
+using EventReview.Core.Timing;
 using EventReview.Web.Services;
 using EventReview.Web.Services.Checks;
 
