@@ -108,10 +108,10 @@ public static class OverlapReview
         if (problems.Count == 0 && !weakP)
         {
             var pText = o.PValue is { } q
-                ? string.Create(ci, $", p = {q:G2} <= {p.PValueThreshold:G3}")
+                ? string.Create(ci, $", p = {q:G2} ≤ {p.PValueThreshold:G3}")
                 : ", no off-source p-value asked";
             return new Judgement(Verdict.Consistent, string.Create(ci,
-                $"overlap {o.Overlap:0.00} >= {p.OverlapThreshold:0.##}, lag {Ms(o.RefinedLagSeconds)}{sigma} ms inside ±{p.AllowedLagSeconds * 1e3:0.00} ms") + pText);
+                $"overlap {o.Overlap:0.00} ≥ {p.OverlapThreshold:0.##}, lag {Ms(o.RefinedLagSeconds)}{sigma} ms inside ±{p.AllowedLagSeconds * 1e3:0.00} ms") + pText);
         }
 
         if (problems.Count == 0)

@@ -8,9 +8,9 @@ public static class ChirpTrack
 {
     /// <summary>
     /// For every column the peak frequency is taken (refined by a parabola through the log values of the three nearest rows,
-    /// interpolated in log frequency); columns whose peak reaches the threshold are loud. Points from the first loud column up to the
-    /// loudest column are fitted: y = f^{−8/3} = a + b t by weighted least squares with σ_y = (8/3) f^{−11/3} σ_f, σ_f = the local row
-    /// spacing / √12. Then Mc = (−5 b / (8π)^{8/3})^{3/5} / T_sun, σ_Mc = (3/5) Mc σ_b / |b| (σ_b scaled by sqrt(reduced χ²) when
+    /// interpolated in log frequency); columns whose peak reaches the threshold are loud. The loud columns leading up to the loudest
+    /// (without a longer gap than <see cref="ChirpTrackOptions.MaxGapSeconds"/> or three tile durations Q / (2 √11 f)) are fitted: y = f^{−8/3} = a + b t by weighted least squares with σ_y = (8/3) f^{−11/3} σ_f, σ_f = the full width of the
+    /// point's tile, 2 f √11 / Q, over √12; neighbouring columns share tiles, so the slope's σ is scaled by sqrt(points / independent points). Then Mc = (−5 b / (8π)^{8/3})^{3/5} / T_sun, σ_Mc = (3/5) Mc σ_b / |b| (σ_b scaled by sqrt(reduced χ²) when
     /// above 1), tc = −a / b. Chirp-like means b &lt; 0 at 3 σ and weighted R² ≥ the minimum. <see cref="ChirpFit.Scope"/> says what
     /// the fit can and cannot tell, with more caution for a chirp mass above the high-mass limit (a short signal in band).
     /// </summary>
@@ -23,6 +23,7 @@ public static class ChirpTrack
         var fsList = new List<double>();
         var sigmas = new List<double>();
         var energies = new List<double>();
+        var durations = new List<double>();
         var f = map.FrequenciesHz;
         for (int i = 0; i < map.TimesSeconds.Length; i++)
         {
@@ -50,18 +51,19 @@ public static class ChirpTrack
                 }
             }
 
-            double spacing = (f[Math.Min(k + 1, f.Length - 1)] - f[Math.Max(k - 1, 0)]) / (k > 0 && k < f.Length - 1 ? 2 : 1);
+            double q = map.BestQ[i][k] > 0 ? map.BestQ[i][k] : map.QPlanes[0];
             ts.Add(map.TimesSeconds[i]);
             fsList.Add(freq);
-            sigmas.Add(spacing / Math.Sqrt(12));
+            sigmas.Add(Bandwidth(freq, q));
             energies.Add(row[k]);
+            durations.Add(q / (2 * Math.Sqrt(11) * freq));
         }
 
         var assumptions = new List<string>
         {
             "leading-order (Newtonian) chirp: f^(-8/3) linear in time; no higher-order, spin or merger corrections",
-            string.Create(CultureInfo.InvariantCulture, $"ridge = loudest row of each column of the Q map with power / median >= {options.EnergyThreshold:G}; rows log-spaced, sigma_f = local row spacing / sqrt(12)"),
-            "points from the first loud column to the loudest one; weighted least squares, slope uncertainty scaled by sqrt(reduced chi-square) when above 1",
+            string.Create(CultureInfo.InvariantCulture, $"ridge = loudest row of each column of the Q map with power / median >= {options.EnergyThreshold:G}; sigma_f = the tile's full bandwidth 2 f sqrt(11) / Q over sqrt(12); columns within one tile duration Q / (2 sqrt(11) f) share a tile, so the slope's sigma counts independent points only"),
+            string.Create(CultureInfo.InvariantCulture, $"track = the loud points leading up to the loudest one without a gap longer than {options.MaxGapSeconds:G} s or three tile durations; weighted least squares, slope uncertainty scaled by sqrt(reduced chi-square) when above 1"),
             "T_sun = G M_sun / c^3 = 4.925490947641e-6 s",
         };
         if (ts.Count == 0)
@@ -69,18 +71,31 @@ public static class ChirpTrack
             return NoFit("no column of the map is louder than the threshold", [], [], assumptions);
         }
 
+        // The track: from the loudest point back through loud points no further apart than a gap limit (isolated loud noise
+        // columns earlier in the map do not join it).
         int loudest = energies.IndexOf(energies.Max());
-        int count = loudest + 1;
-        var t = ts.Take(count).ToArray();
-        var f0 = fsList.Take(count).ToArray();
+        int first = loudest;
+        while (first > 0 && ts[first] - ts[first - 1] <= Math.Max(options.MaxGapSeconds, 3 * durations[first - 1]))
+        {
+            first--;
+        }
+
+        int count = loudest - first + 1;
+        var t = ts.Skip(first).Take(count).ToArray();
+        var f0 = fsList.Skip(first).Take(count).ToArray();
+        var sf = sigmas.Skip(first).Take(count).ToArray();
         if (count < options.MinimumPoints)
         {
-            return NoFit($"only {count} loud ridge points before the loudest one; at least {options.MinimumPoints} are needed", t, f0, assumptions);
+            return NoFit($"only {count} loud, independent ridge points lead up to the loudest one; at least {options.MinimumPoints} are needed", t, f0, assumptions);
         }
 
         var y = f0.Select(v => Math.Pow(v, -8.0 / 3)).ToArray();
-        var wts = f0.Select((v, i) => 1 / Math.Pow(8.0 / 3 * Math.Pow(v, -11.0 / 3) * sigmas[i], 2)).ToArray();
-        var line = WeightedLine.Fit(t, y, wts);
+        var wts = f0.Select((v, i) => 1 / Math.Pow(8.0 / 3 * Math.Pow(v, -11.0 / 3) * sf[i], 2)).ToArray();
+        // Neighbouring columns see the same tile: the points are worth about Σ (column step / tile duration) independent ones, so
+        // the slope's sigma is scaled by sqrt(points / independent points).
+        double step = map.TimesSeconds.Length > 1 ? map.TimesSeconds[1] - map.TimesSeconds[0] : 0;
+        double independent = Math.Max(2, durations.Skip(first).Take(count).Sum(d => Math.Min(1, step / d)));
+        var line = WeightedLine.Fit(t, y, wts).Inflated(Math.Sqrt(Math.Max(1, count / independent)));
         double mc = Chirp.ChirpMassFromSlope(line.Slope);
         double sigmaMc = double.IsNaN(mc) ? double.NaN : 0.6 * mc * line.SlopeSigma / Math.Abs(line.Slope);
         double tc = line.Slope != 0 ? -line.Intercept / line.Slope : double.NaN;
@@ -107,6 +122,9 @@ public static class ChirpTrack
         var scope = ChirpScope.For(ok ? Finite(mc) : null, Finite(sigmaMc), t, f0, map, options);
         return new ChirpFit(Finite(mc), Finite(sigmaMc), Finite(tc), Finite(line.RSquared), ok, reason, t, f0, assumptions, scope);
     }
+
+    /// <summary>σ_f of a ridge point: the full width 2 f √11 / Q of its tile's window, divided by √12 (a flat distribution across it).</summary>
+    private static double Bandwidth(double f, double q) => 2 * f * Math.Sqrt(11) / q / Math.Sqrt(12);
 
     private static double? Finite(double v) => double.IsFinite(v) ? v : null;
 

@@ -3,6 +3,9 @@ namespace EventReview.Core.Signal.TimeFrequency;
 /// <summary>A weighted least-squares straight line y = a + b x with the slope's one-sigma uncertainty (scaled by sqrt(reduced χ²) when above 1) and the weighted R².</summary>
 internal readonly record struct WeightedLine(double Intercept, double Slope, double SlopeSigma, double RSquared)
 {
+    /// <summary>The same line with the slope's sigma multiplied by <paramref name="factor"/>.</summary>
+    public WeightedLine Inflated(double factor) => this with { SlopeSigma = SlopeSigma * factor };
+
     public static WeightedLine Fit(double[] x, double[] y, double[] w)
     {
         int n = x.Length;
