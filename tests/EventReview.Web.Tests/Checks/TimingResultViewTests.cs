@@ -46,7 +46,7 @@ public sealed class TimingResultViewTests : BunitContext
         Assert.Contains(result.Timing.PValue!.Value.ToString("G3", System.Globalization.CultureInfo.InvariantCulture), text);
         Assert.Contains("false-alarm probability 0.0027", text);
         Assert.Contains("RA (deg, mean of date)", text);
-        Assert.Contains("Differs from ICRS by (deg)", text);
+        Assert.Contains("From ICRS (deg)", text);
         Assert.Contains(" ± 0.707", text); // Δt with its combined one-sigma uncertainty, ms
     }
 

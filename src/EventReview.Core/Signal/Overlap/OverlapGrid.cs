@@ -46,9 +46,15 @@ internal sealed class OverlapGrid
             }
         }
 
-        NoisePositions = after.Count >= EnvelopePeak.MinimumWindows ? after : positions;
+        var chosen = after.Count >= EnvelopePeak.MinimumWindows ? after : positions.ToList();
+        NoisePositions = chosen.Count <= MaxNoiseWindows
+            ? chosen
+            : Enumerable.Range(0, MaxNoiseWindows).Select(i => chosen[i * chosen.Count / MaxNoiseWindows]).ToList();
         NoiseAfterOnly = after.Count >= EnvelopePeak.MinimumWindows;
     }
+
+    /// <summary>Most off-source windows used for the noise of the correlation (evenly spread when more fit): 64 give the lag's sigma to about 9 %.</summary>
+    public const int MaxNoiseWindows = 64;
 
     public double SampleRateHz { get; }
 
@@ -77,7 +83,7 @@ internal sealed class OverlapGrid
     /// <summary>
     /// Off-source windows used to measure the noise of the correlation: windows after the candidate, half a window apart, when at
     /// least <see cref="EnvelopePeak.MinimumWindows"/> fit there (a chirp's inspiral runs before its time and would leak into earlier
-    /// windows), otherwise all of <see cref="OffSourcePositions"/>.
+    /// windows), otherwise all of <see cref="OffSourcePositions"/>; at most <see cref="MaxNoiseWindows"/>, evenly spread.
     /// </summary>
     public IReadOnlyList<int> NoisePositions { get; }
 
