@@ -9,7 +9,8 @@ public static class ChirpTrack
     /// <summary>
     /// For every column the peak frequency is taken (refined by a parabola through the log values of the three nearest rows,
     /// interpolated in log frequency); columns whose peak reaches the threshold are loud. The loud columns leading up to the loudest
-    /// (without a longer gap than <see cref="ChirpTrackOptions.MaxGapSeconds"/> or three tile durations Q / (2 √11 f)) are fitted: y = f^{−8/3} = a + b t by weighted least squares with σ_y = (8/3) f^{−11/3} σ_f, σ_f = the full width of the
+    /// (without a longer gap than <see cref="ChirpTrackOptions.MaxGapSeconds"/> or three tile durations Q / (2 √11 f), and without
+    /// points more than 30 % off the median frequency of their seven neighbours) are fitted: y = f^{−8/3} = a + b t by weighted least squares with σ_y = (8/3) f^{−11/3} σ_f, σ_f = the full width of the
     /// point's tile, 2 f √11 / Q, over √12; neighbouring columns share tiles, so the slope's σ is scaled by sqrt(points / independent points). Then Mc = (−5 b / (8π)^{8/3})^{3/5} / T_sun, σ_Mc = (3/5) Mc σ_b / |b| (σ_b scaled by sqrt(reduced χ²) when
     /// above 1), tc = −a / b. Chirp-like means b &lt; 0 at 3 σ and weighted R² ≥ the minimum. <see cref="ChirpFit.Scope"/> says what
     /// the fit can and cannot tell, with more caution for a chirp mass above the high-mass limit (a short signal in band).
@@ -80,13 +81,17 @@ public static class ChirpTrack
             first--;
         }
 
-        int count = loudest - first + 1;
-        var t = ts.Skip(first).Take(count).ToArray();
-        var f0 = fsList.Skip(first).Take(count).ToArray();
-        var sf = sigmas.Skip(first).Take(count).ToArray();
+        // A column whose loudest cell is noise far from the track (an isolated high-frequency tile) would dominate a fit in
+        // f^(-8/3): points more than 30 % away from the median frequency of their seven neighbours are left out.
+        var keep = Enumerable.Range(first, loudest - first + 1).Where(i => Math.Abs(Math.Log(fsList[i] / LocalMedian(fsList, i, first, loudest))) <= Math.Log(1.3)).ToList();
+        int count = keep.Count;
+        var t = keep.Select(i => ts[i]).ToArray();
+        var f0 = keep.Select(i => fsList[i]).ToArray();
+        var sf = keep.Select(i => sigmas[i]).ToArray();
+        var dur = keep.Select(i => durations[i]).ToArray();
         if (count < options.MinimumPoints)
         {
-            return NoFit($"only {count} loud, independent ridge points lead up to the loudest one; at least {options.MinimumPoints} are needed", t, f0, assumptions);
+            return NoFit($"only {count} loud ridge points lead up to the loudest one; at least {options.MinimumPoints} are needed", t, f0, assumptions);
         }
 
         var y = f0.Select(v => Math.Pow(v, -8.0 / 3)).ToArray();
@@ -94,7 +99,7 @@ public static class ChirpTrack
         // Neighbouring columns see the same tile: the points are worth about Σ (column step / tile duration) independent ones, so
         // the slope's sigma is scaled by sqrt(points / independent points).
         double step = map.TimesSeconds.Length > 1 ? map.TimesSeconds[1] - map.TimesSeconds[0] : 0;
-        double independent = Math.Max(2, durations.Skip(first).Take(count).Sum(d => Math.Min(1, step / d)));
+        double independent = Math.Max(2, dur.Sum(d => Math.Min(1, step / d)));
         var line = WeightedLine.Fit(t, y, wts).Inflated(Math.Sqrt(Math.Max(1, count / independent)));
         double mc = Chirp.ChirpMassFromSlope(line.Slope);
         double sigmaMc = double.IsNaN(mc) ? double.NaN : 0.6 * mc * line.SlopeSigma / Math.Abs(line.Slope);
@@ -121,6 +126,12 @@ public static class ChirpTrack
 
         var scope = ChirpScope.For(ok ? Finite(mc) : null, Finite(sigmaMc), t, f0, map, options);
         return new ChirpFit(Finite(mc), Finite(sigmaMc), Finite(tc), Finite(line.RSquared), ok, reason, t, f0, assumptions, scope);
+    }
+
+    private static double LocalMedian(List<double> f, int i, int first, int last)
+    {
+        var window = Enumerable.Range(Math.Max(first, i - 3), Math.Min(last, i + 3) - Math.Max(first, i - 3) + 1).Select(j => f[j]).Order().ToArray();
+        return window[window.Length / 2];
     }
 
     /// <summary>σ_f of a ridge point: the full width 2 f √11 / Q of its tile's window, divided by √12 (a flat distribution across it).</summary>

@@ -9,6 +9,7 @@ public class ChirpTrackTests
     [InlineData(8.0, 1)]
     [InlineData(8.0, 2)]
     [InlineData(15.0, 3)]
+    [InlineData(8.0, 5)] // a column whose loudest tile is noise at ~400 Hz sits on this track: the fit must leave it out
     public void Chirp_mass_of_a_simulated_chirp_is_recovered_within_ten_percent(double mc, int seed)
     {
         var sim = SimulatedPair.Make(seed, snr: 40, chirpMass: mc);
