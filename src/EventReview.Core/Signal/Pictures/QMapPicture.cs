@@ -74,6 +74,12 @@ public static class QMapPicture
         {
             for (int k = 0; k < fit.TrackTimesSeconds.Length; k++)
             {
+                double ms = fit.TrackTimesSeconds[k] * 1e3, hz = fit.TrackFrequenciesHz[k];
+                if (ms < t0 || ms > t1 || hz < fLo || hz > fHi)
+                {
+                    continue; // a zoomed map shows only the part of the track inside it
+                }
+
                 sb.Append(ci, $"<circle cx=\"{X(fit.TrackTimesSeconds[k] * 1e3):0.#}\" cy=\"{Y(fit.TrackFrequenciesHz[k]):0.#}\" r=\"2.2\" fill=\"{PicturePalette.Warm}\"/>");
             }
         }
