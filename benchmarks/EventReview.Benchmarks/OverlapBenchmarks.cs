@@ -8,8 +8,9 @@ using MathNet.Numerics;
 namespace EventReview.Benchmarks;
 
 /// <summary>
-/// The overlap check on 32 s of two simulated sites at 4096 Hz: the whole pipeline (Welch PSD, whitening, zero-phase
-/// band-pass, correlation over ±12 ms for both signs) and 1,000 off-source overlaps on already conditioned data.
+/// The overlap check on 32 s of two simulated sites at 4096 Hz: the whole pipeline (median Welch PSD, whitening, zero-phase
+/// band-pass, analytic signals, complex correlation over ±15 ms with the lag's uncertainty) and 1,000 off-source overlaps on already
+/// conditioned data.
 /// Run: dotnet run -c Release --project benchmarks/EventReview.Benchmarks -- --filter '*Overlap*' --job short
 /// </summary>
 [MemoryDiagnoser]
@@ -33,14 +34,14 @@ public class OverlapBenchmarks
         _a = sim.Sites[0].Strain;
         _b = sim.Sites[1].Strain;
         var center = start.AddSeconds(16);
-        _options = new OverlapOptions(center);
-        _offSource = new OverlapOptions(center, OffSourceCount: 1000);
+        _options = new OverlapOptions(center, 0.2, 0.015);
+        _offSource = new OverlapOptions(center, 0.2, 0.015, OffSourceCount: 1000);
         var cond = new ConditioningOptions();
         _ca = Conditioning.Condition(_a, cond);
         _cb = Conditioning.Condition(_b, cond);
     }
 
-    /// <summary>PSD + whitening + band-pass of both sites (in parallel) and the on-source overlap over ±12 ms, both signs.</summary>
+    /// <summary>PSD + whitening + band-pass of both sites (in parallel) and the on-source overlap over ±15 ms with its uncertainty.</summary>
     [Benchmark]
     public OverlapResult Pipeline32sTwoSites() => OverlapCheck.Run(_a, _b, _options);
 

@@ -14,12 +14,15 @@ namespace EventReview.Cli.Commands;
 /// </summary>
 public static class SimulateCommand
 {
+    /// <summary>Default chirp mass of the simulated signal, solar masses: a value of our own, long enough in band for every check.</summary>
+    public const double DefaultChirpMassMsun = 12;
+
     public static Command Build()
     {
         var network = new Option<string>("--network") { Description = "network file (JSON) with the sites to simulate", Required = true };
         var outDir = new Option<string>("--out") { Description = "output folder (created if missing)", Required = true };
         var seed = new Option<int>("--seed") { Description = "random seed: the same seed gives the same files", Required = true };
-        var mass = new Option<double>("--chirp-mass") { Description = "chirp mass in solar masses", DefaultValueFactory = _ => 30 };
+        var mass = new Option<double>("--chirp-mass") { Description = "chirp mass in solar masses (default 12, an invented mid-range value: about 3 s above 20 Hz)", DefaultValueFactory = _ => DefaultChirpMassMsun };
         var snr = new Option<double>("--snr") { Description = "network optimal SNR of the injected chirp", DefaultValueFactory = _ => 20 };
         var gps = new Option<string>("--gps") { Description = "GPS time of coalescence at the Earth's centre (decimal seconds)", DefaultValueFactory = _ => "1300000000" };
         var duration = new Option<double>("--duration-s") { Description = "length of each series in seconds, centred on --gps", DefaultValueFactory = _ => 32 };
@@ -48,7 +51,11 @@ public static class SimulateCommand
                 else
                 {
                     Console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                        $"wrote {truth.Sites.Count} strain files and truth.json to {parse.GetValue(outDir)}: chirp mass {truth.ChirpMassMsun:G} Msun, network SNR {truth.NetworkSnr:0.0}, RA {truth.RaDegrees:0.00} deg, Dec {truth.DecDegrees:0.00} deg, psi {truth.PsiDegrees:0.0} deg"));
+                        $"wrote {truth.Sites.Count} strain files and truth.json to {parse.GetValue(outDir)}: chirp mass {truth.ChirpMassMsun:G} Msun, network SNR {truth.NetworkSnr:0.0}, RA {truth.RaDegrees:0.00} deg, Dec {truth.DecDegrees:0.00} deg (mean of date), psi {truth.PsiDegrees:0.0} deg"));
+                    foreach (var w in truth.Warnings)
+                    {
+                        Console.Error.WriteLine("warning: " + w);
+                    }
                 }
 
                 return CliOutput.Success;
@@ -76,7 +83,8 @@ public static class SimulateCommand
         double SampleRateHz,
         double DurationSeconds,
         IReadOnlyList<TruthSite> Sites,
-        IReadOnlyList<string> Assumptions);
+        IReadOnlyList<string> Assumptions,
+        IReadOnlyList<string> Warnings);
 
     /// <summary>One site in <c>truth.json</c>: file, arrival, delay from the Earth's centre, antenna response, sign, phase offset (rad) and amplitude.</summary>
     public sealed record TruthSite(string Code, string File, string ArrivalGps, double DelaySeconds, double FPlus, double FCross,
@@ -127,7 +135,8 @@ public static class SimulateCommand
         double raDeg = ra ?? (360 * sky.NextDouble());
         double decDeg = dec ?? (Math.Asin((2 * sky.NextDouble()) - 1) * 180 / Math.PI);
         double psi = psiDeg is { } pd ? pd * Math.PI / 180 : Math.PI * sky.NextDouble();
-        var gmst = Sidereal.GreenwichMeanSiderealDegrees(GpsUtc.ToUtc(tc));
+        var utc = GpsUtc.ToUtc(tc);
+        var gmst = Sidereal.GreenwichMeanSiderealDegrees(utc);
         var n = SkyFrame.ToEcef(raDeg, decDeg, gmst);
         var projections = NetworkProjection.Project(net.Sites, n, psi)
             .Select(x => new Core.Signal.Simulation.SiteProjection(x.Code, x.DelaySeconds, x.FPlus, x.FCross)).ToList();
@@ -152,11 +161,11 @@ public static class SimulateCommand
         [
             "delays are relative to the coalescence time at the Earth's centre: arrival = --gps + delay",
             "signRelativeToFirst: the sign an overlap check should find for each site against the first site of the network file",
-            "sky direction: RA/Dec of date turned into Earth-fixed coordinates with Greenwich mean sidereal time (UTC used for UT1)",
+            string.Create(CultureInfo.InvariantCulture, $"sky direction: RA/Dec in the mean-of-date frame (not ICRS: at this date they differ from J2000 / ICRS by up to {Precession.OffsetDegrees(new EquatorialDirection(raDeg, decDeg), Precession.CenturiesSinceJ2000(utc.DateTimeUtc)):0.00}° for this direction) turned into Earth-fixed coordinates with Greenwich mean sidereal time (UTC used for UT1)"),
             string.Create(CultureInfo.InvariantCulture, $"inclination {inclinationDeg:G} deg, phase 0 at coalescence; unless edge-on (90 deg), sites with different F+/Fx ratios see waveforms that differ by a phase (phaseOffsetRad), not just a sign, which moves the best-overlap lag by up to a quarter cycle"),
         ]).ToList();
         var truth = new Truth(net.Name, seed, tc.ToString(), raDeg, decDeg, psi * 180 / Math.PI, inclinationDeg, gmst, sim.Truth.ChirpMassMsun, sim.Truth.NetworkSnr,
-            rate, duration, sites, assumptions);
+            rate, duration, sites, assumptions, LeapSecondWarnings.For(LeapSecondTable.Bundled, utc.DateTimeUtc, DateTime.UtcNow));
         File.WriteAllText(Path.Combine(outDir, "truth.json"), JsonSerializer.Serialize(truth, CliOutput.Json));
         return truth;
     }

@@ -61,6 +61,7 @@ public static class TimeCommand
         var offset = table.EntryAtUtc(utc.DateTimeUtc).GpsMinusUtcSeconds;
         var stale = table.IsStale(DateTime.UtcNow);
         var beyond = !table.Covers(utc.DateTimeUtc);
+        var warnings = LeapSecondWarnings.For(table, utc.DateTimeUtc, DateTime.UtcNow);
         if (json)
         {
             CliOutput.WriteJson(new
@@ -73,6 +74,8 @@ public static class TimeCommand
                 leapSecondTableExpires = table.ExpiresUtc.ToString("yyyy-MM-dd"),
                 leapSecondTableStale = stale,
                 beyondTableExpiry = beyond,
+                gmstFrame = "mean sidereal time (IAU 1982, Meeus eq. 12.4), UTC taken as UT1: GMST, not apparent sidereal time",
+                warnings,
             });
         }
         else
@@ -80,9 +83,9 @@ public static class TimeCommand
             Console.Out.WriteLine($"GPS {gps} = UTC {utc.ToString(6)}{(utc.IsLeapSecond ? " (leap second)" : string.Empty)}; GPS - UTC = {offset} s");
         }
 
-        if (stale || beyond)
+        foreach (var w in warnings)
         {
-            Console.Error.WriteLine($"warning: the leap-second table expires {table.ExpiresUtc:yyyy-MM-dd}; conversions after it may miss a leap second (update src/EventReview.Core/Time/leap-seconds.txt).");
+            Console.Error.WriteLine("warning: " + w);
         }
 
         return CliOutput.Success;

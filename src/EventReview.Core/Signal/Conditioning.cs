@@ -8,7 +8,7 @@ public static class Conditioning
 {
     /// <summary>
     /// Conditions <paramref name="series"/>: PSD by Welch (periodic Hann, 50 % overlap, segment = PsdSegmentSeconds, or the
-    /// largest power of two that fits), whitening with a Tukey taper, then forward-backward Butterworth band-pass and
+    /// largest power of two that fits; segments combined as <see cref="ConditioningOptions.PsdAverage"/> says), whitening with a Tukey taper, then forward-backward Butterworth band-pass and
     /// notches. Samples within TaperSeconds + SettleSeconds of either end are marked as not valid.
     /// </summary>
     /// <exception cref="ArgumentException">When the band is not inside (0, Nyquist) or the series is too short to leave a valid range.</exception>
@@ -28,7 +28,7 @@ public static class Conditioning
             seg = RealFft.NextPowerOfTwo(series.Length + 1) / 2;
         }
 
-        var psd = Welch.Estimate(series.Samples, fs, new WelchOptions(seg));
+        var psd = Welch.Estimate(series.Samples, fs, new WelchOptions(seg, Average: options.PsdAverage));
         int taper = (int)Math.Round(options.TaperSeconds * fs);
         var white = Whitening.Whiten(series.Samples, fs, psd, taper);
         var filtered = FiltFilt.Apply(Sections(options, fs), white);

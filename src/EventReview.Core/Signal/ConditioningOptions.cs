@@ -9,6 +9,8 @@ namespace EventReview.Core.Signal;
 /// <param name="SettleSeconds">Extra margin inside the taper treated as unreliable (filter transients), in seconds (default 0.25).</param>
 /// <param name="NotchFrequenciesHz">Line frequencies to notch out (Hz); empty for none.</param>
 /// <param name="NotchQuality">Quality factor of each notch (default 30).</param>
+/// <param name="PsdAverage">How the Welch segments are combined (default median: a loud signal or glitch in a few segments does not
+/// raise the noise estimate, so whitening does not suppress the signal's own band).</param>
 public sealed record ConditioningOptions(
     double LowHz = 30,
     double HighHz = 350,
@@ -17,4 +19,5 @@ public sealed record ConditioningOptions(
     double TaperSeconds = 0.5,
     double SettleSeconds = 0.25,
     IReadOnlyList<double>? NotchFrequenciesHz = null,
-    double NotchQuality = 30);
+    double NotchQuality = 30,
+    Spectra.WelchAverage PsdAverage = Spectra.WelchAverage.Median);

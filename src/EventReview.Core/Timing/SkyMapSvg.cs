@@ -32,8 +32,8 @@ public static class SkyMapSvg
         var byCode = sites.ToDictionary(s => s.Code, StringComparer.OrdinalIgnoreCase);
         var svg = new StringBuilder();
         var width = Left + PlotWidth + 20;
-        var height = Top + PlotHeight + 92;
-        svg.Append(F($"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{width}\" height=\"{height}\" viewBox=\"0 0 {width} {height}\" font-family=\"sans-serif\" font-size=\"11\">"));
+        var height = Top + PlotHeight + 106;
+        svg.Append(F($"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{width}\" height=\"{height}\" viewBox=\"0 0 {width} {height}\" font-family=\"sans-serif\" font-size=\"12\">"));
         svg.Append(F($"<rect x=\"{Left}\" y=\"{Top}\" width=\"{PlotWidth}\" height=\"{PlotHeight}\" fill=\"#ffffff\" stroke=\"#000000\"/>"));
         foreach (var cell in allowedCells ?? [])
         {
@@ -76,10 +76,13 @@ public static class SkyMapSvg
             legendX += 40 + (label.Length * 5.6);
         }
 
-        var caption = F($"All-sky map, RA/Dec mean-of-date (GMST {result.GmstDegrees:0.000}°, UT1 = UTC) at {result.Utc}; RA increases to the left.");
+        var offset = result.Sky.Count > 0 ? result.Sky.Max(x => x.IcrsOffsetDegrees) : 0;
+        var caption = F($"All-sky map, RA/Dec mean-of-date, not ICRS{(offset > 0 ? F($" (up to {offset:0.00}° apart here)") : string.Empty)}; RA increases to the left.");
+        var caption1 = F($"GMST {result.GmstDegrees:0.000}° (UT1 taken as UTC) at {result.Utc}.");
         var caption2 = F($"{ringIndex} ring(s); {result.Sky.Count} solution(s) circled, numbered best first") + (allowedCells is null ? "." : "; shaded: directions the antenna patterns allow.");
         svg.Append(F($"<text x=\"{Left}\" y=\"{Top + PlotHeight + 64}\">{WebUtility.HtmlEncode(caption)}</text>"));
-        svg.Append(F($"<text x=\"{Left}\" y=\"{Top + PlotHeight + 78}\">{WebUtility.HtmlEncode(caption2)}</text>"));
+        svg.Append(F($"<text x=\"{Left}\" y=\"{Top + PlotHeight + 78}\">{WebUtility.HtmlEncode(caption1)}</text>"));
+        svg.Append(F($"<text x=\"{Left}\" y=\"{Top + PlotHeight + 92}\">{WebUtility.HtmlEncode(caption2)}</text>"));
         svg.Append("</svg>");
         return svg.ToString();
     }

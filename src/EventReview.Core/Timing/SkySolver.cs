@@ -5,7 +5,8 @@ namespace EventReview.Core.Timing;
 
 /// <summary>
 /// Source directions from arrival times at three or more sites, for a plane wave: t_i = t0 - n·r_i/c with n the unit vector toward
-/// the source. The residual of a direction is the RMS over sites of t_i - (t0 - n·r_i/c) with t0 fitted (seconds).
+/// the source. The residual of a direction is the RMS over sites of t_i - (t0 - n·r_i/c) with t0 fitted (seconds); its chi-square
+/// is Σ ((t_i - t0 + n·r_i/c) / σ_i)² with t0 the σ-weighted fit (dimensionless).
 /// </summary>
 public static class SkySolver
 {
@@ -18,7 +19,18 @@ public static class SkySolver
     /// <param name="positionsMeters">ECEF site positions, metres.</param>
     /// <param name="arrivalSeconds">Arrival times in seconds from any common reference, same order.</param>
     /// <exception cref="ArgumentException">Fewer than three sites, lengths differ, or a value is not finite.</exception>
-    public static SkyFit Solve(IReadOnlyList<Vector3> positionsMeters, IReadOnlyList<double> arrivalSeconds)
+    public static SkyFit Solve(IReadOnlyList<Vector3> positionsMeters, IReadOnlyList<double> arrivalSeconds) =>
+        Solve(positionsMeters, arrivalSeconds, null);
+
+    /// <summary>
+    /// As <see cref="Solve(IReadOnlyList{Vector3}, IReadOnlyList{double})"/>, with each arrival weighted by 1/σ_i² in the
+    /// least-squares fit (the fit that minimises the chi-square). Null sigmas weigh every site equally (σ = 1 s).
+    /// </summary>
+    /// <param name="positionsMeters">ECEF site positions, metres.</param>
+    /// <param name="arrivalSeconds">Arrival times in seconds from any common reference, same order.</param>
+    /// <param name="sigmasSeconds">One-sigma timing uncertainty of each site, seconds (&gt; 0), same order; or null.</param>
+    /// <exception cref="ArgumentException">Fewer than three sites, lengths differ, a value is not finite or a sigma is not positive.</exception>
+    public static SkyFit Solve(IReadOnlyList<Vector3> positionsMeters, IReadOnlyList<double> arrivalSeconds, IReadOnlyList<double>? sigmasSeconds)
     {
         ArgumentNullException.ThrowIfNull(positionsMeters);
         ArgumentNullException.ThrowIfNull(arrivalSeconds);
@@ -32,12 +44,18 @@ public static class SkySolver
             throw new ArgumentException("Positions and arrival times must be finite.", nameof(arrivalSeconds));
         }
 
-        if (positionsMeters.Count == 3 && TryThreeSites(positionsMeters, arrivalSeconds, out var exact))
+        var sigmas = sigmasSeconds ?? Enumerable.Repeat(1.0, positionsMeters.Count).ToArray();
+        if (sigmas.Count != positionsMeters.Count || sigmas.Any(s => !(s > 0) || !double.IsFinite(s)))
+        {
+            throw new ArgumentException("Need one finite, positive timing uncertainty (seconds) per site.", nameof(sigmasSeconds));
+        }
+
+        if (positionsMeters.Count == 3 && TryThreeSites(positionsMeters, arrivalSeconds, sigmas, out var exact))
         {
             return exact;
         }
 
-        return LeastSquares(positionsMeters, arrivalSeconds);
+        return LeastSquares(positionsMeters, arrivalSeconds, sigmas);
     }
 
     /// <summary>RMS arrival-time residual (seconds) of direction n, with the geocentre time t0 fitted.</summary>
@@ -54,7 +72,38 @@ public static class SkySolver
         return Math.Sqrt(t0.Sum(x => (x - mean) * (x - mean)) / t0.Length);
     }
 
-    private static bool TryThreeSites(IReadOnlyList<Vector3> r, IReadOnlyList<double> t, out SkyFit fit)
+    /// <summary>
+    /// Chi-square of direction n: Σ ((t_i - t0 + n·r_i/c) / σ_i)² with the geocentre time t0 fitted with weights 1/σ_i²
+    /// (dimensionless). Times and sigmas in seconds, positions in metres.
+    /// </summary>
+    public static double ChiSquare(IReadOnlyList<Vector3> positionsMeters, IReadOnlyList<double> arrivalSeconds, IReadOnlyList<double> sigmasSeconds, Vector3 direction)
+    {
+        ArgumentNullException.ThrowIfNull(positionsMeters);
+        ArgumentNullException.ThrowIfNull(arrivalSeconds);
+        ArgumentNullException.ThrowIfNull(sigmasSeconds);
+        var c = PhysicalConstants.SpeedOfLightMetersPerSecond;
+        double sw = 0, swt = 0;
+        var t0 = new double[positionsMeters.Count];
+        for (var i = 0; i < t0.Length; i++)
+        {
+            var w = 1 / (sigmasSeconds[i] * sigmasSeconds[i]);
+            t0[i] = arrivalSeconds[i] + (Vector3.Dot(direction, positionsMeters[i]) / c);
+            sw += w;
+            swt += w * t0[i];
+        }
+
+        var mean = swt / sw;
+        double chi2 = 0;
+        for (var i = 0; i < t0.Length; i++)
+        {
+            var z = (t0[i] - mean) / sigmasSeconds[i];
+            chi2 += z * z;
+        }
+
+        return chi2;
+    }
+
+    private static bool TryThreeSites(IReadOnlyList<Vector3> r, IReadOnlyList<double> t, IReadOnlyList<double> sigmas, out SkyFit fit)
     {
         var c = PhysicalConstants.SpeedOfLightMetersPerSecond;
         var b2 = r[0] - r[1];
@@ -82,16 +131,24 @@ public static class SkySolver
 
         var m = Vector3.Cross(b2, b3).Normalized();
         var s = Math.Sqrt(s2);
-        fit = Ordered(r, t, [n0 + (s * m), n0 - (s * m)], true);
+        fit = Ordered(r, t, sigmas, [n0 + (s * m), n0 - (s * m)], true);
         return true;
     }
 
-    private static SkyFit LeastSquares(IReadOnlyList<Vector3> r, IReadOnlyList<double> t)
+    private static SkyFit LeastSquares(IReadOnlyList<Vector3> r, IReadOnlyList<double> t, IReadOnlyList<double> sigmas)
     {
         var c = PhysicalConstants.SpeedOfLightMetersPerSecond;
         var count = r.Count;
-        var meanR = new Vector3(r.Average(p => p.X), r.Average(p => p.Y), r.Average(p => p.Z));
-        var meanT = t.Average();
+        var weights = sigmas.Select(s => 1 / (s * s)).ToArray();
+        var sw = weights.Sum();
+        var meanR = Vector3.Zero;
+        var meanT = 0.0;
+        for (var i = 0; i < count; i++)
+        {
+            meanR += weights[i] / sw * r[i];
+            meanT += weights[i] / sw * t[i];
+        }
+
         var m = new double[3, 3];
         var v = new double[3];
         for (var i = 0; i < count; i++)
@@ -101,15 +158,15 @@ public static class SkySolver
             var tau = t[i] - meanT;
             for (var a = 0; a < 3; a++)
             {
-                v[a] += tau * q[a];
+                v[a] += weights[i] * tau * q[a];
                 for (var b = 0; b < 3; b++)
                 {
-                    m[a, b] += q[a] * q[b];
+                    m[a, b] += weights[i] * q[a] * q[b];
                 }
             }
         }
 
-        // Minimise nᵀMn + 2vᵀn on |n| = 1: (M + λI) n = -v with λ ≥ -μmin (trust-region subproblem).
+        // Minimise nᵀMn + 2vᵀn on |n| = 1 (the chi-square with t0 fitted): (M + λI) n = -v with λ ≥ -μmin (trust-region subproblem).
         var evd = Matrix<double>.Build.DenseOfArray(m).Evd(Symmetricity.Symmetric);
         var order = Enumerable.Range(0, 3).OrderBy(k => evd.EigenValues[k].Real).ToArray();
         var mu = order.Select(k => evd.EigenValues[k].Real).ToArray();
@@ -120,7 +177,7 @@ public static class SkySolver
         if (wNorm == 0)
         {
             // All arrivals simultaneous with no geometry to fit: the plane-normal directions fit exactly.
-            return Ordered(r, t, [vectors[0], -vectors[0]], true);
+            return Ordered(r, t, sigmas, [vectors[0], -vectors[0]], true);
         }
 
         var scale = mu[2] > 0 ? mu[2] : 1;
@@ -135,7 +192,7 @@ public static class SkySolver
         if (Math.Abs(w[0]) <= 1e-9 * wNorm && partialSq <= 1)
         {
             var s = Math.Sqrt(1 - partialSq);
-            return Ordered(r, t, [partial + (s * vectors[0]), partial - (s * vectors[0])], null);
+            return Ordered(r, t, sigmas, [partial + (s * vectors[0]), partial - (s * vectors[0])], null);
         }
 
         double lo = -mu[0], hi = -mu[0] + wNorm;
@@ -169,19 +226,20 @@ public static class SkySolver
             n -= w[k] / (mu[k] + hi) * vectors[k];
         }
 
-        return Ordered(r, t, [n.Normalized()], null);
+        return Ordered(r, t, sigmas, [n.Normalized()], null);
     }
 
-    private static SkyFit Ordered(IReadOnlyList<Vector3> r, IReadOnlyList<double> t, Vector3[] candidates, bool? exact)
+    private static SkyFit Ordered(IReadOnlyList<Vector3> r, IReadOnlyList<double> t, IReadOnlyList<double> sigmas, Vector3[] candidates, bool? exact)
     {
         var solutions = candidates
             .Select(n => n.Normalized())
-            .Select(n => new SkyFitDirection(n, Residual(r, t, n)))
-            .OrderBy(s => s.ResidualSeconds)
+            .Select(n => new SkyFitDirection(n, Residual(r, t, n), ChiSquare(r, t, sigmas, n)))
+            .OrderBy(s => s.ChiSquare)
+            .ThenBy(s => s.ResidualSeconds)
             .ToArray();
-        var best = solutions[0].ResidualSeconds;
+        var best = solutions[0];
 
         // Exact (three crossing rings) or, for a fit, a residual below one nanosecond (the resolution of GPS times).
-        return new SkyFit(solutions, exact ?? best <= 1e-9, best);
+        return new SkyFit(solutions, exact ?? best.ResidualSeconds <= 1e-9, best.ResidualSeconds, best.ChiSquare);
     }
 }

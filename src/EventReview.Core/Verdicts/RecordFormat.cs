@@ -10,7 +10,9 @@ namespace EventReview.Core.Verdicts;
 /// <item>Format 2 (this version) adds, for the data chain, "residual is noise", "excess found" and "model does not fit"
 /// (replacing "nothing added" and "something added"); for the background the significance bands "below 3 sigma",
 /// "3 to 5 sigma", "5 sigma or more" and "at least 3 sigma" (replacing "consistent"), and a 90 % confidence FAR bound;
-/// for veto safety the binomial statistic.</item>
+/// for veto safety the binomial statistic; the timing result carries its chi-square sky test and judgement, the overlap
+/// result its lag uncertainty, phase and multi-resolution maps. The tool version of a format-2 record also names the
+/// format ("(record format 2)"), for results (timing, overlap) that do not carry <c>"format"</c> themselves.</item>
 /// </list>
 /// </summary>
 public static class RecordFormat

@@ -35,4 +35,18 @@ public class TimeCommandTests
         Assert.Equal(2, TimingCommandTests.Invoke(TimeCommand.Build(), "time", "--gps", "1", "--utc", "2017-01-01T00:00:00Z").ExitCode);
         Assert.Equal(2, TimingCommandTests.Invoke(TimeCommand.Build(), "time", "--gps", "abc").ExitCode);
     }
+
+    [Fact]
+    public void The_json_of_a_time_beyond_the_leap_second_table_carries_the_warning()
+    {
+        // GPS 1500000000 = 2027-07-19 (after the bundled table's expiry, 2027-06-28); an earlier time carries none of its own.
+        var (code, output, _) = TimingCommandTests.Invoke(TimeCommand.Build(), "time", "--gps", "1500000000", "--json");
+        Assert.Equal(0, code);
+        using var doc = JsonDocument.Parse(output);
+        Assert.Contains(doc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("leap-second table's expiry", StringComparison.Ordinal));
+
+        var (_, early, _) = TimingCommandTests.Invoke(TimeCommand.Build(), "time", "--gps", "1000000000", "--json");
+        using var earlyDoc = JsonDocument.Parse(early);
+        Assert.DoesNotContain(earlyDoc.RootElement.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("the instant", StringComparison.Ordinal));
+    }
 }

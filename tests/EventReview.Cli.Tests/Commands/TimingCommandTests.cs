@@ -103,4 +103,63 @@ public sealed class TimingCommandTests : IDisposable
         Assert.Equal(2, code);
         Assert.Contains("--arrival", error);
     }
+
+    [Fact]
+    public void Timing_json_of_four_sites_gives_the_verdict_and_the_chi_square_contract()
+    {
+        // Invented four-site network (letters-only codes); every delay of a real direction shrunk to 60 %: every pair passes, the
+        // sky fit does not (see Core TimingChiSquareTests for the same case against the old RMS rule).
+        var path = Path.Combine(Path.GetTempPath(), $"network4-{Guid.NewGuid():N}.json");
+        File.WriteAllText(path, """
+            {"name": "Four invented sites", "sites": [
+              {"code": "PA", "name": "Pale Anchor", "latitudeDegrees": 52, "longitudeDegrees": 8, "heightMeters": 100, "xArmAzimuthDegrees": 10, "yArmAzimuthDegrees": 100, "timingUncertaintySeconds": 0.0005},
+              {"code": "QB", "name": "Quiet Bay", "latitudeDegrees": -31, "longitudeDegrees": 118, "heightMeters": 20, "xArmAzimuthDegrees": 45, "yArmAzimuthDegrees": 135, "timingUncertaintySeconds": 0.0005},
+              {"code": "RC", "name": "Red Cedar", "latitudeDegrees": 38, "longitudeDegrees": -98, "heightMeters": 400, "xArmAzimuthDegrees": 300, "yArmAzimuthDegrees": 30, "timingUncertaintySeconds": 0.0005},
+              {"code": "SD", "name": "Salt Dune", "latitudeDegrees": 5, "longitudeDegrees": 30, "heightMeters": 600, "xArmAzimuthDegrees": 70, "yArmAzimuthDegrees": 160, "timingUncertaintySeconds": 0.0005}]}
+            """);
+        try
+        {
+            var net = Core.Network.NetworkFile.Read(path);
+            var t0 = Core.Time.GpsTime.FromSeconds(1500000000m); // after the bundled table's expiry (2027-06-28): the warning must show
+            var args = new List<string> { "timing", "--network", path, "--json" };
+            foreach (var p in Core.Network.NetworkProjection.Project(net.Sites, Core.Time.SkyFrame.ToEcef(150, 20, 0), 0))
+            {
+                args.AddRange(["--arrival", $"{p.Code}={t0.AddSeconds(0.6 * p.DelaySeconds)}"]);
+            }
+
+            var (code, output, _) = Invoke(TimingCommand.Build(), [.. args]);
+
+            Assert.Equal(1, code); // a negative result
+            using var doc = JsonDocument.Parse(output);
+            var root = doc.RootElement;
+            Assert.Equal("inconsistent", root.GetProperty("verdict").GetString());
+            Assert.Equal(1, root.GetProperty("degreesOfFreedom").GetInt32());
+            Assert.True(root.GetProperty("chi2").GetDouble() > 14);
+            Assert.True(root.GetProperty("pValue").GetDouble() < 2.7e-3);
+            Assert.Equal("mean of date", root.GetProperty("skyFrame").GetString());
+            Assert.All(root.GetProperty("pairs").EnumerateArray(), p => Assert.True(p.GetProperty("consistent").GetBoolean()));
+            Assert.Contains(root.GetProperty("warnings").EnumerateArray(), w => w.GetString()!.Contains("leap-second table's expiry", StringComparison.Ordinal));
+        }
+        finally
+        {
+            File.Delete(path);
+        }
+    }
+
+    [Fact]
+    public void Timing_runs_the_antenna_response_test_when_asked_and_refuses_half_an_observation()
+    {
+        var (code, output, _) = Invoke(TimingCommand.Build(), "timing", "--network", _network,
+            "--arrival", "KX=1400000000.000", "--arrival", "M2=1400000000.005", "--antenna-pair", "KX,M2", "--observed-sign", "-1", "--observed-ratio", "0.8", "--json");
+        Assert.True(code is 0 or 1);
+        using var doc = JsonDocument.Parse(output);
+        Assert.Equal("KX", doc.RootElement.GetProperty("antenna").GetProperty("a").GetString());
+        Assert.Contains("antenna response", doc.RootElement.GetProperty("reason").GetString());
+        Assert.Equal(JsonValueKind.Null, doc.RootElement.GetProperty("chi2").ValueKind); // two sites: no sky fit
+
+        var (bad, _, error) = Invoke(TimingCommand.Build(), "timing", "--network", _network,
+            "--arrival", "KX=1400000000.000", "--arrival", "M2=1400000000.005", "--observed-sign", "-1");
+        Assert.Equal(2, bad);
+        Assert.Contains("--antenna-pair", error);
+    }
 }

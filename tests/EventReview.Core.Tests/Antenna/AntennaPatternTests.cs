@@ -15,12 +15,14 @@ public class AntennaPatternTests
     }
 
     [Theory]
-    [InlineData(0, 0, 0, 1, 0)] // textbook
-    [InlineData(0, 0, 45, 0, 1)] // textbook
-    [InlineData(90, 0, 0, 0.5, 0)] // textbook
-    [InlineData(90, 45, 0, 0, 0)] // textbook
-    [InlineData(30, 40, 20, -0.431818881166, 0.751001734531)] // ref (closed form of Thorne 1987, CHECKS.md)
-    [InlineData(60, 120, 75, 0.487139289629, 0.218750000000)] // ref (same)
+    // The standard frame (arms along x and y, ψ from e_θ toward e_φ): F+ = ½(1 + cos²θ) cos 2φ cos 2ψ − cos θ sin 2φ sin 2ψ,
+    // F× = ½(1 + cos²θ) cos 2φ sin 2ψ + cos θ sin 2φ cos 2ψ, from memory of Thorne's 1987 review and the usual textbook (Schutz 2011).
+    [InlineData(0, 0, 0, 1, 0)] // textbook (from memory)
+    [InlineData(0, 0, 45, 0, 1)] // textbook (from memory)
+    [InlineData(90, 0, 0, 0.5, 0)] // textbook (from memory)
+    [InlineData(90, 45, 0, 0, 0)] // textbook (from memory)
+    [InlineData(30, 40, 20, -0.431818881166, 0.751001734531)] // ref: the closed form above evaluated with numpy (CHECKS.md)
+    [InlineData(60, 120, 75, 0.487139289629, 0.218750000000)] // ref: same (CHECKS.md)
     public void Tensor_form_matches_the_checks_rows(double theta, double phi, double psi, double fPlus, double fCross)
     {
         var f = Tensor(theta, phi, psi);
@@ -30,9 +32,9 @@ public class AntennaPatternTests
     }
 
     [Theory]
-    [InlineData(30, 40, 20, -0.431818881166, 0.751001734531)] // ref (CHECKS.md)
+    [InlineData(30, 40, 20, -0.431818881166, 0.751001734531)] // ref (CHECKS.md; Thorne 1987 closed form, from memory)
     [InlineData(60, 120, 75, 0.487139289629, 0.218750000000)] // ref (CHECKS.md)
-    [InlineData(0, 0, 45, 0, 1)] // textbook
+    [InlineData(0, 0, 45, 0, 1)] // textbook (from memory)
     public void Closed_form_matches_the_checks_rows(double theta, double phi, double psi, double fPlus, double fCross)
     {
         var f = AntennaPattern.DetectorFrame(double.DegreesToRadians(theta), double.DegreesToRadians(phi), double.DegreesToRadians(psi));

@@ -9,6 +9,9 @@ internal static class SimulatedPair
 {
     public static readonly GpsTime Start = GpsTime.FromSeconds(1300000000m);
 
+    /// <summary>Search limit of the pair's lag: its delay plus a few milliseconds of timing tolerance (invented geometry), seconds.</summary>
+    public const double MaxLagSeconds = 0.015;
+
     public static readonly SiteProjection[] Sites =
     [
         new("KX", 0.0, 0.8, 0.1),

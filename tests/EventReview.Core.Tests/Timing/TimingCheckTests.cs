@@ -73,7 +73,7 @@ public class TimingCheckTests
         var gmst = result.GmstDegrees;
         var expected = SkyFrame.ToEquatorial(n, gmst);
         Assert.Contains(result.Sky, s => Math.Abs(s.RaDegrees - expected.RaDegrees) < 1e-4 && Math.Abs(s.DecDegrees - expected.DecDegrees) < 1e-4);
-        Assert.True(result.Sky[0].ResidualSeconds <= result.Sky[1].ResidualSeconds);
+        Assert.True(result.Sky[0].ChiSquare <= result.Sky[1].ChiSquare); // best (smallest chi-square) first
     }
 
     [Fact]

@@ -3,6 +3,7 @@ using System.Text;
 using System.Text.Json;
 using EventReview.Core.Network;
 using EventReview.Core.Signal.Io;
+using EventReview.Core.Signal.Overlap;
 using EventReview.Core.Signal.Simulation;
 using EventReview.Core.Time;
 using EventReview.Data;
@@ -122,11 +123,12 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         var record = Assert.Single(c.Item(Item).Computations);
         Assert.Equal("overlap", record.Kind);
         Assert.True(record.Verdict == "consistent", summary);
-        var result = JsonSerializer.Deserialize<OverlapRecordResult>(record.ResultJson, CheckRecords.Json)!;
+        var result = JsonSerializer.Deserialize<OverlapReviewResult>(record.ResultJson, CheckRecords.Json)!;
         Assert.Equal("KX", result.SiteA); // loudest arrival
         Assert.Equal("M2", result.SiteB);
         double truthLag = setup.Projection[0].DelaySeconds - setup.Projection[1].DelaySeconds;
-        Assert.Equal(truthLag, result.Overlap.RefinedLagSeconds, 1.0 / 2048); // within one sample (simulator truth)
+        Assert.True(Math.Abs(truthLag - result.Overlap.RefinedLagSeconds) <= 3 * result.Overlap.LagUncertaintySeconds!.Value, summary); // simulator truth, within 3σ
+        Assert.Contains(" ± ", summary); // the lag is reported with its uncertainty
         Assert.Equal(setup.Sim.Truth.Sites[1].SignRelativeToFirst, result.Overlap.Sign);
         Assert.True(result.Overlap.Overlap >= 0.7, summary); // loud (network SNR 60) edge-on signal: well above the 0.5 default threshold
         Assert.Equal(1.0 / 201, result.Overlap.PValue!.Value, 1e-12); // no off-source window reaches the candidate: (1 + 0) / (1 + 200)
@@ -136,7 +138,9 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         Assert.Equal(travel + (3 * Math.Sqrt(2) * 1e-4), result.AllowedLagSeconds, 1e-12);
         Assert.Contains("±", summary);
         Assert.Contains("200 off-source trials", summary);
-        Assert.Equal(5, record.PicturesSvg.Split(CheckRecords.PictureSeparator).Length); // overlay, curve, histogram, two maps
+        Assert.Equal(7, record.PicturesSvg.Split(CheckRecords.PictureSeparator).Length); // overlay, curve, histogram, two Q maps and their zooms
+        Assert.Equal(record.Verdict, result.Judgement!.Word);
+        Assert.Contains("light-travel KX–M2", result.AllowedLagRule);
         Assert.All(result.Maps, m => Assert.True(m.Fit is { ChirpLike: true }, m.Fit?.Reason ?? m.Error));
         Assert.Equal(fractions.Order().ToList(), fractions); // progress only moves forward
 
@@ -195,8 +199,8 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         var (fromH5, added, _) = await service.RunAsync(_app.Coordinator, setup.CaseId, Item,
             new OverlapCheckParameters(new StrainPick(setup.ShaA), new StrainPick(h5, "/strain", b.Start.Nanoseconds / 1_000_000_000m, b.SampleRateHz), OffSourceTrials: 0));
         Assert.True(added); // another input file: a new record
-        var text = JsonSerializer.Deserialize<OverlapRecordResult>(fromText.Item(Item).Computations.First().ResultJson, CheckRecords.Json)!;
-        var hdf = JsonSerializer.Deserialize<OverlapRecordResult>(fromH5.Item(Item).Computations.Last().ResultJson, CheckRecords.Json)!;
+        var text = JsonSerializer.Deserialize<OverlapReviewResult>(fromText.Item(Item).Computations.First().ResultJson, CheckRecords.Json)!;
+        var hdf = JsonSerializer.Deserialize<OverlapReviewResult>(fromH5.Item(Item).Computations.Last().ResultJson, CheckRecords.Json)!;
         Assert.Equal("M2-strain.h5", hdf.FileB);
         Assert.Equal(text.Overlap.RefinedLagSeconds, hdf.Overlap.RefinedLagSeconds, 1e-12); // same samples, same timing
         Assert.Equal(text.Overlap.Overlap, hdf.Overlap.Overlap, 1e-12);

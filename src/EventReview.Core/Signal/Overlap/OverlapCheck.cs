@@ -1,11 +1,14 @@
 using System.Globalization;
+using EventReview.Core.Signal.Spectra;
 
 namespace EventReview.Core.Signal.Overlap;
 
 /// <summary>
-/// Do two sites' whitened waveforms overlap after a shift and a possible sign flip? Both series are conditioned
-/// (Welch PSD, whitening, zero-phase band-pass, notches), then the normalised correlation is computed in a window around
-/// the candidate for every whole-sample lag within ±MaxLagSeconds, for both signs at once (ρ for sign −1 is −ρ).
+/// Do two sites' whitened waveforms overlap after a shift and a phase (or sign) change? Both series are conditioned (median-averaged
+/// Welch PSD, whitening, zero-phase band-pass, notches), turned into analytic signals, and their complex correlation
+/// Z(k) = Σ conj(â) b̂ₖ is computed in a window around the candidate for every whole-sample lag within ±MaxLagSeconds. The envelope
+/// |Z| gives the lag (refined by a parabola) free of the phase; arg Z gives the phase; the lag's one-sigma uncertainty comes from
+/// the envelope's curvature and the measured noise of its slope (see the assumptions of the result).
 /// </summary>
 public static class OverlapCheck
 {
@@ -35,17 +38,10 @@ public static class OverlapCheck
     }
 
     /// <summary>
-    /// Compares two already conditioned series of the same sample rate (lets callers reuse the conditioning for many checks).
-    /// The correlation at lag k pairs A's sample i with B's sample at the same GPS time plus k samples; a peak at k means
-    /// B arrives k samples later, so the reported lag is −k / fs (arrival(A) − arrival(B)), corrected for any sub-sample
-    /// offset between the two sample grids.
+    /// Compares two already conditioned series of the same sample rate. The correlation at shift k pairs A's sample i with B's
+    /// sample at the same GPS time plus k samples; a peak at k means B arrives k samples later, so the reported lag is −k / fs
+    /// (arrival(A) − arrival(B)), corrected for any sub-sample offset between the two sample grids.
     /// </summary>
-    /// <param name="a">Conditioned series of site A.</param>
-    /// <param name="b">Conditioned series of site B (same sample rate).</param>
-    /// <param name="options">Check settings (the conditioning settings are only echoed in the assumptions).</param>
-    /// <param name="resamplingNote">What was done about sample rates, copied to the result.</param>
-    /// <param name="progress">Optional progress in [0, 1] over the off-source overlaps.</param>
-    /// <param name="cancellationToken">Checked every 50 off-source overlaps.</param>
     /// <exception cref="ArgumentException">When the rates differ, or the on-source window and lags do not fit inside both valid ranges.</exception>
     /// <exception cref="OperationCanceledException">When cancelled.</exception>
     public static OverlapResult Compare(ConditionedSeries a, ConditionedSeries b, OverlapOptions options, string resamplingNote = "no resampling",
@@ -60,97 +56,111 @@ public static class OverlapCheck
             throw new ArgumentException("Both conditioned series must have the same sample rate.", nameof(b));
         }
 
-        if (!(options.WindowSeconds > 0) || !(options.MaxLagSeconds >= 0) || options.OffSourceCount < 0)
+        if (!(options.WindowSeconds > 0) || !(options.MaxLagSeconds >= 0) || options.OffSourceCount < 0 || !(options.SignMarginDegrees is >= 0 and < 90))
         {
-            throw new ArgumentOutOfRangeException(nameof(options), "WindowSeconds must be positive, MaxLagSeconds and OffSourceCount not negative.");
+            throw new ArgumentOutOfRangeException(nameof(options), "WindowSeconds must be positive, MaxLagSeconds and OffSourceCount not negative, SignMarginDegrees in [0, 90).");
         }
 
         var cond = options.Conditioning ?? new ConditioningOptions();
         int w = Math.Max(2, (int)Math.Round(options.WindowSeconds * fs));
         int maxLag = (int)Math.Floor((options.MaxLagSeconds * fs) + 1e-9);
-        var ga = new Grid(a, b, options, fs, w, maxLag);
-        var da = a.Data.Samples;
-        var db = b.Data.Samples;
-        var pa = WindowCorrelation.PrefixSquares(da);
-        var pb = WindowCorrelation.PrefixSquares(db);
-        var rho = new double[(2 * maxLag) + 1];
-        WindowCorrelation.Compute(da, pa, ga.AStart, db, pb, ga.AStart + ga.Offset, w, maxLag, rho);
-
-        int bestIdx = 0;
-        for (int i = 1; i < rho.Length; i++)
+        var grid = new OverlapGrid(a, b, options, fs, w, maxLag);
+        var za = AnalyticSignal.Of(a.Data.Samples);
+        var zb = AnalyticSignal.Of(b.Data.Samples);
+        var pa = ComplexCorrelation.PrefixPower(za);
+        var pb = ComplexCorrelation.PrefixPower(zb);
+        int lags = (2 * maxLag) + 1;
+        var re = new double[lags];
+        var im = new double[lags];
+        int bStart = grid.AStart + grid.Offset;
+        ComplexCorrelation.Lags(za, grid.AStart, zb, bStart, w, maxLag, re, im);
+        var envelope = new double[lags];
+        var magnitude = new double[lags];
+        var real = new double[lags];
+        int best = 0;
+        for (int i = 0; i < lags; i++)
         {
-            if (Math.Abs(rho[i]) > Math.Abs(rho[bestIdx]))
-            {
-                bestIdx = i;
-            }
+            double norm = ComplexCorrelation.Norm(pa, grid.AStart, pb, bStart, i - maxLag, w);
+            magnitude[i] = Math.Sqrt((re[i] * re[i]) + (im[i] * im[i]));
+            envelope[i] = norm > 0 ? magnitude[i] / norm : 0;
+            real[i] = norm > 0 ? re[i] / norm : 0;
+            best = magnitude[i] > magnitude[best] ? i : best;
         }
 
-        int sign = rho[bestIdx] >= 0 ? 1 : -1;
-        int altIdx = 0;
-        for (int i = 1; i < rho.Length; i++)
+        // Least-squares parabola through the envelope over its peak (see EnvelopePeak); Re Z and Im Z are interpolated with a
+        // three-point parabola around the nearest whole shift for the phase at the refined lag.
+        var fit = EnvelopePeak.Locate(magnitude, best);
+        best = fit?.Centre ?? best;
+        double delta = fit?.Delta ?? 0;
+        int near = Math.Clamp(best + (int)Math.Round(delta), 1, Math.Max(1, lags - 2));
+        double frac = lags >= 3 ? best + delta - near : 0;
+        double Interp(double[] f) => lags < 3 ? f[best] : f[near] + (0.5 * frac * (f[near + 1] - f[near - 1])) + (0.5 * frac * frac * (f[near + 1] - (2 * f[near]) + f[near - 1]));
+        double phase = Math.Atan2(Interp(im), Interp(re));
+        int bestK = best - maxLag;
+        double refined = grid.LagOf(bestK + delta);
+        var spread = fit is { } f0 ? EnvelopePeak.Spread(za, zb, grid, f0, re, im) : null;
+        double? sigma = spread?.Sigma / fs;
+        int sign = Math.Cos(phase) >= 0 ? 1 : -1;
+
+        // The sign is determined when the phase stays clear of ±90° by the margin and by two of its own sigmas.
+        double clearance = Math.Abs((Math.PI / 2) - Math.Abs(phase));
+        bool signDetermined = clearance >= Math.Max(double.DegreesToRadians(options.SignMarginDegrees), 2 * (spread?.PhaseSigma ?? 0));
+        bool atEdge = lags > 1 && Math.Abs(refined) >= (maxLag - 1) / fs;
+
+        // Curves with ascending lag seconds: index i has shift i − L, i.e. lag −(i − L)/fs, so reverse.
+        var lagAxis = new double[lags];
+        var curve = new double[lags];
+        var env = new double[lags];
+        for (int i = 0; i < lags; i++)
         {
-            if (-sign * rho[i] > -sign * rho[altIdx])
-            {
-                altIdx = i;
-            }
+            lagAxis[lags - 1 - i] = grid.LagOf(i - maxLag);
+            curve[lags - 1 - i] = real[i];
+            env[lags - 1 - i] = envelope[i];
         }
 
-        double delta = 0;
-        if (bestIdx > 0 && bestIdx < rho.Length - 1)
-        {
-            // Parabolic interpolation of the peak (e.g. Smith, "Spectral Audio Signal Processing", quadratic peak interpolation).
-            double y0 = Math.Abs(rho[bestIdx - 1]), y1 = Math.Abs(rho[bestIdx]), y2 = Math.Abs(rho[bestIdx + 1]);
-            double den = y0 - (2 * y1) + y2;
-            delta = den < 0 ? Math.Clamp(0.5 * (y0 - y2) / den, -0.5, 0.5) : 0;
-        }
-
-        double LagOf(double k) => -((k / fs) + ga.ResidualSeconds);
-        int bestK = bestIdx - maxLag;
-        double overlap = Math.Abs(rho[bestIdx]);
-
-        // Curve with ascending lag seconds: index i of rho has lag −(i − L)/fs, so reverse.
-        var lags = new double[rho.Length];
-        var curve = new double[rho.Length];
-        for (int i = 0; i < rho.Length; i++)
-        {
-            lags[rho.Length - 1 - i] = LagOf(i - maxLag);
-            curve[rho.Length - 1 - i] = rho[i];
-        }
-
-        var off = OffSource(ga, da, pa, db, pb, w, maxLag, options, progress, cancellationToken);
+        double overlap = envelope[best];
+        var off = OffSource(grid, za, pa, zb, pb, options, progress, cancellationToken);
         progress?.Report(1);
-        double? p = off.Length == 0 ? null : (1.0 + off.Count(v => v >= overlap)) / (1.0 + off.Length);
-        var (pt, plotA, plotB) = Plot(ga, a, b, bestK, sign, options, fs);
-
-        var assumptions = new List<string>
+        double statistic = envelope.Max();
+        double? p = off.Length == 0 ? null : (1.0 + off.Count(v => v >= statistic)) / (1.0 + off.Length);
+        var (pt, plotA, plotB) = Plot(grid, a, za, zb, bestK, phase, options);
+        var warnings = Warnings(atEdge, signDetermined, sigma, phase, spread?.PhaseSigma, options, grid);
+        if (spread is { CurvatureNoise: > EnvelopePeak.ResolvedLimit } sp)
         {
-            "lag = arrival(A) - arrival(B): add it to B's times (and multiply B by the sign) to line B up with A",
-            "coefficient = sum(a b') / sqrt(sum a^2 sum b'^2) over the on-source window, both sums over the same window; lags searched on the sample grid",
-            $"refined lag from a parabola through |rho| at the three nearest lags (sub-sample, ~0.1 sample typical error at high SNR); grid step {1e3 / fs:G4} ms",
-            $"whitening by the Welch PSD of each series (periodic Hann, 50 % overlap, {cond.PsdSegmentSeconds:G} s segments), Tukey taper {cond.TaperSeconds:G} s at each end",
-            $"zero-phase Butterworth band-pass order {cond.FilterOrder} (x2 forward-backward), {cond.LowHz:G}-{cond.HighHz:G} Hz" + ((cond.NotchFrequenciesHz?.Count ?? 0) > 0 ? ", notches at " + string.Join(", ", cond.NotchFrequenciesHz!.Select(f => f.ToString("G", CultureInfo.InvariantCulture))) + $" Hz (Q {cond.NotchQuality:G})" : string.Empty),
-            "a sign flip of a narrow-band signal looks like a half-cycle shift: compare the alternative with the antenna-response check before choosing",
-            off.Length == 0
-                ? "no off-source overlaps computed: no p-value"
-                : $"p-value = (1 + #off-source >= observed) / (1 + N) with N = {off.Length} time-slid window pairs (B's window moved by whole windows, at least {options.WindowSeconds:G} s, away from A's), statistic max |rho| over the same lags and both signs",
-        };
-        if (options.OffSourceCount > off.Length)
-        {
-            assumptions.Add($"only {off.Length} of the {options.OffSourceCount} off-source overlaps asked for fit in the data");
+            warnings.Add(string.Create(CultureInfo.InvariantCulture,
+                $"the correlation peak is barely resolved (its curvature is uncertain by {sp.CurvatureNoise:P0}): at this signal-to-noise ratio the ± interval of the lag is too narrow; read it as a lower bound"));
         }
-
-        if (Math.Abs(ga.ResidualSeconds) > 1e-3 / fs)
-        {
-            assumptions.Add($"the two sample grids are offset by {ga.ResidualSeconds * 1e6:G4} us; lags include this offset");
-        }
-
         return new OverlapResult(
-            options.Center.ToString(), LagOf(bestK), LagOf(bestK + delta), sign, overlap,
-            LagOf(altIdx - maxLag), -sign * rho[altIdx], lags, curve, fs, resamplingNote, off, p, pt, plotA, plotB,
-            w / fs, maxLag / fs, cond.LowHz, cond.HighHz, assumptions);
+            options.Center.ToString(), grid.LagOf(bestK), refined, sign, overlap, lagAxis, curve, fs, resamplingNote, off, p, pt, plotA, plotB,
+            w / fs, maxLag / fs, cond.LowHz, cond.HighHz, OverlapAssumptions.For(options, cond, fs, off.Length, grid.ResidualSeconds),
+            sigma, phase, signDetermined, overlap * Math.Abs(Math.Cos(phase)), env, atEdge, warnings, spread?.PhaseSigma);
     }
 
-    private static double[] OffSource(Grid g, double[] da, double[] pa, double[] db, double[] pb, int w, int maxLag, OverlapOptions options,
+    private static List<string> Warnings(bool atEdge, bool signDetermined, double? sigma, double phase, double? phaseSigma, OverlapOptions options, OverlapGrid grid)
+    {
+        var ci = CultureInfo.InvariantCulture;
+        var warnings = new List<string>();
+        if (atEdge)
+        {
+            warnings.Add(string.Create(ci, $"the best lag lies within one sample of the search limit (±{options.MaxLagSeconds * 1e3:0.###} ms): the true peak may lie outside the searched lags"));
+        }
+
+        if (!signDetermined)
+        {
+            warnings.Add(string.Create(ci, $"sign undetermined: the phase {double.RadiansToDegrees(phase):0}° ± {double.RadiansToDegrees(phaseSigma ?? 0):0}° lies within {options.SignMarginDegrees:0}° (or two of its sigmas) of ±90°, so neither sign lines B up with A clearly better than the other; do not feed a sign from this check into the antenna-response test"));
+        }
+
+        if (sigma is null)
+        {
+            warnings.Add(grid.NoisePositions.Count < EnvelopePeak.MinimumWindows
+                ? $"no lag uncertainty: only {grid.NoisePositions.Count} off-source windows fit in the data (at least {EnvelopePeak.MinimumWindows} are needed)"
+                : "no lag uncertainty: the correlation envelope has no curved peak inside the searched lags");
+        }
+
+        return warnings;
+    }
+
+    private static double[] OffSource(OverlapGrid g, AnalyticSeries za, double[] pa, AnalyticSeries zb, double[] pb, OverlapOptions options,
         IProgress<double>? progress, CancellationToken cancellationToken)
     {
         if (options.OffSourceCount == 0)
@@ -158,17 +168,7 @@ public static class OverlapCheck
             return [];
         }
 
-        var positions = new List<int>();
-        double fs = g.SampleRateHz;
-        double exclusion = (options.OffSourceExclusionSeconds * fs) + w;
-        for (int p = g.Lo; p + w <= g.Hi; p += w)
-        {
-            if (Math.Abs(p + (w / 2) - g.CenterIndex) >= exclusion)
-            {
-                positions.Add(p);
-            }
-        }
-
+        var positions = g.OffSourcePositions;
         int count = positions.Count;
         var values = new List<double>(options.OffSourceCount);
         for (int s = 1; s < count && values.Count < options.OffSourceCount; s++)
@@ -182,7 +182,7 @@ public static class OverlapCheck
                 }
 
                 int j = (m + s) % count;
-                values.Add(WindowCorrelation.MaxAbs(da, pa, positions[m], db, pb, positions[j] + g.Offset, w, maxLag));
+                values.Add(ComplexCorrelation.MaxEnvelope(za, pa, positions[m], zb, pb, positions[j] + g.Offset, g.Window, g.MaxLag));
             }
         }
 
@@ -191,59 +191,26 @@ public static class OverlapCheck
         return arr;
     }
 
-    private static (double[] T, double[] A, double[] B) Plot(Grid g, ConditionedSeries a, ConditionedSeries b, int bestK, int sign, OverlapOptions options, double fs)
+    private static (double[] T, double[] A, double[] B) Plot(OverlapGrid g, ConditionedSeries a, AnalyticSeries za, AnalyticSeries zb, int bestK, double phase, OverlapOptions options)
     {
+        double fs = g.SampleRateHz;
         int half = (int)Math.Round(options.PlotSeconds * fs / 2);
         int shift = g.Offset + bestK;
         int i0 = Math.Max(Math.Max(g.CenterIndex - half, 0), -shift);
-        int i1 = Math.Min(Math.Min(g.CenterIndex + half, a.Data.Length), b.Data.Length - shift);
+        int i1 = Math.Min(Math.Min(g.CenterIndex + half, za.Length), zb.Length - shift);
         int stride = Math.Max(1, (int)Math.Ceiling((i1 - i0) / (double)Math.Max(1, options.MaxPlotPoints)));
+        var (s, c) = Math.SinCos(phase);
         var t = new List<double>();
         var pa = new List<double>();
         var pb = new List<double>();
-        double c = options.Center.SecondsSince(a.Data.Start);
+        double centre = options.Center.SecondsSince(a.Data.Start);
         for (int i = i0; i < i1; i += stride)
         {
-            t.Add((i / fs) - c);
-            pa.Add(a.Data.Samples[i]);
-            pb.Add(sign * b.Data.Samples[i + shift]);
+            t.Add((i / fs) - centre);
+            pa.Add(za.Real[i]);
+            pb.Add((zb.Real[i + shift] * c) + (zb.Imaginary[i + shift] * s));
         }
 
         return (t.ToArray(), pa.ToArray(), pb.ToArray());
-    }
-
-    private sealed class Grid
-    {
-        public Grid(ConditionedSeries a, ConditionedSeries b, OverlapOptions options, double fs, int w, int maxLag)
-        {
-            SampleRateHz = fs;
-            double offsetExact = a.Data.Start.SecondsSince(b.Data.Start) * fs;
-            Offset = (int)Math.Round(offsetExact);
-            ResidualSeconds = b.Data.Start.SecondsSince(a.Data.Start) + (Offset / fs);
-            CenterIndex = (int)Math.Round(options.Center.SecondsSince(a.Data.Start) * fs);
-            AStart = CenterIndex - (w / 2);
-            Lo = Math.Max(a.ValidStart, b.ValidStart - Offset + maxLag);
-            Hi = Math.Min(a.ValidEnd, b.ValidEnd - Offset - maxLag);
-            if (AStart < Lo || AStart + w > Hi)
-            {
-                throw new ArgumentException(
-                    $"The window of {options.WindowSeconds:G} s around {options.Center} with lags of ±{options.MaxLagSeconds * 1e3:G} ms does not fit inside both series away from their tapered edges.",
-                    nameof(options));
-            }
-        }
-
-        public double SampleRateHz { get; }
-
-        public int Offset { get; }
-
-        public double ResidualSeconds { get; }
-
-        public int CenterIndex { get; }
-
-        public int AStart { get; }
-
-        public int Lo { get; }
-
-        public int Hi { get; }
     }
 }

@@ -7,7 +7,8 @@ public static class Welch
     /// <summary>
     /// One-sided PSD: segments of <see cref="WelchOptions.SegmentLength"/> samples stepping by (length − overlap),
     /// as many as fit ((N − overlap) / step, floor); each windowed by the periodic Hann window w; PSD_k = mean over
-    /// segments of 2 |Y_k|² / (fs S2) with S2 = Σ w², DC and Nyquist bins not doubled.
+    /// segments of 2 |Y_k|² / (fs S2) with S2 = Σ w², DC and Nyquist bins not doubled. With <see cref="WelchAverage.Median"/>
+    /// the mean is replaced by the per-bin median divided by its bias (see <see cref="WelchAverage"/>).
     /// </summary>
     /// <param name="samples">The data (at least one segment).</param>
     /// <param name="sampleRateHz">Sample rate in Hz.</param>
@@ -45,6 +46,7 @@ public static class Welch
 
         int bins = (len / 2) + 1;
         var acc = new double[bins];
+        var perSegment = options.Average == WelchAverage.Median ? new double[count][] : null;
         var seg = new double[len];
         var re = new double[bins];
         var im = new double[bins];
@@ -68,13 +70,19 @@ public static class Welch
             }
 
             Dft.ForwardReal(seg, re, im);
+            var target = perSegment is null ? acc : perSegment[s] = new double[bins];
             for (int k = 0; k < bins; k++)
             {
-                acc[k] += (re[k] * re[k]) + (im[k] * im[k]);
+                target[k] += (re[k] * re[k]) + (im[k] * im[k]);
             }
         }
 
-        double scale = 2.0 / (sampleRateHz * s2 * count);
+        if (perSegment is not null)
+        {
+            MedianInto(perSegment, acc);
+        }
+
+        double scale = 2.0 / (sampleRateHz * s2 * (perSegment is null ? count : 1));
         for (int k = 0; k < bins; k++)
         {
             acc[k] *= scale;
@@ -87,5 +95,35 @@ public static class Welch
         }
 
         return new Psd(sampleRateHz / len, acc, sampleRateHz, count);
+    }
+
+    /// <summary>Per-bin median of the segments' periodograms divided by the median bias of n χ²₂ values (see <see cref="WelchAverage.Median"/>).</summary>
+    private static void MedianInto(double[][] perSegment, double[] result)
+    {
+        int n = perSegment.Length;
+        double bias = 0;
+        for (int k = 1; k <= n; k++)
+        {
+            bias += (k % 2 == 1 ? 1.0 : -1.0) / k;
+        }
+
+        // scipy's _median_bias sums to the odd count only: for even n it uses n - 1 terms of the same series.
+        if (n % 2 == 0)
+        {
+            bias += 1.0 / n;
+        }
+
+        var column = new double[n];
+        for (int b = 0; b < result.Length; b++)
+        {
+            for (int s = 0; s < n; s++)
+            {
+                column[s] = perSegment[s][b];
+            }
+
+            Array.Sort(column);
+            double median = n % 2 == 1 ? column[n / 2] : 0.5 * (column[(n / 2) - 1] + column[n / 2]);
+            result[b] = median / bias;
+        }
     }
 }

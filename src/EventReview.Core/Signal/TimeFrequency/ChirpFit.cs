@@ -12,6 +12,7 @@ namespace EventReview.Core.Signal.TimeFrequency;
 /// <param name="TrackTimesSeconds">Times of the ridge points used, seconds after the reference.</param>
 /// <param name="TrackFrequenciesHz">Ridge frequencies at those times, Hz.</param>
 /// <param name="Assumptions">Conventions and approximations.</param>
+/// <param name="Scope">What the fit can and cannot tell for this track (for example for a short, high-mass signal); empty in records of format 1.</param>
 public sealed record ChirpFit(
     double? ChirpMassMsun,
     double? ChirpMassSigmaMsun,
@@ -21,4 +22,5 @@ public sealed record ChirpFit(
     string Reason,
     double[] TrackTimesSeconds,
     double[] TrackFrequenciesHz,
-    IReadOnlyList<string> Assumptions);
+    IReadOnlyList<string> Assumptions,
+    IReadOnlyList<string>? Scope = null);

@@ -75,8 +75,8 @@ public sealed class BackgroundCheckService(CaseService cases, NetworkService net
         };
         var inputFingerprint = CheckRecords.Fingerprint(inputs);
         var parametersJson = CheckRecords.Serialize(parameters);
-        var latest = item.Computations.Where(r => r.Kind == Kind).OrderByDescending(r => r.RunAt).ThenByDescending(r => r.Id).FirstOrDefault();
-        if (latest is not null && latest.InputFingerprint == inputFingerprint && latest.ParametersJson == parametersJson && latest.ToolVersion == CheckRecords.ToolVersion)
+        var latest = CheckRecords.Latest(item.Computations, Kind);
+        if (CheckRecords.SameRun(latest, inputFingerprint, parametersJson))
         {
             return (c, false, latest.Summary);
         }

@@ -54,8 +54,8 @@ public sealed class ChainCheckService(CaseService cases, CaseFiles files)
 
         var fingerprint = CheckRecords.Fingerprint(new { center = c.GpsNanoseconds, files = refs.Select(r => new { r.Role, r.Sha256 }) });
         var parametersJson = CheckRecords.Serialize(parameters);
-        var latest = item.Computations.Where(r => r.Kind == CheckKind.Chain).OrderByDescending(r => r.RunAt).ThenByDescending(r => r.Id).FirstOrDefault();
-        if (latest is not null && latest.InputFingerprint == fingerprint && latest.ParametersJson == parametersJson && latest.ToolVersion == CheckRecords.ToolVersion)
+        var latest = CheckRecords.Latest(item.Computations, CheckKind.Chain);
+        if (CheckRecords.SameRun(latest, fingerprint, parametersJson))
         {
             return (c, false);
         }

@@ -115,8 +115,8 @@ public sealed class EnvironmentCheckService(CaseService cases, NetworkService ne
         };
         var fingerprint = CheckRecords.Fingerprint(inputs);
         var parametersJson = CheckRecords.Serialize(parameters);
-        var latest = item.Computations.Where(r => r.Kind == Core.Checklists.CheckKind.Environment).OrderByDescending(r => r.RunAt).ThenByDescending(r => r.Id).FirstOrDefault();
-        if (latest is not null && latest.InputFingerprint == fingerprint && latest.ParametersJson == parametersJson && latest.ToolVersion == CheckRecords.ToolVersion)
+        var latest = CheckRecords.Latest(item.Computations, Core.Checklists.CheckKind.Environment);
+        if (CheckRecords.SameRun(latest, fingerprint, parametersJson))
         {
             return (c, false);
         }

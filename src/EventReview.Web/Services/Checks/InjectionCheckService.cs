@@ -34,8 +34,8 @@ public sealed class InjectionCheckService(CaseService cases, NetworkService netw
             log = file.Sha256,
         });
         var parametersJson = CheckRecords.Serialize(parameters);
-        var latest = item.Computations.Where(r => r.Kind == CheckKind.Injections).OrderByDescending(r => r.RunAt).ThenByDescending(r => r.Id).FirstOrDefault();
-        if (latest is not null && latest.InputFingerprint == fingerprint && latest.ParametersJson == parametersJson && latest.ToolVersion == CheckRecords.ToolVersion)
+        var latest = CheckRecords.Latest(item.Computations, CheckKind.Injections);
+        if (CheckRecords.SameRun(latest, fingerprint, parametersJson))
         {
             return (c, false);
         }

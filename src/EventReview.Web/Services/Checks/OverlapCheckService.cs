@@ -3,21 +3,19 @@ using System.Security.Claims;
 using EventReview.Core.Cases;
 using EventReview.Core.Checklists;
 using EventReview.Core.Evidence;
-using EventReview.Core.Geodesy;
 using EventReview.Core.Signal;
 using EventReview.Core.Signal.Io;
 using EventReview.Core.Signal.Overlap;
-using EventReview.Core.Signal.Pictures;
-using EventReview.Core.Signal.TimeFrequency;
 using EventReview.Core.Time;
+using EventReview.Core.Timing;
 using EventReview.Web.Auth;
 
 namespace EventReview.Web.Services.Checks;
 
 /// <summary>
-/// Runs the waveform overlap check on two strain files attached to a case: shift and sign flip that best line up the
-/// whitened waveforms, off-source p-value, and a time-frequency map with chirp fit per site; stores a computation record.
-/// Re-running with the same files, parameters and tool version adds nothing.
+/// Gathers the overlap check's inputs from a case (two attached strain files, the sites, the allowed lag from the network's
+/// <see cref="PairWindow"/>), runs the check kind in Core (<see cref="OverlapReview"/>) and stores its result as a computation record.
+/// Re-running with the same files, parameters and tool version adds nothing (<see cref="CheckRecords.SameRun"/>).
 /// </summary>
 public sealed class OverlapCheckService(CaseService cases, NetworkService network, CaseFiles files, CheckJobs jobs, IServiceScopeFactory scopes)
 {
@@ -105,8 +103,8 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
             fileB = new { parameters.FileB.Sha256, name = nameB },
             rule,
         });
-        var latest = item.Computations.Where(r => r.Kind == CheckKind.Overlap).OrderByDescending(r => r.RunAt).ThenByDescending(r => r.Id).FirstOrDefault();
-        if (latest is not null && latest.InputFingerprint == inputFingerprint && latest.ParametersJson == parametersJson && latest.ToolVersion == CheckRecords.ToolVersion)
+        var latest = CheckRecords.Latest(item.Computations, CheckKind.Overlap);
+        if (CheckRecords.SameRun(latest, inputFingerprint, parametersJson))
         {
             return (c, false, latest.Summary);
         }
@@ -115,109 +113,19 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
         var a = await ReadAsync(parameters.FileA, nameA, ct);
         progress?.Invoke(0.08, $"reading {nameB}");
         var b = await ReadAsync(parameters.FileB, nameB, ct);
-        var center = GpsTime.FromSeconds(resolved.CenterGps!.Value);
         var conditioning = new ConditioningOptions(resolved.BandLowHz, resolved.BandHighHz, PsdSegmentSeconds: resolved.PsdSegmentSeconds, NotchFrequenciesHz: resolved.NotchesHz);
-        var options = new OverlapOptions(center, resolved.WindowSeconds, allowed, conditioning, resolved.OffSourceTrials);
-        var overlapProgress = new Reporter(v => progress?.Invoke(0.15 + (0.65 * v),
-            v < 0.5 ? "whitening and band-passing both sites"
-            : resolved.OffSourceTrials == 0 ? "correlating" : string.Create(CultureInfo.InvariantCulture, $"off-source overlap {(int)Math.Round((v - 0.5) * 2 * resolved.OffSourceTrials):N0} of {resolved.OffSourceTrials:N0}")));
-        var overlap = await Task.Run(() => OverlapCheck.Run(a, b, options, overlapProgress, ct), ct);
-
-        var maps = new List<(OverlapSiteMap Summary, string? Svg)>();
-        foreach (var (site, series, name, i) in new[] { (defaults.SiteA, a, nameA, 0), (defaults.SiteB, b, nameB, 1) })
-        {
-            ct.ThrowIfCancellationRequested();
-            progress?.Invoke(0.82 + (0.08 * i), $"time-frequency map and chirp fit of {site}");
-            maps.Add(await Task.Run(() => Map(site, series, name, center), ct));
-        }
-
+        var options = new OverlapReviewOptions(GpsTime.FromSeconds(resolved.CenterGps!.Value), resolved.WindowSeconds, allowed, rule, conditioning,
+            resolved.OffSourceTrials, resolved.OverlapThreshold, resolved.PValueThreshold);
         var arrivalA = c.Arrivals.FirstOrDefault(x => x.SiteCode == defaults.SiteA);
         var arrivalB = c.Arrivals.FirstOrDefault(x => x.SiteCode == defaults.SiteB);
         double? caseLag = arrivalA is not null && arrivalB is not null ? arrivalA.Arrival.SecondsSince(arrivalB.Arrival) : null;
-        double step = 1 / overlap.SampleRateHz;
-        bool atEdge = overlap.LagsSeconds.Length > 1 && Math.Abs(Math.Abs(overlap.LagSeconds) - overlap.MaxLagSeconds) < 0.5 * step;
-        bool within = Math.Abs(overlap.RefinedLagSeconds) <= allowed + (1e-9) && !atEdge;
-        var (verdict, reason) = Judge(overlap, within, atEdge, resolved);
-        var signNote = SignNote(overlap, defaults.SiteA, defaults.SiteB);
-        var result = new OverlapRecordResult(defaults.SiteA, defaults.SiteB, nameA, nameB, overlap, allowed, rule, caseLag, within, atEdge,
-            resolved.OverlapThreshold, resolved.PValueThreshold, signNote, reason, maps.Select(m => m.Summary).ToList(),
-        [
-            string.Create(CultureInfo.InvariantCulture, $"overlap threshold {resolved.OverlapThreshold:0.##}: our default, not a published value; noise limits the overlap of a matched signal to about rho^2/(rho^2 + N) for N independent samples in the window (about 2 x bandwidth x window), so the off-source p-value carries the significance"),
-            string.Create(CultureInfo.InvariantCulture, $"consistent = |overlap| >= {resolved.OverlapThreshold:0.##}, lag inside ±{allowed * 1e3:0.00} ms and not at the edge of the searched lags, and p <= {resolved.PValueThreshold:G3} when off-source overlaps were run; concern when only the p-value fails"),
-            "allowed lag: " + rule,
-            "time-frequency maps: short-time Fourier transform of whitened strain, 0.125 s Hann segments every 1/128 s, 20-500 Hz, the same at every site, from 2 s before to 0.2 s after the candidate time",
-            "the sign says how B must be multiplied to match A; whether the sites' orientations allow it is the antenna-response part of the timing check",
-        ]);
-        var summary = Summarise(result);
-        var pictures = new List<string>
-        {
-            OverlapPictures.Overlay(overlap, defaults.SiteA, defaults.SiteB),
-            OverlapPictures.CorrelationCurve(overlap),
-            OverlapPictures.OffSourceHistogram(overlap),
-        };
-        pictures.AddRange(maps.Where(m => m.Svg is not null).Select(m => m.Svg!));
+        var result = await Task.Run(() => OverlapReview.Run(new OverlapReviewSite(defaults.SiteA, nameA, a), new OverlapReviewSite(defaults.SiteB, nameB, b), options, caseLag,
+            (v, text) => progress?.Invoke(0.1 + (0.85 * v), text), ct), ct);
         progress?.Invoke(0.97, "storing the record");
         var updated = await cases.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(CheckKind.Overlap, parametersJson, inputFingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
-                verdict, summary, string.Join(CheckRecords.PictureSeparator, pictures), user.ToActor(), now), CancellationToken.None);
-        return (updated, true, summary);
-    }
-
-    /// <summary>One line with the key numbers and the window they were judged against.</summary>
-    public static string Summarise(OverlapRecordResult r)
-    {
-        var o = r.Overlap;
-        var text = string.Create(CultureInfo.InvariantCulture,
-            $"{r.SiteA}–{r.SiteB}: overlap {o.Overlap:0.00} at lag {Ms(o.RefinedLagSeconds)} ms (allowed ±{r.AllowedLagSeconds * 1e3:0.00} ms), sign {(o.Sign > 0 ? "+1" : "−1")}");
-        text += o.PValue is { } p
-            ? string.Create(CultureInfo.InvariantCulture, $"; p = {p:G2} ({o.OffSourceOverlaps.Length} off-source trials)")
-            : "; no off-source trials";
-        return text;
-    }
-
-    private static string Ms(double seconds) => (seconds * 1e3).ToString("+0.00;−0.00", CultureInfo.InvariantCulture);
-
-    private static (string Verdict, string Reason) Judge(OverlapResult o, bool within, bool atEdge, OverlapCheckParameters p)
-    {
-        var problems = new List<string>();
-        if (o.Overlap < p.OverlapThreshold)
-        {
-            problems.Add(string.Create(CultureInfo.InvariantCulture, $"overlap {o.Overlap:0.00} is below {p.OverlapThreshold:0.##}"));
-        }
-
-        if (!within)
-        {
-            problems.Add(atEdge ? "the best lag is at the edge of the allowed window (the peak may lie outside it)" : "the lag is outside the allowed window");
-        }
-
-        bool weakP = o.PValue is { } pv && pv > p.PValueThreshold;
-        if (problems.Count == 0 && !weakP)
-        {
-            var pText = o.PValue is { } q
-                ? string.Create(CultureInfo.InvariantCulture, $", p = {q:G2} <= {p.PValueThreshold:G3}")
-                : ", no off-source p-value asked";
-            return ("consistent", string.Create(CultureInfo.InvariantCulture, $"overlap {o.Overlap:0.00} >= {p.OverlapThreshold:0.##}, lag inside the window") + pText);
-        }
-
-        if (problems.Count == 0)
-        {
-            return ("concern", string.Create(CultureInfo.InvariantCulture,
-                $"overlap and lag pass, but off-source noise reaches this overlap too often: p = {o.PValue:G2} > {p.PValueThreshold:G3}"));
-        }
-
-        if (weakP)
-        {
-            problems.Add(string.Create(CultureInfo.InvariantCulture, $"p = {o.PValue:G2} > {p.PValueThreshold:G3}"));
-        }
-
-        return ("inconsistent", string.Join("; ", problems));
-    }
-
-    private static string SignNote(OverlapResult o, string a, string b)
-    {
-        string chosen = o.Sign > 0 ? $"sign +1: {b} lines up with {a} as it is" : $"sign −1: {b} is flipped to line up with {a}";
-        return chosen + string.Create(CultureInfo.InvariantCulture,
-            $". Other sign ({(o.Sign > 0 ? "−1" : "+1")}): best overlap {o.AlternativeOverlap:0.00} at lag {Ms(o.AlternativeLagSeconds)} ms. For a narrow-band signal a flip looks like a half-cycle shift; the antenna-response check says which sign the sites' orientations allow.");
+                result.Judgement!.Word, result.Summary, string.Join(CheckRecords.PictureSeparator, result.PicturesSvg), user.ToActor(), now), CancellationToken.None);
+        return (updated, true, result.Summary);
     }
 
     private async Task<(double? Lag, string Rule)> NetworkLagAsync(string a, string b, double kSigma, CancellationToken ct)
@@ -230,11 +138,8 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
             return (null, $"site {(sa is null ? a : b)} is not in the network, so the light-travel time is unknown");
         }
 
-        var travel = Baseline.Between(sa, sb).LightTravelSeconds;
-        var sigma = Math.Sqrt((sa.TimingUncertaintySeconds * sa.TimingUncertaintySeconds) + (sb.TimingUncertaintySeconds * sb.TimingUncertaintySeconds));
-        var lag = travel + (kSigma * sigma);
-        return (lag, string.Create(CultureInfo.InvariantCulture,
-            $"±{lag * 1e3:0.00} ms = light-travel {a}–{b} {travel * 1e3:0.00} ms + {kSigma:0.#}σ combined timing uncertainty ({sigma * 1e3:0.###} ms)"));
+        var window = PairWindow.For(sa, sb, kSigma);
+        return (window.AllowedSeconds, window.Rule);
     }
 
     private async Task<TimeSeries> ReadAsync(StrainPick pick, string name, CancellationToken ct)
@@ -270,34 +175,6 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
         }
     }
 
-    private static (OverlapSiteMap Summary, string? Svg) Map(string site, TimeSeries strain, string name, GpsTime center)
-    {
-        var settings = new SpectrogramOptions();
-        try
-        {
-            var (map, fit) = ChirpAnalysis.Run(strain, center, 2, 0.2, settings);
-            double peak = 0, peakT = 0, peakF = 0;
-            for (int i = 0; i < map.TimesSeconds.Length; i++)
-            {
-                for (int j = 0; j < map.FrequenciesHz.Length; j++)
-                {
-                    if (map.Energy[i][j] > peak)
-                    {
-                        (peak, peakT, peakF) = (map.Energy[i][j], map.TimesSeconds[i], map.FrequenciesHz[j]);
-                    }
-                }
-            }
-
-            var summary = new OverlapSiteMap(site, name, fit, null, map.TimesSeconds[0], map.TimesSeconds[^1], map.FrequenciesHz[0], map.FrequenciesHz[^1],
-                map.ResolutionHz, settings.SegmentSeconds, peak, peakT, peakF);
-            return (summary, TimeFrequencyPicture.Draw(map, fit, site));
-        }
-        catch (ArgumentException ex)
-        {
-            return (new OverlapSiteMap(site, name, null, ex.Message.Split(" (Parameter", 2)[0], 0, 0, 0, 0, 0, settings.SegmentSeconds, 0, 0, 0), null);
-        }
-    }
-
     /// <summary>
     /// Passes on only reports that move forward: the core's overlap stage reports through a <see cref="Progress{T}"/>, whose
     /// callbacks run later on the thread pool and can arrive after the next stage has begun.
@@ -324,11 +201,5 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
                 progress(fraction, text);
             }
         };
-    }
-
-    /// <summary>Reports on the calling thread (no synchronisation context hop, so values arrive in order).</summary>
-    private sealed class Reporter(Action<double> report) : IProgress<double>
-    {
-        public void Report(double value) => report(value);
     }
 }

@@ -11,14 +11,15 @@ public class PictureTests
     public void Overlap_and_time_frequency_pictures_are_small_well_formed_svg_with_labels_and_caption()
     {
         var sim = SimulatedPair.Make(4, snr: 30);
-        var r = OverlapCheck.Run(SimulatedPair.A(sim), SimulatedPair.B(sim), new OverlapOptions(SimulatedPair.Coalescence(), OffSourceCount: 200));
-        var (map, fit) = ChirpAnalysis.Run(SimulatedPair.A(sim), SimulatedPair.Coalescence());
+        var r = OverlapCheck.Run(SimulatedPair.A(sim), SimulatedPair.B(sim), new OverlapOptions(SimulatedPair.Coalescence(), 0.2, SimulatedPair.MaxLagSeconds, OffSourceCount: 200));
+        var q = ChirpAnalysis.Run(SimulatedPair.A(sim), SimulatedPair.Coalescence());
         var pictures = new Dictionary<string, string>
         {
             ["overlay"] = OverlapPictures.Overlay(r, "KX", "M2"),
             ["curve"] = OverlapPictures.CorrelationCurve(r),
             ["histogram"] = OverlapPictures.OffSourceHistogram(r),
-            ["map"] = TimeFrequencyPicture.Draw(map, fit, "KX"),
+            ["map"] = QMapPicture.Draw(q.Map, q.Fit, "KX"),
+            ["zoom"] = QMapPicture.Draw(q.Zoom, null, "KX", "last part of the signal"),
         };
         foreach (var (name, svg) in pictures)
         {
@@ -32,19 +33,28 @@ public class PictureTests
         }
 
         Assert.Contains("chirp mass", pictures["map"]);
+        Assert.Contains("power / median", pictures["map"]);
+        Assert.Contains("log scale", pictures["zoom"]);
+        foreach (var svg in pictures.Values)
+        {
+            // 12 px minimum text: the root sets 12 and no element sets a smaller size
+            Assert.DoesNotContain("font-size=\"1", svg.Replace("font-size=\"12\"", string.Empty, StringComparison.Ordinal).Replace("font-size=\"13\"", string.Empty, StringComparison.Ordinal).Replace("font-size=\"14\"", string.Empty, StringComparison.Ordinal));
+        }
         Assert.Contains("p = ", pictures["histogram"]);
     }
 }
 
-public class TimeFrequencyPictureSizeTests
+public class QMapPictureSizeTests
 {
     [Fact]
     public void A_map_where_every_cell_is_loud_stays_under_200_kb()
     {
-        var times = Enumerable.Range(0, 400).Select(i => i / 128.0).ToArray();
-        var freqs = Enumerable.Range(10, 240).Select(k => k * 2.0).ToArray();
-        var energy = times.Select(_ => freqs.Select(_ => 100.0).ToArray()).ToArray();
-        var svg = TimeFrequencyPicture.Draw(new TimeFrequencyMap("0", times, freqs, energy, 8), null, "KX");
+        var times = Enumerable.Range(0, 240).Select(i => i / 128.0).ToArray();
+        var freqs = Enumerable.Range(0, 120).Select(k => 20 * Math.Pow(25, k / 119.0)).ToArray();
+        var random = new Random(1);
+        var energy = times.Select(_ => freqs.Select(_ => 20 + (80 * random.NextDouble())).ToArray()).ToArray();
+        var q = times.Select(_ => freqs.Select(_ => 8.0).ToArray()).ToArray();
+        var svg = QMapPicture.Draw(new QMap("0", times, freqs, energy, q, [8.0], 0.2), null, "KX");
         Assert.True(svg.Length < 200_000, $"{svg.Length} characters");
         XDocument.Parse(svg);
     }

@@ -70,4 +70,49 @@ public class WelchTests
         double u1 = 1.0 - rng.NextDouble(), u2 = rng.NextDouble();
         return Math.Sqrt(-2 * Math.Log(u1)) * Math.Cos(2 * Math.PI * u2);
     }
+
+    private static double[] Mixed(int count) => Enumerable.Range(0, count).Select(n =>
+        1 + Math.Cos(2 * Math.PI * 100 * n / 1024) + (0.5 * Math.Sin((2 * Math.PI * 237.3 * n / 1024) + 0.3)) + (0.001 * (n % 7))).ToArray();
+
+    [Theory]
+    // ref (scipy.signal.welch 1.10, same settings as the CHECKS.md x2 row, average='median'), 1e-8 relative:
+    // 8192 samples = 15 segments (odd), 8704 samples = 16 segments (even: median of the middle two, bias of 15 terms).
+    [InlineData(8192, 0, 0.9245915217132435)]
+    [InlineData(8192, 1, 0.4622957685568276)]
+    [InlineData(8192, 100, 0.4595344067932785)]
+    [InlineData(8192, 146, 2.1961396869455393e-06)]
+    [InlineData(8192, 237, 0.10222292522184202)]
+    [InlineData(8192, 238, 0.059777420345933995)]
+    [InlineData(8704, 0, 0.9245915241568263)]
+    [InlineData(8704, 100, 0.4595344130983284)]
+    [InlineData(8704, 237, 0.10222292548341687)]
+    [InlineData(8704, 238, 0.05977742011508837)]
+    public void Median_averaged_welch_matches_the_reference_library(int count, int bin, double expected)
+    {
+        var psd = Welch.Estimate(Mixed(count), 1024, Seg1024 with { Average = WelchAverage.Median });
+        Assert.True(Math.Abs(psd.Values[bin] - expected) <= 1e-8 * expected, $"bin {bin}: {psd.Values[bin]:R} vs {expected:R}");
+    }
+
+    [Fact]
+    public void A_loud_burst_in_one_segment_raises_the_mean_but_not_the_median()
+    {
+        var rng = new Random(21);
+        var x = Enumerable.Range(0, 32 * 1024).Select(_ => Gaussian(rng)).ToArray();
+        var clean = (double[])x.Clone();
+        for (int n = 0; n < 1024; n++)
+        {
+            // a loud 120 Hz burst inside one second of data (SNR of hundreds): a glitch, or the candidate itself
+            x[10_000 + n] += 40 * Math.Sin(2 * Math.PI * 120 * n / 1024) * Math.Sin(Math.PI * n / 1024);
+        }
+
+        double Level(double[] data, WelchAverage average) =>
+            Welch.Estimate(data, 1024, Seg1024 with { Average = average }).Values.Skip(115).Take(11).Average();
+
+        // textbook level 2σ²/fs = 1.953125e-3: on clean noise both averages agree (~10 %); with the burst the mean is pulled far up
+        // (the old estimate), the median stays.
+        Assert.Equal(1.953125e-3, Level(clean, WelchAverage.Mean), 2e-4);
+        Assert.Equal(1.953125e-3, Level(clean, WelchAverage.Median), 3e-4);
+        Assert.True(Level(x, WelchAverage.Mean) > 10 * 1.953125e-3, $"mean {Level(x, WelchAverage.Mean)}");
+        Assert.Equal(1.953125e-3, Level(x, WelchAverage.Median), 4e-4);
+    }
 }
