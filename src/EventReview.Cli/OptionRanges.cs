@@ -16,6 +16,10 @@ public static class OptionRanges
     public static IReadOnlyDictionary<string, (double Min, double Max, string Unit)> Table { get; } = new Dictionary<string, (double, double, string)>(StringComparer.Ordinal)
     {
         ["timing --k-sigma"] = (0, 10, string.Empty),
+        ["timing --false-alarm-probability"] = (0, 1, string.Empty),
+        ["timing --observed-sign"] = (-1, 1, string.Empty),
+        ["timing --observed-ratio"] = (0, 1e6, string.Empty),
+        ["timing --ratio-tolerance"] = (0, 10, string.Empty),
         ["background --window-ms"] = (0, 1000, "ms"),
         ["background --tolerance-ms"] = (0, 1000, "ms"),
         ["background --step-s"] = (0, 1e7, "s"),
@@ -37,6 +41,8 @@ public static class OptionRanges
         ["environment --coupling-fraction"] = (0, 1, string.Empty),
         ["overlap --window-s"] = (0.01, 10, "s"),
         ["overlap --max-lag-ms"] = (0, 1000, "ms"),
+        ["overlap --k-sigma"] = (0, 10, string.Empty),
+        ["overlap --overlap-threshold"] = (0, 1, string.Empty),
         ["overlap --psd-segment-s"] = (0.0625, 64, "s"),
         ["overlap --offsource"] = (0, 100_000, string.Empty),
         ["safety --window-s"] = (0, 86_400, "s"),
