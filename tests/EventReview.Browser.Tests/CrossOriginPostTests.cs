@@ -23,12 +23,7 @@ public sealed class CrossOriginPostTests(RunningApp app) : IClassFixture<Running
     {
         Directory.CreateDirectory(Screenshots);
         using var playwright = await Playwright.CreateAsync();
-        await using var browser = await playwright.Chromium.LaunchAsync(new BrowserTypeLaunchOptions
-        {
-            ExecutablePath = "/usr/bin/chromium",
-            Headless = true,
-            Args = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-background-networking", "--disable-component-update", "--disable-sync", "--no-first-run"],
-        });
+        await using var browser = await Chromium.LaunchAsync(playwright);
         var context = await browser.NewContextAsync(new BrowserNewContextOptions { ViewportSize = new ViewportSize { Width = 1440, Height = 900 } });
         context.SetDefaultTimeout(30_000);
         var page = await context.NewPageAsync();
