@@ -24,6 +24,7 @@ builder.Services.Configure<Microsoft.AspNetCore.Http.Features.FormOptions>(o => 
 var app = builder.Build();
 
 await DatabaseInitializer.MigrateAsync(app.Services.GetRequiredService<AppDbContextFactory>());
+await EventReview.Data.Records.RecordKeyStartup.EnsureSigningKeyAsync(app.Services.GetRequiredService<AppDbContextFactory>(), TimeProvider.System);
 using (var scope = app.Services.CreateScope())
 {
     await scope.ServiceProvider.GetRequiredService<EventReview.Data.Auth.AccountAdmin>().EnsureRolesAsync();

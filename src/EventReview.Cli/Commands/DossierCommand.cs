@@ -89,7 +89,8 @@ public static class DossierCommand
                 var service = new EventReview.Dossier.CaseDossierService(
                     Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<Microsoft.EntityFrameworkCore.IDbContextFactory<EventReview.Data.AppDbContext>>(provider),
                     Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<EventReview.Data.AttachmentStore>(provider),
-                    TimeProvider.System);
+                    TimeProvider.System,
+                    Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetService<EventReview.Data.Records.RecordKeeping>(provider));
                 EventReview.Core.Dossier.DossierExportRecord record;
                 await using (var file = File.Create(temp))
                 {

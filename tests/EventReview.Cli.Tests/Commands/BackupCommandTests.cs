@@ -21,11 +21,11 @@ public sealed class BackupCommandTests : IAsyncLifetime
     public async Task InitializeAsync()
     {
         var settings = DatabaseSettings.ForSqlite(Data);
-        var factory = new AppDbContextFactory(settings);
+        var factory = new AppDbContextFactory(settings, CliRecords.For(Data));
         await DatabaseInitializer.MigrateAsync(factory);
         await new AttachmentStore(settings).SaveAsync(new MemoryStream(SampleCase.AttachmentBytes), 1024);
         await using var db = factory.CreateDbContext();
-        db.Cases.Add(SampleCase.Build().Case);
+        db.Cases.Add(SampleCase.Build(freezeInTimeline: false).Case);
         await db.SaveChangesAsync();
     }
 

@@ -21,10 +21,10 @@ public sealed class VerifyCommandTests : IAsyncLifetime
     public async Task InitializeAsync()
     {
         var settings = DatabaseSettings.ForSqlite(_dir);
-        var factory = new AppDbContextFactory(settings);
+        var factory = new AppDbContextFactory(settings, CliRecords.For(_dir));
         await DatabaseInitializer.MigrateAsync(factory);
         await new AttachmentStore(settings).SaveAsync(new MemoryStream(SampleCase.AttachmentBytes), 1024);
-        var c = SampleCase.Build().Case;
+        var c = SampleCase.Build(freezeInTimeline: false).Case;
         await using var db = factory.CreateDbContext();
         db.Cases.Add(c);
         await db.SaveChangesAsync();

@@ -175,7 +175,7 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
         c = await cases.CloseAsync(Coordinator, c.Id, CaseOutcome.Inconclusive, "Not enough to decide.");
 
         Assert.Equal(CaseState.Closed, c.State);
-        Assert.Empty(CaseIntegrity.Verify(await ReloadAsync(c.Id), Get<Data.AttachmentStore>().Verify));
+        Assert.Empty(CaseIntegrity.Verify(await ReloadAsync(c.Id), Get<Data.AttachmentStore>().Verify, Get<EventReview.Core.Records.IRecordKeyRing>()));
     }
 
     private async Task<byte[]> DownloadAsync(int id)
