@@ -52,6 +52,7 @@ app.MapStaticAssets().AllowAnonymous();
 app.MapHealth();
 app.MapOpenApi().RequireAuthorization(EventReview.Web.Auth.Policies.Read);
 app.MapEventReviewApi();
+app.MapRecordKeyApi();
 app.MapAccountEndpoints();
 app.MapRazorComponents<App>()
     .AddInteractiveServerRenderMode();

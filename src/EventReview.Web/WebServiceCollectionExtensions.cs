@@ -87,6 +87,7 @@ public static class WebServiceCollectionExtensions
         Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Background, typeof(Components.Checks.BackgroundResultView));
         services.AddScoped<IDemoSeedStep, BackgroundDemoStep>();
         services.AddScoped<IDemoSeedStep, TimingDemoStep>();
+        services.AddScoped<IDemoSeedStep, FreezeDemoStep>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
         services.AddMudServices();
