@@ -65,7 +65,7 @@ public sealed class IntegrityVerifier(IDbContextFactory<AppDbContext> dbFactory,
             {
                 database.Add(new IntegrityProblem("(witness)", null, null, "No key folder or witness is configured: signatures and truncation cannot be checked."));
             }
-            else if (witness is { Exists: false })
+            else if (witness is { Exists: false } && (await db.Activity.AnyAsync(ct) || await db.AccountEvents.AnyAsync(ct)))
             {
                 database.Add(new IntegrityProblem("(witness)", null, null, $"The witness file {witness.Path} does not exist: the newest entries of each case cannot be checked against it."));
             }
