@@ -77,22 +77,22 @@ public sealed class HealthProbe(IDbContextFactory<AppDbContext> dbFactory, Datab
 
         var current = records.Keys.Current;
         yield return current is null
-            ? new HealthCheckLine("record-key", false, $"No record key can sign (key folder {records.Settings.KeyDirectory}).")
-            : new HealthCheckLine("record-key", true, $"Record key {Core.Records.RecordKeyFingerprint.Short(current.KeyId)} signs (key folder {records.Settings.KeyDirectory}).");
+            ? new HealthCheckLine("record-key", false, "No record key can sign: see the key folder (EventReview:Records:KeyDirectory).")
+            : new HealthCheckLine("record-key", true, $"Record key {Core.Records.RecordKeyFingerprint.Short(current.KeyId)} signs.");
         var w = records.Witness;
         var sender = w.Sender is { } s ? s.LastError is null ? $" Also sent to {s.Endpoint.Host}." : $" Sending to {s.Endpoint.Host} fails ({s.LastError}); {s.Waiting} line(s) waiting." : string.Empty;
         if (w.LastError is { } error)
         {
-            yield return new HealthCheckLine("witness", false, $"The last append to the witness {w.FilePath} failed: {error}.{sender}");
+            yield return new HealthCheckLine("witness", false, $"The last append to the witness failed ({error.Split(':')[0]}); see the Integrity page.{sender}");
         }
         else if (records.Settings.WitnessInside(dataDirectory))
         {
-            yield return new HealthCheckLine("witness", true, $"The witness {w.FilePath} is inside the data folder: whoever can change the database can change it too. "
+            yield return new HealthCheckLine("witness", true, "Warning: the witness is inside the data folder, where whoever can change the database can change it too. "
                 + $"Move it to another machine's mount (EventReview:Records:WitnessDirectory).{sender}", Warning: true);
         }
         else
         {
-            yield return new HealthCheckLine("witness", true, $"Witness {w.FilePath}" + (w.LastAppend is { } at ? $", last written {at.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC." : ".") + sender);
+            yield return new HealthCheckLine("witness", true, "Witness outside the data folder" + (w.LastAppend is { } at ? $", last written {at.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC." : ".") + sender);
         }
     }
 
