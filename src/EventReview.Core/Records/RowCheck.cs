@@ -29,6 +29,9 @@ internal static class RowCheck
 
             switch (r.Stale, s.Stale)
             {
+                case (null, false) when s.StaleSinceUtcTicks is not null:
+                    add(null, r.Item, $"The {s.Label} is current, but the database gives it a stale time ({CaseRecordCheck.Ticks(s.StaleSinceUtcTicks.Value)}) that no signed entry records.");
+                    break;
                 case (null, true):
                     add(null, r.Item, $"The {s.Label} is marked stale in the database, but the signed record has no stale mark for it.");
                     break;
