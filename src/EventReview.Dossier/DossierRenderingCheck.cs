@@ -74,6 +74,6 @@ public static class DossierRenderingCheck
     private static string Cut(string s)
     {
         s = s.ReplaceLineEndings(" ");
-        return s.Length > 80 ? s[..80] + "…" : s;
+        return s.Length > 160 ? s[..160] + "…" : s;
     }
 }
