@@ -54,17 +54,17 @@ public static class AuditReplay
         {
             if (!recorded.TryGetValue(name, out var r))
             {
-                problems.Add($"{Describe(Subject(name))}: its {Field(name)} '{Show(inDb[name])}' is in the database, but no sign-in audit entry accounts for it.");
+                problems.Add($"{Describe(Subject(name))}, {Field(name)}: '{Show(inDb[name])}' is in the database, but no sign-in audit entry accounts for it.");
             }
             else if (!string.Equals(r.Value, inDb[name], StringComparison.Ordinal))
             {
-                problems.Add($"{Describe(Subject(name))}: its {Field(name)} is '{Show(inDb[name])}' in the database, but the sign-in audit says '{Show(r.Value)}' (entry {r.Entry}).");
+                problems.Add($"{Describe(Subject(name))}, {Field(name)}: '{Show(inDb[name])}' in the database, but the sign-in audit says '{Show(r.Value)}' (entry {r.Entry}).");
             }
         }
 
         foreach (var name in recorded.Keys.Where(n => storedSubjects.Contains(Subject(n)) && !inDb.ContainsKey(n)).Order(StringComparer.Ordinal))
         {
-            problems.Add($"{Describe(Subject(name))}: its {Field(name)} '{Show(recorded[name].Value)}' (sign-in audit entry {recorded[name].Entry}) is missing from the database.");
+            problems.Add($"{Describe(Subject(name))}, {Field(name)}: '{Show(recorded[name].Value)}' (sign-in audit entry {recorded[name].Entry}) is missing from the database.");
         }
 
         return problems;
@@ -72,7 +72,18 @@ public static class AuditReplay
 
     private static string Subject(string name) => name[..(name.IndexOf(']', StringComparison.Ordinal) + 1)];
 
-    private static string Field(string name) => name[(name.IndexOf("].", StringComparison.Ordinal) + 2)..];
+    private static string Field(string name) => name[(name.IndexOf("].", StringComparison.Ordinal) + 2)..] switch
+    {
+        "name" => "display name",
+        "revoked" => "revoked at (UTC ticks)",
+        "expires" => "expires at (UTC ticks)",
+        "created" => "created at (UTC ticks)",
+        "sealed" => "sealed at (UTC ticks)",
+        "opened" => "opened at (UTC ticks)",
+        "opened-summary" => "opening summary (SHA-256)",
+        "opened-record" => "opened record (SHA-256)",
+        var f => f,
+    };
 
     private static string Describe(string subject)
     {

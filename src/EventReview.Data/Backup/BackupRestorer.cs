@@ -62,7 +62,10 @@ public static class BackupRestorer
 
             Directory.CreateDirectory(stagingSettings.AttachmentDirectory);
             var records = options.Records ?? Records.RecordSettings.ForDataDirectory(folder);
-            var (problems, cases, entries, notes) = await VerifyAsync(stagingSettings, records, manifest.CreatedUtc, ct);
+            // A SQLite archive was taken at a known moment: every entry witnessed before it must be in it. A PostgreSQL
+            // dump was taken separately, at a time this archive does not know: newer witnessed entries are only listed.
+            var witnessedBefore = manifest.Provider == DatabaseProvider.Sqlite ? manifest.CreatedUtc : DateTimeOffset.MinValue;
+            var (problems, cases, entries, notes) = await VerifyAsync(stagingSettings, records, witnessedBefore, ct);
             var valid = problems.Count == 0;
             string? movedAside = null;
             var placed = valid || options.AllowInvalid;

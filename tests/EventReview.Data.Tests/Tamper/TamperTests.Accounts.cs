@@ -14,7 +14,7 @@ public abstract partial class TamperTests
     {
         await IntrudeAsync("UPDATE \"AspNetUserRoles\" SET \"RoleId\" = (SELECT \"Id\" FROM \"AspNetRoles\" WHERE \"Name\" = 'coordinator') WHERE \"UserId\" = {0}", ObserverId);
 
-        await CaughtAsync(Audit, $"The account {ObserverId}: its role is 'coordinator' in the database, but the sign-in audit says 'observer'");
+        await CaughtAsync(Audit, $"The account {ObserverId}, role: 'coordinator' in the database, but the sign-in audit says 'observer'");
     }
 
     [Fact]
@@ -31,7 +31,7 @@ public abstract partial class TamperTests
     {
         await IntrudeAsync($"UPDATE \"ApiTokens\" SET \"Scopes\" = 'cases:read cases:open evidence:add' WHERE \"Id\" = {RevokedTokenId}");
 
-        await CaughtAsync(Audit, $"API token {RevokedTokenId}: its scopes is 'cases:read cases:open evidence:add' in the database, but the sign-in audit says 'cases:read'");
+        await CaughtAsync(Audit, $"API token {RevokedTokenId}, scopes: 'cases:read cases:open evidence:add' in the database, but the sign-in audit says 'cases:read'");
     }
 
     [Fact]
@@ -39,7 +39,7 @@ public abstract partial class TamperTests
     {
         await IntrudeAsync($"UPDATE \"ApiTokens\" SET \"RevokedAt\" = NULL WHERE \"Id\" = {RevokedTokenId}");
 
-        await CaughtAsync(Audit, $"API token {RevokedTokenId}: its revoked is '(none)' in the database");
+        await CaughtAsync(Audit, $"API token {RevokedTokenId}, revoked at (UTC ticks): '(none)' in the database");
     }
 
     [Fact]
@@ -59,7 +59,7 @@ public abstract partial class TamperTests
         await IntrudeAsync($"UPDATE \"SealedInjectionRecords\" SET \"OpenedAt\" = {{0}}, \"OpenedById\" = 'u-coord', \"OpenedByName\" = 'Coordinator Cole' WHERE \"Id\" = {SealId}",
             Stored(SampleCases.T0.AddDays(2)));
 
-        await CaughtAsync(Audit, $"Sealed injection record {SealId}: its opened is", "in the database, but the sign-in audit says '(none)'");
+        await CaughtAsync(Audit, $"Sealed injection record {SealId}, opened at (UTC ticks):", "in the database, but the sign-in audit says '(none)'");
     }
 
     [Fact]
