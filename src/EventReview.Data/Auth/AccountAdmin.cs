@@ -53,6 +53,7 @@ public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<Identit
             EmailConfirmed = true,
             DisplayName = string.IsNullOrWhiteSpace(displayName) ? email.Split('@')[0] : displayName.Trim(),
         };
+        await using var held = await audit.HoldAsync();
         await using var tx = await identityDb.Database.BeginTransactionAsync();
         var created = await users.CreateAsync(user, password);
         if (!created.Succeeded)
@@ -76,6 +77,7 @@ public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<Identit
 
         var user = await users.FindByIdAsync(userId) ?? throw new KeyNotFoundException($"No user with id {userId}.");
         var current = await users.GetRolesAsync(user);
+        await using var held = await audit.HoldAsync();
         await using var tx = await identityDb.Database.BeginTransactionAsync();
         await users.RemoveFromRolesAsync(user, current);
         await users.AddToRoleAsync(user, role);
@@ -129,6 +131,7 @@ public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<Identit
     {
         var (token, secret) = ApiToken.Create(name, createdBy, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()), scopes, lifetimeDays);
         await using var db = await dbFactory.CreateDbContextAsync();
+        await using var held = await audit.HoldAsync();
         await using var tx = await db.Database.BeginTransactionAsync();
         db.ApiTokens.Add(token);
         await db.SaveChangesAsync();
@@ -149,6 +152,7 @@ public sealed class AccountAdmin(UserManager<AppUser> users, RoleManager<Identit
     {
         await using var db = await dbFactory.CreateDbContextAsync();
         var token = await db.ApiTokens.FirstOrDefaultAsync(t => t.Id == id) ?? throw new KeyNotFoundException($"No API token with id {id}.");
+        await using var held = await audit.HoldAsync();
         await using var tx = await db.Database.BeginTransactionAsync();
         token.Revoke(EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
         await db.SaveChangesAsync();

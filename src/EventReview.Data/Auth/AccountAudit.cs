@@ -42,23 +42,42 @@ public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, Time
     }
 
     /// <summary>
+    /// Holds the audit's append lock for a change that will record itself with <see cref="RecordInAsync"/>. Take it
+    /// before the change's transaction writes anything: appends are serialised by this lock first and the database's
+    /// write lock second, always in that order, so two of them can never wait on each other.
+    /// </summary>
+    public async Task<IAsyncDisposable> HoldAsync(CancellationToken ct = default)
+    {
+        await Gate.WaitAsync(ct);
+        return new Held();
+    }
+
+    /// <summary>
     /// Appends one entry through <paramref name="db"/> and saves it there, so that it commits with the change it records
-    /// (the caller's transaction on that context). Throws what the save throws; the caller's transaction then rolls back.
+    /// (the caller's transaction on that context). The caller holds <see cref="HoldAsync"/>. Throws what the save
+    /// throws; the caller's transaction then rolls back.
     /// </summary>
     public async Task RecordInAsync(AppDbContext db, string kind, string? userId, string? account, string? address, string? detail,
         IEnumerable<Fact> facts, CancellationToken ct = default)
     {
         ArgumentNullException.ThrowIfNull(db);
-        await Gate.WaitAsync(ct);
-        try
+        await AddNextAsync(db, kind, userId, account, address, detail, facts, ct);
+        await db.SaveChangesAsync(ct);
+        log.LogInformation("Account event {Kind} for {Account} from {Address}", kind, account ?? "(none)", address ?? "(unknown)");
+    }
+
+    private sealed class Held : IAsyncDisposable
+    {
+        private int _released;
+
+        public ValueTask DisposeAsync()
         {
-            await AddNextAsync(db, kind, userId, account, address, detail, facts, ct);
-            await db.SaveChangesAsync(ct);
-            log.LogInformation("Account event {Kind} for {Account} from {Address}", kind, account ?? "(none)", address ?? "(unknown)");
-        }
-        finally
-        {
-            Gate.Release();
+            if (Interlocked.Exchange(ref _released, 1) == 0)
+            {
+                Gate.Release();
+            }
+
+            return ValueTask.CompletedTask;
         }
     }
 

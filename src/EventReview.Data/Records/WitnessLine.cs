@@ -14,7 +14,7 @@ public sealed record WitnessLine(string Format, string At, string Key, IReadOnly
 {
     public const string CurrentFormat = "eventreview-witness/1";
 
-    private static readonly JsonSerializerOptions Json = new(JsonSerializerDefaults.Web);
+    private static readonly JsonSerializerOptions Json = new(JsonSerializerDefaults.Web) { Encoder = System.Text.Encodings.Web.JavaScriptEncoder.UnsafeRelaxedJsonEscaping };
 
     /// <summary>A signed line for <paramref name="heads"/>.</summary>
     public static WitnessLine Create(IReadOnlyList<WitnessedHead> heads, DateTimeOffset at, IRecordSigner signer)

@@ -98,6 +98,7 @@ public abstract partial class TamperTests : IAsyncLifetime
 
         var audit = _services.GetRequiredService<AccountAudit>();
         await using var db = Factory.CreateDbContext();
+        await using var held = await audit.HoldAsync();
         await using var tx = await db.Database.BeginTransactionAsync();
         var seal = SealedInjectionRecord.Register(Hashing.Sha256Hex("salt+record"), "blind injections, test run", SampleCases.Coordinator, SampleCases.T0);
         db.SealedInjectionRecords.Add(seal);

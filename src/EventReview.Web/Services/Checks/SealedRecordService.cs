@@ -83,6 +83,7 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
                 throw new ArgumentException("This commitment is already registered.", nameof(commitment));
             }
 
+            await using var held = await audit.HoldAsync(ct);
             await using var tx = await db.Database.BeginTransactionAsync(ct);
             db.SealedInjectionRecords.Add(seal);
             await db.SaveChangesAsync(ct);
@@ -146,6 +147,7 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
         seal.Open(record, saltHex!, caseId, Clip($"{c.CandidateId}: {summary}", 1000), actor, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
         try
         {
+            await using var held = await audit.HoldAsync(ct);
             await using var tx = await db.Database.BeginTransactionAsync(ct);
             await db.SaveChangesAsync(ct);
             await audit.RecordInAsync(db, Data.Auth.AccountEventKinds.SealOpened, actor.UserId, actor.DisplayName, null,
