@@ -160,6 +160,27 @@ public sealed class ConfigurationSnapshot
         Fingerprint = ConfigurationCanonical.Fingerprint(this);
     }
 
+    /// <summary>
+    /// True when the record is frozen and its stored fingerprint still recomputes from its items, period and reason;
+    /// false when not frozen, or when something was changed after freezing (or its items cannot be read).
+    /// </summary>
+    public bool FingerprintMatches()
+    {
+        if (!IsFrozen || Fingerprint is null || FreezeFrom is null || FreezeUntil is null || FreezeReason is null)
+        {
+            return false;
+        }
+
+        try
+        {
+            return string.Equals(ConfigurationCanonical.Fingerprint(this), Fingerprint, StringComparison.Ordinal);
+        }
+        catch (JsonException)
+        {
+            return false;
+        }
+    }
+
     /// <summary>True when <paramref name="at"/> lies inside the freeze period (bounds inclusive); false when not frozen.</summary>
     public bool InFreezePeriod(DateTimeOffset at) => IsFrozen && at >= FreezeFrom && at <= FreezeUntil;
 
