@@ -126,14 +126,17 @@ public sealed class IntegrityVerifier(IDbContextFactory<AppDbContext> dbFactory,
         {
             var entries = c.Activity.ToDictionary(a => (long)a.Sequence, a => a.Hash);
             var last = c.Activity.Count == 0 ? 0 : c.Activity.Max(a => a.Sequence);
+            // The witness speaks about the timeline itself: its finding goes right after the chain's own, before the
+            // field comparisons (which removed entries usually explain).
+            var at = problems.TakeWhile(p => p.What.StartsWith("Timeline:", StringComparison.Ordinal)).Count();
             if (!entries.TryGetValue(seen.Head.Sequence, out var hash))
             {
-                problems.Add(new IntegrityProblem(c.CandidateId, (int)seen.Head.Sequence, null,
+                problems.Insert(at, new IntegrityProblem(c.CandidateId, (int)seen.Head.Sequence, null,
                     $"Timeline: the newest entries were removed: the witness saw entry {seen.Head.Sequence} (hash {Short(seen.Head.Hash)}) on {seen.At}, but the timeline ends at entry {last}."));
             }
             else if (hash != seen.Head.Hash)
             {
-                problems.Add(new IntegrityProblem(c.CandidateId, (int)seen.Head.Sequence, null,
+                problems.Insert(at, new IntegrityProblem(c.CandidateId, (int)seen.Head.Sequence, null,
                     $"Timeline: entry {seen.Head.Sequence} is not the one the witness saw on {seen.At} (hash {Short(seen.Head.Hash)}, now {Short(hash)}): the timeline was rewritten."));
             }
         }

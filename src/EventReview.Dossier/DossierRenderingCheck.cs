@@ -30,8 +30,8 @@ public static class DossierRenderingCheck
             var expected = DossierHtml.Render(rendered);
             if (!html.AsSpan().SequenceEqual(expected))
             {
-                problems.Add(new DossierProblem(Html, FirstDifference(Encoding.UTF8.GetString(expected), Encoding.UTF8.GetString(html)),
-                    "does not match the page dossier.json renders to: it says something the data do not" + version + "."));
+                var (line, shown, should) = FirstDifference(Encoding.UTF8.GetString(expected), Encoding.UTF8.GetString(html));
+                problems.Add(new DossierProblem(Html, line, $"shows '{shown}' where dossier.json renders '{should}': it says something the data do not{version}."));
             }
         }
 
@@ -59,7 +59,8 @@ public static class DossierRenderingCheck
         }
     }
 
-    private static string FirstDifference(string expected, string actual)
+    /// <summary>The line of the first difference, and a few words of each text around it.</summary>
+    private static (string Line, string Actual, string Expected) FirstDifference(string expected, string actual)
     {
         var n = 0;
         while (n < expected.Length && n < actual.Length && expected[n] == actual[n])
@@ -67,8 +68,9 @@ public static class DossierRenderingCheck
             n++;
         }
 
-        var line = expected.AsSpan(0, n).Count('\n') + 1;
-        return $"line {line}: '{Cut(actual[Math.Max(0, n - 20)..Math.Min(actual.Length, n + 40)])}'";
+        var from = Math.Max(0, n - 24);
+        string Around(string s) => Cut(s[Math.Min(from, s.Length)..Math.Min(s.Length, n + 48)]);
+        return ($"line {expected.AsSpan(0, n).Count('\n') + 1}", Around(actual), Around(expected));
     }
 
     private static string Cut(string s)

@@ -60,7 +60,10 @@ public class DossierRenderingCheckTests
         var p = Assert.Single(v.Problems);
         Assert.Equal("index.html", p.File);
         Assert.Contains("says something the data do not", p.What, StringComparison.Ordinal);
-        Assert.Contains("Someone Senior", p.Where, StringComparison.Ordinal);
+        Assert.StartsWith("line ", p.Where, StringComparison.Ordinal);
+        Assert.Contains("shows '", p.What, StringComparison.Ordinal);
+        Assert.Contains("Someone Senior", p.What, StringComparison.Ordinal);
+        Assert.Contains("Cleo Vance", p.What, StringComparison.Ordinal);
     }
 
     [Fact]
