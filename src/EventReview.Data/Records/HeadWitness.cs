@@ -1,14 +1,17 @@
 using System.Globalization;
 using System.Text;
+using System.Threading.Channels;
 using EventReview.Core.Records;
 
 namespace EventReview.Data.Records;
 
 /// <summary>
-/// The witness against truncation: after each committed write batch, one signed line (<see cref="WitnessLine"/>) with the
-/// newest head of every chain the batch changed is appended to <c>record-heads.jsonl</c> in the witness folder (and, when
-/// configured, posted to an HTTP endpoint by <see cref="WitnessSender"/>). The line is written after the commit, so the
-/// witness may lag the database by one batch after a crash but never runs ahead of it. Verification compares each
+/// The witness against truncation: after each committed write batch, the newest head of every chain the batch changed
+/// goes into one signed line (<see cref="WitnessLine"/>) appended to <c>record-heads.jsonl</c> in the witness folder
+/// (and, when configured, posted to an HTTP endpoint by <see cref="WitnessSender"/>). Lines are signed and written by a
+/// background task, off the writer's path: batches that commit while a line is being written share the next line, so
+/// there is at most one line (one signature) per batch. Heads are handed over only after their commit, so the witness
+/// may lag the database by the last batches after a crash but never runs ahead of it. Verification compares each
 /// chain's newest witnessed head with the database: removing the newest entries is caught.
 /// </summary>
 public sealed class HeadWitness : IDisposable
@@ -19,6 +22,10 @@ public sealed class HeadWitness : IDisposable
     private readonly TimeProvider _clock;
     private readonly Lock _gate = new();
     private readonly WitnessSender? _sender;
+    private readonly Channel<IReadOnlyCollection<WitnessedHead>> _pending = Channel.CreateUnbounded<IReadOnlyCollection<WitnessedHead>>(new UnboundedChannelOptions { SingleReader = true });
+    private readonly Task _loop;
+    private long _queued;
+    private long _written;
     private FileStream? _file;
 
     public HeadWitness(RecordSettings settings, IRecordKeyRing keys, TimeProvider? clock = null)
@@ -28,6 +35,7 @@ public sealed class HeadWitness : IDisposable
         _keys = keys;
         _clock = clock ?? TimeProvider.System;
         _sender = settings.WitnessUrl is { } url ? new WitnessSender(new Uri(url)) : null;
+        _loop = Task.Run(LoopAsync);
     }
 
     public string Folder { get; }
@@ -43,16 +51,72 @@ public sealed class HeadWitness : IDisposable
     /// <summary>The HTTP endpoint's sender, when one is configured.</summary>
     public WitnessSender? Sender => _sender;
 
-    /// <summary>Appends one signed line with <paramref name="heads"/> (nothing when empty). Failures are kept in <see cref="LastError"/>, never thrown: the batch is already committed.</summary>
+    /// <summary>
+    /// Hands over the heads of a committed batch (nothing when empty); returns at once. The line is signed and written
+    /// in the background. Failures are kept in <see cref="LastError"/>, never thrown: the batch is already committed.
+    /// </summary>
     public void Append(IReadOnlyCollection<WitnessedHead> heads)
     {
-        if (heads.Count == 0 || _keys.Current is not { } signer)
+        if (heads.Count == 0)
         {
             return;
         }
 
-        var newest = heads.GroupBy(h => h.Chain, StringComparer.Ordinal).Select(g => g.MaxBy(h => h.Sequence)!).ToList();
-        var line = WitnessLine.Create(newest, _clock.GetUtcNow(), signer).ToJson();
+        Interlocked.Increment(ref _queued);
+        if (!_pending.Writer.TryWrite(heads))
+        {
+            Interlocked.Increment(ref _written); // shutting down: nothing more is written
+        }
+    }
+
+    /// <summary>Waits (at most <paramref name="timeout"/>) until every batch handed over so far is in the file.</summary>
+    public bool Flush(TimeSpan? timeout = null)
+    {
+        var target = Interlocked.Read(ref _queued);
+        return SpinWait.SpinUntil(() => Interlocked.Read(ref _written) >= target, timeout ?? TimeSpan.FromSeconds(10));
+    }
+
+    private async Task LoopAsync()
+    {
+        while (await _pending.Reader.WaitToReadAsync())
+        {
+            var newest = new Dictionary<string, WitnessedHead>(StringComparer.Ordinal);
+            var batches = 0;
+            while (_pending.Reader.TryRead(out var heads))
+            {
+                batches++;
+                foreach (var h in heads)
+                {
+                    if (!newest.TryGetValue(h.Chain, out var seen) || h.Sequence > seen.Sequence)
+                    {
+                        newest[h.Chain] = h;
+                    }
+                }
+            }
+
+            Write(newest.Values.ToList());
+            Interlocked.Add(ref _written, batches);
+        }
+    }
+
+    private void Write(IReadOnlyList<WitnessedHead> newest)
+    {
+        if (_keys.Current is not { } signer)
+        {
+            return;
+        }
+
+        string line;
+        try
+        {
+            line = WitnessLine.Create(newest, _clock.GetUtcNow(), signer).ToJson();
+        }
+        catch (System.Security.Cryptography.CryptographicException ex)
+        {
+            LastError = "the record key could not sign: " + ex.Message;
+            return;
+        }
+
         lock (_gate)
         {
             try
@@ -83,7 +147,11 @@ public sealed class HeadWitness : IDisposable
     /// Reads the witness file: the newest head of each chain, with the signature of every line that gives one checked.
     /// With <paramref name="writtenBefore"/>, only lines written before that time count (what a backup taken then must hold).
     /// </summary>
-    public WitnessReading Read(DateTimeOffset? writtenBefore = null) => Read(FilePath, _keys, writtenBefore);
+    public WitnessReading Read(DateTimeOffset? writtenBefore = null)
+    {
+        Flush();
+        return Read(FilePath, _keys, writtenBefore);
+    }
 
     /// <summary>Reads a witness file at <paramref name="path"/> (see <see cref="Read(DateTimeOffset?)"/>).</summary>
     public static WitnessReading Read(string path, IRecordKeyRing keys, DateTimeOffset? writtenBefore = null)
@@ -151,6 +219,8 @@ public sealed class HeadWitness : IDisposable
 
     public void Dispose()
     {
+        _pending.Writer.TryComplete();
+        _loop.Wait(TimeSpan.FromSeconds(10));
         lock (_gate)
         {
             _file?.Dispose();

@@ -45,6 +45,10 @@ public sealed class RecordSigningInterceptor(RecordKeeping records) : SaveChange
         return Task.CompletedTask;
     }
 
+    /// <summary>
+    /// Signs the new entries without a change scan of its own (the save runs one next): new timeline entries are the
+    /// unsaved ones (id 0) in the activity lists of the tracked cases (or added directly); audit entries are added directly.
+    /// </summary>
     private void Sign(DbContext? context)
     {
         if (context is not AppDbContext db)
@@ -52,17 +56,32 @@ public sealed class RecordSigningInterceptor(RecordKeeping records) : SaveChange
             return;
         }
 
-        foreach (var e in db.ChangeTracker.Entries().Where(e => e.State == EntityState.Added))
+        var detect = db.ChangeTracker.AutoDetectChangesEnabled;
+        db.ChangeTracker.AutoDetectChangesEnabled = false;
+        try
         {
-            switch (e.Entity)
+            var signed = new HashSet<ActivityEntry>(ReferenceEqualityComparer.Instance);
+            foreach (var c in db.ChangeTracker.Entries<ReviewCase>())
             {
-                case ActivityEntry a:
+                foreach (var a in c.Entity.Activity.Where(a => a.Id == 0 && signed.Add(a)))
+                {
                     db.SavingHeads.Add(records.Sign(a));
-                    break;
-                case AccountEvent a:
-                    db.SavingHeads.Add(records.Sign(a));
-                    break;
+                }
             }
+
+            foreach (var e in db.ChangeTracker.Entries<ActivityEntry>().Where(e => e.State == EntityState.Added && signed.Add(e.Entity)))
+            {
+                db.SavingHeads.Add(records.Sign(e.Entity));
+            }
+
+            foreach (var e in db.ChangeTracker.Entries<AccountEvent>().Where(e => e.State == EntityState.Added))
+            {
+                db.SavingHeads.Add(records.Sign(e.Entity));
+            }
+        }
+        finally
+        {
+            db.ChangeTracker.AutoDetectChangesEnabled = detect;
         }
     }
 

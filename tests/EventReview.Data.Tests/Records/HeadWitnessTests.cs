@@ -19,15 +19,17 @@ public sealed class HeadWitnessTests : IDisposable
     }
 
     [Fact]
-    public void Each_batch_appends_one_signed_line_and_the_newest_head_of_each_chain_wins()
+    public void Batches_append_signed_lines_and_the_newest_head_of_each_chain_wins()
     {
         var (w, keys) = Open();
         using (w)
         using (keys)
         {
             w.Append([new WitnessedHead("case:A", 1, "a1"), new WitnessedHead("case:A", 2, "a2"), new WitnessedHead("case:B", 1, "b1")]);
+            Assert.True(w.Flush());
             w.Append([new WitnessedHead("case:A", 3, "a3")]);
             w.Append([]);
+            Assert.True(w.Flush());
 
             var r = w.Read();
 
@@ -40,6 +42,26 @@ public sealed class HeadWitnessTests : IDisposable
     }
 
     [Fact]
+    public void Batches_handed_over_while_a_line_is_written_share_the_next_line()
+    {
+        var (w, keys) = Open();
+        using (w)
+        using (keys)
+        {
+            for (var i = 1; i <= 200; i++)
+            {
+                w.Append([new WitnessedHead("case:A", i, $"a{i}")]);
+            }
+
+            Assert.True(w.Flush());
+            var r = w.Read();
+            Assert.InRange(r.Lines, 1, 200);
+            Assert.Equal(200, r.Newest["case:A"].Head.Sequence);
+            Assert.Empty(r.Problems);
+        }
+    }
+
+    [Fact]
     public void A_torn_last_line_is_tolerated_but_a_damaged_or_forged_line_is_named()
     {
         var (w, keys) = Open();
@@ -47,6 +69,7 @@ public sealed class HeadWitnessTests : IDisposable
         using (keys)
         {
             w.Append([new WitnessedHead("case:A", 1, "a1")]);
+            w.Flush();
             w.Append([new WitnessedHead("case:A", 2, "a2")]);
             w.Dispose();
             File.AppendAllText(w.FilePath, "{\"format\":\"eventreview-wit");
@@ -72,6 +95,7 @@ public sealed class HeadWitnessTests : IDisposable
         var clock = new FixedClock(new DateTimeOffset(2031, 5, 1, 8, 0, 0, TimeSpan.Zero));
         using var w = new HeadWitness(settings, keys, clock);
         w.Append([new WitnessedHead("case:A", 1, "a1")]);
+        w.Flush();
         clock.Advance(TimeSpan.FromHours(1));
         w.Append([new WitnessedHead("case:A", 2, "a2")]);
 
