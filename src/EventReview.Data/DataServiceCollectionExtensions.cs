@@ -17,7 +17,8 @@ public static class DataServiceCollectionExtensions
         services.AddSingleton(settings);
         if (records is not null)
         {
-            services.AddSingleton(records);
+            // Made by a factory, so the container disposes it on shutdown: the witness writes what is still waiting.
+            services.AddSingleton(_ => records);
             services.AddSingleton(records.Keys);
         }
 

@@ -217,8 +217,15 @@ public sealed class HeadWitness : IDisposable
             newest.ToDictionary(kv => kv.Key, kv => (kv.Value.Head, kv.Value.At), StringComparer.Ordinal), problems);
     }
 
+    private int _disposed;
+
     public void Dispose()
     {
+        if (Interlocked.Exchange(ref _disposed, 1) == 1)
+        {
+            return;
+        }
+
         _pending.Writer.TryComplete();
         _loop.Wait(TimeSpan.FromSeconds(10));
         lock (_gate)

@@ -84,8 +84,15 @@ public sealed class WitnessSender : IDisposable
         }
     }
 
+    private int _disposed;
+
     public void Dispose()
     {
+        if (Interlocked.Exchange(ref _disposed, 1) == 1)
+        {
+            return;
+        }
+
         _lines.Writer.TryComplete();
         _stop.Cancel();
         try

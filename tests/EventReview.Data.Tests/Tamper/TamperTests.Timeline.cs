@@ -173,6 +173,18 @@ public abstract partial class TamperTests
     }
 
     [Fact]
+    public async Task A_stored_number_that_is_not_finite_is_named_by_the_repair_check()
+    {
+        await IntrudeAsync("UPDATE \"CaseArrivals\" SET \"Snr\" = {0} WHERE \"ReviewCaseId\" = @case AND \"SiteCode\" = 'KX'", double.PositiveInfinity);
+
+        var problems = await VerifyAsync();
+
+        Assert.Contains(problems, p => p.Case == "(stored values)" && p.What.Contains("Table CaseArrivals", StringComparison.Ordinal)
+            && p.What.Contains("column Snr", StringComparison.Ordinal) && p.What.Contains("not a finite number", StringComparison.Ordinal));
+        Assert.Contains(problems, p => p.Case == Candidate && p.What.StartsWith("The arrival at KX is", StringComparison.Ordinal));
+    }
+
+    [Fact]
     public async Task A_sign_off_fingerprint_shorter_than_twelve_characters_is_reported_not_thrown()
     {
         await IntrudeAsync($"UPDATE \"SignOffs\" SET \"EvidenceFingerprint\" = 'abc' WHERE \"ChecklistItemId\" = {Item("alpha.two")}");
