@@ -78,13 +78,7 @@ public static class KeysCommand
         data.AddTo(export);
         export.SetAction(parse => Run(data, parse, ring =>
         {
-            var body = new
-            {
-                format = FileRecordKeyRing.Format,
-                current = ring.Keys.LastOrDefault(k => k.ValidUntil is null)?.Fingerprint,
-                keys = ring.Keys.Select(k => new { fingerprint = k.Fingerprint, algorithm = RecordPublicKey.Algorithm, publicKey = Convert.ToBase64String(k.SubjectPublicKeyInfo), publicKeyPem = k.Pem(), validFrom = k.ValidFrom, validUntil = k.ValidUntil }),
-            };
-            File.WriteAllText(parse.GetValue(output)!, System.Text.Json.JsonSerializer.Serialize(body, CliOutput.Json) + "\n");
+            File.WriteAllText(parse.GetValue(output)!, System.Text.Json.JsonSerializer.Serialize(PublicKeyFile.Describe(ring), CliOutput.Json) + "\n");
             Console.WriteLine($"wrote {ring.Keys.Count} public key(s) to {parse.GetValue(output)}");
             return CliOutput.Success;
         }));

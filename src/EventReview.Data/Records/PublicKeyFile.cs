@@ -11,6 +11,29 @@ namespace EventReview.Data.Records;
 /// </summary>
 public static class PublicKeyFile
 {
+    /// <summary>
+    /// The public key list as JSON: <c>{format, current, keys: [{fingerprint, algorithm, publicKey, publicKeyPem, validFrom,
+    /// validUntil}]}</c> (what <c>/api/signing-key</c> answers and <c>eventreview keys export</c> writes; <see cref="Read"/> reads it).
+    /// </summary>
+    public static object Describe(IRecordKeyRing keys)
+    {
+        ArgumentNullException.ThrowIfNull(keys);
+        return new
+        {
+            format = FileRecordKeyRing.Format,
+            current = keys.Keys.LastOrDefault(k => k.ValidUntil is null)?.Fingerprint,
+            keys = keys.Keys.Select(k => new
+            {
+                fingerprint = k.Fingerprint,
+                algorithm = RecordPublicKey.Algorithm,
+                publicKey = Convert.ToBase64String(k.SubjectPublicKeyInfo),
+                publicKeyPem = k.Pem(),
+                validFrom = k.ValidFrom,
+                validUntil = k.ValidUntil,
+            }),
+        };
+    }
+
     /// <exception cref="InvalidDataException">When the file holds no P-256 public key (the message says what it found).</exception>
     public static IReadOnlyList<RecordPublicKey> Read(string path)
     {

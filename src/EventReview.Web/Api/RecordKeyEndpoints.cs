@@ -11,26 +11,10 @@ public static class RecordKeyEndpoints
 {
     public static IEndpointRouteBuilder MapRecordKeyApi(this IEndpointRouteBuilder app)
     {
-        app.MapGet("/api/signing-key", (IRecordKeyRing keys) => Results.Json(Describe(keys)))
+        app.MapGet("/api/signing-key", (IRecordKeyRing keys) => Results.Json(PublicKeyFile.Describe(keys)))
             .AllowAnonymous()
             .RequireRateLimiting(Security.ApiRateLimitPolicy.Name)
             .WithSummary("The server's record public keys (ECDSA P-256) with their validity; the current one signs new dossiers.");
         return app;
     }
-
-    /// <summary>The JSON body: format, current key fingerprint and every key (fingerprint, algorithm, base64 DER, PEM, validity).</summary>
-    public static object Describe(IRecordKeyRing keys) => new
-    {
-        format = FileRecordKeyRing.Format,
-        current = keys.Current?.KeyId,
-        keys = keys.Keys.Select(k => new
-        {
-            fingerprint = k.Fingerprint,
-            algorithm = RecordPublicKey.Algorithm,
-            publicKey = Convert.ToBase64String(k.SubjectPublicKeyInfo),
-            publicKeyPem = k.Pem(),
-            validFrom = k.ValidFrom,
-            validUntil = k.ValidUntil,
-        }),
-    };
 }
