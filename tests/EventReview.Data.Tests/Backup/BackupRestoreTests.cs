@@ -79,6 +79,48 @@ public sealed class BackupRestoreTests : IAsyncLifetime
     private string[] SiblingsOfTarget() => Directory.EnumerateFileSystemEntries(_root.Path).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToArray()!;
 
     [Fact]
+    public async Task Entries_witnessed_after_the_backup_are_listed_as_notes_and_entries_witnessed_before_it_must_be_in_it()
+    {
+        await BackupWriter.CreateAsync(_source, Archive);
+
+        // After the backup: one more note on a case. The witness saw it; the backup cannot have it.
+        await using (var db = TestRecords.Factory(_source).CreateDbContext())
+        {
+            var c = await db.CasesWithEverything().FirstAsync(x => x.CandidateId == "TC-BACKUP-ONE");
+            var at = DateTimeOffset.UtcNow;
+            c.AddEvidence("beta.one", EventReview.Core.Evidence.EvidenceItem.Note("After the backup.", SampleCases.ReviewerA, at), SampleCases.ReviewerA, at);
+            await db.SaveChangesAsync();
+        }
+
+        var later = await RestoreAsync();
+        Assert.True(later.Valid, string.Join("; ", later.Problems.Select(p => p.What)));
+        var note = Assert.Single(later.Notes ?? []);
+        Assert.StartsWith("TC-BACKUP-ONE: this backup ends at entry ", note, StringComparison.Ordinal);
+
+        // A head the witness saw before the backup was taken, but which the backup lacks: the backup was truncated.
+        var manifestTime = (await BackupArchiveTime()).AddMinutes(-1);
+        using (var records = Data.Records.RecordKeeping.Open(SourceRecords))
+        using (var witness = new Data.Records.HeadWitness(SourceRecords, records.Keys, new FixedClock(manifestTime)))
+        {
+            witness.Append([new Data.Records.WitnessedHead("case:TC-BACKUP-TWO", 99, new string('9', 64))]);
+            witness.Flush();
+        }
+
+        Directory.Delete(Target, recursive: true);
+        var truncated = await RestoreAsync();
+        Assert.False(truncated.Valid);
+        Assert.Contains(truncated.Problems, p => p.Case == "TC-BACKUP-TWO" && p.What.Contains("the newest entries were removed: the witness saw entry 99", StringComparison.Ordinal));
+    }
+
+    private async Task<DateTimeOffset> BackupArchiveTime()
+    {
+        using var zip = ZipFile.OpenRead(Archive);
+        await using var m = zip.GetEntry("manifest.json")!.Open();
+        using var doc = await System.Text.Json.JsonDocument.ParseAsync(m);
+        return doc.RootElement.GetProperty("createdUtc").GetDateTimeOffset();
+    }
+
+    [Fact]
     public async Task A_backup_restores_into_an_empty_place_and_the_copy_verifies_with_the_same_cases_and_files()
     {
         var backup = await BackupWriter.CreateAsync(_source, Archive);
