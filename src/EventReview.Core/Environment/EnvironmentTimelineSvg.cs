@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using EventReview.Core.Pictures;
 
 namespace EventReview.Core.Environment;
 
@@ -49,22 +50,22 @@ public static class EnvironmentTimelineSvg
         var height = top + (rows.Count * RowHeight) + 60;
         var sb = new StringBuilder();
         sb.Append(F($"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{Width}\" height=\"{height}\" viewBox=\"0 0 {Width} {height}\" font-family=\"sans-serif\" font-size=\"11\">"));
-        sb.Append(F($"<rect x=\"{X(-windowSeconds, span)}\" y=\"{top}\" width=\"{X(windowSeconds, span) - X(-windowSeconds, span)}\" height=\"{rows.Count * RowHeight}\" fill=\"#fde9c8\"/>"));
-        sb.Append(F($"<line x1=\"{X(0, span)}\" y1=\"{top}\" x2=\"{X(0, span)}\" y2=\"{top + (rows.Count * RowHeight)}\" stroke=\"#444\" stroke-dasharray=\"3,3\"/>"));
+        sb.Append(F($"<rect x=\"{X(-windowSeconds, span)}\" y=\"{top}\" width=\"{X(windowSeconds, span) - X(-windowSeconds, span)}\" height=\"{rows.Count * RowHeight}\" fill=\"{PicturePalette.WarmTint}\"/>"));
+        sb.Append(F($"<line x1=\"{X(0, span)}\" y1=\"{top}\" x2=\"{X(0, span)}\" y2=\"{top + (rows.Count * RowHeight)}\" stroke=\"{PicturePalette.TextSoft}\" stroke-dasharray=\"3,3\"/>"));
         for (var i = 0; i < rows.Count; i++)
         {
             var y = top + (i * RowHeight) + (RowHeight / 2);
             sb.Append(F($"<text x=\"4\" y=\"{y + 4}\" xml:space=\"preserve\">{Escape(rows[i].Label)}</text>"));
-            sb.Append(F($"<line x1=\"{Left}\" y1=\"{y}\" x2=\"{Width - Right}\" y2=\"{y}\" stroke=\"#ddd\"/>"));
+            sb.Append(F($"<line x1=\"{Left}\" y1=\"{y}\" x2=\"{Width - Right}\" y2=\"{y}\" stroke=\"{PicturePalette.Rule}\"/>"));
             rows[i].Draw(sb, y);
         }
 
         var axisY = top + (rows.Count * RowHeight) + 4;
-        sb.Append(F($"<line x1=\"{Left}\" y1=\"{axisY}\" x2=\"{Width - Right}\" y2=\"{axisY}\" stroke=\"#000\"/>"));
+        sb.Append(F($"<line x1=\"{Left}\" y1=\"{axisY}\" x2=\"{Width - Right}\" y2=\"{axisY}\" stroke=\"{PicturePalette.Text}\"/>"));
         for (var k = -4; k <= 4; k++)
         {
             var t = span * k / 4;
-            sb.Append(F($"<line x1=\"{X(t, span)}\" y1=\"{axisY}\" x2=\"{X(t, span)}\" y2=\"{axisY + 4}\" stroke=\"#000\"/>"));
+            sb.Append(F($"<line x1=\"{X(t, span)}\" y1=\"{axisY}\" x2=\"{X(t, span)}\" y2=\"{axisY + 4}\" stroke=\"{PicturePalette.Text}\"/>"));
             sb.Append(F($"<text x=\"{X(t, span)}\" y=\"{axisY + 16}\" text-anchor=\"middle\">{t:0.###}</text>"));
         }
 
@@ -83,7 +84,7 @@ public static class EnvironmentTimelineSvg
         foreach (var h in hits)
         {
             var r = 3 + (2.5 * Math.Log10(1 + h.Snr));
-            var colour = h.Safe == false ? "#888" : "#c0392b";
+            var colour = h.Safe == false ? PicturePalette.Grey : PicturePalette.Brick;
             sb.Append(F($"<circle cx=\"{X(h.OffsetSeconds, span)}\" cy=\"{y}\" r=\"{r:0.##}\" fill=\"{colour}\" fill-opacity=\"0.8\"><title>{Escape(h.Channel)} offset {h.OffsetSeconds:0.####} s, SNR {h.Snr:0.#}</title></circle>"));
             sb.Append(F($"<text x=\"{X(h.OffsetSeconds, span) + r + 2}\" y=\"{y - 4}\" font-size=\"9\">SNR {h.Snr:0.#}</text>"));
         }
@@ -95,8 +96,8 @@ public static class EnvironmentTimelineSvg
         {
             var a = X(Math.Max(-span, s.StartGps - arrivalGps), span);
             var b = X(Math.Min(span, s.EndGps - arrivalGps), span);
-            sb.Append(F($"<rect x=\"{a}\" y=\"{y - 6}\" width=\"{Math.Max(1, b - a)}\" height=\"12\" fill=\"#2c6fbb\" fill-opacity=\"0.6\"><title>{Escape(s.Flag)}</title></rect>"));
-            sb.Append(F($"<text x=\"{a + 2}\" y=\"{y + 4}\" font-size=\"9\" fill=\"#fff\">{Escape(s.Flag)}</text>"));
+            sb.Append(F($"<rect x=\"{a}\" y=\"{y - 6}\" width=\"{Math.Max(1, b - a)}\" height=\"12\" fill=\"{PicturePalette.Slate}\" fill-opacity=\"0.6\"><title>{Escape(s.Flag)}</title></rect>"));
+            sb.Append(F($"<text x=\"{a + 2}\" y=\"{y + 4}\" font-size=\"9\" fill=\"{PicturePalette.Surface}\">{Escape(s.Flag)}</text>"));
         }
     }
 
