@@ -29,7 +29,7 @@ public class ActivityEntryTests
         var e = c.Activity[0];
 
         // Oracle: version-1 content written out by hand from the ActivityEntry remarks.
-        var text = $"eventreview-activity-v1\nC31-0314A\n1\n2031-03-14T09:26:53.0000000Z\nu-coord\nAda Quill\ncase.opened\n\n{e.Text}\n{ActivityEntry.GenesisHash}";
+        var text = $"eventreview-activity-v1\nER-C-0314\n1\n2031-03-14T09:26:53.0000000Z\nu-coord\nAda Quill\ncase.opened\n\n{e.Text}\n{ActivityEntry.GenesisHash}";
 
         Assert.Equal(Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text))), e.Hash);
         Assert.Equal(text, e.CanonicalContent());
