@@ -28,7 +28,7 @@ public class OriginalityScanTests
         new("the name of the body that decides, as a famous talk put it", new Regex(@"d[e]tection\s+committee", AnyCase), Everywhere, [], "detection" + "\ncommittee"),
         new("the legacy chain verdict words outside the legacy verdict table and fixtures", new Regex(@"\b(?:n[o]thing|s[o]mething)\s+added\b", AnyCase), Everywhere,
             ["src/EventReview.Core/Verdicts/VerdictWords.cs", "tests/EventReview.Web.Tests/Checks/Legacy/"], "no" + "thing added"),
-        new("letter+digit site codes in test networks", new Regex(@"(?<!ToString\()""[A-Z][0-9][""=,]|\\n[A-Z][0-9],", Plain), Tests, [], "\"M" + "2\""),
+        new("letter+digit site codes in test networks", new Regex(@"(?<!ToString\()[""'][A-Z][0-9][""'=,]|\\n[A-Z][0-9],", Plain), Tests, [], "\"M" + "2\""),
         new("the band of one famous analysis", new Regex(@"\b3[0]\s*(?:-|–|,|to)\s*350\b", AnyCase), Everywhere, [], "30" + "-350 Hz"),
         new("the network SNR of one famous detection", new Regex(@"network\s+SNR\s+(?:of\s+)?2[4]\b|NetworkSnr:\s*2[4]\b", AnyCase), Everywhere, [], "network SNR " + "24"),
         new("the mains frequency of one famous analysis", new Regex(@"\b6[0]\s*Hz\s+mains|mains[^.\n]{0,30}\b6[0]\s*Hz", AnyCase), Everywhere, [], "60" + " Hz mains"),
