@@ -55,7 +55,7 @@ public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, Accoun
         // A fixed instant: the simulated strain, sky direction and sidereal time of this candidate (and so its overlap
         // result) are then the same on every start; the other candidates follow the clock.
         var t1 = new GpsTime(1_479_697_331_201_000_000);
-        var d1 = new DemoCandidate("ER-C-0142", t1, 41.0, -23.0, 0.7, ["KP", "AB", "SM"], [15.9, 18.2, 9.9]);
+        var d1 = new DemoCandidate("ER-C-0142", t1, 41.0, -23.0, 0.7, ["KP", "AB", "SM"], [17.1, 19.5, 10.6]);
         var (c1, _) = await cases.OpenAsync(coordinator, Request(d1, sites,
             "Loud short chirp-like transient seen at all three sites; raised by the demo matched-filter search.", "candidate-review"), ct);
         var rA = users.Users.First(u => u.DisplayName == "Demo Reviewer A");
