@@ -3,7 +3,7 @@ using System.Text.RegularExpressions;
 namespace EventReview.Core.Tests.Repository;
 
 /// <summary>
-/// Scans the tracked files of src, tests, docs, checklists and the README for names, labels, colours and numbers that belong to
+/// Scans the tracked files of src, tests, docs, checklists, benchmarks and the README for names, labels, colours and numbers that belong to
 /// existing programs of this trade or to one famous analysis (issue 16). Every pattern is written so that this file does not
 /// match it (a one-character class such as <c>S[E]I</c> breaks the literal), and each rule proves it can fail on an example.
 /// </summary>
@@ -11,8 +11,8 @@ public class OriginalityScanTests
 {
     private const RegexOptions Plain = RegexOptions.CultureInvariant;
     private const RegexOptions AnyCase = RegexOptions.CultureInvariant | RegexOptions.IgnoreCase;
-    private static readonly string[] Everywhere = ["src/", "tests/", "docs/", "checklists/", "README.md"];
-    private static readonly string[] Tests = ["tests/"];
+    private static readonly string[] Everywhere = ["src/", "tests/", "docs/", "checklists/", "README.md", "benchmarks/"];
+    private static readonly string[] Tests = ["tests/", "benchmarks/"];
 
     private static readonly OriginalityRule[] Rules =
     [
@@ -53,7 +53,7 @@ public class OriginalityScanTests
         var rule = Rules.Single(r => r.Name == name);
         Assert.Matches(rule.Pattern, rule.Example); // the rule can fail
 
-        var hits = TrackedFiles.Read("src", "tests", "docs", "checklists", "README.md")
+        var hits = TrackedFiles.Read("src", "tests", "docs", "checklists", "README.md", "benchmarks")
             .Where(f => rule.Scans(f.Path))
             .SelectMany(f => rule.Pattern.Matches(f.Text).Select(m => $"{f.Path}:{Line(f.Text, m.Index)}: {m.Value.ReplaceLineEndings(" ")}"))
             .ToList();
