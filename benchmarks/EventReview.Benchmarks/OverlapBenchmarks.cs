@@ -29,7 +29,7 @@ public class OverlapBenchmarks
         // MathNet is only used for non-power-of-two FFTs here; single-threaded was faster on 2 cores.
         Control.UseSingleThread();
         var start = GpsTime.FromSeconds(1300000000m);
-        SiteProjection[] sites = [new("KX", 0, 0.8, 0.1), new("M2", 0.0071, -0.6, -0.075)];
+        SiteProjection[] sites = [new("KX", 0, 0.8, 0.1), new("MV", 0.0112, -0.6, -0.075)];
         var sim = NetworkSimulator.Simulate(sites, new SimulationOptions(start, 32, 4096, 1, new ChirpParameters(8, InclinationRad: 0.3), null, 30));
         _a = sim.Sites[0].Strain;
         _b = sim.Sites[1].Strain;

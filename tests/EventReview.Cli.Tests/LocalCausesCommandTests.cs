@@ -8,8 +8,8 @@ namespace EventReview.Cli.Tests;
 [Collection("Console")]
 public class LocalCausesCommandTests
 {
-    private static readonly string Segments = CliRunner.TempFile("site,flag,start_gps,end_gps\nKX,WIND,1000000000,1000000000.5\n");
-    private static readonly string Triggers = CliRunner.TempFile("site,channel,gps_time,snr\nKX,SEIS_X,1000000000.3,12\nKX,SEIS_X,1000000900,5\nM2,MAG_Z,1000000050,9\n");
+    private static readonly string Segments = CliRunner.TempFile("site,flag,start_gps,end_gps\nKX,gusty-wind,1000000000,1000000000.5\n");
+    private static readonly string Triggers = CliRunner.TempFile("site,channel,gps_time,snr\nKX,env/seismometer-hall/x,1000000000.3,12\nKX,env/seismometer-hall/x,1000000900,5\nMV,env/magnetometer-vault/z,1000000050,9\n");
     private static readonly string Injections = CliRunner.TempFile("site,start_gps,end_gps,kind,waveform_ref,status\nKX,1000000500,1000000500.1,burst,w1,performed\n");
 
     [Fact]
@@ -21,14 +21,14 @@ public class LocalCausesCommandTests
         using var doc = JsonDocument.Parse(output);
         var hit = Assert.Single(doc.RootElement.GetProperty("hits").EnumerateArray());
         Assert.Equal("KX", hit.GetProperty("site").GetString());
-        Assert.Equal("SEIS_X", hit.GetProperty("channel").GetString());
+        Assert.Equal("env/seismometer-hall/x", hit.GetProperty("channel").GetString());
         Assert.Equal("other", hit.GetProperty("kind").GetString());
         Assert.Equal(0.2, hit.GetProperty("offsetSeconds").GetDouble(), 1e-9);
         Assert.Equal(12, hit.GetProperty("snr").GetDouble());
         Assert.True(hit.GetProperty("chanceProbability").GetDouble() > 0);
         Assert.Equal(JsonValueKind.True, hit.GetProperty("safe").ValueKind);
         var seg = Assert.Single(doc.RootElement.GetProperty("segments").EnumerateArray());
-        Assert.Equal("WIND", seg.GetProperty("flag").GetString());
+        Assert.Equal("gusty-wind", seg.GetProperty("flag").GetString());
         Assert.Equal(1000000000.5, seg.GetProperty("endGps").GetDouble());
         Assert.Equal("concern", doc.RootElement.GetProperty("verdict").GetString());
         Assert.Contains("KX", doc.RootElement.GetProperty("reason").GetString());
@@ -51,7 +51,7 @@ public class LocalCausesCommandTests
         var (exit, output, err) = CliRunner.Run(EnvironmentCommand.Build(), args);
         Assert.True(exit == 0, err);
         using var doc = JsonDocument.Parse(output);
-        var (a, b) = (Site("KX"), Site("M2"));
+        var (a, b) = (Site("KX"), Site("MV"));
         Assert.Equal(EventReview.Core.Geodesy.Baseline.Between(a, b).LightTravelSeconds, doc.RootElement.GetProperty("lightTravelSeconds").GetDouble(), 1e-6);
         Assert.StartsWith("network", doc.RootElement.GetProperty("lightTravelSource").GetString(), StringComparison.Ordinal);
 
@@ -65,7 +65,7 @@ public class LocalCausesCommandTests
     private const string Network = """
         {"name": "Invented", "sites": [
           {"code": "KX", "name": "Site KX", "latitudeDegrees": 12, "longitudeDegrees": 31, "heightMeters": 100, "xArmAzimuthDegrees": 10, "yArmAzimuthDegrees": 100, "timingUncertaintySeconds": 0.0001},
-          {"code": "M2", "name": "Site M2", "latitudeDegrees": -20, "longitudeDegrees": 80, "heightMeters": 0, "xArmAzimuthDegrees": 200, "yArmAzimuthDegrees": 290, "timingUncertaintySeconds": 0.0001}]}
+          {"code": "MV", "name": "Site MV", "latitudeDegrees": -20, "longitudeDegrees": 80, "heightMeters": 0, "xArmAzimuthDegrees": 200, "yArmAzimuthDegrees": 290, "timingUncertaintySeconds": 0.0001}]}
         """;
 
     private static EventReview.Core.Network.Site Site(string code) =>
@@ -74,7 +74,7 @@ public class LocalCausesCommandTests
     [Fact]
     public void Environment_rejects_a_bad_segment_with_exit_2_and_one_line_naming_it()
     {
-        var bad = CliRunner.TempFile("site,flag,start_gps,end_gps\nKX,WIND,1000000001,1000000000\n");
+        var bad = CliRunner.TempFile("site,flag,start_gps,end_gps\nKX,gusty-wind,1000000001,1000000000\n");
         var (exit, _, err) = CliRunner.Run(EnvironmentCommand.Build(), "environment", "--case-gps", "1000000000", "--segments", bad, "--triggers", Triggers, "--json");
         Assert.Equal(2, exit);
         Assert.Single(err.Trim().Split('\n'));
@@ -91,7 +91,7 @@ public class LocalCausesCommandTests
         var channels = doc.RootElement.GetProperty("channels").EnumerateArray().ToList();
         Assert.Equal(2, channels.Count);
         var k1 = channels.Single(c => c.GetProperty("site").GetString() == "KX");
-        Assert.Equal("SEIS_X", k1.GetProperty("channel").GetString());
+        Assert.Equal("env/seismometer-hall/x", k1.GetProperty("channel").GetString());
         Assert.Equal(0, k1.GetProperty("coincident").GetInt32());
         Assert.True(k1.GetProperty("expected").GetDouble() > 0);
         Assert.Equal(1.0, k1.GetProperty("binomialProbability").GetDouble());
@@ -99,7 +99,7 @@ public class LocalCausesCommandTests
         Assert.True(k1.GetProperty("safe").GetBoolean());
         Assert.Equal("safe", k1.GetProperty("verdict").GetString());
         Assert.True(k1.GetProperty("deadtimeSeconds").GetDouble() > 0);
-        Assert.Equal(JsonValueKind.Null, channels.Single(c => c.GetProperty("site").GetString() == "M2").GetProperty("safe").ValueKind);
+        Assert.Equal(JsonValueKind.Null, channels.Single(c => c.GetProperty("site").GetString() == "MV").GetProperty("safe").ValueKind);
         Assert.Equal("safe", doc.RootElement.GetProperty("verdict").GetString());
     }
 
@@ -111,13 +111,13 @@ public class LocalCausesCommandTests
         var inj = new StringBuilder("site,start_gps,end_gps,kind,waveform_ref,status\n");
         for (var j = 0; j < 750; j++)
         {
-            trig.Append(CultureInfo.InvariantCulture, $"KX,ACT,{1000000000 + (4 * j) + 0.5},6\n");
+            trig.Append(CultureInfo.InvariantCulture, $"KX,inst/actuator-readback,{1000000000 + (4 * j) + 0.5},6\n");
         }
 
         for (var m = 0; m < 30; m++)
         {
             inj.Append(CultureInfo.InvariantCulture, $"KX,{1000000000 + (100 * m) + 2},{1000000000 + (100 * m) + 2.2},burst,w,performed\n");
-            trig.Append(CultureInfo.InvariantCulture, $"KX,ACT,{1000000000 + (100 * m) + 2.1},20\n");
+            trig.Append(CultureInfo.InvariantCulture, $"KX,inst/actuator-readback,{1000000000 + (100 * m) + 2.1},20\n");
         }
 
         var (exit, output, err) = CliRunner.Run(SafetyCommand.Build(), "safety", "--triggers", CliRunner.TempFile(trig.ToString()), "--injections", CliRunner.TempFile(inj.ToString()),

@@ -82,14 +82,14 @@ public sealed class OptionRangesTests
     public void The_tool_exits_with_2_for_a_number_out_of_range_and_says_which()
     {
         var network = CliRunner.TempFile("""
-            {"name": "Demo net", "sites": [
-              {"code": "KX", "name": "Site KX", "latitudeDegrees": 46, "longitudeDegrees": -119, "heightMeters": 100, "xArmAzimuthDegrees": 36, "yArmAzimuthDegrees": 126, "timingUncertaintySeconds": 0.0001},
-              {"code": "M2", "name": "Site M2", "latitudeDegrees": 30, "longitudeDegrees": -90, "heightMeters": 0, "xArmAzimuthDegrees": 252, "yArmAzimuthDegrees": 342, "timingUncertaintySeconds": 0.0001}]}
+            {"name": "Invented test network", "sites": [
+              {"code": "KX", "name": "Site KX", "latitudeDegrees": 44, "longitudeDegrees": -101, "heightMeters": 100, "xArmAzimuthDegrees": 62, "yArmAzimuthDegrees": 152, "timingUncertaintySeconds": 0.0001},
+              {"code": "MV", "name": "Site MV", "latitudeDegrees": 19, "longitudeDegrees": -71, "heightMeters": 0, "xArmAzimuthDegrees": 117, "yArmAzimuthDegrees": 207, "timingUncertaintySeconds": 0.0001}]}
             """, ".json");
         try
         {
-            var (exit, _, err) = RunProgram("timing", "--network", network, "--arrival", "KX=1400000000", "--arrival", "M2=1400000000.003", "--k-sigma", "1e308");
-            var (ok, output, _) = RunProgram("timing", "--network", network, "--arrival", "KX=1400000000", "--arrival", "M2=1400000000.003", "--k-sigma", "3");
+            var (exit, _, err) = RunProgram("timing", "--network", network, "--arrival", "KX=1400000000", "--arrival", "MV=1400000000.003", "--k-sigma", "1e308");
+            var (ok, output, _) = RunProgram("timing", "--network", network, "--arrival", "KX=1400000000", "--arrival", "MV=1400000000.003", "--k-sigma", "3");
 
             Assert.Equal(2, exit);
             Assert.Contains("--k-sigma: expected a finite number from 0 to 10 (got 1e308)", err, StringComparison.Ordinal);

@@ -121,7 +121,7 @@ public class DossierExporterTests
             await p.WaitForExitAsync();
 
             Assert.Equal(0, p.ExitCode);
-            Assert.Contains("C31-0314A", text);
+            Assert.Contains("ER-C-0314", text);
             Assert.Contains("timing.delay", text);
             Assert.Contains("Cleo Vance (stale)", text);
         }

@@ -110,7 +110,7 @@ public class DossierRenderingCheckTests
     {
         var text = PdfText.Extract((await FilesAsync())["summary.pdf"]);
 
-        Assert.Contains("Review dossier: C31-0314A", text);
+        Assert.Contains("Review dossier: ER-C-0314", text);
         Assert.Contains(text, t => t.Contains("Cleo Vance (stale)", StringComparison.Ordinal));
         Assert.Empty(PdfText.Extract("not a pdf"u8.ToArray()));
     }

@@ -70,7 +70,7 @@ public static class EnvironmentCommand
             var sensorData = new Dictionary<string, TimeSeries>(StringComparer.Ordinal);
             foreach (var sensor in sensors)
             {
-                var key = EnvironmentLookupInput.Key(sensor.Site, sensor.Channel);
+                var key = ChannelName.Qualified(sensor.Site, sensor.Channel);
                 if (sensor.CouplingFile is { } cf)
                 {
                     couplingFunctions[key] = LocalCausesInput.Read(Path.Combine(folder, cf), $"--inventory coupling file of {key}", r => FrequencyTable.Parse(r, "coupling"));
@@ -130,7 +130,7 @@ public static class EnvironmentCommand
             foreach (var h in report.Hits)
             {
                 Console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                    $"hit {h.Site} {h.Channel} [{h.Kind}] offset {h.OffsetSeconds:+0.0000;-0.0000} s SNR {h.Snr:G4} chance {h.ChanceProbability:G3} safe {(h.Safe is null ? "unknown" : h.Safe.Value ? "yes" : "no")}{(h.CouplingRatio is { } cr ? $" coupling {cr:P1} ({h.CouplingInputs})" : string.Empty)}"));
+                    $"hit {ChannelName.Qualified(h.Site, h.Channel)} [{h.Kind}] offset {h.OffsetSeconds:+0.0000;-0.0000} s SNR {h.Snr:G4} chance {h.ChanceProbability:G3} safe {(h.Safe is null ? "unknown" : h.Safe.Value ? "yes" : "no")}{(h.CouplingRatio is { } cr ? $" coupling {cr:P1} ({h.CouplingInputs})" : string.Empty)}"));
             }
 
             foreach (var sg in report.Segments)

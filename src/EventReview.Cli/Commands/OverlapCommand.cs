@@ -26,7 +26,7 @@ public static class OverlapCommand
         var kSigma = new Option<double>("--k-sigma") { Description = "k in the lag limit (light-travel + k x combined timing uncertainty), default 3", DefaultValueFactory = _ => 3 };
         var maxLag = new Option<double?>("--max-lag-ms") { Description = "largest |lag| searched and allowed, ms, given by hand (overrides --network)" };
         var window = new Option<double>("--window-s") { Description = "correlation window length in seconds", DefaultValueFactory = _ => 0.2 };
-        var band = new Option<string>("--band") { Description = "band-pass edges in Hz, low,high", DefaultValueFactory = _ => "30,350" };
+        var band = new Option<string>("--band") { Description = string.Create(CultureInfo.InvariantCulture, $"band-pass edges in Hz, low,high (default {ConditioningOptions.DefaultLowHz},{ConditioningOptions.DefaultHighHz})"), DefaultValueFactory = _ => string.Create(CultureInfo.InvariantCulture, $"{ConditioningOptions.DefaultLowHz},{ConditioningOptions.DefaultHighHz}") };
         var psdSeg = new Option<double>("--psd-segment-s") { Description = "Welch PSD segment length in seconds", DefaultValueFactory = _ => 4 };
         var offsource = new Option<int>("--offsource") { Description = "number of off-source (time-slid) overlaps for a p-value", DefaultValueFactory = _ => 0 };
         var threshold = new Option<double>("--overlap-threshold") { Description = "smallest overlap called consistent (our default 0.5)", DefaultValueFactory = _ => 0.5 };

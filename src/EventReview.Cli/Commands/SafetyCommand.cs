@@ -40,7 +40,7 @@ public static class SafetyCommand
             foreach (var c in report.Channels)
             {
                 Console.Out.WriteLine(string.Create(CultureInfo.InvariantCulture,
-                    $"{c.Site} {c.Channel}: {c.Coincident}/{c.Injections} coincident, expected {c.Expected:G3} (q {c.ChanceProbabilityPerInjection:G3}, R {c.RateHz:G3} Hz away from injections), binomial P {c.BinomialProbability:G3}, deadtime {c.DeadtimeSeconds:G4} s ({c.DeadtimeFraction:P2}): {c.Judgement.Word}"));
+                    $"{ChannelName.Qualified(c.Site, c.Channel)}: {c.Coincident}/{c.Injections} coincident, expected {c.Expected:G3} (q {c.ChanceProbabilityPerInjection:G3}, R {c.RateHz:G3} Hz away from injections), binomial P {c.BinomialProbability:G3}, deadtime {c.DeadtimeSeconds:G4} s ({c.DeadtimeFraction:P2}): {c.Judgement.Word}"));
             }
 
             Console.Out.WriteLine($"verdict: {report.Judgement.Word} ({report.Judgement.Reason})");

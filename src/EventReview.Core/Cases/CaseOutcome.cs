@@ -1,6 +1,6 @@
 namespace EventReview.Core.Cases;
 
-/// <summary>The committee's conclusion when a case is closed.</summary>
+/// <summary>The decision board's conclusion when a case is closed.</summary>
 public enum CaseOutcome
 {
     /// <summary>The candidate is judged to be a signal of astrophysical origin.</summary>

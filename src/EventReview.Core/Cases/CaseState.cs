@@ -9,7 +9,7 @@ public enum CaseState
     /// <summary>The team is working through the checklist.</summary>
     InReview,
 
-    /// <summary>Every required item is signed; the committee is to decide.</summary>
+    /// <summary>Every required item is signed; the decision board is to decide.</summary>
     AwaitingDecision,
 
     /// <summary>Decided; nothing more can change.</summary>

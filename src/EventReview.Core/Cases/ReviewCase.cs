@@ -268,7 +268,7 @@ public sealed class ReviewCase
         EnsureNotClosed();
         if (State is not (CaseState.Open or CaseState.InReview))
         {
-            throw new DomainRuleException("invalid-transition", $"Case is '{StateNames.Of(State)}'; only an open or in-review case can go to the committee.");
+            throw new DomainRuleException("invalid-transition", $"Case is '{StateNames.Of(State)}'; only an open or in-review case can go to the decision board.");
         }
 
         EnsureAllSigned("submit it for decision");

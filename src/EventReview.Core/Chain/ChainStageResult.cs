@@ -29,7 +29,7 @@ public sealed record ChainStageResult
     /// <summary>GPS time of that largest on-source excursion, seconds.</summary>
     public required double MaxExcessGps { get; init; }
 
-    /// <summary>True when <see cref="MaxExcessSigma"/> exceeds <see cref="ThresholdSigma"/>: an on-source excess (something added, or the model is wrong).</summary>
+    /// <summary>True when <see cref="MaxExcessSigma"/> exceeds <see cref="ThresholdSigma"/>: an on-source excess (an addition to the data, or a wrong model).</summary>
     public required bool Added { get; init; }
 
     /// <summary>Per-sample threshold in robust sigma: two-sided normal tail 2 Q(z) = 1 - (1 - P)^(1/n) for the stated P over n on-source samples.</summary>

@@ -1,5 +1,6 @@
 using System.Globalization;
 using System.Text;
+using EventReview.Core.Pictures;
 
 namespace EventReview.Core.Chain;
 
@@ -34,28 +35,28 @@ public static class DataChainSvg
         sb.Append(F($"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{Width}\" height=\"{height}\" viewBox=\"0 0 {Width} {height}\" font-family=\"sans-serif\" font-size=\"11\">"));
         foreach (var top in new[] { 10.0, PanelHeight + 30 })
         {
-            sb.Append(F($"<rect x=\"{Left}\" y=\"{top}\" width=\"{X(trace.FirstValid) - Left}\" height=\"{PanelHeight}\" fill=\"#eee\"/>"));
-            sb.Append(F($"<rect x=\"{X(trace.LastValid)}\" y=\"{top}\" width=\"{Width - Right - X(trace.LastValid)}\" height=\"{PanelHeight}\" fill=\"#eee\"/>"));
+            sb.Append(F($"<rect x=\"{Left}\" y=\"{top}\" width=\"{X(trace.FirstValid) - Left}\" height=\"{PanelHeight}\" fill=\"{PicturePalette.Rule}\"/>"));
+            sb.Append(F($"<rect x=\"{X(trace.LastValid)}\" y=\"{top}\" width=\"{Width - Right - X(trace.LastValid)}\" height=\"{PanelHeight}\" fill=\"{PicturePalette.Rule}\"/>"));
             var a = Math.Clamp((int)Math.Round((centerGps - windowSeconds - trace.StartGps) * trace.SampleRateHz), 0, n - 1);
             var b = Math.Clamp((int)Math.Round((centerGps + windowSeconds - trace.StartGps) * trace.SampleRateHz), 0, n - 1);
-            sb.Append(F($"<rect x=\"{X(a)}\" y=\"{top}\" width=\"{X(b) - X(a)}\" height=\"{PanelHeight}\" fill=\"#fdf2e0\"/>"));
-            sb.Append(F($"<rect x=\"{Left}\" y=\"{top}\" width=\"{Width - Left - Right}\" height=\"{PanelHeight}\" fill=\"none\" stroke=\"#000\"/>"));
+            sb.Append(F($"<rect x=\"{X(a)}\" y=\"{top}\" width=\"{X(b) - X(a)}\" height=\"{PanelHeight}\" fill=\"{PicturePalette.WarmTint}\"/>"));
+            sb.Append(F($"<rect x=\"{Left}\" y=\"{top}\" width=\"{Width - Left - Right}\" height=\"{PanelHeight}\" fill=\"none\" stroke=\"{PicturePalette.Text}\"/>"));
         }
 
         var outMax = Math.Max(1e-300, trace.Recorded.Concat(trace.Predicted).Max(Math.Abs));
-        Polyline(sb, trace.Recorded, X, 10, outMax, "#000");
-        Polyline(sb, trace.Predicted, X, 10, outMax, "#e67e22");
+        Polyline(sb, trace.Recorded, X, 10, outMax, PicturePalette.Text);
+        Polyline(sb, trace.Predicted, X, 10, outMax, PicturePalette.Warm);
         var resMax = Math.Max(1.2 * sigmaThreshold * result.RobustSigma, trace.Residual.Skip(trace.FirstValid).Take(trace.LastValid - trace.FirstValid + 1).Select(Math.Abs).DefaultIfEmpty(0).Max());
         var y0 = PanelHeight + 30;
         foreach (var s in new[] { sigmaThreshold, -sigmaThreshold })
         {
             var y = Math.Round(y0 + (PanelHeight / 2) - (s * result.RobustSigma / Math.Max(resMax, 1e-300) * (PanelHeight / 2 - 4)), 2);
-            sb.Append(F($"<line x1=\"{Left}\" y1=\"{y}\" x2=\"{Width - Right}\" y2=\"{y}\" stroke=\"#c0392b\" stroke-dasharray=\"4,3\"/>"));
+            sb.Append(F($"<line x1=\"{Left}\" y1=\"{y}\" x2=\"{Width - Right}\" y2=\"{y}\" stroke=\"{PicturePalette.Brick}\" stroke-dasharray=\"4,3\"/>"));
         }
 
-        Polyline(sb, trace.Residual, X, y0, resMax, "#2c6fbb");
+        Polyline(sb, trace.Residual, X, y0, resMax, PicturePalette.Ink);
         var best = (int)Math.Round((result.MaxExcessGps - trace.StartGps) * trace.SampleRateHz);
-        sb.Append(F($"<line x1=\"{X(Math.Clamp(best, 0, n - 1))}\" y1=\"{y0}\" x2=\"{X(Math.Clamp(best, 0, n - 1))}\" y2=\"{y0 + PanelHeight}\" stroke=\"#c0392b\"/>"));
+        sb.Append(F($"<line x1=\"{X(Math.Clamp(best, 0, n - 1))}\" y1=\"{y0}\" x2=\"{X(Math.Clamp(best, 0, n - 1))}\" y2=\"{y0 + PanelHeight}\" stroke=\"{PicturePalette.Brick}\"/>"));
         sb.Append(F($"<text x=\"{Left + 4}\" y=\"24\">recorded (black) and predicted (orange) output</text>"));
         sb.Append(F($"<text x=\"{Left + 4}\" y=\"{y0 + 14}\">residual, ±{sigmaThreshold:0.00} robust sigma (on-source threshold) dashed; on-source window tinted</text>"));
         var axisY = y0 + PanelHeight + 14;

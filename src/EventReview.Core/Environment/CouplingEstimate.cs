@@ -21,7 +21,7 @@ public static class CouplingEstimate
     /// </summary>
     /// <param name="coupling">Coupling function, strain per sensor unit vs Hz.</param>
     /// <param name="options">Band, candidate amplitudes, flag fraction and sensor amplitudes.</param>
-    /// <param name="channelKey">"SITE:channel" key into the per-channel dictionaries; the site is the part before the first ':'.</param>
+    /// <param name="channelKey">Key into the per-channel dictionaries, <see cref="ChannelName.Qualified"/> of site and channel; the site is the part before the first slash.</param>
     /// <param name="snr">Trigger SNR (&gt;= 0).</param>
     /// <param name="frequencyHz">Trigger frequency in Hz, or null.</param>
     public static CouplingResult? Estimate(FrequencyTable coupling, CouplingOptions options, string channelKey, double snr, double? frequencyHz)
@@ -29,7 +29,7 @@ public static class CouplingEstimate
         ArgumentNullException.ThrowIfNull(coupling);
         ArgumentNullException.ThrowIfNull(channelKey);
         Validate(options);
-        var site = channelKey.Split(':', 2)[0];
+        var site = ChannelName.SiteOf(channelKey);
         (double Value, string Source)? candidate = options.MeasuredStrainAmplitudes?.TryGetValue(site, out var hm) == true
             ? (hm, "strain data")
             : options.CandidateStrainAmplitude is { } typed ? (typed, "typed") : null;

@@ -85,7 +85,7 @@ public static class CouplingMeasurement
     /// </summary>
     /// <param name="typed">Band, flag fraction and the typed fallbacks.</param>
     /// <param name="strainBySite">Strain series keyed by upper-case site code.</param>
-    /// <param name="sensorByChannel">Sensor series keyed "SITE:channel".</param>
+    /// <param name="sensorByChannel">Sensor series keyed by <see cref="ChannelName.Qualified"/> (site and channel).</param>
     /// <param name="arrivalOf">The arrival (or case) time of a site.</param>
     public static (CouplingOptions Options, IReadOnlyList<string> Notes) FromData(CouplingOptions typed, IReadOnlyDictionary<string, TimeSeries> strainBySite,
         IReadOnlyDictionary<string, TimeSeries> sensorByChannel, Func<string, GpsTime> arrivalOf)
@@ -115,7 +115,7 @@ public static class CouplingMeasurement
         {
             try
             {
-                var m = SensorNoise(series, arrivalOf(key.Split(':', 2)[0]), typed.BandLowHz, typed.BandHighHz);
+                var m = SensorNoise(series, arrivalOf(ChannelName.SiteOf(key)), typed.BandLowHz, typed.BandHighHz);
                 noise[key] = m.Value;
                 notes.Add($"coupling of {key}: sensor noise amplitude read from sensor data, {m.Description}");
             }

@@ -15,11 +15,11 @@ namespace EventReview.Core.Environment;
 /// <param name="FlagFraction">Flag when estimate / candidate &gt;= this (default 0.1: a common-practice margin, not a published rule).</param>
 /// <param name="DefaultSensorNoiseAmplitude">Typed noise amplitude (RMS in the band, sensor units) of any sensor without its own value; null means
 /// "no estimate without a per-channel value, sensor data or spectrum".</param>
-/// <param name="SensorNoiseAmplitudes">Typed per-channel noise amplitudes keyed "SITE:channel" (sensor units).</param>
-/// <param name="SensorAmplitudeSpectra">Per-channel measured amplitude spectra at the event keyed "SITE:channel" (sensor units vs Hz);
+/// <param name="SensorNoiseAmplitudes">Typed per-channel noise amplitudes keyed by <see cref="ChannelName.Qualified"/> of site and channel (sensor units).</param>
+/// <param name="SensorAmplitudeSpectra">Per-channel measured amplitude spectra at the event keyed by <see cref="ChannelName.Qualified"/> of site and channel (sensor units vs Hz);
 /// when present they replace the SNR x noise model.</param>
 /// <param name="MeasuredStrainAmplitudes">Candidate strain amplitude per site code read from strain data (<see cref="CouplingMeasurement.CandidateStrain"/>).</param>
-/// <param name="MeasuredSensorNoiseAmplitudes">Sensor noise amplitude per "SITE:channel" read from sensor data (<see cref="CouplingMeasurement.SensorNoise"/>).</param>
+/// <param name="MeasuredSensorNoiseAmplitudes">Sensor noise amplitude per channel (key <see cref="ChannelName.Qualified"/>) read from sensor data (<see cref="CouplingMeasurement.SensorNoise"/>).</param>
 public sealed record CouplingOptions(
     double? CandidateStrainAmplitude,
     double BandLowHz,

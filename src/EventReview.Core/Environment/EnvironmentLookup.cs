@@ -23,7 +23,7 @@ public static class EnvironmentLookup
         ArgumentNullException.ThrowIfNull(input);
         options ??= new EnvironmentLookupOptions();
         Validate(options);
-        var kinds = input.Sensors.GroupBy(s => EnvironmentLookupInput.Key(s.Site, s.Channel)).ToDictionary(g => g.Key, g => g.First());
+        var kinds = input.Sensors.GroupBy(s => ChannelName.Qualified(s.Site, s.Channel)).ToDictionary(g => g.Key, g => g.First());
         var sites = input.Sites.Concat(input.Arrivals.Keys).Select(s => s.ToUpperInvariant()).Distinct().Order(StringComparer.Ordinal).ToList();
         var hits = new List<EnvironmentHit>();
         var segments = new List<ActiveSegment>();
@@ -44,7 +44,7 @@ public static class EnvironmentLookup
             var siteTriggers = input.Triggers.Where(t => t.Site == site).ToList();
             foreach (var trig in siteTriggers)
             {
-                var key = EnvironmentLookupInput.Key(site, trig.Channel);
+                var key = ChannelName.Qualified(site, trig.Channel);
                 var kind = kinds.TryGetValue(key, out var sensor) ? sensor.Kind : SensorKind.Other;
                 if (sensor is null)
                 {
@@ -76,18 +76,18 @@ public static class EnvironmentLookup
                 if (concern)
                 {
                     reasons.Add(string.Create(CultureInfo.InvariantCulture,
-                        $"trigger of {trig.Channel} ({kind.ToString().ToLowerInvariant()}, SNR {trig.Snr:G4}) at {offset:+0.000;-0.000} s, safety {(safe is null ? "unknown" : "safe")}"));
+                        $"trigger of {key} ({kind.ToString().ToLowerInvariant()}, SNR {trig.Snr:G4}) at {offset:+0.000;-0.000} s, safety {(safe is null ? "unknown" : "safe")}"));
                 }
 
                 if (coupling?.Flagged == true)
                 {
                     reasons.Add(string.Create(CultureInfo.InvariantCulture,
-                        $"coupling of {trig.Channel} could reach {coupling.Ratio:P0} of the candidate's strain"));
+                        $"coupling of {key} could reach {coupling.Ratio:P0} of the candidate's strain"));
                 }
 
                 if (input.ObservingSegments is { } obs && !obs.Any(s => s.Site == site && s.Start <= trig.Time && s.End > trig.Time))
                 {
-                    warnings.Add($"trigger of {site}:{trig.Channel} at {trig.Time} lies outside every observing segment of the site");
+                    warnings.Add($"trigger of {key} at {trig.Time} lies outside every observing segment of the site");
                 }
             }
 

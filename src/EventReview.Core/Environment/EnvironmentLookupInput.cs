@@ -10,7 +10,7 @@ namespace EventReview.Core.Environment;
 /// <param name="Triggers">Auxiliary and environmental triggers.</param>
 /// <param name="Sensors">Sensor inventory; channels missing from it are treated as kind <see cref="SensorKind.Other"/>.</param>
 /// <param name="Safety">Veto-safety results, or null when not tested (every channel then has safety "unknown").</param>
-/// <param name="CouplingFunctions">Coupling functions keyed "SITE:channel", or null.</param>
+/// <param name="CouplingFunctions">Coupling functions keyed by <see cref="ChannelName.Qualified"/> (site and channel), or null.</param>
 /// <param name="ObservingSegments">Spans of analysable data per site, or null; hits outside them are reported as warnings.</param>
 public sealed record EnvironmentLookupInput(
     GpsTime CaseTime,
@@ -21,8 +21,4 @@ public sealed record EnvironmentLookupInput(
     IReadOnlyList<Sensor> Sensors,
     VetoSafetyReport? Safety = null,
     IReadOnlyDictionary<string, FrequencyTable>? CouplingFunctions = null,
-    IReadOnlyList<DataQualitySegment>? ObservingSegments = null)
-{
-    /// <summary>The "SITE:channel" key used by the per-channel dictionaries.</summary>
-    public static string Key(string site, string channel) => site.ToUpperInvariant() + ":" + channel;
-}
+    IReadOnlyList<DataQualitySegment>? ObservingSegments = null);

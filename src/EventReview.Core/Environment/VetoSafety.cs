@@ -74,7 +74,7 @@ public static class VetoSafety
         {
             const string why = "rate unknown: the site's triggers span no time outside the injection windows; give the live time";
             return new ChannelSafety(site.Code, channel, site.Performed.Count, coincident, 0, 0, 1, null, 0, rateTriggers, Math.Max(site.Exposure, 0),
-                deadtime, deadFraction, new Judgement(Verdict.NotRun, $"{site.Code}:{channel} not tested: {why}"), why);
+                deadtime, deadFraction, new Judgement(Verdict.NotRun, $"{ChannelName.Qualified(site.Code, channel)} not tested: {why}"), why);
         }
 
         var rate = rateTriggers / site.Exposure;
@@ -82,7 +82,7 @@ public static class VetoSafety
         {
             const string why = "no performed injection at this site";
             return new ChannelSafety(site.Code, channel, 0, 0, 0, 0, 1, null, rate, rateTriggers, site.Exposure, deadtime, deadFraction,
-                new Judgement(Verdict.NotRun, $"{site.Code}:{channel} not tested: {why}"), why);
+                new Judgement(Verdict.NotRun, $"{ChannelName.Qualified(site.Code, channel)} not tested: {why}"), why);
         }
 
         var q = site.Performed.Select(i => ChanceProbability(rate, w, i.DurationSeconds)).ToArray();
@@ -93,8 +93,8 @@ public static class VetoSafety
         var numbers = string.Create(Inv,
             $"{coincident} of {q.Length} injections coincident, {expected:0.###} expected by chance (q = {q.Average():0.####} per injection, R = {rate:0.####} Hz away from the injections); P(K ≥ {coincident}) = {probability:0.###e+0}");
         var judgement = safe
-            ? new Judgement(Verdict.VetoSafe, $"{site.Code}:{channel} safe: {numbers} ≥ {threshold:G3}")
-            : new Judgement(Verdict.VetoUnsafe, $"{site.Code}:{channel} unsafe, it responds to injections and must not veto: {numbers} < {threshold:G3}");
+            ? new Judgement(Verdict.VetoSafe, $"{ChannelName.Qualified(site.Code, channel)} safe: {numbers} ≥ {threshold:G3}")
+            : new Judgement(Verdict.VetoUnsafe, $"{ChannelName.Qualified(site.Code, channel)} unsafe, it responds to injections and must not veto: {numbers} < {threshold:G3}");
         return new ChannelSafety(site.Code, channel, q.Length, coincident, expected, q.Average(), probability, safe, rate, rateTriggers, site.Exposure,
             deadtime, deadFraction, judgement, sameQ ? null : "injection durations differ: Poisson-binomial over each injection's own q");
     }
@@ -106,7 +106,7 @@ public static class VetoSafety
         if (unsafeOnes.Count > 0)
         {
             return new Judgement(Verdict.VetoUnsafe, string.Create(Inv,
-                $"{unsafeOnes.Count} of {tested} tested channels respond to injections (binomial P < {threshold:G3}) and must not be used to veto: {string.Join(", ", unsafeOnes.Select(c => $"{c.Site}:{c.Channel}"))}"));
+                $"{unsafeOnes.Count} of {tested} tested channels respond to injections (binomial P < {threshold:G3}) and must not be used to veto: {string.Join(", ", unsafeOnes.Select(c => ChannelName.Qualified(c.Site, c.Channel)))}"));
         }
 
         return tested > 0

@@ -25,7 +25,7 @@ public sealed class SealedInjectionRecord
     /// <summary>Lowercase hex SHA-256 (64 characters) of the salt bytes followed by the record bytes.</summary>
     public string Commitment { get; private set; }
 
-    /// <summary>A short name for people ("blind injections, observing period 3").</summary>
+    /// <summary>A short name for people ("blind injections, spring engineering run").</summary>
     public string Label { get; private set; }
 
     /// <summary>User id of whoever registered the seal.</summary>

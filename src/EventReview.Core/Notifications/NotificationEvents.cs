@@ -16,7 +16,7 @@ public enum NotificationEvents
     /// <summary>Evidence changed after you signed an item: your sign-off is stale and no longer counts.</summary>
     StaleSignOff = 4,
 
-    /// <summary>Every item of a case you coordinate is signed: it can go to the committee for decision.</summary>
+    /// <summary>Every item of a case you coordinate is signed: it can go to the decision board.</summary>
     ReadyForDecision = 8,
 
     /// <summary>An integrity verification found a problem (coordinators only).</summary>

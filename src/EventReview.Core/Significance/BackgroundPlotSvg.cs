@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Security;
 using System.Text;
+using EventReview.Core.Pictures;
 using EventReview.Core.Statistics;
 
 namespace EventReview.Core.Significance;
@@ -49,14 +50,14 @@ public static class BackgroundPlotSvg
 
         var svg = new StringBuilder();
         svg.Append(F($"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{width}\" height=\"{height}\" viewBox=\"0 0 {width} {height}\" font-family=\"sans-serif\" font-size=\"12\">"));
-        svg.Append(F($"<rect x=\"0\" y=\"0\" width=\"{width}\" height=\"{height}\" fill=\"white\"/>"));
-        svg.Append(F($"<rect x=\"{Left}\" y=\"{Top}\" width=\"{plotW:F1}\" height=\"{plotH:F1}\" fill=\"none\" stroke=\"#444\"/>"));
+        svg.Append(F($"<rect x=\"0\" y=\"0\" width=\"{width}\" height=\"{height}\" fill=\"{PicturePalette.Surface}\"/>"));
+        svg.Append(F($"<rect x=\"{Left}\" y=\"{Top}\" width=\"{plotW:F1}\" height=\"{plotH:F1}\" fill=\"none\" stroke=\"{PicturePalette.TextSoft}\"/>"));
 
         // y decades
         for (var d = (int)yMin; d <= (int)yMax; d++)
         {
             var y = Y(Math.Pow(10, d));
-            svg.Append(F($"<line x1=\"{Left}\" y1=\"{y:F1}\" x2=\"{Left + plotW:F1}\" y2=\"{y:F1}\" stroke=\"#e4e4e4\"/>"));
+            svg.Append(F($"<line x1=\"{Left}\" y1=\"{y:F1}\" x2=\"{Left + plotW:F1}\" y2=\"{y:F1}\" stroke=\"{PicturePalette.Rule}\"/>"));
             svg.Append(F($"<text x=\"{Left - 6}\" y=\"{y + 4:F1}\" text-anchor=\"end\">1e{d}</text>"));
         }
 
@@ -65,7 +66,7 @@ public static class BackgroundPlotSvg
         for (var s = Math.Ceiling(xMin / xStep) * xStep; s <= xMax + 1e-9; s += xStep)
         {
             var x = X(s);
-            svg.Append(F($"<line x1=\"{x:F1}\" y1=\"{Top + plotH:F1}\" x2=\"{x:F1}\" y2=\"{Top + plotH + 5:F1}\" stroke=\"#444\"/>"));
+            svg.Append(F($"<line x1=\"{x:F1}\" y1=\"{Top + plotH:F1}\" x2=\"{x:F1}\" y2=\"{Top + plotH + 5:F1}\" stroke=\"{PicturePalette.TextSoft}\"/>"));
             svg.Append(F($"<text x=\"{x:F1}\" y=\"{Top + plotH + 18:F1}\" text-anchor=\"middle\">{s:G4}</text>"));
         }
 
@@ -73,8 +74,8 @@ public static class BackgroundPlotSvg
         foreach (var (label, rate) in new[] { ("3σ", rate3), ("5σ", rate5) })
         {
             var y = Y(rate);
-            svg.Append(F($"<line x1=\"{Left}\" y1=\"{y:F1}\" x2=\"{Left + plotW:F1}\" y2=\"{y:F1}\" stroke=\"#b05a00\" stroke-dasharray=\"6 4\"/>"));
-            svg.Append(F($"<text x=\"{Left + plotW - 4:F1}\" y=\"{y - 4:F1}\" text-anchor=\"end\" fill=\"#b05a00\">{label} ({rate:G3} Hz)</text>"));
+            svg.Append(F($"<line x1=\"{Left}\" y1=\"{y:F1}\" x2=\"{Left + plotW:F1}\" y2=\"{y:F1}\" stroke=\"{PicturePalette.Amber}\" stroke-dasharray=\"6 4\"/>"));
+            svg.Append(F($"<text x=\"{Left + plotW - 4:F1}\" y=\"{y - 4:F1}\" text-anchor=\"end\" fill=\"{PicturePalette.Amber}\">{label} ({rate:G3} Hz)</text>"));
         }
 
         // cumulative background as a step line (count at or above each statistic)
@@ -88,15 +89,15 @@ public static class BackgroundPlotSvg
             }
 
             path.Append(F($" H{X(curve[^1].Statistic + (xStep * 0.25)):F2}"));
-            svg.Append(F($"<path d=\"{path}\" fill=\"none\" stroke=\"#1f4e8c\" stroke-width=\"1.6\"/>"));
+            svg.Append(F($"<path d=\"{path}\" fill=\"none\" stroke=\"{PicturePalette.Ink}\" stroke-width=\"1.6\"/>"));
         }
 
         // candidate
         var cx = X(result.CandidateStatistic);
         var cy = Y(result.FarHz);
-        svg.Append(F($"<line x1=\"{cx:F1}\" y1=\"{Top}\" x2=\"{cx:F1}\" y2=\"{Top + plotH:F1}\" stroke=\"#a01010\" stroke-dasharray=\"2 3\"/>"));
-        svg.Append(F($"<circle cx=\"{cx:F1}\" cy=\"{cy:F1}\" r=\"5\" fill=\"{(result.FarIsBound ? "white" : "#a01010")}\" stroke=\"#a01010\" stroke-width=\"2\"/>"));
-        svg.Append(F($"<text x=\"{cx - 8:F1}\" y=\"{cy - 9:F1}\" text-anchor=\"end\" fill=\"#a01010\">candidate {(result.FarIsBound ? "< " : string.Empty)}{result.FarHz:G3} Hz{(result.FarIsBound ? " (90 % bound)" : string.Empty)}</text>"));
+        svg.Append(F($"<line x1=\"{cx:F1}\" y1=\"{Top}\" x2=\"{cx:F1}\" y2=\"{Top + plotH:F1}\" stroke=\"{PicturePalette.Brick}\" stroke-dasharray=\"2 3\"/>"));
+        svg.Append(F($"<circle cx=\"{cx:F1}\" cy=\"{cy:F1}\" r=\"5\" fill=\"{(result.FarIsBound ? PicturePalette.Surface : PicturePalette.Brick)}\" stroke=\"{PicturePalette.Brick}\" stroke-width=\"2\"/>"));
+        svg.Append(F($"<text x=\"{cx - 8:F1}\" y=\"{cy - 9:F1}\" text-anchor=\"end\" fill=\"{PicturePalette.Brick}\">candidate {(result.FarIsBound ? "< " : string.Empty)}{result.FarHz:G3} Hz{(result.FarIsBound ? " (90 % bound)" : string.Empty)}</text>"));
 
         // axis labels and caption
         svg.Append(F($"<text x=\"{Left + (plotW / 2):F1}\" y=\"{Top + plotH + 38:F1}\" text-anchor=\"middle\">Ranking statistic (network SNR, dimensionless)</text>"));

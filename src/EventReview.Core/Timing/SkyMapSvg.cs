@@ -4,6 +4,7 @@ using System.Text;
 using EventReview.Core.Antenna;
 using EventReview.Core.Geodesy;
 using EventReview.Core.Network;
+using EventReview.Core.Pictures;
 using EventReview.Core.Time;
 
 namespace EventReview.Core.Timing;
@@ -22,7 +23,6 @@ public static class SkyMapSvg
     private const double Left = 60;
     private const double Top = 20;
     private const int RingSamples = 361;
-    private static readonly string[] RingColours = ["#1f77b4", "#d62728", "#2ca02c", "#9467bd", "#8c564b", "#e377c2"];
 
     /// <summary>Renders the map for a result of <see cref="TimingCheck.Run"/> over <paramref name="sites"/>, with optional antenna-allowed cells.</summary>
     public static string Render(IReadOnlyList<Site> sites, TimingCheckResult result, IReadOnlyList<SkyCell>? allowedCells = null)
@@ -34,12 +34,12 @@ public static class SkyMapSvg
         var width = Left + PlotWidth + 20;
         var height = Top + PlotHeight + 106;
         svg.Append(F($"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{width}\" height=\"{height}\" viewBox=\"0 0 {width} {height}\" font-family=\"sans-serif\" font-size=\"12\">"));
-        svg.Append(F($"<rect x=\"{Left}\" y=\"{Top}\" width=\"{PlotWidth}\" height=\"{PlotHeight}\" fill=\"#ffffff\" stroke=\"#000000\"/>"));
+        svg.Append(F($"<rect x=\"{Left}\" y=\"{Top}\" width=\"{PlotWidth}\" height=\"{PlotHeight}\" fill=\"{PicturePalette.Surface}\" stroke=\"{PicturePalette.Text}\"/>"));
         foreach (var cell in allowedCells ?? [])
         {
             var x = X(cell.RaDegrees + (cell.WidthDegrees / 2));
             var y = Y(cell.DecDegrees + (cell.HeightDegrees / 2));
-            svg.Append(F($"<rect class=\"allowed\" x=\"{x:0.##}\" y=\"{y:0.##}\" width=\"{cell.WidthDegrees * PlotWidth / 360:0.##}\" height=\"{cell.HeightDegrees * PlotHeight / 180:0.##}\" fill=\"#f2c14e\" fill-opacity=\"0.35\"/>"));
+            svg.Append(F($"<rect class=\"allowed\" x=\"{x:0.##}\" y=\"{y:0.##}\" width=\"{cell.WidthDegrees * PlotWidth / 360:0.##}\" height=\"{cell.HeightDegrees * PlotHeight / 180:0.##}\" fill=\"{PicturePalette.Warm}\" fill-opacity=\"0.22\"/>"));
         }
 
         Graticule(svg);
@@ -52,7 +52,7 @@ public static class SkyMapSvg
                 continue;
             }
 
-            var colour = RingColours[ringIndex++ % RingColours.Length];
+            var colour = PicturePalette.Series[ringIndex++ % PicturePalette.Series.Count];
             var axis = SiteGeometry.Position(a) - SiteGeometry.Position(b);
             var points = SkyRing.Directions(axis, pair.RingCosine, RingSamples).Append(SkyRing.Directions(axis, pair.RingCosine, RingSamples)[0])
                 .Select(n => SkyFrame.ToEquatorial(n, result.GmstDegrees)).ToList();
@@ -64,7 +64,7 @@ public static class SkyMapSvg
         {
             var x = X(solution.RaDegrees);
             var y = Y(solution.DecDegrees);
-            svg.Append(F($"<g class=\"solution\"><circle cx=\"{x:0.##}\" cy=\"{y:0.##}\" r=\"5\" fill=\"none\" stroke=\"#000000\" stroke-width=\"2\"/>"));
+            svg.Append(F($"<g class=\"solution\"><circle cx=\"{x:0.##}\" cy=\"{y:0.##}\" r=\"5\" fill=\"none\" stroke=\"{PicturePalette.Text}\" stroke-width=\"2\"/>"));
             svg.Append(F($"<text x=\"{x + 7:0.##}\" y=\"{y - 7:0.##}\">{i + 1}</text></g>"));
         }
 
@@ -92,14 +92,14 @@ public static class SkyMapSvg
         for (var ra = 0; ra <= 360; ra += 30)
         {
             var x = X(ra);
-            svg.Append(F($"<line x1=\"{x:0.##}\" y1=\"{Top}\" x2=\"{x:0.##}\" y2=\"{Top + PlotHeight}\" stroke=\"#cccccc\" stroke-width=\"0.5\"/>"));
+            svg.Append(F($"<line x1=\"{x:0.##}\" y1=\"{Top}\" x2=\"{x:0.##}\" y2=\"{Top + PlotHeight}\" stroke=\"{PicturePalette.RuleStrong}\" stroke-width=\"0.5\"/>"));
             svg.Append(F($"<text x=\"{x:0.##}\" y=\"{Top + PlotHeight + 14}\" text-anchor=\"middle\">{ra}</text>"));
         }
 
         for (var dec = -90; dec <= 90; dec += 30)
         {
             var y = Y(dec);
-            svg.Append(F($"<line x1=\"{Left}\" y1=\"{y:0.##}\" x2=\"{Left + PlotWidth}\" y2=\"{y:0.##}\" stroke=\"#cccccc\" stroke-width=\"0.5\"/>"));
+            svg.Append(F($"<line x1=\"{Left}\" y1=\"{y:0.##}\" x2=\"{Left + PlotWidth}\" y2=\"{y:0.##}\" stroke=\"{PicturePalette.RuleStrong}\" stroke-width=\"0.5\"/>"));
             svg.Append(F($"<text x=\"{Left - 6}\" y=\"{y + 4:0.##}\" text-anchor=\"end\">{dec}</text>"));
         }
 

@@ -5,10 +5,10 @@ namespace EventReview.Core.Verdicts;
 /// written inside the result JSON as <c>"format"</c>, so it is covered by the record's content hash; a record without it
 /// is format 1. Old records keep their format: they are drawn and verified as they were stored, never rewritten.
 /// <list type="bullet">
-/// <item>Format 1: verdict words "consistent", "inconsistent", "clear", "concern", "nothing added", "something added",
-/// "no drift", "drift", "frozen".</item>
+/// <item>Format 1: verdict words "consistent", "inconsistent", "clear", "concern", the two legacy data-chain words
+/// (<see cref="Verdict.NothingAdded"/>, <see cref="Verdict.SomethingAdded"/>), "no drift", "drift", "frozen".</item>
 /// <item>Format 2 (this version) adds, for the data chain, "residual is noise", "excess found" and "model does not fit"
-/// (replacing "nothing added" and "something added"); for the background the significance bands "below 3 sigma",
+/// (replacing the two legacy data-chain words); for the background the significance bands "below 3 sigma",
 /// "3 to 5 sigma", "5 sigma or more" and "at least 3 sigma" (replacing "consistent"), and a 90 % confidence FAR bound;
 /// for veto safety the binomial statistic; the timing result carries its chi-square sky test and judgement, the overlap
 /// result its lag uncertainty, phase and multi-resolution maps. The tool version of a format-2 record also names the

@@ -55,7 +55,7 @@ public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, Accoun
         // A fixed instant: the simulated strain, sky direction and sidereal time of this candidate (and so its overlap
         // result) are then the same on every start; the other candidates follow the clock.
         var t1 = new GpsTime(1_479_697_331_201_000_000);
-        var d1 = new DemoCandidate("ER-C-0142", t1, 41.0, -23.0, 0.7, ["KP", "AB", "SM"], [14.2, 16.8, 9.1]);
+        var d1 = new DemoCandidate("ER-C-0142", t1, 41.0, -23.0, 0.7, ["KP", "AB", "SM"], [17.1, 19.5, 10.6]);
         var (c1, _) = await cases.OpenAsync(coordinator, Request(d1, sites,
             "Loud short chirp-like transient seen at all three sites; raised by the demo matched-filter search.", "candidate-review"), ct);
         var rA = users.Users.First(u => u.DisplayName == "Demo Reviewer A");
@@ -79,7 +79,7 @@ public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, Accoun
         var t3 = new GpsTime(gpsNow.Nanoseconds - (20L * 86400 * GpsTime.NanosecondsPerSecond) + 503_000_000);
         var d3 = new DemoCandidate("ER-C-0121", t3, 63.0, 80.0, 0.2, ["KP", "AB", "SM"], [11.0, 6.2, 5.9]);
         var (c3, _) = await cases.OpenAsync(coordinator, Request(d3, sites,
-            "Loud at one site, marginal elsewhere; suspected blip glitch.", "rapid-triage"), ct);
+            "Loud at one site, marginal elsewhere; suspected short symmetric glitch.", "rapid-triage"), ct);
         var current = c3;
         foreach (var item in c3.Items)
         {
@@ -93,7 +93,7 @@ public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, Accoun
         }
 
         await cases.CloseAsync(coordinator, c3.Id, CaseOutcome.Instrumental,
-            "A blip glitch at one site explains the trigger; no consistent signal at the other sites.", ct);
+            "A short symmetric glitch at one site explains the trigger; no consistent signal at the other sites.", ct);
 
         var demo = new DemoContext(coordinator, reviewerA, reviewerB,
             new Dictionary<string, int> { [d1.CandidateId] = c1.Id, [d2.CandidateId] = c2.Id, [d3.CandidateId] = c3.Id }, sites,

@@ -30,7 +30,7 @@ public sealed class FreezeDemoStep(ConfigurationService configurations, CaseServ
                 "control.software = ctrl-2031.04",
                 $"calibration.version = {site}-C17",
                 $"filters.whitening.sha256 = {Hashing.Sha256Hex($"demo whitening filter of {site}")}",
-                $"channels.list = {site}:STRAIN {site}:SEIS-X {site}:MAG-Y",
+                $"channels.list = {site}/strain/main-readout {site}/env/seismometer-central-hall-floor/x {site}/env/magnetometer-electronics-vault/y",
                 $"seal.rack-2 = S-{20400 + firmware}");
             var snapshot = await configurations.CaptureAsync(demo.Coordinator, c, site, "as at the candidate time", text, $"{site.ToLowerInvariant()}-config.txt", ct);
             c = await configurations.FreezeAsync(demo.Coordinator, c, snapshot.Id, from, until, "Candidate ER-C-0142 under review: no changes to the instrument until the review closes.", ct);

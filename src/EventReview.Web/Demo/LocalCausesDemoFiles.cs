@@ -2,6 +2,7 @@ using System.Globalization;
 using System.Numerics;
 using System.Text;
 using EventReview.Core.Chain;
+using EventReview.Core.Environment;
 using EventReview.Core.Injections;
 using EventReview.Core.Signal;
 using EventReview.Core.Signal.Filters;
@@ -20,25 +21,34 @@ namespace EventReview.Web.Demo;
 /// </summary>
 public static class LocalCausesDemoFiles
 {
-    /// <summary>Channels per site: name, kind, location, background triggers per hour.</summary>
+    /// <summary>The disturbed site's magnetometer (channel name after the site code, see <see cref="ChannelName"/>).</summary>
+    public const string Magnetometer = "env/magnetometer-electronics-vault/x";
+
+    /// <summary>The mains monitor that sees the same disturbance.</summary>
+    private const string MainsMonitor = "env/mains-monitor-feed-a";
+
+    /// <summary>Frequency of the demo sites' invented mains supply, Hz.</summary>
+    private const double MainsHz = 50;
+
+    /// <summary>Channels per site (names in our own scheme, after the site code): name, kind, location, background triggers per hour.</summary>
     private static readonly (string Channel, string Kind, string Location, double PerHour)[] Channels =
     [
-        ("SEI-FLOOR-Z", "seismic", "corner station floor", 60),
-        ("MIC-LASER-ROOM", "acoustic", "laser room", 18),
-        ("MAG-VAULT-X", "magnetic", "electronics vault", 12),
-        ("PWR-MAINS-A", "power", "mains feed A", 6),
-        ("WIND-ROOF", "weather", "roof mast", 20),
-        ("INST-ACT-READBACK", "instrument", "actuator readback", 2),
+        ("env/seismometer-central-hall-floor/z", "seismic", "central hall floor", 60),
+        ("env/microphone-laser-room", "acoustic", "laser room", 18),
+        (Magnetometer, "magnetic", "electronics vault", 12),
+        (MainsMonitor, "power", "mains feed A", 6),
+        ("env/anemometer-roof-mast", "weather", "roof mast", 20),
+        ("inst/actuator-readback", "instrument", "actuator readback", 2),
     ];
 
     /// <summary>Offsets (s from the case time) of the performed hardware injections, all sites, 8 s each.</summary>
     private static readonly double[] InjectionOffsets = [-3300, -2500, -1700, -900, 1500];
 
     /// <summary>Name of the coupling function file the inventory names for the disturbed site's magnetometer.</summary>
-    public static string CouplingFileName(string site) => $"coupling-{site}-MAG-VAULT-X.csv";
+    public static string CouplingFileName(string site) => $"coupling-{site}-magnetometer-electronics-vault-x.csv";
 
     /// <summary>Name of the magnetometer's own series the inventory names for the disturbed site (its noise is read from it).</summary>
-    public static string SensorDataFileName(string site) => $"data-{site}-MAG-VAULT-X.txt";
+    public static string SensorDataFileName(string site) => $"data-{site}-magnetometer-electronics-vault-x.txt";
 
     /// <summary>Data-quality segments: a few flags per site, none within a minute of the candidate; two overlapping rows (merged on import).</summary>
     public static string Segments(GpsTime t, IEnumerable<string> sites)
@@ -46,9 +56,9 @@ public static class LocalCausesDemoFiles
         var sb = new StringBuilder("site,flag,start_gps,end_gps,comment\n");
         foreach (var s in sites)
         {
-            sb.Append(Row(s, "CAL-LINE-OFF", t.AddSeconds(-5000), t.AddSeconds(-4700), "calibration line switched off for a measurement"));
-            sb.Append(Row(s, "HIGH-WIND", t.AddSeconds(2000), t.AddSeconds(2600), "gusts above 15 m/s"));
-            sb.Append(Row(s, "HIGH-WIND", t.AddSeconds(2500), t.AddSeconds(2900), "gusts continued"));
+            sb.Append(Row(s, "calibration-tone-paused", t.AddSeconds(-5000), t.AddSeconds(-4700), "calibration tone paused for a measurement"));
+            sb.Append(Row(s, "gusty-wind", t.AddSeconds(2000), t.AddSeconds(2600), "gusts above 15 m/s"));
+            sb.Append(Row(s, "gusty-wind", t.AddSeconds(2500), t.AddSeconds(2900), "gusts continued"));
         }
 
         return sb.ToString();
@@ -95,8 +105,8 @@ public static class LocalCausesDemoFiles
 
             if (site == disturbedSite)
             {
-                Add(site, "MAG-VAULT-X", arrival.AddSeconds(-0.182), 23.5, 60);
-                Add(site, "PWR-MAINS-A", arrival.AddSeconds(-0.176), 11.2, 60);
+                Add(site, Magnetometer, arrival.AddSeconds(-0.182), 23.5, 75);
+                Add(site, MainsMonitor, arrival.AddSeconds(-0.176), 11.2, MainsHz);
             }
         }
 
@@ -109,7 +119,7 @@ public static class LocalCausesDemoFiles
         return sb.ToString();
 
         void Add(string site, string channel, GpsTime at, double snr, double f) =>
-            rows.Add((at, string.Create(CultureInfo.InvariantCulture, $"{site},{site}:{channel},{at.ToString(4)},{snr:0.00},{f:0.0},0.2\n")));
+            rows.Add((at, string.Create(CultureInfo.InvariantCulture, $"{site},{ChannelName.Qualified(site, channel)},{at.ToString(4)},{snr:0.00},{f:0.0},0.2\n")));
     }
 
     /// <summary>The sensor inventory; the magnetometer of <paramref name="couplingSite"/> names its coupling file.</summary>
@@ -120,8 +130,8 @@ public static class LocalCausesDemoFiles
         {
             foreach (var (channel, kind, location, _) in Channels)
             {
-                var ours = s == couplingSite && channel == "MAG-VAULT-X";
-                sb.Append($"{s},{s}:{channel},{kind},{location},{(ours ? CouplingFileName(s) : string.Empty)},{(ours ? SensorDataFileName(s) : string.Empty)}\n");
+                var ours = s == couplingSite && channel == Magnetometer;
+                sb.Append($"{s},{ChannelName.Qualified(s, channel)},{kind},{location},{(ours ? CouplingFileName(s) : string.Empty)},{(ours ? SensorDataFileName(s) : string.Empty)}\n");
             }
         }
 
@@ -153,7 +163,7 @@ public static class LocalCausesDemoFiles
 
     /// <summary>An invented magnetic coupling function (strain per tesla), falling with frequency.</summary>
     public static string MagneticCoupling() =>
-        "frequency_hz,coupling\n10,3e-12\n30,5e-13\n60,1.2e-13\n100,6e-14\n300,1e-14\n1000,3e-15\n";
+        "frequency_hz,coupling\n10,3e-12\n30,5e-13\n75,1.2e-13\n100,6e-14\n300,1e-14\n1000,3e-15\n";
 
     /// <summary>The injection log: five performed injections per site away from the candidate, one aborted and one scheduled later.</summary>
     public static string InjectionLog(GpsTime t, IEnumerable<string> sites)

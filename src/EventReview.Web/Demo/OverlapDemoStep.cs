@@ -7,7 +7,7 @@ using EventReview.Web.Services.Checks;
 namespace EventReview.Web.Demo;
 
 /// <summary>
-/// Simulated strain for the three-site demo candidate (leading-order chirp of chirp mass 25 M☉, network SNR 24, coloured
+/// Simulated strain for the three-site demo candidate (leading-order chirp of chirp mass 25 M☉, network SNR 28, coloured
 /// Gaussian noise, fixed seed), attached to the overlap item as one text file per site, then the overlap check is run for
 /// the two loudest sites so the case page shows the overlay, the correlation curve, the off-source histogram and the maps.
 /// </summary>
@@ -36,7 +36,7 @@ public sealed class OverlapDemoStep(CaseService cases, OverlapCheckService overl
         var projections = DemoSeeder.Project(candidate, demo.Sites)
             .Select(p => new SiteProjection(p.Code, p.DelaySeconds, p.FPlus, p.FCross)).ToList();
         var options = new SimulationOptions(candidate.Time.AddSeconds(-DurationSeconds / 2), DurationSeconds, SampleRateHz, Seed: 142,
-            Chirp: new ChirpParameters(25, InclinationRad: 0.5, PhaseRad: 1.1), Coalescence: candidate.Time, NetworkSnr: 24);
+            Chirp: new ChirpParameters(25, InclinationRad: 0.5, PhaseRad: 1.1), Coalescence: candidate.Time, NetworkSnr: 28);
         var sim = await Task.Run(() => NetworkSimulator.Simulate(projections, options), ct);
         foreach (var site in sim.Sites)
         {

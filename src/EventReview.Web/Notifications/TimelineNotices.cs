@@ -88,8 +88,8 @@ public static class TimelineNotices
         var recipients = await db.Users.AnyAsync(u => u.Id == coordinatorId, ct) ? [coordinatorId] : await NotificationInbox.CoordinatorIdsAsync(db, ct);
         return recipients.Select(r => Notification.Create(r, NotificationKind.ReadyForDecision, caseId, null,
             $"{candidateId}: every item is signed off, ready for decision",
-            $"All {states.Count} checklist items of case {candidateId} are signed off with current sign-offs. The case can be submitted to the committee for decision; " +
-            "the decision rests with the committee, under its own procedures.",
+            $"All {states.Count} checklist items of case {candidateId} are signed off with current sign-offs. The case can be submitted to the decision board for decision; " +
+            "the decision rests with the decision board, under its own procedures.",
             $"/cases/{caseId}", $"{NotificationKind.ReadyForDecision}:{r}:{caseId}:{lastSignOff}", now));
     }
 

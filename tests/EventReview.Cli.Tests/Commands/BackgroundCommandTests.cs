@@ -77,10 +77,10 @@ public sealed class BackgroundCommandTests : IDisposable
     [Fact]
     public void A_missing_segment_file_for_a_site_exits_2()
     {
-        var args = Files().Replace("--segments M2=", "--segments X9=", StringComparison.Ordinal) + " --window-ms 10 --step-s 7 --slides 5 --candidate-stat 9";
+        var args = Files().Replace("--segments MV=", "--segments XQ=", StringComparison.Ordinal) + " --window-ms 10 --step-s 7 --slides 5 --candidate-stat 9";
         var (code, _, stderr) = Run(args.Split(' '));
         Assert.Equal(2, code);
-        Assert.Contains("M2", stderr);
+        Assert.Contains("MV", stderr);
     }
 
     private string Network()
@@ -90,7 +90,7 @@ public sealed class BackgroundCommandTests : IDisposable
         File.WriteAllText(path, """
             {"name": "Invented", "sites": [
               {"code": "KX", "name": "Site KX", "latitudeDegrees": 12, "longitudeDegrees": 31, "heightMeters": 100, "xArmAzimuthDegrees": 10, "yArmAzimuthDegrees": 100, "timingUncertaintySeconds": 0.0001},
-              {"code": "M2", "name": "Site M2", "latitudeDegrees": -20, "longitudeDegrees": 80, "heightMeters": 0, "xArmAzimuthDegrees": 200, "yArmAzimuthDegrees": 290, "timingUncertaintySeconds": 0.0001},
+              {"code": "MV", "name": "Site MV", "latitudeDegrees": -20, "longitudeDegrees": 80, "heightMeters": 0, "xArmAzimuthDegrees": 200, "yArmAzimuthDegrees": 290, "timingUncertaintySeconds": 0.0001},
               {"code": "PQ", "name": "Site PQ", "latitudeDegrees": 50, "longitudeDegrees": 95, "heightMeters": 30, "xArmAzimuthDegrees": 70, "yArmAzimuthDegrees": 160, "timingUncertaintySeconds": 0.0001}]}
             """);
         return path;
@@ -121,7 +121,7 @@ public sealed class BackgroundCommandTests : IDisposable
         }
 
         var third = sites == 3 ? $" --triggers PQ={_dir}/c.csv --segments PQ={_dir}/c-seg.csv" : string.Empty;
-        return $"background --triggers KX={_dir}/a.csv --triggers M2={_dir}/b.csv --segments KX={_dir}/a-seg.csv --segments M2={_dir}/b-seg.csv" + third;
+        return $"background --triggers KX={_dir}/a.csv --triggers MV={_dir}/b.csv --segments KX={_dir}/a-seg.csv --segments MV={_dir}/b-seg.csv" + third;
     }
 
     private static (int Code, string Stdout, string Stderr) Run(string[] args)

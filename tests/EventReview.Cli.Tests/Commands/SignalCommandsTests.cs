@@ -15,7 +15,7 @@ public class SignalCommandsTests : IDisposable
 
     public SignalCommandsTests()
     {
-        SiteProjection[] sites = [new("KX", 0, 0.8, 0.1), new("M2", 0.0071, -0.6, -0.075)];
+        SiteProjection[] sites = [new("KX", 0, 0.8, 0.1), new("MV", 0.0124, -0.6, -0.075)];
         var sim = NetworkSimulator.Simulate(sites, new SimulationOptions(Start, 16, 4096, 5, new ChirpParameters(8, InclinationRad: 0.3), null, 40));
         StrainTextWriter.WriteFile(Path.Combine(_dir, "a.txt"), sim.Sites[0].Strain);
         StrainTextWriter.WriteFile(Path.Combine(_dir, "b.txt"), sim.Sites[1].Strain);
@@ -49,14 +49,14 @@ public class SignalCommandsTests : IDisposable
     public void Overlap_verb_reports_the_contract_fields_as_json()
     {
         var (code, output, err) = Run(OverlapCommand.Build(), "overlap", "--a", Path.Combine(_dir, "a.txt"), "--b", Path.Combine(_dir, "b.txt"),
-            "--center", "1300000008", "--offsource", "200", "--max-lag-ms", "15", "--json");
+            "--center", "1300000008", "--offsource", "200", "--max-lag-ms", "18", "--json");
         Assert.True(code == 0, err);
         var doc = JsonDocument.Parse(output).RootElement;
         // contract of issue 13: verdict, lagSeconds, lagUncertaintySeconds, phaseRadians, atSearchEdge
         Assert.Equal("consistent", doc.GetProperty("verdict").GetString());
-        // simulator truth: arrival(A) - arrival(B) = -7.1 ms, flipped (phase 180°)
+        // simulator truth: arrival(A) - arrival(B) = -12.4 ms, flipped (phase 180°)
         double sigma = doc.GetProperty("lagUncertaintySeconds").GetDouble();
-        Assert.True(sigma > 0 && Math.Abs(doc.GetProperty("lagSeconds").GetDouble() + 0.0071) <= 3 * sigma, output);
+        Assert.True(sigma > 0 && Math.Abs(doc.GetProperty("lagSeconds").GetDouble() + 0.0124) <= 3 * sigma, output);
         Assert.True(Math.Abs(Math.Abs(doc.GetProperty("phaseRadians").GetDouble()) - Math.PI) <= 3 * doc.GetProperty("phaseUncertaintyRadians").GetDouble(), output);
         Assert.False(doc.GetProperty("atSearchEdge").GetBoolean());
         Assert.Equal(-1, doc.GetProperty("sign").GetInt32());
@@ -69,12 +69,12 @@ public class SignalCommandsTests : IDisposable
     [Fact]
     public void Overlap_verb_takes_its_lag_limit_from_the_network_and_has_no_fixed_default()
     {
-        // Invented two-site network whose light-travel time (~9 ms) plus 3σ covers the simulated 7.1 ms delay.
+        // Invented two-site network whose light-travel time (~16 ms) plus 3σ covers the simulated 12.4 ms delay.
         var net = Path.Combine(_dir, "net.json");
         File.WriteAllText(net, """
             {"name": "Two invented sites", "sites": [
               {"code": "PQ", "name": "Pine Quarry", "latitudeDegrees": 10, "longitudeDegrees": 0, "heightMeters": 0, "xArmAzimuthDegrees": 0, "yArmAzimuthDegrees": 90, "timingUncertaintySeconds": 0.0002},
-              {"code": "RS", "name": "Reed Shore", "latitudeDegrees": 10, "longitudeDegrees": 25, "heightMeters": 0, "xArmAzimuthDegrees": 45, "yArmAzimuthDegrees": 135, "timingUncertaintySeconds": 0.0002}]}
+              {"code": "RS", "name": "Reed Shore", "latitudeDegrees": 10, "longitudeDegrees": 45, "heightMeters": 0, "xArmAzimuthDegrees": 45, "yArmAzimuthDegrees": 135, "timingUncertaintySeconds": 0.0002}]}
             """);
         var (code, output, err) = Run(OverlapCommand.Build(), "overlap", "--a", Path.Combine(_dir, "a.txt"), "--b", Path.Combine(_dir, "b.txt"),
             "--center", "1300000008", "--network", net, "--site-a", "PQ", "--site-b", "RS", "--json");
@@ -107,7 +107,7 @@ public class SignalCommandsTests : IDisposable
     public void A_malformed_file_exits_with_two_and_names_the_line()
     {
         var (code, output, err) = Run(OverlapCommand.Build(), "overlap", "--a", Path.Combine(_dir, "bad.txt"), "--b", Path.Combine(_dir, "b.txt"),
-            "--center", "1300000008", "--max-lag-ms", "15", "--json");
+            "--center", "1300000008", "--max-lag-ms", "18", "--json");
         Assert.Equal(2, code);
         Assert.Equal(string.Empty, output);
         Assert.Contains("line 3", err);
@@ -118,6 +118,6 @@ public class SignalCommandsTests : IDisposable
     public void A_bad_centre_or_band_exits_with_two()
     {
         Assert.Equal(2, Run(ChirpCommand.Build(), "chirp", "--a", Path.Combine(_dir, "a.txt"), "--center", "yesterday").Code);
-        Assert.Equal(2, Run(OverlapCommand.Build(), "overlap", "--a", Path.Combine(_dir, "a.txt"), "--b", Path.Combine(_dir, "b.txt"), "--center", "1300000008", "--band", "300,30", "--max-lag-ms", "15").Code);
+        Assert.Equal(2, Run(OverlapCommand.Build(), "overlap", "--a", Path.Combine(_dir, "a.txt"), "--b", Path.Combine(_dir, "b.txt"), "--center", "1300000008", "--band", "300,30", "--max-lag-ms", "18").Code);
     }
 }

@@ -15,11 +15,11 @@ public sealed class SimulateCommandTests : IDisposable
     {
         _network = Path.Combine(_dir, "network.json");
         File.WriteAllText(_network, """
-            {"name": "Test net", "sites": [
-              {"code": "KX", "name": "Site KX", "latitudeDegrees": 46, "longitudeDegrees": -119, "heightMeters": 100,
-               "xArmAzimuthDegrees": 36, "yArmAzimuthDegrees": 126, "timingUncertaintySeconds": 0.0001},
-              {"code": "M2", "name": "Site M2", "latitudeDegrees": 30, "longitudeDegrees": -90, "heightMeters": 0,
-               "xArmAzimuthDegrees": 252, "yArmAzimuthDegrees": 342, "timingUncertaintySeconds": 0.0001}]}
+            {"name": "Invented test network", "sites": [
+              {"code": "KX", "name": "Site KX", "latitudeDegrees": 44, "longitudeDegrees": -101, "heightMeters": 100,
+               "xArmAzimuthDegrees": 62, "yArmAzimuthDegrees": 152, "timingUncertaintySeconds": 0.0001},
+              {"code": "MV", "name": "Site MV", "latitudeDegrees": 19, "longitudeDegrees": -71, "heightMeters": 0,
+               "xArmAzimuthDegrees": 117, "yArmAzimuthDegrees": 207, "timingUncertaintySeconds": 0.0001}]}
             """);
     }
 
@@ -36,12 +36,12 @@ public sealed class SimulateCommandTests : IDisposable
         var (exit, _, err) = Simulate(outDir);
         Assert.True(exit == 0, err);
         Assert.True(File.Exists(Path.Combine(outDir, "KX-strain.txt")));
-        Assert.True(File.Exists(Path.Combine(outDir, "M2-strain.txt")));
+        Assert.True(File.Exists(Path.Combine(outDir, "MV-strain.txt")));
         var truth = JsonDocument.Parse(File.ReadAllText(Path.Combine(outDir, "truth.json"))).RootElement;
         Assert.Equal(11, truth.GetProperty("seed").GetInt32());
         Assert.Equal(60, truth.GetProperty("networkSnr").GetDouble(), 1e-6); // the simulator scales the injection to the asked SNR
         var sites = truth.GetProperty("sites").EnumerateArray().ToList();
-        Assert.Equal(["KX", "M2"], sites.Select(s => s.GetProperty("code").GetString()));
+        Assert.Equal(["KX", "MV"], sites.Select(s => s.GetProperty("code").GetString()));
 
         // Identity: the delays follow from the recorded RA/Dec/psi/GMST through the network projection.
         var net = NetworkFile.Read(_network);
@@ -59,7 +59,7 @@ public sealed class SimulateCommandTests : IDisposable
         // waveforms differ only by a sign, not by a phase).
         double truthLag = sites[0].GetProperty("delaySeconds").GetDouble() - sites[1].GetProperty("delaySeconds").GetDouble();
         var (oexit, output, oerr) = CliRunner.Run(OverlapCommand.Build(), "overlap", "--a", Path.Combine(outDir, "KX-strain.txt"),
-            "--b", Path.Combine(outDir, "M2-strain.txt"), "--center", "1300000000", "--psd-segment-s", "2", "--network", _network, "--site-a", "KX", "--site-b", "M2", "--json");
+            "--b", Path.Combine(outDir, "MV-strain.txt"), "--center", "1300000000", "--psd-segment-s", "2", "--network", _network, "--site-a", "KX", "--site-b", "MV", "--json");
         Assert.True(oexit == 0, oerr);
         var o = JsonDocument.Parse(output).RootElement;
         Assert.True(Math.Abs(truthLag - o.GetProperty("lagSeconds").GetDouble()) <= 3 * o.GetProperty("lagUncertaintySeconds").GetDouble(), output); // within 3σ

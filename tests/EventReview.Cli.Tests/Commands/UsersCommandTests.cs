@@ -42,7 +42,7 @@ public sealed class UsersCommandTests : IDisposable
     [Theory]
     [InlineData("--email", "lee.park\u202E@demo.invalid", "email must hold only visible characters")]
     [InlineData("--name", "Lee \u200BPark", "displayName must hold only visible characters")]
-    [InlineData("--name", "Lee Park of the committee of the department of the institute of the collaboration of the network of the sites of the review", "at most 120 characters")]
+    [InlineData("--name", "Lee Park of the decision board of the department of the institute of the collaboration of the network of the sites of the review", "at most 120 characters")]
     public void Names_and_addresses_shown_in_the_record_refuse_hidden_characters_and_excess_length(string option, string value, string reason)
     {
         string[] args = option == "--email"

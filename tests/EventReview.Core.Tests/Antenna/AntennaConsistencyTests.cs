@@ -8,9 +8,9 @@ namespace EventReview.Core.Tests.Antenna;
 public class AntennaConsistencyTests
 {
     private static readonly Site KX = new("KX", "Site KX", 40, -100, 0, 30, 120, 1e-4);
-    private static readonly Site KXTwin = new("K2", "Twin of KX", 40, -100, 0, 30, 120, 1e-4);
-    private static readonly Site KXSwapped = new("K3", "KX with arms swapped", 40, -100, 0, 120, 30, 1e-4);
-    private static readonly Site M2 = new("M2", "Site M2", 20, -80, 0, 200, 290, 1e-4);
+    private static readonly Site KXTwin = new("KA", "Twin of KX", 40, -100, 0, 30, 120, 1e-4);
+    private static readonly Site KXSwapped = new("KB", "KX with arms swapped", 40, -100, 0, 120, 30, 1e-4);
+    private static readonly Site MV = new("MV", "Site MV", 19, -71, 0, 200, 290, 1e-4);
 
     private static IReadOnlyList<Vector3> Ring() => SkyRing.Directions(new Vector3(0.3, -0.5, 0.8), 0.2, 72);
 
@@ -46,7 +46,7 @@ public class AntennaConsistencyTests
             var n = SkyRing.Directions(new Vector3(random.NextDouble() - 0.5, random.NextDouble() - 0.5, random.NextDouble() - 0.5), 0, 1)[0];
             var psi = Math.PI * random.NextDouble();
             var cosIota = random.NextDouble();
-            var p = NetworkProjection.Project([KX, M2], n, psi);
+            var p = NetworkProjection.Project([KX, MV], n, psi);
             var aPlus = 0.5 * (1 + (cosIota * cosIota));
             var za = Math.Sqrt(Math.Pow(p[0].FPlus * aPlus, 2) + Math.Pow(p[0].FCross * cosIota, 2));
             var zb = Math.Sqrt(Math.Pow(p[1].FPlus * aPlus, 2) + Math.Pow(p[1].FCross * cosIota, 2));
@@ -57,7 +57,7 @@ public class AntennaConsistencyTests
                 continue;
             }
 
-            var result = AntennaConsistency.Evaluate(KX, M2, [n], new AntennaObservation(Math.Sign(correlation), zb / za));
+            var result = AntennaConsistency.Evaluate(KX, MV, [n], new AntennaObservation(Math.Sign(correlation), zb / za));
 
             Assert.True(result.Verdict == "consistent", $"trial {trial}: psi {psi}, cos iota {cosIota}, ratio {zb / za}, corr {correlation}, sign {result.FractionAllowingSign}, ratio {result.FractionAllowingRatio} range {result.MinExpectedRatio}..{result.MaxExpectedRatio}");
             Assert.InRange(zb / za, result.MinExpectedRatio / 1.3, result.MaxExpectedRatio * 1.3);
@@ -67,8 +67,8 @@ public class AntennaConsistencyTests
     [Fact]
     public void Bad_observations_are_rejected()
     {
-        Assert.Throws<ArgumentException>(() => AntennaConsistency.Evaluate(KX, M2, Ring(), new AntennaObservation(0, 1.0)));
-        Assert.Throws<ArgumentException>(() => AntennaConsistency.Evaluate(KX, M2, Ring(), new AntennaObservation(1, double.NaN)));
+        Assert.Throws<ArgumentException>(() => AntennaConsistency.Evaluate(KX, MV, Ring(), new AntennaObservation(0, 1.0)));
+        Assert.Throws<ArgumentException>(() => AntennaConsistency.Evaluate(KX, MV, Ring(), new AntennaObservation(1, double.NaN)));
     }
 
     [Fact]

@@ -6,12 +6,12 @@ namespace EventReview.Core.Tests.Builders;
 
 /// <summary>
 /// Builds a <see cref="ReviewCase"/> with sensible defaults: candidate "TC-0001" at GPS 1400000000.25, arrivals at
-/// sites "KX" and "M2" within a few milliseconds, the <see cref="TemplateBuilder.Default"/> checklist, opened by
+/// sites "KX" and "MV" within a few milliseconds, the <see cref="TemplateBuilder.Default"/> checklist, opened by
 /// <see cref="People.Coordinator"/> at <see cref="Clock.T0"/>.
 /// </summary>
 public sealed class CaseBuilder
 {
-    private readonly List<(string Code, double OffsetSeconds, double Snr)> _arrivals = [("KX", 0.0021, 9.5), ("M2", -0.0043, 7.25)];
+    private readonly List<(string Code, double OffsetSeconds, double Snr)> _arrivals = [("KX", 0.0021, 9.5), ("MV", -0.0043, 7.25)];
     private readonly TemplateBuilder _items = new();
     private string _candidateId = "TC-0001";
     private GpsTime _gps = GpsTime.FromSeconds(1_400_000_000.25m);

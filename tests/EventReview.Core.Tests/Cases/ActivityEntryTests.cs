@@ -30,12 +30,12 @@ public class ActivityEntryTests
 
         // Oracle: version-2 content written out by hand from the ActivityEntry remarks (each field as length:value).
         static string F(string v) => $"{v.Length}:{v}\n";
-        var text = "eventreview-activity-v2\n" + F("C31-0314A") + F("1") + F("2031-03-14T09:26:53.0000000Z") + F("u-coord") + F("Ada Quill")
+        var text = "eventreview-activity-v2\n" + F("ER-C-0314") + F("1") + F("2031-03-14T09:26:53.0000000Z") + F("u-coord") + F("Ada Quill")
             + F("case.opened") + F(string.Empty) + F(e.Text) + F(e.Facts!) + F(ActivityEntry.GenesisHash);
 
         Assert.Equal(Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text))), e.Hash);
         Assert.Equal(text, e.CanonicalContent());
-        Assert.StartsWith("case.candidate=C31-0314A\n", e.Facts, StringComparison.Ordinal);
+        Assert.StartsWith("case.candidate=ER-C-0314\n", e.Facts, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -43,11 +43,11 @@ public class ActivityEntryTests
     {
         // Oracle: version-1 content written out by hand from the ActivityEntry remarks.
         var at = new DateTimeOffset(2031, 3, 14, 9, 26, 53, TimeSpan.Zero);
-        var text = $"eventreview-activity-v1\nC31-0314A\n1\n2031-03-14T09:26:53.0000000Z\nu-coord\nAda Quill\ncase.opened\n\nOpened.\n{ActivityEntry.GenesisHash}";
+        var text = $"eventreview-activity-v1\nER-C-0314\n1\n2031-03-14T09:26:53.0000000Z\nu-coord\nAda Quill\ncase.opened\n\nOpened.\n{ActivityEntry.GenesisHash}";
 
-        Assert.Equal(text, ActivityEntry.ComputeCanonicalContent("C31-0314A", 1, at, "u-coord", "Ada Quill", "case.opened", null, "Opened.", null, ActivityEntry.GenesisHash));
+        Assert.Equal(text, ActivityEntry.ComputeCanonicalContent("ER-C-0314", 1, at, "u-coord", "Ada Quill", "case.opened", null, "Opened.", null, ActivityEntry.GenesisHash));
         Assert.Equal(Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text))),
-            ActivityEntry.ComputeHash("C31-0314A", 1, at, "u-coord", "Ada Quill", "case.opened", null, "Opened.", null, ActivityEntry.GenesisHash));
+            ActivityEntry.ComputeHash("ER-C-0314", 1, at, "u-coord", "Ada Quill", "case.opened", null, "Opened.", null, ActivityEntry.GenesisHash));
     }
 
     [Fact]

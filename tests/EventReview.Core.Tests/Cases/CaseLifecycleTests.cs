@@ -63,7 +63,7 @@ public class CaseLifecycleTests
         _case.SignEverything(Clock.At(1));
         _case.SubmitForDecision(People.Coordinator, Clock.At(2));
 
-        _case.ReturnToReview("The committee wants a longer background run.", People.Coordinator, Clock.At(3));
+        _case.ReturnToReview("The decision board wants a longer background run.", People.Coordinator, Clock.At(3));
 
         Assert.Equal(CaseState.InReview, _case.State);
         Assert.Contains("longer background run", _case.Activity[^1].Text, StringComparison.Ordinal);

@@ -98,7 +98,7 @@ public class DataChainCheckTests
     public void An_excursion_outside_the_window_is_listed_but_never_sets_the_candidate_verdict()
     {
         // The same 12-sigma burst at +10.2 s, but the candidate sits at +14 s. The old statistic searched the whole record
-        // and would have said "something added" for the candidate; only the on-source window may decide.
+        // and would have reported an addition at the candidate; only the on-source window may decide.
         var (input, output, burstGps) = Simulate(seed: 11, burstAmplitudeSigma: 12);
         var report = DataChainCheck.Run(input, [output], [Stage], Start.AddSeconds(14));
         var s = Assert.Single(report.Stages);
@@ -122,7 +122,7 @@ public class DataChainCheckTests
         var s = Assert.Single(report.Stages);
 
         // The old statistic judged the residual only against its own scatter: its largest excursion anywhere stays
-        // below 5 robust sigma, so it said "nothing added" about a model that does not describe the stage.
+        // below 5 robust sigma, so it passed the stage as clean with a model that does not describe it.
         Assert.True(Math.Max(s.MaxExcessSigma, s.OutsideWindow.Select(e => e.Sigma).DefaultIfEmpty(0).Max()) < 5);
         Assert.False(s.ModelFits);
         Assert.True(s.CoherentFraction > 0.9, $"coherent fraction {s.CoherentFraction}");

@@ -61,7 +61,7 @@ public class ConfigurationDiffTests
     public void Drift_check_needs_a_frozen_snapshot_of_the_same_site()
     {
         var a = ConfigurationSnapshot.Capture("KX", "f", new Dictionary<string, string>(), Coordinator, T);
-        var b = ConfigurationSnapshot.Capture("M2", "f", new Dictionary<string, string>(), Coordinator, T);
+        var b = ConfigurationSnapshot.Capture("MV", "f", new Dictionary<string, string>(), Coordinator, T);
         Assert.Throws<ArgumentException>(() => DriftCheck.Run(a, a));
         a.Freeze(1, T, T.AddDays(1), "r", Coordinator, T);
         Assert.Throws<ArgumentException>(() => DriftCheck.Run(a, b));

@@ -25,7 +25,7 @@ public class DossierBuilderTests
         var doc = DossierBuilder.Build(s.Case, s.Sites, s.Snapshots);
 
         Assert.Equal("eventreview-dossier/2", doc.SchemaVersion);
-        Assert.Equal(["KX", "M2"], doc.Sites.Select(x => x.Code).ToArray());
+        Assert.Equal(["KX", "MV"], doc.Sites.Select(x => x.Code).ToArray());
         Assert.Equal(["timing.delay", "timing.notes", "config.frozen"], doc.Items.Select(i => i.Key).ToArray());
         Assert.Equal(s.Case.Activity[^1].Hash, doc.ChainHead);
         Assert.Equal(s.Case.Activity.Count, doc.Timeline.Count);

@@ -28,7 +28,7 @@ public class DossierForgeryTests
         {
             n["case"]!["state"] = "closed";
             n["case"]!["outcome"] = "astrophysical";
-            n["case"]!["closingStatement"] = "Confirmed by the committee.";
+            n["case"]!["closingStatement"] = "Confirmed by the decision board.";
         },
         ["sign-off statement"] = n => n["items"]![0]!["signOffs"]![0]!["statement"] = "Delays checked twice, all clear.",
         ["sign-off signer"] = n => n["items"]![0]!["signOffs"]![0]!["signerName"] = "Someone Senior",

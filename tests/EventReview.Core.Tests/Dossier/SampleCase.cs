@@ -64,12 +64,12 @@ internal sealed class SampleCase
     public static SampleCase Build(bool freezeInTimeline = true)
     {
         var t = T0;
-        var c = ReviewCase.Open("C31-0314A", GpsTime.FromSeconds(1_615_248_000.25m), "burst-search", "A short loud candidate.",
-            [new CaseArrival("KX", GpsTime.FromSeconds(1_615_248_000.25m), 9.5), new CaseArrival("M2", GpsTime.FromSeconds(1_615_248_000.257m), 7.25)],
+        var c = ReviewCase.Open("ER-C-0314", GpsTime.FromSeconds(1_615_248_000.25m), "burst-search", "A short loud candidate.",
+            [new CaseArrival("KX", GpsTime.FromSeconds(1_615_248_000.25m), 9.5), new CaseArrival("MV", GpsTime.FromSeconds(1_615_248_000.2546m), 7.25)],
             Template(), Coordinator, t);
 
         t = t.AddMinutes(5);
-        c.AddEvidence("timing.delay", EvidenceItem.Note("Delay is **7 ms**, within the 10 ms light time.", Analyst, t), Analyst, t);
+        c.AddEvidence("timing.delay", EvidenceItem.Note("Delay is **4.6 ms**, within the 13.0 ms light time.", Analyst, t), Analyst, t);
         t = t.AddMinutes(1);
         c.AddEvidence("timing.delay", EvidenceItem.Attachment("../delays.csv", "text/csv", AttachmentBytes.Length, Hashing.Sha256Hex(AttachmentBytes), "Delay table", Analyst, t), Analyst, t);
         t = t.AddMinutes(1);
@@ -77,8 +77,8 @@ internal sealed class SampleCase
         t = t.AddMinutes(1);
         var svg1 = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"10\" height=\"10\"><circle cx=\"5\" cy=\"5\" r=\"4\"/></svg>";
         var svg2 = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"10\" height=\"10\"><rect width=\"4\" height=\"4\"/></svg>";
-        c.AddComputation("timing.delay", new ComputationRecord(CheckKind.Timing, "{\"sites\":[\"KX\",\"M2\"]}", new string('a', 64), "eventreview-core 0.1.0",
-            "{\"delaySeconds\":0.007}", "consistent", "delay 7.0 ms within 10.0 ms", svg1 + "\n<!--next-->\n" + svg2, Analyst, t), Analyst, t);
+        c.AddComputation("timing.delay", new ComputationRecord(CheckKind.Timing, "{\"sites\":[\"KX\",\"MV\"]}", new string('a', 64), "eventreview-core 0.1.0",
+            "{\"delaySeconds\":0.0046}", "consistent", "delay 4.6 ms within 13.0 ms", svg1 + "\n<!--next-->\n" + svg2, Analyst, t), Analyst, t);
         t = t.AddMinutes(1);
         c.MarkItemReady("timing.delay", Analyst, t);
         t = t.AddMinutes(1);
@@ -117,9 +117,9 @@ internal sealed class SampleCase
 
         var sites = new List<Site>
         {
-            new("M2", "Mesa Two", 10.0, 20.0, 100.0, 30.0, 120.0, 1e-4),
-            new("KX", "Knoll One", -5.0, 40.0, 50.0, 10.0, 100.0, 1e-4),
-            new("Z9", "Unused", 0.0, 0.0, 0.0, 0.0, 90.0, 1e-4),
+            new("MV", "Mesa Vale", 12.0, 18.0, 100.0, 30.0, 120.0, 1e-4),
+            new("KX", "Knoll Crest", -9.0, 47.0, 50.0, 10.0, 100.0, 1e-4),
+            new("ZZ", "Unused", 0.0, 0.0, 0.0, 0.0, 90.0, 1e-4),
         };
         return new SampleCase { Case = c, Sites = sites, Snapshots = [later, frozen] };
     }

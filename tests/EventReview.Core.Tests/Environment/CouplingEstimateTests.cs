@@ -19,7 +19,7 @@ public class CouplingEstimateTests
     public void Snr_times_noise_model_uses_the_trigger_frequency_inside_the_band()
     {
         var options = new CouplingOptions(CandidateStrainAmplitude: 1e-21, BandLowHz: 20, BandHighHz: 500, DefaultSensorNoiseAmplitude: 0.5);
-        var r = CouplingEstimate.Estimate(Coupling, options, "KX:MIC", snr: 20, frequencyHz: 50)!;
+        var r = CouplingEstimate.Estimate(Coupling, options, "KX/env/microphone", snr: 20, frequencyHz: 50)!;
         // strain = C(50 Hz) x SNR x noise = 4e-22 x 20 x 0.5 = 4e-21
         Assert.Equal(4e-21, r.StrainEstimate, 1e-33);
         Assert.Equal(4.0, r.Ratio, 1e-9);
@@ -31,7 +31,7 @@ public class CouplingEstimateTests
     public void Without_a_trigger_frequency_the_largest_coupling_in_the_band_is_used_and_small_ratios_pass()
     {
         var options = new CouplingOptions(1e-21, 20, 500, DefaultSensorNoiseAmplitude: 1e-3);
-        var r = CouplingEstimate.Estimate(Coupling, options, "KX:MIC", snr: 10, frequencyHz: null)!;
+        var r = CouplingEstimate.Estimate(Coupling, options, "KX/env/microphone", snr: 10, frequencyHz: null)!;
         // Largest C in 20-500 Hz is at 20 Hz: 2.5e-21; x 10 x 1e-3 = 2.5e-23, ratio 0.025 < 0.1 (common-practice margin)
         Assert.Equal(20, r.FrequencyHz);
         Assert.Equal(0.025, r.Ratio, 1e-9);
@@ -42,8 +42,8 @@ public class CouplingEstimateTests
     public void A_measured_sensor_spectrum_replaces_the_snr_model()
     {
         var spectrum = new FrequencyTable([10, 1000], [1.0, 1e4]); // amplitude grows as f^2: product is flat at 1e-20
-        var options = new CouplingOptions(1e-19, 20, 500, SensorAmplitudeSpectra: new Dictionary<string, FrequencyTable> { ["KX:MIC"] = spectrum });
-        var r = CouplingEstimate.Estimate(Coupling, options, "KX:MIC", snr: 1000, frequencyHz: 50)!;
+        var options = new CouplingOptions(1e-19, 20, 500, SensorAmplitudeSpectra: new Dictionary<string, FrequencyTable> { ["KX/env/microphone"] = spectrum });
+        var r = CouplingEstimate.Estimate(Coupling, options, "KX/env/microphone", snr: 1000, frequencyHz: 50)!;
         Assert.Equal(1e-20, r.StrainEstimate, 1e-30);
         Assert.Equal(0.1, r.Ratio, 1e-9);
         Assert.True(r.Flagged); // exactly at the 10 % margin counts
@@ -53,7 +53,7 @@ public class CouplingEstimateTests
     [Fact]
     public void No_noise_amplitude_means_no_estimate()
     {
-        Assert.Null(CouplingEstimate.Estimate(Coupling, new CouplingOptions(1e-21, 20, 500), "KX:MIC", 10, 50));
+        Assert.Null(CouplingEstimate.Estimate(Coupling, new CouplingOptions(1e-21, 20, 500), "KX/env/microphone", 10, 50));
     }
 
     [Fact]
@@ -61,9 +61,9 @@ public class CouplingEstimateTests
     {
         var t = GpsTime.FromSeconds(1000m);
         var input = new EnvironmentLookupInput(t, new Dictionary<string, GpsTime>(), ["KX"], [],
-            [new AuxiliaryTrigger("KX", "MIC", t.AddSeconds(0.1), 20, 50, null)],
-            [new Sensor("KX", "MIC", SensorKind.Acoustic, "hall", "mic.csv")],
-            CouplingFunctions: new Dictionary<string, FrequencyTable> { ["KX:MIC"] = Coupling });
+            [new AuxiliaryTrigger("KX", "env/microphone", t.AddSeconds(0.1), 20, 50, null)],
+            [new Sensor("KX", "env/microphone", SensorKind.Acoustic, "hall", "mic.csv")],
+            CouplingFunctions: new Dictionary<string, FrequencyTable> { ["KX/env/microphone"] = Coupling });
         var options = new EnvironmentLookupOptions(Coupling: new CouplingOptions(1e-21, 20, 500, DefaultSensorNoiseAmplitude: 0.5));
         var hit = Assert.Single(EnvironmentLookup.Run(input, options).Hits);
         Assert.Equal(4.0, hit.CouplingRatio!.Value, 1e-9);

@@ -38,7 +38,7 @@ public class CouplingMeasurementTests
         // Typed: a candidate amplitude of 1e-20 (overstated) and a sensor noise of 0.1 units (understated):
         // C x SNR x noise = 1e-22 x 20 x 0.1 = 2e-22 against 1e-20.
         var typed = new CouplingOptions(1e-20, 20, 500, DefaultSensorNoiseAmplitude: 0.1);
-        var fromTyped = CouplingEstimate.Estimate(Flat, typed, "KX:MAG", 20, 100)!;
+        var fromTyped = CouplingEstimate.Estimate(Flat, typed, "KX/env/magnetometer", 20, 100)!;
         Assert.False(fromTyped.Flagged); // 2e-22 / 1e-20 = 0.02 < 0.1: the typed numbers say "no coupling concern"
         Assert.Equal("typed", fromTyped.CandidateStrainSource);
 
@@ -46,8 +46,8 @@ public class CouplingMeasurementTests
         var strain = Series(t => 3e-22 * Math.Exp(-Math.Pow(t - 8, 2) / (2 * 0.02 * 0.02)) * Math.Cos(2 * Math.PI * 150 * (t - 8)));
         var sensor = Series(t => 2 * Math.Sin(2 * Math.PI * 100 * t));
         var (options, notes) = CouplingMeasurement.FromData(typed, new Dictionary<string, TimeSeries> { ["KX"] = strain },
-            new Dictionary<string, TimeSeries> { ["KX:MAG"] = sensor }, _ => Arrival);
-        var fromData = CouplingEstimate.Estimate(Flat, options, "KX:MAG", 20, 100)!;
+            new Dictionary<string, TimeSeries> { ["KX/env/magnetometer"] = sensor }, _ => Arrival);
+        var fromData = CouplingEstimate.Estimate(Flat, options, "KX/env/magnetometer", 20, 100)!;
         Assert.Equal("strain data", fromData.CandidateStrainSource);
         Assert.Equal("sensor data", fromData.SensorAmplitudeSource);
         Assert.Equal(1e-22 * 20 * Math.Sqrt(2) / 3e-22, fromData.Ratio, 0.2); // about 9.4: flagged
@@ -55,7 +55,7 @@ public class CouplingMeasurementTests
         Assert.Equal(2, notes.Count);
 
         // Another site without strain data still uses the typed amplitude, and says so.
-        var elsewhere = CouplingEstimate.Estimate(Flat, options, "M2:MAG", 20, 100)!;
+        var elsewhere = CouplingEstimate.Estimate(Flat, options, "MV/env/magnetometer", 20, 100)!;
         Assert.Equal("typed", elsewhere.CandidateStrainSource);
     }
 

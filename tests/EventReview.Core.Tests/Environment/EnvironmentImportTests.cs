@@ -5,15 +5,15 @@ namespace EventReview.Core.Tests.Environment;
 
 public class EnvironmentImportTests
 {
-    private static readonly string[] Known = ["KX", "M2"];
+    private static readonly string[] Known = ["KX", "MV"];
 
     [Fact]
     public void Segments_import_merges_overlapping_rows_of_one_flag_and_says_so()
     {
-        var csv = "site,flag,start_gps,end_gps,comment\nKX,GROUND_NOISE,100,110,a\nKX,GROUND_NOISE,105,120,b\nKX,OTHER,100,101,\nM2,GROUND_NOISE,100,110,\n";
+        var csv = "site,flag,start_gps,end_gps,comment\nKX,ground-noise,100,110,a\nKX,ground-noise,105,120,b\nKX,other-flag,100,101,\nMV,ground-noise,100,110,\n";
         var result = DataQualitySegmentCsv.Parse(new StringReader(csv), Known);
         Assert.Equal(3, result.Segments.Count);
-        var merged = result.Segments.Single(s => s.Site == "KX" && s.Flag == "GROUND_NOISE");
+        var merged = result.Segments.Single(s => s.Site == "KX" && s.Flag == "ground-noise");
         Assert.Equal(100, merged.Start.Seconds);
         Assert.Equal(120, merged.End.Seconds);
         Assert.Equal("a; b", merged.Comment);
@@ -33,19 +33,19 @@ public class EnvironmentImportTests
     [Fact]
     public void Unknown_site_codes_are_rejected_naming_the_line()
     {
-        var csv = "site,channel,gps_time,snr\nKX,SEIS_X,100,5\nZ9,SEIS_X,101,5\n";
+        var csv = "site,channel,gps_time,snr\nKX,env/seismometer-hall/x,100,5\nZZ,env/seismometer-hall/x,101,5\n";
         var ex = Assert.Throws<CsvFormatException>(() => AuxiliaryTriggerCsv.Parse(new StringReader(csv), Known));
         Assert.Equal(3, ex.LineNumber);
-        Assert.Contains("unknown site 'Z9'", ex.Message);
+        Assert.Contains("unknown site 'ZZ'", ex.Message);
     }
 
     [Theory]
-    [InlineData("KX,SEIS_X,100,NaN,,", "snr")]
-    [InlineData("KX,SEIS_X,abc,5,,", "gps_time")]
-    [InlineData("KX,SEIS_X,100,-1,,", "snr")]
-    [InlineData("KX,SEIS_X,100,5,0,", "frequency_hz")]
+    [InlineData("KX,env/seismometer-hall/x,100,NaN,,", "snr")]
+    [InlineData("KX,env/seismometer-hall/x,abc,5,,", "gps_time")]
+    [InlineData("KX,env/seismometer-hall/x,100,-1,,", "snr")]
+    [InlineData("KX,env/seismometer-hall/x,100,5,0,", "frequency_hz")]
     [InlineData("KX,,100,5,,", "channel")]
-    [InlineData("KX,SEIS_X,100,5", null)] // fewer fields than the header: a shifted row is refused, not read with blanks
+    [InlineData("KX,env/seismometer-hall/x,100,5", null)] // fewer fields than the header: a shifted row is refused, not read with blanks
     public void Malformed_trigger_lines_are_rejected_naming_line_and_column(string row, string? column)
     {
         var csv = "site,channel,gps_time,snr,frequency_hz,duration_s\n" + row + "\n";
@@ -57,7 +57,7 @@ public class EnvironmentImportTests
     [Fact]
     public void Triggers_import_reads_optional_columns_and_sorts_by_time()
     {
-        var csv = "site,channel,gps_time,snr,frequency_hz,duration_s\nM2,MAG_Z,1000000010.5,8,60,0.1\nKX,SEIS_X,1000000001.25,12,,\n";
+        var csv = "site,channel,gps_time,snr,frequency_hz,duration_s\nMV,env/magnetometer-vault/z,1000000010.5,8,60,0.1\nKX,env/seismometer-hall/x,1000000001.25,12,,\n";
         var list = AuxiliaryTriggerCsv.Parse(new StringReader(csv), Known);
         Assert.Equal("KX", list[0].Site);
         Assert.Null(list[0].FrequencyHz);
@@ -68,15 +68,15 @@ public class EnvironmentImportTests
     [Fact]
     public void Inventory_rejects_an_unknown_kind_and_a_duplicate_channel_naming_the_line()
     {
-        var bad = "site,channel,kind,location\nKX,SEIS_X,seismic,end station\nKX,MIC_1,noisy,corner\n";
+        var bad = "site,channel,kind,location\nKX,env/seismometer-hall/x,seismic,end station\nKX,env/microphone-1,noisy,corner\n";
         var ex = Assert.Throws<CsvFormatException>(() => SensorInventoryCsv.Parse(new StringReader(bad), Known));
         Assert.Equal(3, ex.LineNumber);
         Assert.Equal("kind", ex.Column);
 
-        var dup = "site,channel,kind,location\nKX,SEIS_X,seismic,a\nKX,SEIS_X,acoustic,b\n";
+        var dup = "site,channel,kind,location\nKX,env/seismometer-hall/x,seismic,a\nKX,env/seismometer-hall/x,acoustic,b\n";
         Assert.Equal(3, Assert.Throws<CsvFormatException>(() => SensorInventoryCsv.Parse(new StringReader(dup), Known)).LineNumber);
 
-        var ok = SensorInventoryCsv.Parse(new StringReader("site,channel,kind,location,coupling_file\nkx,MAG_Z,Magnetic,vault,mag.csv\n"), Known);
+        var ok = SensorInventoryCsv.Parse(new StringReader("site,channel,kind,location,coupling_file\nkx,env/magnetometer-vault/z,Magnetic,vault,mag.csv\n"), Known);
         Assert.Equal(SensorKind.Magnetic, ok[0].Kind);
         Assert.Equal("KX", ok[0].Site);
         Assert.Equal("mag.csv", ok[0].CouplingFile);

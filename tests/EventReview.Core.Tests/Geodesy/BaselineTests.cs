@@ -17,7 +17,7 @@ public class BaselineTests
     {
         // Two invented sites on the equator, 27 degrees of longitude apart (chord ~2990 km).
         var a = new Site("KX", "Site KX", 0, 0, 0, 0, 90, 1e-4);
-        var b = new Site("M2", "Site M2", 0, 27, 0, 0, 90, 1e-4);
+        var b = new Site("MV", "Site MV", 0, 27, 0, 0, 90, 1e-4);
         var baseline = Baseline.Between(a, b);
 
         Assert.InRange(baseline.BaselineMeters, 2.9e6, 3.1e6);
@@ -30,7 +30,7 @@ public class BaselineTests
     public void Baseline_vector_points_from_b_to_a()
     {
         var a = new Site("KX", "Site KX", 10, 20, 0, 0, 90, 1e-4);
-        var b = new Site("M2", "Site M2", -5, 40, 100, 0, 90, 1e-4);
+        var b = new Site("MV", "Site MV", -9, 47, 100, 0, 90, 1e-4);
         var baseline = Baseline.Between(a, b);
 
         var expected = SiteGeometry.Position(a) - SiteGeometry.Position(b);

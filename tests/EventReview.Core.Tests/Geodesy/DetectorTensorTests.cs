@@ -20,7 +20,7 @@ public class DetectorTensorTests
     [Fact]
     public void Site_arms_are_horizontal_unit_vectors_at_their_azimuths_and_the_tensor_is_traceless()
     {
-        var site = new Site("T3", "Site T3", 30, 60, 0, 45, 135, 1e-4);
+        var site = new Site("TQ", "Site TQ", 30, 60, 0, 45, 135, 1e-4);
         var frame = SiteGeometry.Frame(site);
         var x = SiteGeometry.XArm(site);
 

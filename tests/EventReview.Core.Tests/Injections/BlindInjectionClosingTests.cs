@@ -9,7 +9,7 @@ namespace EventReview.Core.Tests.Injections;
 public class BlindInjectionClosingTests
 {
     private static readonly GpsTime Case = GpsTime.FromSeconds(2000m);
-    private static readonly Dictionary<string, GpsTime> Arrivals = new() { ["KX"] = GpsTime.FromSeconds(2000.004m), ["M2"] = GpsTime.FromSeconds(1999.998m) };
+    private static readonly Dictionary<string, GpsTime> Arrivals = new() { ["KX"] = GpsTime.FromSeconds(2000.004m), ["MV"] = GpsTime.FromSeconds(1999.998m) };
 
     private static byte[] Record(double startOffset) => Encoding.UTF8.GetBytes(
         $"site,start_gps,end_gps,kind,waveform_ref,status\nKX,{2000 + startOffset},{2001 + startOffset},cbc,blind-2,performed");

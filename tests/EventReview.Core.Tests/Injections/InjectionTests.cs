@@ -9,13 +9,13 @@ public class InjectionTests
 {
     private const string Log = "site,start_gps,end_gps,kind,waveform_ref,status\n" +
         "KX,1000,1002,burst,sg_100.txt,performed\n" +
-        "M2,1000.5,1001,burst,sg_100.txt,aborted\n" +
+        "MV,1000.5,1001,burst,sg_100.txt,aborted\n" +
         "KX,5000,5010,cbc,bns_a.txt,scheduled\n";
 
     [Fact]
     public void Injection_log_import_reads_every_status()
     {
-        var list = InjectionLogCsv.Parse(new StringReader(Log), ["KX", "M2"]);
+        var list = InjectionLogCsv.Parse(new StringReader(Log), ["KX", "MV"]);
         Assert.Equal(3, list.Count);
         Assert.Equal(InjectionStatus.Aborted, list[1].Status);
         Assert.Equal(2.0, list[0].DurationSeconds);
@@ -24,12 +24,12 @@ public class InjectionTests
     [Theory]
     [InlineData("KX,1000,1002,burst,w,done", "status")]
     [InlineData("KX,1000,999,burst,w,performed", "end_gps")]
-    [InlineData("Q7,1000,1002,burst,w,performed", "site")]
+    [InlineData("QQ,1000,1002,burst,w,performed", "site")]
     [InlineData("KX,1000,1002,burst,,performed", "waveform_ref")]
     public void Malformed_injection_lines_are_rejected_naming_the_line(string row, string column)
     {
         var csv = "site,start_gps,end_gps,kind,waveform_ref,status\nKX,1,2,burst,w,performed\n" + row + "\n";
-        var ex = Assert.Throws<CsvFormatException>(() => InjectionLogCsv.Parse(new StringReader(csv), ["KX", "M2"]));
+        var ex = Assert.Throws<CsvFormatException>(() => InjectionLogCsv.Parse(new StringReader(csv), ["KX", "MV"]));
         Assert.Equal(3, ex.LineNumber);
         Assert.Equal(column, ex.Column);
     }
@@ -39,11 +39,11 @@ public class InjectionTests
     {
         var list = InjectionLogCsv.Parse(new StringReader(Log), null);
         var arrivals = new Dictionary<string, GpsTime> { ["KX"] = GpsTime.FromSeconds(1002.5m) };
-        var none = InjectionOverlap.Find(list, GpsTime.FromSeconds(1000.7m), arrivals, ["T3"], marginSeconds: 0.1);
-        Assert.Equal(["KX", "M2", "T3"], none.SitesChecked.Select(s => s.Site));
-        // KX arrives 0.5 s after its injection ended: outside a 0.1 s margin; M2 (case time 1000.7) overlaps an aborted one.
-        var m2 = Assert.Single(none.Hits);
-        Assert.Equal("aborted", m2.Status);
+        var none = InjectionOverlap.Find(list, GpsTime.FromSeconds(1000.7m), arrivals, ["TQ"], marginSeconds: 0.1);
+        Assert.Equal(["KX", "MV", "TQ"], none.SitesChecked.Select(s => s.Site));
+        // KX arrives 0.5 s after its injection ended: outside a 0.1 s margin; MV (case time 1000.7) overlaps an aborted one.
+        var mv = Assert.Single(none.Hits);
+        Assert.Equal("aborted", mv.Status);
         Assert.Equal("clear", none.Judgement.Word);
 
         var withMargin = InjectionOverlap.Find(list, GpsTime.FromSeconds(1000.7m), arrivals, [], marginSeconds: 1);
@@ -91,7 +91,7 @@ public class InjectionTests
         var record = Encoding.UTF8.GetBytes("site,start_gps,end_gps,kind,waveform_ref,status\nKX,2000,2001,cbc,blind_1.txt,performed\n");
         var seal = SealedRecord.Seal(record);
         var arrivals = new Dictionary<string, GpsTime>();
-        var opened = BlindInjectionRecord.Open(seal.Commitment, record, seal.Salt, GpsTime.FromSeconds(2000.5m), arrivals, ["KX", "M2"], 0);
+        var opened = BlindInjectionRecord.Open(seal.Commitment, record, seal.Salt, GpsTime.FromSeconds(2000.5m), arrivals, ["KX", "MV"], 0);
         Assert.NotNull(opened);
         Assert.Equal("concern", opened.Judgement.Word);
         Assert.Equal("blind_1.txt", Assert.Single(opened.Hits).WaveformRef);

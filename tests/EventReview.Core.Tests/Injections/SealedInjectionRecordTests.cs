@@ -8,7 +8,7 @@ public sealed class SealedInjectionRecordTests
 {
     private static readonly Actor Coordinator = new("u1", "Coordinator One");
     private static readonly DateTimeOffset Then = new(2026, 1, 2, 3, 4, 5, TimeSpan.Zero);
-    private static readonly byte[] Record = Encoding.UTF8.GetBytes("site,start_gps,end_gps,kind,waveform_ref,status\nT3,1000,1010,cbc,blind-1,performed");
+    private static readonly byte[] Record = Encoding.UTF8.GetBytes("site,start_gps,end_gps,kind,waveform_ref,status\nTQ,1000,1010,cbc,blind-1,performed");
     private static readonly byte[] Salt = Enumerable.Range(0, 32).Select(i => (byte)(7 * i)).ToArray();
 
     private static SealedInjectionRecord Sealed() => SealedInjectionRecord.Register(SealedRecord.Commitment(Salt, Record).ToUpperInvariant(), " Period 3 ", Coordinator, Then);

@@ -40,7 +40,7 @@ public class EntityGuardTests
         Assert.Throws<ArgumentOutOfRangeException>(() => new CaseArrival("KX", T, 1e308));
 
         var c = new CaseBuilder().WithoutArrivals()
-            .WithArrival("KX", 0, InputLimits.MaxSnr).WithArrival("M2", 0.001, InputLimits.MaxSnr).WithArrival("T3", 0.002, InputLimits.MaxSnr).Build();
+            .WithArrival("KX", 0, InputLimits.MaxSnr).WithArrival("MV", 0.001, InputLimits.MaxSnr).WithArrival("TQ", 0.002, InputLimits.MaxSnr).Build();
 
         Assert.Equal(InputLimits.MaxSnr * Math.Sqrt(3), c.NetworkSnr, 1e-9);
     }

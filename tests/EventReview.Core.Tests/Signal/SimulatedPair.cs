@@ -10,12 +10,12 @@ internal static class SimulatedPair
     public static readonly GpsTime Start = GpsTime.FromSeconds(1300000000m);
 
     /// <summary>Search limit of the pair's lag: its delay plus a few milliseconds of timing tolerance (invented geometry), seconds.</summary>
-    public const double MaxLagSeconds = 0.015;
+    public const double MaxLagSeconds = 0.018;
 
     public static readonly SiteProjection[] Sites =
     [
         new("KX", 0.0, 0.8, 0.1),
-        new("M2", 0.0071, -0.6, -0.075),
+        new("MV", 0.0124, -0.6, -0.075),
     ];
 
     public static SimulationResult Make(int seed, double snr = 30, double chirpMass = 8, double duration = 16, double fs = 4096) =>

@@ -12,7 +12,7 @@ public class BackgroundPlotSvgTests
     {
         var rng = new Random(2);
         var a = TimeSlideBackgroundTests.PoissonSite("KX", rng, 0.3, 2e4);
-        var b = TimeSlideBackgroundTests.PoissonSite("M2", rng, 0.3, 2e4);
+        var b = TimeSlideBackgroundTests.PoissonSite("MV", rng, 0.3, 2e4);
         var result = TimeSlideBackground.Run(a, b, new TimeSlideOptions { WindowNs = 15_000_000, StepNs = 3_000_000_000, Slides = 500, CandidateStatistic = 14 });
 
         var previous = CultureInfo.CurrentCulture;
@@ -35,7 +35,7 @@ public class BackgroundPlotSvgTests
         Assert.Contains(texts, t => t.StartsWith("3σ", StringComparison.Ordinal));
         Assert.Contains(texts, t => t.StartsWith("5σ", StringComparison.Ordinal));
         Assert.Contains(texts, t => t.StartsWith("candidate", StringComparison.Ordinal));
-        Assert.Contains(texts, t => t.StartsWith("Cumulative background of KX-M2", StringComparison.Ordinal));
+        Assert.Contains(texts, t => t.StartsWith("Cumulative background of KX-MV", StringComparison.Ordinal));
         Assert.DoesNotContain("href", svg, StringComparison.Ordinal);
         Assert.Single(doc.Descendants(), e => e.Name.LocalName == "path");
         foreach (var attr in doc.Descendants().Attributes().Where(x => x.Name.LocalName is "x" or "y" or "x1" or "y1" or "cx" or "cy"))

@@ -48,8 +48,8 @@ public class FastTimeSlidesTests
     public void A_pair_exactly_on_the_window_edge_is_coincident_and_one_ns_beyond_is_not()
     {
         const long step = 1_000_000, w = 10_000;
-        var a = Site("A1", [5_000_000], 100_000_000);
-        var b = Site("B2", [5_000_000 - (3 * step) + w, 5_000_000 - (2 * step) - w - 1], 100_000_000);
+        var a = Site("AA", [5_000_000], 100_000_000);
+        var b = Site("BB", [5_000_000 - (3 * step) + w, 5_000_000 - (2 * step) - w - 1], 100_000_000);
         var pair = new TimeSlidePair(a, b);
         var options = new TimeSlideOptions { WindowNs = w, StepNs = step, Slides = 5 };
         var sink = new CoincidenceListSink(pair);
@@ -64,8 +64,8 @@ public class FastTimeSlidesTests
     public void A_coincidence_across_the_ring_seam_is_found_by_both_finders()
     {
         const long step = 1_000_000, span = 100_000_000;
-        var a = Site("A1", [500], span);                 // just after the ring start
-        var b = Site("B2", [span - (2 * step) + 100], span); // moved by +2 steps it lands at span + 100 = ring position 100
+        var a = Site("AA", [500], span);                 // just after the ring start
+        var b = Site("BB", [span - (2 * step) + 100], span); // moved by +2 steps it lands at span + 100 = ring position 100
         var pair = new TimeSlidePair(a, b);
         var options = new TimeSlideOptions { WindowNs = 1000, StepNs = step, Slides = 3 };
         var fast = new CoincidenceListSink(pair);
@@ -79,7 +79,7 @@ public class FastTimeSlidesTests
     [Fact]
     public void Options_that_would_let_slides_wrap_onto_each_other_are_rejected()
     {
-        var pair = new TimeSlidePair(Site("A1", [1], 1_000_000), Site("B2", [2], 1_000_000));
+        var pair = new TimeSlidePair(Site("AA", [1], 1_000_000), Site("BB", [2], 1_000_000));
         var options = new TimeSlideOptions { WindowNs = 10, StepNs = 100_000, Slides = 5 };
         var ex = Assert.Throws<ArgumentOutOfRangeException>(() => FastTimeSlides.Find(pair, options, new CoincidenceListSink(pair)));
         Assert.Equal("Slides", ex.ParamName);
@@ -128,8 +128,8 @@ public class FastTimeSlidesTests
 
         timesA.Add(rng.NextInt64(0, 50));          // ring start
         timesB.Add(span - rng.NextInt64(1, 50));    // ring end
-        var a = SiteTriggers.Create("A1", timesA.Select(t => new Trigger(new GpsTime(origin + t), 5 + rng.NextDouble() * 10, rng.Next(3) == 0 ? null : 1 + rng.NextDouble())), segA.Select(s => new Segment(new GpsTime(origin + s.Start), new GpsTime(origin + s.End))));
-        var b = SiteTriggers.Create("B2", timesB.Select(t => new Trigger(new GpsTime(origin + t), 5 + rng.NextDouble() * 10, rng.Next(3) == 0 ? null : 1 + rng.NextDouble())), segB.Select(s => new Segment(new GpsTime(origin + s.Start), new GpsTime(origin + s.End))));
+        var a = SiteTriggers.Create("AA", timesA.Select(t => new Trigger(new GpsTime(origin + t), 5 + rng.NextDouble() * 10, rng.Next(3) == 0 ? null : 1 + rng.NextDouble())), segA.Select(s => new Segment(new GpsTime(origin + s.Start), new GpsTime(origin + s.End))));
+        var b = SiteTriggers.Create("BB", timesB.Select(t => new Trigger(new GpsTime(origin + t), 5 + rng.NextDouble() * 10, rng.Next(3) == 0 ? null : 1 + rng.NextDouble())), segB.Select(s => new Segment(new GpsTime(origin + s.Start), new GpsTime(origin + s.End))));
         var options = new TimeSlideOptions
         {
             WindowNs = w,

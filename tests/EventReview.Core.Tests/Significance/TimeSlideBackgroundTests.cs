@@ -13,7 +13,7 @@ public class TimeSlideBackgroundTests
         const double r1 = 0.01, r2 = 0.02, tau = 0.010, span = 1e6;
         var rng = new Random(11);
         var a = PoissonSite("KX", rng, r1, span);
-        var b = PoissonSite("M2", rng, r2, span);
+        var b = PoissonSite("MV", rng, r2, span);
         var options = new TimeSlideOptions { WindowNs = 10_000_000, StepNs = 100 * GpsTime.NanosecondsPerSecond, Slides = 1000, CandidateStatistic = 1e9 };
         var result = TimeSlideBackground.Run(a, b, options);
 
@@ -36,7 +36,7 @@ public class TimeSlideBackgroundTests
         const long span = 30L * 86_400 * GpsTime.NanosecondsPerSecond;
         Segment[] segments = [new Segment(new GpsTime(Origin), new GpsTime(Origin + span))];
         var a = SiteTriggers.Create("KX", [new Trigger(new GpsTime(Origin + 1_000_000_000), 8)], segments);
-        var b = SiteTriggers.Create("M2", [new Trigger(new GpsTime(Origin + 2_000_000_000), 8)], segments);
+        var b = SiteTriggers.Create("MV", [new Trigger(new GpsTime(Origin + 2_000_000_000), 8)], segments);
         var options = new TimeSlideOptions { WindowNs = 15_000_000, StepNs = 5 * GpsTime.NanosecondsPerSecond, Slides = 5_000, CandidateStatistic = 20 };
 
         var result = TimeSlideBackground.Run(a, b, options);
@@ -52,7 +52,7 @@ public class TimeSlideBackgroundTests
         var triggersA = PoissonTriggers(rng, 0.05, 1e5).Append(new Trigger(new GpsTime(Origin + 50_000_000_000_000), 50)).ToList();
         var triggersB = PoissonTriggers(rng, 0.05, 1e5).Append(new Trigger(new GpsTime(Origin + 50_000_000_000_000 + 3_000_000), 50)).ToList();
         var a = SiteTriggers.Create("KX", triggersA, [new Segment(new GpsTime(Origin), new GpsTime(Origin + 100_000_000_000_000))]);
-        var b = SiteTriggers.Create("M2", triggersB, [new Segment(new GpsTime(Origin), new GpsTime(Origin + 100_000_000_000_000))]);
+        var b = SiteTriggers.Create("MV", triggersB, [new Segment(new GpsTime(Origin), new GpsTime(Origin + 100_000_000_000_000))]);
         var options = new TimeSlideOptions { WindowNs = 10_000_000, StepNs = 7 * GpsTime.NanosecondsPerSecond, Slides = 500, RemoveCandidateTriggers = true };
 
         var result = TimeSlideBackground.Run(a, b, options);
@@ -86,7 +86,7 @@ public class TimeSlideBackgroundTests
     {
         var rng = new Random(3);
         var a = PoissonSite("KX", rng, 0.2, 2e4, gapEvery: 3000);
-        var b = PoissonSite("M2", rng, 0.3, 2e4, gapEvery: 2300);
+        var b = PoissonSite("MV", rng, 0.3, 2e4, gapEvery: 2300);
         var options = new TimeSlideOptions { WindowNs = 15_000_000, StepNs = 5 * GpsTime.NanosecondsPerSecond, Slides = 300, CandidateStatistic = 12 };
         var fast = TimeSlideBackground.Run(a, b, options);
         var naive = TimeSlideBackground.Run(a, b, options with { Algorithm = TimeSlideAlgorithm.Naive });
@@ -107,7 +107,7 @@ public class TimeSlideBackgroundTests
     public void Background_time_is_the_exact_overlap_after_the_shift_round_the_ring()
     {
         var a = SiteTriggers.Create("KX", [], [new Segment(new GpsTime(0), new GpsTime(40))]);
-        var b = SiteTriggers.Create("M2", [], [new Segment(new GpsTime(60), new GpsTime(100))]);
+        var b = SiteTriggers.Create("MV", [], [new Segment(new GpsTime(60), new GpsTime(100))]);
         var pair = new TimeSlidePair(a, b);
         Assert.Equal(100, pair.SpanNs);
         Assert.Equal(0, pair.ZeroLagOverlapNanoseconds());
@@ -121,7 +121,7 @@ public class TimeSlideBackgroundTests
     {
         var rng = new Random(8);
         var a = PoissonSite("KX", rng, 0.5, 1e4);
-        var b = PoissonSite("M2", rng, 0.5, 1e4);
+        var b = PoissonSite("MV", rng, 0.5, 1e4);
         var options = new TimeSlideOptions { WindowNs = 10_000_000, StepNs = GpsTime.NanosecondsPerSecond, Slides = 200, CandidateStatistic = 10 };
         var last = new SynchronousProgress();
         var result = TimeSlideBackground.Run(a, b, options, last);
@@ -138,7 +138,7 @@ public class TimeSlideBackgroundTests
     {
         var rng = new Random(9);
         var a = PoissonSite("KX", rng, 0.2, 1e4);
-        var b = PoissonSite("M2", rng, 0.2, 1e4);
+        var b = PoissonSite("MV", rng, 0.2, 1e4);
         var result = TimeSlideBackground.Run(a, b, new TimeSlideOptions { WindowNs = 10_000_000, StepNs = GpsTime.NanosecondsPerSecond, Slides = 100, CandidateStatistic = 11, RemoveCandidateTriggers = true });
         var json = System.Text.Json.JsonSerializer.Serialize(result, new System.Text.Json.JsonSerializerOptions(System.Text.Json.JsonSerializerDefaults.Web));
         Assert.Contains("\"farHz\":", json, StringComparison.Ordinal);

@@ -17,7 +17,7 @@ public class TripleTimeSlidesTests
             var w = (long)rng.Next(20, (int)(step / 2) - 1);
             var k = rng.Next(1, 10);
             var span = (2 * ((2 * k * step) + w)) + rng.Next(1, 3000);
-            var sites = new[] { "A1", "B2", "C3" }.Select(code => SiteTriggers.Create(
+            var sites = new[] { "AA", "BB", "CC" }.Select(code => SiteTriggers.Create(
                 code,
                 Enumerable.Range(0, rng.Next(5, 60)).Select(_ => new Trigger(new GpsTime(origin + rng.NextInt64(0, span)), 5 + (rng.NextDouble() * 5))),
                 [new Segment(new GpsTime(origin), new GpsTime(origin + span))])).ToArray();

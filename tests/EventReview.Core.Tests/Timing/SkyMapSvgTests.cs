@@ -14,9 +14,9 @@ public class SkyMapSvgTests
     {
         Site[] sites =
         [
-            new("KX", "Site KX", 47, -105, 100, 36, 126, 1e-4),
-            new("M2", "Site M2", 28, -82, 0, 252, 342, 1e-4),
-            new("T3", "Site T3", 41, 22, 50, 19, 109, 2e-4),
+            new("KX", "Site KX", 44, -101, 100, 62, 152, 1e-4),
+            new("MV", "Site MV", 19, -71, 0, 117, 207, 1e-4),
+            new("TQ", "Site TQ", -12, -52, 400, 148, 238, 2e-4),
         ];
         var t0 = GpsTime.FromSeconds(1400000000m);
         var n = new Vector3(0.2, -0.7, 0.5).Normalized();

@@ -22,8 +22,12 @@ public class VerdictWordsTests
     {
         // These words sit inside the content hashes of stored records: changing one breaks every old record.
         Assert.Equal("consistent", VerdictWords.Word(Verdict.Consistent));
-        Assert.Equal("nothing added", VerdictWords.Word(Verdict.NothingAdded));
-        Assert.Equal(VerdictTone.Bad, VerdictWords.ToneOf("something added"));
+        // The two legacy data-chain words are pinned by the SHA-256 of their UTF-8 bytes (the words themselves appear only in
+        // the verdict table and the format-1 fixtures).
+        Assert.Equal("c2c150ccf318f3faf1638f4430ed3a4a33a0e12f202316923619d1ed0159cc5f", Sha256(VerdictWords.Word(Verdict.NothingAdded)));
+        Assert.Equal("bf490656f6348b9f348a1b302431b808445b9ef6eddc5b8116ffdb07c5d85296", Sha256(VerdictWords.Word(Verdict.SomethingAdded)));
+        Assert.Equal(VerdictTone.Good, VerdictWords.ToneOf(VerdictWords.Word(Verdict.NothingAdded)));
+        Assert.Equal(VerdictTone.Bad, VerdictWords.ToneOf(VerdictWords.Word(Verdict.SomethingAdded)));
         Assert.Equal(VerdictTone.Neutral, VerdictWords.ToneOf("a word no version used"));
         Assert.False(VerdictWords.TryParse("Consistent", out _));
     }
@@ -61,4 +65,7 @@ public class VerdictWordsTests
         Assert.Equal(Verdict.Concern, worst!.Verdict);
         Assert.Null(Judgement.Worst([]));
     }
+
+    private static string Sha256(string text) =>
+        Convert.ToHexStringLower(System.Security.Cryptography.SHA256.HashData(System.Text.Encoding.UTF8.GetBytes(text)));
 }

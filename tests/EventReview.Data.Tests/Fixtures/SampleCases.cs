@@ -48,7 +48,7 @@ public static class SampleCases
     {
         var gps = GpsTime.FromSeconds(1_400_000_000.123456789m);
         return ReviewCase.Open(candidateId, gps, "data-search", "Summary with *Markdown*.",
-            [new CaseArrival("KX", gps.AddSeconds(0.0021), 9.5), new CaseArrival("M2", gps.AddSeconds(-0.0043), 7.25)],
+            [new CaseArrival("KX", gps.AddSeconds(0.0021), 9.5), new CaseArrival("MV", gps.AddSeconds(-0.0043), 7.25)],
             Template(), Coordinator, at ?? T0);
     }
 
@@ -87,7 +87,7 @@ public static class SampleCases
 
         at = Next();
         c.AddComputation("beta.one", new ComputationRecord(CheckKind.Timing, "{\"toleranceSeconds\":0.001}", Hashing.Sha256Hex("inputs"), "0.1.0",
-            "{\"consistent\":true}", "consistent", "Δt within 10 ms", "<svg/>", ReviewerA, at), ReviewerA, at);
+            "{\"consistent\":true}", "consistent", "Δt within 13 ms", "<svg/>", ReviewerA, at), ReviewerA, at);
         c.SetItemDue("beta.one", new DateOnly(2026, 3, 9), Coordinator, Next());
         return c;
     }

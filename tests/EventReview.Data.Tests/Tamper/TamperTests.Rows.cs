@@ -52,10 +52,10 @@ public abstract partial class TamperTests
     [Fact]
     public async Task A_deleted_and_an_added_arrival_are_caught()
     {
-        await IntrudeAsync("DELETE FROM \"CaseArrivals\" WHERE \"ReviewCaseId\" = @case AND \"SiteCode\" = 'M2'");
+        await IntrudeAsync("DELETE FROM \"CaseArrivals\" WHERE \"ReviewCaseId\" = @case AND \"SiteCode\" = 'MV'");
         await IntrudeAsync("INSERT INTO \"CaseArrivals\" (\"ReviewCaseId\", \"SiteCode\", \"ArrivalNanoseconds\", \"Snr\") VALUES (@case, 'QZ', 1400000000123456789, 30.0)");
 
-        await CaughtAsync(null, "The arrival at M2, recorded in entry 1, is missing from the database");
+        await CaughtAsync(null, "The arrival at MV, recorded in entry 1, is missing from the database");
         await CaughtAsync(null, "The arrival at QZ is in the database, but no signed entry accounts for it");
     }
 

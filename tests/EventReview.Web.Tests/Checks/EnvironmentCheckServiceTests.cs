@@ -35,16 +35,16 @@ public sealed class EnvironmentCheckServiceTests(LocalCausesHarness app) : IClas
         var result = JsonSerializer.Deserialize<EnvironmentRecordResult>(record.ResultJson, CheckRecords.Json)!;
         Assert.Equal(["AB:concern", "KP:clear", "SM:clear"], result.Report.Sites.Select(s => $"{s.Site}:{s.Judgement.Word}"));
         Assert.All(result.Report.Hits, h => Assert.Equal("AB", h.Site));
-        var mag = Assert.Single(result.Report.Hits, h => h.Channel == "AB:MAG-VAULT-X");
+        var mag = Assert.Single(result.Report.Hits, h => h.Channel == "AB/" + LocalCausesDemoFiles.Magnetometer);
         Assert.Equal(-0.182, mag.OffsetSeconds, 6);
         Assert.Equal("magnetic", mag.Kind);
         // Poisson chance of at least one trigger in ±w at rate R: 1 - exp(-2 w R) (from memory)
         Assert.Equal(1 - Math.Exp(-2 * 1.0 * mag.ChannelRateHz), mag.ChanceProbability, 12);
-        // coupling 1.2e-13 strain/T at 60 Hz (tabulated) x SNR 23.5 x 10 pT / 1e-21 = 0.0282 (hand calculation)
+        // coupling 1.2e-13 strain/T at 75 Hz (tabulated) x SNR 23.5 x 10 pT / 1e-21 = 0.0282 (hand calculation)
         Assert.Equal(0.0282, mag.CouplingRatio!.Value, 6);
         Assert.False(mag.CouplingFlagged);
         Assert.Equal("candidate strain: typed; sensor amplitude: typed", mag.CouplingInputs);
-        Assert.All(result.Safety!.Channels.Where(ch => ch.Channel.EndsWith("INST-ACT-READBACK", StringComparison.Ordinal)), ch =>
+        Assert.All(result.Safety!.Channels.Where(ch => ch.Channel.EndsWith("inst/actuator-readback", StringComparison.Ordinal)), ch =>
         {
             // the actuator readback fires at all 5 injections: binomial P = q^5 with q from its rate away from the injections
             Assert.False(ch.Safe);
@@ -81,7 +81,7 @@ public sealed class EnvironmentCheckServiceTests(LocalCausesHarness app) : IClas
     {
         var (caseId, p) = await CaseWithDemoFilesAsync("T-ENV-3", "AB");
         var bad = await app.AttachAsync(caseId, "env.triggers", "bad-triggers.csv",
-            "site,channel,gps_time,snr\nAB,AB:MAG-VAULT-X,1400000000.1,12\nAB,AB:MAG-VAULT-X,1400000001.1,NaN\n");
+            "site,channel,gps_time,snr\nAB,AB/env/magnetometer-electronics-vault/x,1400000000.1,12\nAB,AB/env/magnetometer-electronics-vault/x,1400000001.1,NaN\n");
 
         var ex = await Assert.ThrowsAsync<FormatException>(() => app.Get<EnvironmentCheckService>().RunAsync(app.Reviewer, caseId, "env.triggers", p with { TriggersSha = bad }));
 

@@ -60,8 +60,9 @@ public sealed class FormatOneRecordTests : BunitContext
     [Fact]
     public void The_legacy_chain_words_keep_their_tone()
     {
-        Assert.Equal(VerdictTone.Good, VerdictWords.ToneOf(Load("chain").Record.Verdict)); // "nothing added"
-        Assert.Equal(VerdictTone.Bad, VerdictWords.ToneOf("something added"));
+        Assert.Equal(VerdictWords.Word(Verdict.NothingAdded), Load("chain").Record.Verdict); // the legacy chain word, as stored
+        Assert.Equal(VerdictTone.Good, VerdictWords.ToneOf(Load("chain").Record.Verdict));
+        Assert.Equal(VerdictTone.Bad, VerdictWords.ToneOf(VerdictWords.Word(Verdict.SomethingAdded)));
         Assert.Equal(VerdictTone.Good, VerdictWords.ToneOf(Load("background").Record.Verdict)); // "consistent"
     }
 

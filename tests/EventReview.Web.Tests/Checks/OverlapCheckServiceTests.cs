@@ -33,8 +33,8 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
 
         public static Site[] Sites { get; } =
         [
-            new("KX", "Site KX", 47, -105, 100, 36, 126, 1e-4),
-            new("M2", "Site M2", 28, -82, 0, 252, 342, 1e-4),
+            new("KX", "Site KX", 44, -101, 100, 62, 152, 1e-4),
+            new("MV", "Site MV", 19, -71, 0, 117, 207, 1e-4),
         ];
 
         public ClaimsPrincipal Coordinator { get; } = new(new ClaimsIdentity(
@@ -91,7 +91,7 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         using var scope = _app.Services.CreateScope();
         var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
         var gmst = Sidereal.GreenwichMeanSiderealDegrees(GpsUtc.ToUtc(T0));
-        var projection = NetworkProjection.Project(App.Sites, SkyFrame.ToEcef(211.0, 27.0, gmst), 0.4);
+        var projection = NetworkProjection.Project(App.Sites, SkyFrame.ToEcef(270.0, -30.0, gmst), 0.4);
         var arrivals = projection.Select((p, i) => new ArrivalRequest(p.Code, T0.AddSeconds(p.DelaySeconds).Nanoseconds / 1_000_000_000m, i == 0 ? 30.0 : 25.0)).ToList();
         var (c, _) = await cases.OpenAsync(_app.Coordinator, new OpenCaseRequest(candidateId, T0.Nanoseconds / 1_000_000_000m, "test", "simulated", arrivals, "candidate-review"));
         var sim = NetworkSimulator.Simulate(projection.Select(p => new Core.Signal.Simulation.SiteProjection(p.Code, p.DelaySeconds, p.FPlus, p.FCross)).ToList(),
@@ -125,7 +125,7 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         Assert.True(record.Verdict == "consistent", summary);
         var result = JsonSerializer.Deserialize<OverlapReviewResult>(record.ResultJson, CheckRecords.Json)!;
         Assert.Equal("KX", result.SiteA); // loudest arrival
-        Assert.Equal("M2", result.SiteB);
+        Assert.Equal("MV", result.SiteB);
         double truthLag = setup.Projection[0].DelaySeconds - setup.Projection[1].DelaySeconds;
         Assert.True(Math.Abs(truthLag - result.Overlap.RefinedLagSeconds) <= 3 * result.Overlap.LagUncertaintySeconds!.Value, summary); // simulator truth, within 3σ
         Assert.Contains(" ± ", summary); // the lag is reported with its uncertainty
@@ -140,7 +140,7 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         Assert.Contains("200 off-source trials", summary);
         Assert.Equal(7, record.PicturesSvg.Split(CheckRecords.PictureSeparator).Length); // overlay, curve, histogram, two Q maps and their zooms
         Assert.Equal(record.Verdict, result.Judgement!.Word);
-        Assert.Contains("light-travel KX–M2", result.AllowedLagRule);
+        Assert.Contains("light-travel KX–MV", result.AllowedLagRule);
         Assert.All(result.Maps, m => Assert.True(m.Fit is { ChirpLike: true }, m.Fit?.Reason ?? m.Error));
         Assert.Equal(fractions.Order().ToList(), fractions); // progress only moves forward
 
@@ -190,9 +190,9 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         new PureHDF.H5File { ["strain"] = new PureHDF.H5Dataset(b.Samples) }.Write(path);
         using var scope = _app.Services.CreateScope();
         var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
-        var c = await cases.AddAttachmentAsync(_app.Coordinator, setup.CaseId, Item, new MemoryStream(await File.ReadAllBytesAsync(path)), "M2-strain.h5", "application/x-hdf5", "hdf5", long.MaxValue);
+        var c = await cases.AddAttachmentAsync(_app.Coordinator, setup.CaseId, Item, new MemoryStream(await File.ReadAllBytesAsync(path)), "MV-strain.h5", "application/x-hdf5", "hdf5", long.MaxValue);
         File.Delete(path);
-        var h5 = CaseFiles.List(c).First(f => f.FileName == "M2-strain.h5").Sha256;
+        var h5 = CaseFiles.List(c).First(f => f.FileName == "MV-strain.h5").Sha256;
         var service = scope.ServiceProvider.GetRequiredService<OverlapCheckService>();
 
         var (fromText, _, _) = await service.RunAsync(_app.Coordinator, setup.CaseId, Item, new OverlapCheckParameters(new StrainPick(setup.ShaA), new StrainPick(setup.ShaB), OffSourceTrials: 0));
@@ -201,13 +201,13 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         Assert.True(added); // another input file: a new record
         var text = JsonSerializer.Deserialize<OverlapReviewResult>(fromText.Item(Item).Computations.First().ResultJson, CheckRecords.Json)!;
         var hdf = JsonSerializer.Deserialize<OverlapReviewResult>(fromH5.Item(Item).Computations.Last().ResultJson, CheckRecords.Json)!;
-        Assert.Equal("M2-strain.h5", hdf.FileB);
+        Assert.Equal("MV-strain.h5", hdf.FileB);
         Assert.Equal(text.Overlap.RefinedLagSeconds, hdf.Overlap.RefinedLagSeconds, 1e-12); // same samples, same timing
         Assert.Equal(text.Overlap.Overlap, hdf.Overlap.Overlap, 1e-12);
 
         var ex = await Assert.ThrowsAnyAsync<FormatException>(() => service.RunAsync(_app.Coordinator, setup.CaseId, Item,
             new OverlapCheckParameters(new StrainPick(setup.ShaA), new StrainPick(h5, "/nothing-here", 1m, 2048))));
-        Assert.Contains("M2-strain.h5", ex.Message);
+        Assert.Contains("MV-strain.h5", ex.Message);
         Assert.Contains("/nothing-here", ex.Message);
     }
 
@@ -225,7 +225,7 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
 
         Assert.False(job.IsRunning);
         Assert.True(job.Error is null, job.Error);
-        Assert.StartsWith("stored: KX–M2: overlap", job.Result);
+        Assert.StartsWith("stored: KX–MV: overlap", job.Result);
         var c = await scope.ServiceProvider.GetRequiredService<CaseService>().GetAsync(_app.Coordinator, setup.CaseId);
         Assert.Single(c.Item(Item).Computations);
     }

@@ -20,7 +20,7 @@ public sealed class OverlapResultViewTests : BunitContext
     private static ComputationRecord Record(double overlap, double? p, bool signDetermined = true, bool atEdge = false, string verdict = "consistent")
     {
         var core = new OverlapResult("1400000000.25", -0.00539, -0.005391, -1, overlap, [-0.001, 0, 0.001], [0.1, -0.2, 0.1], 4096,
-            "both series sampled at 4096 Hz; no resampling", [0.1, 0.2, 0.3], p, [0], [0], [0], 0.2, 0.01392, 30, 350, ["core assumption"],
+            "both series sampled at 4096 Hz; no resampling", [0.1, 0.2, 0.3], p, [0], [0], [0], 0.2, 0.01392, 25, 400, ["core assumption"],
             0.00042, 3.01, signDetermined, overlap * 0.99, [0.3, 0.9, 0.3], atEdge, atEdge ? ["the best lag lies within one sample of the search limit"] : [], 0.21);
         var fit = new ChirpFit(25.3, 1.2, -0.01, 0.97, true, "frequency rises as the leading-order chirp law predicts", [-0.1], [40], ["T_sun"],
             ["can tell: the frequency rises", "cannot tell: the component masses"]);
@@ -69,7 +69,7 @@ public sealed class OverlapResultViewTests : BunitContext
             {"siteA":"AB","siteB":"KP","fileA":"AB-strain.txt","fileB":"KP-strain.txt","overlap":{"centerGps":"1400000000.25","lagSeconds":-0.00539,
             "refinedLagSeconds":-0.005391,"sign":-1,"overlap":0.93,"alternativeLagSeconds":0.0021,"alternativeOverlap":0.41,"lagsSeconds":[-0.001,0,0.001],
             "correlation":[0.1,-0.2,0.1],"sampleRateHz":4096,"resamplingNote":"no resampling","offSourceOverlaps":[0.1,0.2],"pValue":0.005,"plotTimesSeconds":[0],
-            "plotA":[0],"plotB":[0],"windowSeconds":0.2,"maxLagSeconds":0.01392,"bandLowHz":30,"bandHighHz":350,"assumptions":["old core assumption"]},
+            "plotA":[0],"plotB":[0],"windowSeconds":0.2,"maxLagSeconds":0.01392,"bandLowHz":25,"bandHighHz":400,"assumptions":["old core assumption"]},
             "allowedLagSeconds":0.01397,"allowedLagRule":"±13.97 ms","caseLagSeconds":null,"lagWithinWindow":true,"peakAtSearchEdge":false,"overlapThreshold":0.5,
             "pValueThreshold":0.01,"signNote":"sign −1: KP is flipped","verdictReason":"overlap 0.93 >= 0.5, lag inside the window","maps":[{"site":"AB",
             "fileName":"AB-strain.txt","fit":null,"error":"too short","fromSeconds":0,"toSeconds":0,"lowHz":0,"highHz":0,"resolutionHz":0,"segmentSeconds":0.125,

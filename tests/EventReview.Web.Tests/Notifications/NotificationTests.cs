@@ -115,7 +115,7 @@ public sealed class NotificationTests(NotificationFactory app) : IClassFixture<N
 
         var ready = Assert.Single(_h.MailsTo(coordinatorEmail, $"{c.CandidateId}: every item is signed off, ready for decision"));
         Assert.Contains($"All {keys.Count} checklist items", ready.TextBody, StringComparison.Ordinal);
-        Assert.Contains("the decision rests with the committee", ready.TextBody, StringComparison.Ordinal);
+        Assert.Contains("the decision rests with the decision board", ready.TextBody, StringComparison.Ordinal);
     }
 
     [Fact]

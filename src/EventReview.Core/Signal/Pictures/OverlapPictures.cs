@@ -1,4 +1,5 @@
 using System.Globalization;
+using EventReview.Core.Pictures;
 using EventReview.Core.Signal.Overlap;
 
 namespace EventReview.Core.Signal.Pictures;
@@ -18,11 +19,11 @@ public static class OverlapPictures
         p.Polyline(t, result.PlotA, PicturePalette.Ink);
         p.Polyline(t, result.PlotB, PicturePalette.Warm);
         p.Axes("time from candidate (ms)", "whitened, band-passed strain (dimensionless)");
-        string turn = result.PhaseRadians is { } ph ? string.Create(CultureInfo.InvariantCulture, $"phase turned by {-double.RadiansToDegrees(ph):+0;-0}°, ") : string.Empty;
-        p.Text(p.PlotLeft + 8, p.PlotTop + 16, $"{siteA} as recorded", "start", $"fill=\"{PicturePalette.Ink}\"");
-        p.Text(p.PlotLeft + 8, p.PlotTop + 32, string.Create(CultureInfo.InvariantCulture, $"{siteB}: {turn}moved by {result.LagSeconds * 1e3:+0.00;-0.00} ms"), "start", $"fill=\"{PicturePalette.Warm}\"");
+        string turn = result.PhaseRadians is { } ph ? string.Create(CultureInfo.InvariantCulture, $", phase {-double.RadiansToDegrees(ph):+0;-0}°") : string.Empty;
+        p.Text(p.PlotLeft + 8, p.PlotTop + 16, $"{siteA}: reference, untouched", "start", $"fill=\"{PicturePalette.Ink}\"");
+        p.Text(p.PlotLeft + 8, p.PlotTop + 32, string.Create(CultureInfo.InvariantCulture, $"{siteB}: realigned (time {result.LagSeconds * 1e3:+0.00;-0.00} ms{turn})"), "start", $"fill=\"{PicturePalette.Warm}\"");
         return p.Finish(string.Create(CultureInfo.InvariantCulture,
-            $"{siteA} and {siteB} lined up: overlap {result.Overlap:F2} over the shaded {result.WindowSeconds * 1e3:G3} ms window"));
+            $"{siteB} realigned onto {siteA}: the traces should agree inside the shaded {result.WindowSeconds * 1e3:G3} ms (overlap {result.Overlap:F2})"));
     }
 
     /// <summary>Correlation (sign +1 and −1) and its envelope against lag, with the best lag ± its uncertainty marked.</summary>
@@ -47,7 +48,7 @@ public static class OverlapPictures
             p.Polyline(lagMs, env, PicturePalette.Green, 2.2);
         }
 
-        p.Line(lag, -1, lag, 1, "black", "stroke-dasharray=\"4 3\"");
+        p.Line(lag, -1, lag, 1, PicturePalette.Text, "stroke-dasharray=\"4 3\"");
         p.Axes("lag = arrival(A) - arrival(B) (ms)", "normalised correlation (dimensionless)");
         p.Text(p.PlotLeft + 8, p.PlotTop + 16, "sign +1", "start", $"fill=\"{PicturePalette.Ink}\"");
         p.Text(p.PlotLeft + 8, p.PlotTop + 32, "sign -1", "start", $"fill=\"{PicturePalette.Warm}\"");
@@ -73,7 +74,7 @@ public static class OverlapPictures
         var p = new SvgPlot(0, Math.Max(hi, 1e-6), 0, Math.Max(1, counts.DefaultIfEmpty(0).Max()) * 1.1);
         for (int i = 0; i < counts.Length; i++)
         {
-            p.Rect(i * hi / counts.Length, 0, (i + 1) * hi / counts.Length, counts[i], PicturePalette.Shade, "stroke=\"white\" stroke-width=\"0.5\"");
+            p.Rect(i * hi / counts.Length, 0, (i + 1) * hi / counts.Length, counts[i], PicturePalette.Shade, $"stroke=\"{PicturePalette.Surface}\" stroke-width=\"0.5\"");
         }
 
         p.Line(result.Overlap, 0, result.Overlap, Math.Max(1, counts.DefaultIfEmpty(0).Max()) * 1.1, PicturePalette.Warm, "stroke-width=\"2\"");

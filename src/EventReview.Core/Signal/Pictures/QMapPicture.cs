@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Net;
 using System.Text;
+using EventReview.Core.Pictures;
 using EventReview.Core.Signal.TimeFrequency;
 
 namespace EventReview.Core.Signal.Pictures;
@@ -33,7 +34,7 @@ public static class QMapPicture
         double Y(double hz) => Top + plotH - (Math.Log(hz / fLo) / Math.Log(fHi / fLo) * plotH);
         var sb = new StringBuilder();
         sb.Append(ci, $"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{Width}\" height=\"{Height}\" viewBox=\"0 0 {Width} {Height}\" font-family=\"sans-serif\" font-size=\"12\">");
-        sb.Append(ci, $"<rect width=\"100%\" height=\"100%\" fill=\"white\"/><rect x=\"{Left}\" y=\"{Top}\" width=\"{plotW}\" height=\"{plotH}\" fill=\"{PicturePalette.Paper}\"/>");
+        sb.Append(ci, $"<rect width=\"100%\" height=\"100%\" fill=\"{PicturePalette.Surface}\"/><rect x=\"{Left}\" y=\"{Top}\" width=\"{plotW}\" height=\"{plotH}\" fill=\"{PicturePalette.Paper}\"/>");
         // Coarse blocks (at most MaxColumns × MaxRows, each the largest value it covers), one path per shade, runs merged.
         int cols = Math.Min(MaxColumns, t.Length), rows = Math.Min(MaxRows, f.Length);
         var paths = new StringBuilder[Shades + 1];
@@ -118,30 +119,24 @@ public static class QMapPicture
     }
 
     /// <summary>Paper (level 0) to ink blue (level 1), linearly in RGB.</summary>
-    private static string Colour(int shade)
-    {
-        double s = shade / (double)Shades;
-        (int R, int G, int B) paper = (0xfa, 0xf8, 0xf3), ink = (0x1f, 0x3a, 0x68);
-        int Mix(int a, int b) => (int)Math.Round(a + ((b - a) * s));
-        return string.Create(CultureInfo.InvariantCulture, $"#{Mix(paper.R, ink.R):x2}{Mix(paper.G, ink.G):x2}{Mix(paper.B, ink.B):x2}");
-    }
+    private static string Colour(int shade) => PicturePalette.Mix(PicturePalette.Paper, PicturePalette.Ink, shade / (double)Shades);
 
     private static void Axes(StringBuilder sb, double t0, double t1, double fLo, double fHi, Func<double, double> x, Func<double, double> y)
     {
         var ci = CultureInfo.InvariantCulture;
         double plotW = Width - Left - Right, plotH = Height - Top - Bottom;
-        sb.Append(ci, $"<rect x=\"{Left}\" y=\"{Top}\" width=\"{plotW}\" height=\"{plotH}\" fill=\"none\" stroke=\"black\"/>");
+        sb.Append(ci, $"<rect x=\"{Left}\" y=\"{Top}\" width=\"{plotW}\" height=\"{plotH}\" fill=\"none\" stroke=\"{PicturePalette.Text}\"/>");
         double raw = (t1 - t0) / 6, mag = Math.Pow(10, Math.Floor(Math.Log10(raw)));
         double step = new[] { 1, 2, 5, 10 }.Select(m => m * mag).First(v => v >= raw);
         for (double v = Math.Ceiling(t0 / step) * step; v <= t1 + 1e-9; v += step)
         {
-            sb.Append(ci, $"<line x1=\"{x(v):0.#}\" y1=\"{Top + plotH}\" x2=\"{x(v):0.#}\" y2=\"{Top + plotH + 5}\" stroke=\"black\"/>");
+            sb.Append(ci, $"<line x1=\"{x(v):0.#}\" y1=\"{Top + plotH}\" x2=\"{x(v):0.#}\" y2=\"{Top + plotH + 5}\" stroke=\"{PicturePalette.Text}\"/>");
             Text(sb, x(v), Top + plotH + 18, Math.Abs(v) < 1e-9 ? "0" : v.ToString("G4", ci), "middle");
         }
 
         foreach (var hz in new[] { 10.0, 20, 30, 50, 100, 200, 300, 500, 1000, 2000 }.Where(h => h >= fLo && h <= fHi))
         {
-            sb.Append(ci, $"<line x1=\"{Left - 5}\" y1=\"{y(hz):0.#}\" x2=\"{Left}\" y2=\"{y(hz):0.#}\" stroke=\"black\"/>");
+            sb.Append(ci, $"<line x1=\"{Left - 5}\" y1=\"{y(hz):0.#}\" x2=\"{Left}\" y2=\"{y(hz):0.#}\" stroke=\"{PicturePalette.Text}\"/>");
             Text(sb, Left - 8, y(hz) + 4, hz.ToString("G4", ci), "end");
         }
 
@@ -159,7 +154,7 @@ public static class QMapPicture
             sb.Append(ci, $"<rect x=\"{x:0.#}\" y=\"{ya:0.#}\" width=\"16\" height=\"{h + 0.5:0.#}\" fill=\"{Colour(s)}\"/>");
         }
 
-        sb.Append(ci, $"<rect x=\"{x:0.#}\" y=\"{Top}\" width=\"16\" height=\"{plotH}\" fill=\"none\" stroke=\"black\"/>");
+        sb.Append(ci, $"<rect x=\"{x:0.#}\" y=\"{Top}\" width=\"16\" height=\"{plotH}\" fill=\"none\" stroke=\"{PicturePalette.Text}\"/>");
         foreach (var v in new[] { 0.125, 0.5, 1.0 })
         {
             double ya = Top + plotH - (v * plotH);

@@ -1,6 +1,7 @@
 using System.Globalization;
 using System.Net;
 using System.Text;
+using EventReview.Core.Pictures;
 
 namespace EventReview.Core.Signal.Pictures;
 
@@ -18,7 +19,7 @@ internal sealed class SvgPlot
         (_x0, _x1) = x1 > x0 ? (x0, x1) : (x0 - 0.5, x0 + 0.5);
         (_y0, _y1) = y1 > y0 ? (y0, y1) : (y0 - 0.5, y0 + 0.5);
         _sb.Append(CultureInfo.InvariantCulture, $"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{Width}\" height=\"{Height}\" viewBox=\"0 0 {Width} {Height}\" font-family=\"sans-serif\" font-size=\"12\">");
-        _sb.Append("<rect width=\"100%\" height=\"100%\" fill=\"white\"/>");
+        _sb.Append($"<rect width=\"100%\" height=\"100%\" fill=\"{PicturePalette.Surface}\"/>");
     }
 
     public double PlotLeft => Left;
@@ -64,16 +65,16 @@ internal sealed class SvgPlot
 
     public void Axes(string xLabel, string yLabel)
     {
-        _sb.Append(CultureInfo.InvariantCulture, $"<rect x=\"{Left}\" y=\"{Top}\" width=\"{Width - Left - Right}\" height=\"{Height - Top - Bottom}\" fill=\"none\" stroke=\"black\"/>");
+        _sb.Append(CultureInfo.InvariantCulture, $"<rect x=\"{Left}\" y=\"{Top}\" width=\"{Width - Left - Right}\" height=\"{Height - Top - Bottom}\" fill=\"none\" stroke=\"{PicturePalette.Text}\"/>");
         foreach (var t in Ticks(_x0, _x1))
         {
-            _sb.Append(CultureInfo.InvariantCulture, $"<line x1=\"{F(X(t))}\" y1=\"{F(PlotBottom)}\" x2=\"{F(X(t))}\" y2=\"{F(PlotBottom + 5)}\" stroke=\"black\"/>");
+            _sb.Append(CultureInfo.InvariantCulture, $"<line x1=\"{F(X(t))}\" y1=\"{F(PlotBottom)}\" x2=\"{F(X(t))}\" y2=\"{F(PlotBottom + 5)}\" stroke=\"{PicturePalette.Text}\"/>");
             Text(X(t), PlotBottom + 18, Tick(t), "middle");
         }
 
         foreach (var t in Ticks(_y0, _y1))
         {
-            _sb.Append(CultureInfo.InvariantCulture, $"<line x1=\"{Left - 5}\" y1=\"{F(Y(t))}\" x2=\"{Left}\" y2=\"{F(Y(t))}\" stroke=\"black\"/>");
+            _sb.Append(CultureInfo.InvariantCulture, $"<line x1=\"{Left - 5}\" y1=\"{F(Y(t))}\" x2=\"{Left}\" y2=\"{F(Y(t))}\" stroke=\"{PicturePalette.Text}\"/>");
             Text(Left - 8, Y(t) + 4, Tick(t), "end");
         }
 

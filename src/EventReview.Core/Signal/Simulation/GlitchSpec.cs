@@ -7,6 +7,6 @@ namespace EventReview.Core.Signal.Simulation;
 /// <param name="Time">GPS time of the glitch's centre.</param>
 /// <param name="Kind">Shape.</param>
 /// <param name="FrequencyHz">Central frequency, Hz.</param>
-/// <param name="Quality">Quality factor Q (ignored for blips, which use 1.5).</param>
+/// <param name="Quality">Quality factor Q (ignored for short symmetric glitches, which use 1.5).</param>
 /// <param name="AmplitudeStrain">Peak amplitude in strain.</param>
 public sealed record GlitchSpec(string SiteCode, GpsTime Time, GlitchKind Kind, double FrequencyHz, double Quality, double AmplitudeStrain);

@@ -1,29 +1,33 @@
+using EventReview.Core.Pictures;
 using MudBlazor;
 
 namespace EventReview.Web.Components.Layout;
 
-/// <summary>Our palette, defined once: paper-tinted page, deep ink-blue primary, warm accent for "needs attention".</summary>
+/// <summary>
+/// Our palette: paper-tinted page, deep ink-blue primary, warm accent for "needs attention". The light palette's colours come from
+/// Core's <see cref="PicturePalette"/> (one place for the pictures and the pages); <c>wwwroot/app.css</c> uses the same values.
+/// </summary>
 public static class ReviewTheme
 {
     public static MudTheme Theme { get; } = new()
     {
         PaletteLight = new PaletteLight
         {
-            Primary = "#1f3a68",
-            Secondary = "#a4561c",
-            Tertiary = "#3d6b5a",
-            Warning = "#b86a12",
-            Error = "#a32626",
+            Primary = PicturePalette.Ink,
+            Secondary = PicturePalette.Warm,
+            Tertiary = PicturePalette.Green,
+            Warning = PicturePalette.Amber,
+            Error = PicturePalette.Brick,
             Success = "#2e6b3a",
-            Info = "#2f5d8a",
-            Background = "#faf8f3",
-            Surface = "#ffffff",
-            AppbarBackground = "#1f3a68",
+            Info = PicturePalette.Slate,
+            Background = PicturePalette.Paper,
+            Surface = PicturePalette.Surface,
+            AppbarBackground = PicturePalette.Ink,
             DrawerBackground = "#f3f0e8",
-            TextPrimary = "#1c2330",
-            TextSecondary = "#4b5566",
-            LinesDefault = "#ddd8cc",
-            TableLines = "#e6e1d6",
+            TextPrimary = PicturePalette.Text,
+            TextSecondary = PicturePalette.TextSoft,
+            LinesDefault = PicturePalette.RuleStrong,
+            TableLines = PicturePalette.Rule,
         },
         PaletteDark = new PaletteDark
         {

@@ -70,13 +70,13 @@ public sealed class EnvironmentCheckService(CaseService cases, NetworkService ne
             var match = attached.FirstOrDefault(a => string.Equals(a.FileName, sensor.CouplingFile, StringComparison.OrdinalIgnoreCase));
             if (match is null)
             {
-                notes.Add($"coupling file '{sensor.CouplingFile}' named for {sensor.Site}:{sensor.Channel} is not attached to this case: no coupling estimate for it");
+                notes.Add($"coupling file '{sensor.CouplingFile}' named for {ChannelName.Qualified(sensor.Site, sensor.Channel)} is not attached to this case: no coupling estimate for it");
                 continue;
             }
 
-            var (table, f) = await CheckInputs.ReadTextAsync(files, attached, match.Sha256, $"coupling function of {sensor.Channel} ({sensor.Site})", r => FrequencyTable.Parse(r, "coupling"), ct);
+            var (table, f) = await CheckInputs.ReadTextAsync(files, attached, match.Sha256, $"coupling function of {ChannelName.Qualified(sensor.Site, sensor.Channel)}", r => FrequencyTable.Parse(r, "coupling"), ct);
             refs.Add(f);
-            coupling[EnvironmentLookupInput.Key(sensor.Site, sensor.Channel)] = table;
+            coupling[ChannelName.Qualified(sensor.Site, sensor.Channel)] = table;
         }
 
         var arrivals = c.Arrivals.ToDictionary(a => a.SiteCode, a => a.Arrival, StringComparer.OrdinalIgnoreCase);
@@ -97,12 +97,12 @@ public sealed class EnvironmentCheckService(CaseService cases, NetworkService ne
             var match = attached.FirstOrDefault(a => string.Equals(a.FileName, sensor.DataFile, StringComparison.OrdinalIgnoreCase));
             if (match is null)
             {
-                notes.Add($"sensor data file '{sensor.DataFile}' named for {sensor.Site}:{sensor.Channel} is not attached to this case: its typed noise amplitude is used");
+                notes.Add($"sensor data file '{sensor.DataFile}' named for {ChannelName.Qualified(sensor.Site, sensor.Channel)} is not attached to this case: its typed noise amplitude is used");
                 continue;
             }
 
-            var (series, f) = await CheckInputs.ReadTextAsync(files, attached, match.Sha256, $"data of {sensor.Channel} ({sensor.Site})", r => StrainTextReader.Read(r), ct);
-            sensorData[EnvironmentLookupInput.Key(sensor.Site, sensor.Channel)] = series;
+            var (series, f) = await CheckInputs.ReadTextAsync(files, attached, match.Sha256, $"data of {ChannelName.Qualified(sensor.Site, sensor.Channel)}", r => StrainTextReader.Read(r), ct);
+            sensorData[ChannelName.Qualified(sensor.Site, sensor.Channel)] = series;
             refs.Add(f);
         }
 

@@ -1,3 +1,5 @@
+using EventReview.Core.Signal;
+
 namespace EventReview.Web.Services.Checks;
 
 /// <summary>
@@ -17,7 +19,7 @@ namespace EventReview.Web.Services.Checks;
 /// <param name="PsdSegmentSeconds">Welch PSD segment length, seconds.</param>
 /// <param name="NotchesHz">Line frequencies to notch out, Hz (empty for none).</param>
 /// <param name="OffSourceTrials">Number of off-source (time-slid) overlaps for the empirical p-value (0 for none).</param>
-/// <param name="OverlapThreshold">Smallest |overlap| called consistent (default 0.5, our choice: in a 0.2 s window at 30-350 Hz noise limits even a perfectly matched signal at per-site SNR ~15 to about 0.6, so the off-source p-value is the main test).</param>
+/// <param name="OverlapThreshold">Smallest |overlap| called consistent (default 0.5, our choice: in a 0.2 s window at the default band noise limits even a perfectly matched signal at per-site SNR ~15 to about 0.6, so the off-source p-value is the main test).</param>
 /// <param name="PValueThreshold">Largest off-source p-value called consistent.</param>
 /// <param name="KSigma">k in the default maximum lag (light-travel + k σ).</param>
 public sealed record OverlapCheckParameters(
@@ -28,8 +30,8 @@ public sealed record OverlapCheckParameters(
     decimal? CenterGps = null,
     double WindowSeconds = 0.2,
     double? MaxLagMs = null,
-    double BandLowHz = 30,
-    double BandHighHz = 350,
+    double BandLowHz = ConditioningOptions.DefaultLowHz,
+    double BandHighHz = ConditioningOptions.DefaultHighHz,
     double PsdSegmentSeconds = 4,
     IReadOnlyList<double>? NotchesHz = null,
     int OffSourceTrials = 200,

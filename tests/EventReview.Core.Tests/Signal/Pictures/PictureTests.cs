@@ -15,7 +15,7 @@ public class PictureTests
         var q = ChirpAnalysis.Run(SimulatedPair.A(sim), SimulatedPair.Coalescence());
         var pictures = new Dictionary<string, string>
         {
-            ["overlay"] = OverlapPictures.Overlay(r, "KX", "M2"),
+            ["overlay"] = OverlapPictures.Overlay(r, "KX", "MV"),
             ["curve"] = OverlapPictures.CorrelationCurve(r),
             ["histogram"] = OverlapPictures.OffSourceHistogram(r),
             ["map"] = QMapPicture.Draw(q.Map, q.Fit, "KX"),

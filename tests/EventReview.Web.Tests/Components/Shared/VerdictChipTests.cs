@@ -1,4 +1,5 @@
 using Bunit;
+using EventReview.Core.Verdicts;
 using EventReview.Web.Components.Shared;
 using MudBlazor;
 
@@ -10,9 +11,9 @@ public sealed class VerdictChipTests : MudTestContext
     {
         { "consistent", "verdict-good", Icons.Material.Filled.CheckCircle },
         { "clear", "verdict-good", Icons.Material.Filled.CheckCircle },
-        { "nothing added", "verdict-good", Icons.Material.Filled.CheckCircle },
+        { VerdictWords.Word(Verdict.NothingAdded), "verdict-good", Icons.Material.Filled.CheckCircle },
         { "inconsistent", "verdict-bad", Icons.Material.Filled.Cancel },
-        { "something added", "verdict-bad", Icons.Material.Filled.Cancel },
+        { VerdictWords.Word(Verdict.SomethingAdded), "verdict-bad", Icons.Material.Filled.Cancel },
         { "concern", "verdict-attention", Icons.Material.Filled.ReportProblem },
         { "stale", "verdict-attention", Icons.Material.Filled.ReportProblem },
         { "not run", "verdict-none", Icons.Material.Outlined.HelpOutline },
