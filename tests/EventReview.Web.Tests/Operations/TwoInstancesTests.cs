@@ -19,9 +19,11 @@ public sealed class TwoInstancesTests
     {
         var shared = Path.Combine(Path.GetTempPath(), $"er-two-{Guid.NewGuid():N}");
         var connection = provider == "Postgres" ? await PostgresDatabases.FreshAsync("er_two") : null;
-        await using var first = new InstanceFactory(shared, connection);
-        // On PostgreSQL the two instances have a data folder each, as two machines would: only the database is shared.
-        await using var second = new InstanceFactory(connection is null ? shared : shared + "-b", connection);
+        // On PostgreSQL the two instances have a data folder each, as two machines would: only the database and the record
+        // key (one key folder on a shared mount, as operations.md says) are shared.
+        var keys = connection is null ? null : shared + "-keys";
+        await using var first = new InstanceFactory(shared, connection, keys);
+        await using var second = new InstanceFactory(connection is null ? shared : shared + "-b", connection, keys);
         await using var elsewhere = new InstanceFactory(Path.Combine(Path.GetTempPath(), $"er-two-{Guid.NewGuid():N}"), provider == "Postgres" ? await PostgresDatabases.FreshAsync("er_two") : null);
         try
         {
@@ -53,7 +55,9 @@ public sealed class TwoInstancesTests
             // The keys are rows of the shared database, not files in a keys/ folder.
             await using var db = first.Db();
             Assert.True(await db.DataProtectionKeys.CountAsync() >= 1);
-            Assert.False(Directory.Exists(Path.Combine(shared, "keys")));
+            // (The record key's own folder, keys/ by default, holds record-key files only: no data-protection key-*.xml.)
+            var folder = Path.Combine(shared, "keys");
+            Assert.Empty(Directory.Exists(folder) ? Directory.GetFiles(folder, "key-*.xml") : []);
         }
         finally
         {
@@ -63,6 +67,10 @@ public sealed class TwoInstancesTests
             {
                 Directory.Delete(shared, recursive: true);
                 Directory.Delete(shared + "-b", recursive: true);
+                if (Directory.Exists(shared + "-keys"))
+                {
+                    Directory.Delete(shared + "-keys", recursive: true);
+                }
             }
             catch (IOException)
             {
@@ -101,12 +109,17 @@ public sealed class TwoInstancesTests
     }
 
     /// <summary>The app on a given data folder and, for PostgreSQL, a given database (the demo is seeded once, by the first).</summary>
-    private sealed class InstanceFactory(string dataDirectory, string? postgres) : EventReviewFactory
+    private sealed class InstanceFactory(string dataDirectory, string? postgres, string? keys = null) : EventReviewFactory
     {
         protected override void ConfigureWebHost(IWebHostBuilder builder)
         {
             base.ConfigureWebHost(builder);
             builder.UseSetting("EventReview:DataDirectory", dataDirectory);
+            if (keys is not null)
+            {
+                builder.UseSetting("EventReview:Records:KeyDirectory", keys);
+            }
+
             if (postgres is not null)
             {
                 builder.UseSetting("Database:Provider", "Postgres");
