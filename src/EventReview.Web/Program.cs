@@ -23,22 +23,12 @@ builder.Services.Configure<Microsoft.AspNetCore.Http.Features.FormOptions>(o => 
 
 var app = builder.Build();
 
-await DatabaseInitializer.MigrateAsync(app.Services.GetRequiredService<AppDbContextFactory>());
-await EventReview.Data.Records.RecordKeyStartup.EnsureSigningKeyAsync(app.Services.GetRequiredService<AppDbContextFactory>(), TimeProvider.System);
-using (var scope = app.Services.CreateScope())
+// The build writes docs/openapi.json by starting this host without a server (GetDocument.Insider): it must not touch a
+// database or files then, only map the endpoints.
+var generatingDocument = System.Reflection.Assembly.GetEntryAssembly()?.GetName().Name == "GetDocument.Insider";
+if (!generatingDocument)
 {
-    await scope.ServiceProvider.GetRequiredService<EventReview.Data.Auth.AccountAdmin>().EnsureRolesAsync();
-    if (seedDemo)
-    {
-        await scope.ServiceProvider.GetRequiredService<DemoSeeder>().SeedIfEmptyAsync();
-    }
-}
-
-var orphans = app.Services.GetRequiredService<AttachmentStore>().RemoveOrphanedUploads();
-if (orphans.Count > 0)
-{
-    app.Services.GetRequiredService<ILoggerFactory>().CreateLogger("EventReview").LogWarning(
-        "Removed {Count} unfinished upload file(s) left by an earlier run: {Files}", orphans.Count, string.Join(", ", orphans));
+    await PrepareAsync(app, seedDemo);
 }
 
 // Security headers first, so that every answer carries them (the "HTTPS needed" page and error answers too).
@@ -60,7 +50,8 @@ app.UseAntiforgery();
 
 app.MapStaticAssets().AllowAnonymous();
 app.MapHealth();
-app.MapOpenApi().RequireAuthorization(EventReview.Web.Auth.Policies.Read);
+app.MapOpenApi().AllowAnonymous().RequireRateLimiting(ApiRateLimitPolicy.Name);
+app.MapApiReference();
 app.MapEventReviewApi();
 app.MapRecordKeyApi();
 app.MapAccountEndpoints();
@@ -70,6 +61,11 @@ app.MapRazorComponents<App>()
 
 app.Lifetime.ApplicationStarted.Register(() =>
 {
+    if (generatingDocument)
+    {
+        return; // no server, so no addresses
+    }
+
     var log = app.Services.GetRequiredService<ILoggerFactory>().CreateLogger("EventReview");
     foreach (var url in app.Urls)
     {
@@ -78,6 +74,27 @@ app.Lifetime.ApplicationStarted.Register(() =>
 });
 
 app.Run();
+
+static async Task PrepareAsync(WebApplication app, bool seedDemo)
+{
+    await DatabaseInitializer.MigrateAsync(app.Services.GetRequiredService<AppDbContextFactory>());
+    await EventReview.Data.Records.RecordKeyStartup.EnsureSigningKeyAsync(app.Services.GetRequiredService<AppDbContextFactory>(), TimeProvider.System);
+    using (var scope = app.Services.CreateScope())
+    {
+        await scope.ServiceProvider.GetRequiredService<EventReview.Data.Auth.AccountAdmin>().EnsureRolesAsync();
+        if (seedDemo)
+        {
+            await scope.ServiceProvider.GetRequiredService<DemoSeeder>().SeedIfEmptyAsync();
+        }
+    }
+
+    var orphans = app.Services.GetRequiredService<AttachmentStore>().RemoveOrphanedUploads();
+    if (orphans.Count > 0)
+    {
+        app.Services.GetRequiredService<ILoggerFactory>().CreateLogger("EventReview").LogWarning(
+            "Removed {Count} unfinished upload file(s) left by an earlier run: {Files}", orphans.Count, string.Join(", ", orphans));
+    }
+}
 
 /// <summary>Entry point marker for WebApplicationFactory.</summary>
 public partial class Program;

@@ -93,7 +93,7 @@ public static class WebServiceCollectionExtensions
 
         services.AddRazorComponents().AddInteractiveServerComponents();
         services.AddMudServices();
-        services.AddOpenApi();
+        Api.ApiDocumentation.AddEventReviewOpenApi(services);
         services.AddProblemDetails();
 
         // A query or route value of the wrong type throws (instead of an empty 400), so the problem answer can name it.

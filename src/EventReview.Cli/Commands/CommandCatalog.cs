@@ -27,5 +27,6 @@ public static class CommandCatalog
         yield return BackupCommand.Build();
         yield return RestoreCommand.Build();
         yield return KeysCommand.Build();
+        yield return NetworkCommand.Build();
     }
 }

@@ -58,7 +58,7 @@ public static class AccountEndpoints
             await audit.RecordAsync(locked ? AccountEventKinds.LockedOut : AccountEventKinds.SignInFailed, user?.Id, typed, address,
                 locked ? "account locked after repeated failures" : null);
             return Results.Redirect($"/signin?error={(locked ? "locked" : "invalid")}&returnUrl={Uri.EscapeDataString(back)}");
-        }).AllowAnonymous().RequireRateLimiting(SignInRateLimitPolicy.Name);
+        }).AllowAnonymous().RequireRateLimiting(SignInRateLimitPolicy.Name).ExcludeFromDescription(); // the browser's sign-in form, not for clients
 
         // No form fields are bound here, so the antiforgery token is checked explicitly.
         app.MapPost("/account/signout", async (SignInManager<AppUser> signIn, IAntiforgery antiforgery, AccountAudit audit, HttpContext http, ClaimsPrincipal user) =>
@@ -72,7 +72,7 @@ public static class AccountEndpoints
             await audit.RecordAsync(AccountEventKinds.SignedOut, user.FindFirstValue(ClaimTypes.NameIdentifier), user.Identity?.Name, ClientAddress.Of(http));
             await signIn.SignOutAsync();
             return Results.Redirect("/signin");
-        });
+        }).ExcludeFromDescription();
         return app;
     }
 }

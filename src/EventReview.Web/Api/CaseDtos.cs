@@ -41,6 +41,12 @@ public static class CaseDtos
     public sealed record Evidence(int Id, string Kind, string? Text, string? FileName, string? ContentType, long? SizeBytes, string? Url, string Sha256,
         string AddedBy, DateTimeOffset AddedAt, string? Download);
 
+    /// <summary>Answer to a new note: its evidence id, SHA-256, the item's state and new evidence fingerprint.</summary>
+    public sealed record NoteAdded(int Id, string Sha256, string ItemState, string Fingerprint);
+
+    /// <summary>Answer to a new file: its evidence id, SHA-256, size in bytes, cleaned file name and the item's new fingerprint.</summary>
+    public sealed record FileAdded(int Id, string Sha256, long SizeBytes, string FileName, string Fingerprint);
+
     public sealed record TimelineEntry(int Sequence, DateTimeOffset At, string Actor, string Kind, string? ItemKey, string Text, string Hash);
 
     public static CaseDetail Detail(Services.CaseOverview o)

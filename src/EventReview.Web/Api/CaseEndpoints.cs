@@ -6,7 +6,7 @@ using Microsoft.Extensions.Options;
 
 namespace EventReview.Web.Api;
 
-/// <summary>The JSON HTTP API under /api (documented at /openapi/v1.json).</summary>
+/// <summary>The JSON HTTP API under /api (documented at /openapi/v1.json, browsable at /api/docs).</summary>
 public static class CaseEndpoints
 {
     /// <summary>Longest text search accepted by <c>GET /api/cases?q=</c>, characters.</summary>
@@ -33,12 +33,11 @@ public static class CaseEndpoints
                 return created ? Results.Created($"/api/cases/{c.Id}", dto) : Results.Ok(dto);
             });
         }).RequireAuthorization(Policies.OpenCases)
-          .WithSummary("Open a case for a candidate (idempotent on candidateId: 201 new, 200 existing).")
+          .WithDescription("Open a case for a candidate (idempotent on candidateId: 201 new, 200 existing).")
           .Accepts<OpenCaseRequest>("application/json")
           .Produces<CaseDtos.CaseDetail>(StatusCodes.Status201Created)
           .Produces<CaseDtos.CaseDetail>()
-          .ProducesProblem(StatusCodes.Status400BadRequest)
-          .ProducesProblem(StatusCodes.Status422UnprocessableEntity);
+          .Documented("openCase", "Open a case", Tags.Cases, false, 400, 409, 413, 415, 422);
 
         api.MapGet("/cases", (ClaimsPrincipal user, CaseService cases, string? state, string? q, int? offset, int? limit) => ApiResults.Guard(async () =>
         {
@@ -53,34 +52,35 @@ public static class CaseEndpoints
 
             var page = await cases.ListAsync(user, s, q, offset, limit);
             return Results.Ok(new CaseDtos.Page<CaseDtos.CaseSummary>(page.Total, page.Offset, page.Limit, page.Cases.Select(CaseDtos.Summary).ToList()));
-        })).RequireAuthorization(Policies.Read).WithSummary("List cases, newest first, one page at a time (offset, limit 1-500, default 50); filter by state and text.")
-          .Produces<CaseDtos.Page<CaseDtos.CaseSummary>>().ProducesProblem(StatusCodes.Status422UnprocessableEntity);
+        })).RequireAuthorization(Policies.Read).WithDescription("List cases, newest first, one page at a time (offset, limit 1-500, default 50); filter by state and text.")
+          .Produces<CaseDtos.Page<CaseDtos.CaseSummary>>().Documented("listCases", "List cases", Tags.Cases, false, 400, 422);
 
         api.MapGet("/cases/{id:int}", (int id, ClaimsPrincipal user, CaseService cases) => ApiResults.Guard(async () =>
             Results.Ok(CaseDtos.Detail(await cases.GetOverviewAsync(user, id)))))
             .RequireAuthorization(Policies.Read)
-            .WithSummary("One case with its arrivals and checklist item states (evidence counts and fingerprints; evidence itself is paged separately).")
-            .Produces<CaseDtos.CaseDetail>().ProducesProblem(404);
+            .WithDescription("One case with its arrivals and checklist item states (evidence counts and fingerprints; evidence itself is paged separately).")
+            .Produces<CaseDtos.CaseDetail>().Documented("getCase", "Read a case", Tags.Cases, false, 400, 404);
 
         api.MapGet("/cases/{id:int}/items/{key}/evidence", (int id, string key, ClaimsPrincipal user, CaseService cases, int? offset, int? limit) => ApiResults.Guard(async () =>
         {
             var page = await cases.EvidencePageAsync(user, id, key, offset, limit);
             return Results.Ok(new CaseDtos.Page<CaseDtos.Evidence>(page.Total, page.Offset, page.Limit, page.Evidence.Select(CaseDtos.Of).ToList()));
-        })).RequireAuthorization(Policies.Read).WithSummary("One page of an item's evidence (notes, files, links), oldest first (offset, limit 1-500, default 50).")
-          .Produces<CaseDtos.Page<CaseDtos.Evidence>>().ProducesProblem(404);
+        })).RequireAuthorization(Policies.Read).WithDescription("One page of an item's evidence (notes, files, links), oldest first (offset, limit 1-500, default 50).")
+          .Produces<CaseDtos.Page<CaseDtos.Evidence>>().Documented("listEvidence", "List an item's evidence", Tags.Evidence, false, 400, 404, 422);
 
         api.MapGet("/cases/{id:int}/timeline", (int id, ClaimsPrincipal user, CaseService cases, int? offset, int? limit) => ApiResults.Guard(async () =>
         {
             var page = await cases.TimelinePageAsync(user, id, offset, limit);
             return Results.Ok(new CaseDtos.Page<CaseDtos.TimelineEntry>(page.Total, page.Offset, page.Limit, page.Entries.Select(CaseDtos.Of).ToList()));
-        })).RequireAuthorization(Policies.Read).WithSummary("One page of the case's hash-chained timeline, newest first (offset, limit 1-500, default 50).")
-          .Produces<CaseDtos.Page<CaseDtos.TimelineEntry>>().ProducesProblem(404);
+        })).RequireAuthorization(Policies.Read).WithDescription("One page of the case's hash-chained timeline, newest first (offset, limit 1-500, default 50).")
+          .Produces<CaseDtos.Page<CaseDtos.TimelineEntry>>().Documented("listTimeline", "List a case's timeline", Tags.Cases, false, 400, 404, 422);
 
         api.MapGet("/sites", async (NetworkService network) =>
         {
             var n = await network.GetAsync();
             return Results.Ok(n.Sites.OrderBy(s => s.Code).Select(CaseDtos.Site).ToList());
-        }).RequireAuthorization(Policies.Read).WithSummary("The network's sites (same fields as the network page and network.json).").Produces<List<CaseDtos.SiteDto>>();
+        }).RequireAuthorization(Policies.Read).WithDescription("The network's sites (same fields as the network page and network.json).").Produces<List<CaseDtos.SiteDto>>()
+          .Documented("listSites", "List the sites", Tags.Network, false);
 
         api.MapPost("/cases/{id:int}/items/{key}/notes", async (int id, string key, HttpRequest request, ClaimsPrincipal user, CaseService cases) =>
         {
@@ -98,10 +98,12 @@ public static class CaseEndpoints
                 }
 
                 var r = await cases.AppendNoteAsync(user, id, key, body.Text);
-                return Results.Created($"/api/cases/{id}/items/{key}", new { id = r.EvidenceId, sha256 = r.ContentSha256, itemState = CaseDtos.Api(r.ItemState), fingerprint = r.ItemFingerprint });
+                return Results.Created(EvidencePath(id, key), new CaseDtos.NoteAdded(r.EvidenceId, r.ContentSha256, CaseDtos.Api(r.ItemState), r.ItemFingerprint));
             });
         }).RequireAuthorization(Policies.AddEvidence).Accepts<NoteRequest>("application/json")
-          .WithSummary("Add a Markdown note to a checklist item (current sign-offs become stale).");
+          .WithDescription("Add a Markdown note to a checklist item (current sign-offs become stale).")
+          .Produces<CaseDtos.NoteAdded>(StatusCodes.Status201Created)
+          .Documented("addNote", "Add a note", Tags.Evidence, false, 400, 404, 409, 413, 415, 422);
 
         api.MapPost("/cases/{id:int}/items/{key}/attachments", (int id, string key, HttpRequest request, ClaimsPrincipal user, CaseService cases, IOptions<EventReviewOptions> options) =>
             ApiResults.Guard(async () =>
@@ -129,9 +131,13 @@ public static class CaseEndpoints
                 await using var stream = file.OpenReadStream();
                 var r = await cases.AppendAttachmentAsync(user, id, key, stream, file.FileName, string.IsNullOrWhiteSpace(file.ContentType) ? "application/octet-stream" : file.ContentType,
                     form["description"].ToString(), max);
-                return Results.Created($"/api/cases/{id}/items/{key}", new { id = r.EvidenceId, sha256 = r.ContentSha256, sizeBytes = r.SizeBytes, fileName = r.FileName, fingerprint = r.ItemFingerprint });
+                return Results.Created(EvidencePath(id, key), new CaseDtos.FileAdded(r.EvidenceId, r.ContentSha256, r.SizeBytes ?? 0, r.FileName ?? string.Empty, r.ItemFingerprint));
             })).RequireAuthorization(Policies.AddEvidence).DisableAntiforgery()
-              .WithSummary("Attach a file (multipart field 'file', optional 'description'); stored by SHA-256.");
+              .WithDescription("Attach a file (multipart field 'file', optional 'description'); stored by SHA-256 (current sign-offs become stale).")
+              .WithMetadata(new ApiDocumentation.MultipartUpload("file", "The file, any type; stored as opaque bytes and served back only as a download.",
+                  new Dictionary<string, string> { ["description"] = "Optional one-line description shown beside the file." }))
+              .Produces<CaseDtos.FileAdded>(StatusCodes.Status201Created)
+              .Documented("addAttachment", "Attach a file", Tags.Evidence, false, 400, 404, 409, 413, 415, 422);
 
         app.MapGet("/files/{sha}", (string sha, EventReview.Data.AttachmentStore store, string? name) =>
         {
@@ -143,7 +149,9 @@ public static class CaseEndpoints
             // Always a download of opaque bytes (the security headers add a sandbox policy); the name is cleaned, never a path.
             var s = store.Open(sha);
             return s is null ? Results.NotFound() : Results.File(s, "application/octet-stream", EventReview.Core.Evidence.SafeFileName.From(name, sha));
-        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
+        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name)
+          .WithDescription("An attachment's bytes by SHA-256 (always a download; ?name= sets the offered file name).")
+          .Produces<byte[]>(contentType: "application/octet-stream").Documented("downloadFile", "Download a file", Tags.Downloads, false, 404);
 
         app.MapGet("/cases/{id:int}/dossier.zip", async (int id, ClaimsPrincipal user, EventReview.Dossier.CaseDossierService dossiers, CaseService cases, HttpContext http) =>
         {
@@ -160,15 +168,34 @@ public static class CaseEndpoints
             using var buffer = new MemoryStream();
             await dossiers.ExportAsync(id, user.ToActor(), buffer, http.RequestAborted);
             return Results.File(buffer.ToArray(), "application/zip", EventReview.Core.Evidence.SafeFileName.From($"{c.CandidateId}-dossier.zip", "dossier.zip"));
-        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
+        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name)
+          .WithDescription("The case's signed dossier (zip), verifiable offline with 'eventreview dossier verify'.")
+          .Produces<byte[]>(contentType: "application/zip").Documented("downloadDossier", "Download a case dossier", Tags.Downloads, false, 400, 404);
 
         app.MapGet("/network.json", async (NetworkService network) =>
         {
             var n = await network.GetAsync();
             var json = EventReview.Core.Network.NetworkFile.Write(new EventReview.Core.Network.NetworkDefinition(n.Name, n.Sites.OrderBy(s => s.Code).ToList()));
             return Results.File(System.Text.Encoding.UTF8.GetBytes(json), "application/json", "network.json");
-        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
+        }).RequireAuthorization(Policies.Read).RequireRateLimiting(Security.ApiRateLimitPolicy.Name)
+          .WithDescription("The detector network as a network.json file (the format 'eventreview network import' reads).")
+          .Produces<byte[]>(contentType: "application/json").Documented("downloadNetwork", "Download the network file", Tags.Downloads, false);
 
+        ItemRecordEndpoints.Map(api);
         return app;
+    }
+
+    /// <summary>Where an item's evidence is read (the Location of a created note or file).</summary>
+    public static string EvidencePath(int caseId, string itemKey) => $"/api/cases/{caseId}/items/{Uri.EscapeDataString(itemKey)}/evidence";
+
+    /// <summary>Tags grouping the operations in the reference.</summary>
+    public static class Tags
+    {
+        public const string Cases = "Cases";
+        public const string Evidence = "Evidence";
+        public const string Records = "Records and sign-offs";
+        public const string Network = "Network";
+        public const string Downloads = "Downloads";
+        public const string Keys = "Signing keys";
     }
 }

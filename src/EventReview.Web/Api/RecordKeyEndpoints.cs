@@ -14,7 +14,8 @@ public static class RecordKeyEndpoints
         app.MapGet("/api/signing-key", (IRecordKeyRing keys) => Results.Json(PublicKeyFile.Describe(keys)))
             .AllowAnonymous()
             .RequireRateLimiting(Security.ApiRateLimitPolicy.Name)
-            .WithSummary("The server's record public keys (ECDSA P-256) with their validity; the current one signs new dossiers.");
+            .WithDescription("The server's record public keys (ECDSA P-256) with their validity; the current one signs new dossiers.")
+            .Documented("getSigningKeys", "Read the record public keys", CaseEndpoints.Tags.Keys, true, StatusCodes.Status429TooManyRequests);
         return app;
     }
 }

@@ -6,31 +6,57 @@ using Microsoft.Extensions.Options;
 namespace EventReview.Web.Operations;
 
 /// <summary>
-/// The checks behind <c>GET /healthz</c>: the database answers, no migration is pending, the attachment folder
-/// takes a write and has free space, and the bundled leap-second table has not expired.
+/// The parts behind <c>GET /healthz/ready</c>, each run as one of the framework's health checks
+/// (<see cref="ReadinessCheck"/>): the database answers, no migration is pending, the attachment folder takes a write and
+/// has free space, the bundled leap-second table has not expired, the record key signs and the witness takes appends.
+/// A part that passes with a warning (disk space getting low, leap-second table near expiry, witness inside the data
+/// folder) makes the server "degraded": still ready, still live.
 /// </summary>
 public sealed class HealthProbe(IDbContextFactory<AppDbContext> dbFactory, DatabaseSettings settings, IOptions<OperationsOptions> options, TimeProvider clock,
     EventReview.Data.Records.RecordKeeping? records = null)
 {
-    public async Task<HealthReport> RunAsync(CancellationToken ct)
-    {
-        var lines = new List<HealthCheckLine>();
-        await using var db = await dbFactory.CreateDbContextAsync(ct);
-        var reachable = await DatabaseAsync(db, lines, ct);
-        if (reachable)
-        {
-            await MigrationsAsync(db, lines, ct);
-        }
-        else
-        {
-            lines.Add(new HealthCheckLine("migrations", false, "Not checked: the database did not answer."));
-        }
+    /// <summary>The parts, in the order the readiness body lists them.</summary>
+    public static readonly string[] Parts = ["database", "migrations", "attachments", "leap-seconds", "record-key", "witness"];
 
-        lines.Add(Attachments());
-        lines.Add(LeapSeconds());
-        lines.AddRange(RecordLines(records, settings.DataDirectory));
-        var report = new HealthReport("ok", lines);
-        return report.Healthy ? report : report with { Status = "failing" };
+    /// <summary>Days before the leap-second table expires from which readiness warns (common practice: a release cycle or two).</summary>
+    public const int LeapSecondWarningDays = 90;
+
+    /// <summary>Checks one part (one of <see cref="Parts"/>).</summary>
+    public async Task<HealthCheckLine> CheckAsync(string part, CancellationToken ct)
+    {
+        switch (part)
+        {
+            case "database":
+            case "migrations":
+                var lines = new List<HealthCheckLine>();
+                await using (var db = await dbFactory.CreateDbContextAsync(ct))
+                {
+                    var reachable = await DatabaseAsync(db, lines, ct);
+                    if (part == "database")
+                    {
+                        return lines[0];
+                    }
+
+                    if (!reachable)
+                    {
+                        return new HealthCheckLine("migrations", false, "Not checked: the database did not answer.");
+                    }
+
+                    await MigrationsAsync(db, lines, ct);
+                    return lines[^1];
+                }
+
+            case "attachments":
+                return Attachments();
+            case "leap-seconds":
+                return LeapSeconds();
+            case "record-key":
+                return RecordLines(records, settings.DataDirectory).First();
+            case "witness":
+                return RecordLines(records, settings.DataDirectory).Skip(1).FirstOrDefault() ?? new HealthCheckLine("witness", false, "No witness: no record key is configured.");
+            default:
+                throw new ArgumentOutOfRangeException(nameof(part), part, "not a health part");
+        }
     }
 
     private async Task<bool> DatabaseAsync(AppDbContext db, List<HealthCheckLine> lines, CancellationToken ct)
@@ -109,9 +135,15 @@ public sealed class HealthProbe(IDbContextFactory<AppDbContext> dbFactory, Datab
             File.Delete(probe);
             var free = new DriveInfo(Path.GetFullPath(folder)).AvailableFreeSpace;
             var minimum = options.Value.MinimumFreeBytes;
-            return free >= minimum
-                ? new HealthCheckLine("attachments", true, $"Attachment folder writable; {Gigabytes(free)} free (minimum {Gigabytes(minimum)}).")
-                : new HealthCheckLine("attachments", false, $"Attachment folder writable but only {Gigabytes(free)} free (minimum {Gigabytes(minimum)}): uploads will soon fail.");
+            var low = options.Value.LowFreeBytes;
+            if (free < minimum)
+            {
+                return new HealthCheckLine("attachments", false, $"Attachment folder writable but only {Gigabytes(free)} free (minimum {Gigabytes(minimum)}): uploads will soon fail.");
+            }
+
+            return free < low
+                ? new HealthCheckLine("attachments", true, $"Warning: disk space low: {Gigabytes(free)} free (warning below {Gigabytes(low)}, failing below {Gigabytes(minimum)}).", Warning: true)
+                : new HealthCheckLine("attachments", true, $"Attachment folder writable; {Gigabytes(free)} free (minimum {Gigabytes(minimum)}).");
         }
         catch (Exception ex) when (ex is IOException or UnauthorizedAccessException or ArgumentException)
         {
@@ -123,8 +155,14 @@ public sealed class HealthProbe(IDbContextFactory<AppDbContext> dbFactory, Datab
     {
         var table = LeapSecondTable.Bundled;
         var now = clock.GetUtcNow().UtcDateTime;
-        return table.IsStale(now)
-            ? new HealthCheckLine("leap-seconds", false, $"Bundled leap-second table expired on {table.ExpiresUtc:yyyy-MM-dd}: GPS/UTC conversions after that date may miss a leap second. Update the application.")
+        if (table.IsStale(now))
+        {
+            return new HealthCheckLine("leap-seconds", false, $"Bundled leap-second table expired on {table.ExpiresUtc:yyyy-MM-dd}: GPS/UTC conversions after that date may miss a leap second. Update the application.");
+        }
+
+        var left = table.ExpiresUtc.DayNumber - DateOnly.FromDateTime(now).DayNumber;
+        return left <= LeapSecondWarningDays
+            ? new HealthCheckLine("leap-seconds", true, $"Warning: the bundled leap-second table expires on {table.ExpiresUtc:yyyy-MM-dd} ({left} days): update the application before then.", Warning: true)
             : new HealthCheckLine("leap-seconds", true, $"Leap-second table valid until {table.ExpiresUtc:yyyy-MM-dd}.");
     }
 

@@ -5,8 +5,11 @@ public sealed class OperationsOptions
 {
     public const string Section = "EventReview:Operations";
 
-    /// <summary>Free space below which <c>/healthz</c> reports the attachment folder as failing (bytes; default 1 GB).</summary>
+    /// <summary>Free space below which <c>/healthz/ready</c> reports the attachment folder as failing (bytes; default 1 GB).</summary>
     public long MinimumFreeBytes { get; set; } = 1_000_000_000;
+
+    /// <summary>Free space below which <c>/healthz/ready</c> reports the server as degraded: disk space low (bytes; default 5 GB).</summary>
+    public long LowFreeBytes { get; set; } = 5_000_000_000;
 
     /// <summary>
     /// Worker threads the thread pool keeps ready (default 64). The SQLite driver does its I/O synchronously, so under

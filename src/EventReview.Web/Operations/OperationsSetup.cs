@@ -1,13 +1,15 @@
 using System.Diagnostics;
 using System.Net;
 using Microsoft.AspNetCore.DataProtection;
+using Microsoft.AspNetCore.Diagnostics.HealthChecks;
 using Microsoft.AspNetCore.HttpOverrides;
+using Microsoft.Extensions.Diagnostics.HealthChecks;
 
 namespace EventReview.Web.Operations;
 
 /// <summary>
 /// What a team server needs around the app: JSON logs, trusted reverse proxies, a request id and server time on every
-/// response, and <c>GET /healthz</c>.
+/// response, and the health endpoints (<c>/healthz/live</c>, <c>/healthz/ready</c>).
 /// </summary>
 public static class OperationsSetup
 {
@@ -39,6 +41,7 @@ public static class OperationsSetup
 
         builder.Services.Configure<ForwardedHeadersOptions>(o => ConfigureProxies(o, options.TrustedProxies));
         builder.Services.AddScoped<HealthProbe>();
+        ReadinessCheck.AddReadinessChecks(builder.Services.AddHealthChecks());
 
         // Cookie, antiforgery and sign-in state keys live in the database (table DataProtectionKeys), so that sign-ins
         // survive a restart and every app instance on the same database reads the cookies the others made.
@@ -126,15 +129,33 @@ public static class OperationsSetup
             """);
     }
 
-    /// <summary><c>GET /healthz</c> without sign-in: 200 when every part passes, 503 naming the failing part.</summary>
+    /// <summary>
+    /// Without sign-in: <c>GET /healthz/live</c> (the process answers: runs no check, 200) and <c>GET /healthz/ready</c>
+    /// (every part of <see cref="HealthProbe"/>: 200 "ok" or "degraded", 503 "failing" naming the part); <c>/healthz</c>
+    /// is the same as ready.
+    /// </summary>
     public static IEndpointRouteBuilder MapHealth(this IEndpointRouteBuilder app)
     {
-        app.MapGet("/healthz", async (HealthProbe probe, HttpContext http) =>
+        app.MapHealthChecks("/healthz/live", new HealthCheckOptions
         {
-            var report = await probe.RunAsync(http.RequestAborted);
-            http.Response.Headers.CacheControl = "no-store";
-            return Results.Json(report, statusCode: report.Healthy ? StatusCodes.Status200OK : StatusCodes.Status503ServiceUnavailable);
-        }).AllowAnonymous().ExcludeFromDescription();
+            Predicate = _ => false,
+            ResponseWriter = static (http, _) => http.Response.WriteAsJsonAsync(new { status = "ok", detail = "The process answers." }),
+        }).AllowAnonymous();
+        foreach (var path in (string[])["/healthz/ready", "/healthz"])
+        {
+            app.MapHealthChecks(path, new HealthCheckOptions
+            {
+                Predicate = r => r.Tags.Contains(ReadinessCheck.ReadyTag),
+                ResultStatusCodes =
+                {
+                    [HealthStatus.Healthy] = StatusCodes.Status200OK,
+                    [HealthStatus.Degraded] = StatusCodes.Status200OK,
+                    [HealthStatus.Unhealthy] = StatusCodes.Status503ServiceUnavailable,
+                },
+                ResponseWriter = static (http, report) => http.Response.WriteAsJsonAsync(HealthReport.From(report)),
+            }).AllowAnonymous();
+        }
+
         return app;
     }
 }

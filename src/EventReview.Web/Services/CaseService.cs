@@ -14,7 +14,7 @@ namespace EventReview.Web.Services;
 /// Changes load the case aggregate, apply one domain method and save; the case's version token serialises
 /// concurrent changes, and append-only changes (evidence, notes) are retried so that nothing is lost.
 /// </summary>
-public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWriteGate writes, TemplateCatalog templates, TimeProvider clock, AttachmentStore store, KnownItems known, ILogger<CaseService> log)
+public sealed partial class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWriteGate writes, TemplateCatalog templates, TimeProvider clock, AttachmentStore store, KnownItems known, ILogger<CaseService> log)
 {
     private const int MaxAttempts = 6;
 
@@ -110,7 +110,7 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
         return new TimelinePage(total, o, l, page);
     }
 
-    private static async Task<int> ItemIdAsync(AppDbContext db, int caseId, string itemKey, CancellationToken ct)
+    internal static async Task<int> ItemIdAsync(AppDbContext db, int caseId, string itemKey, CancellationToken ct)
     {
         var id = await db.Items.Where(i => i.ReviewCaseId == caseId && i.Key == itemKey).Select(i => (int?)i.Id).FirstOrDefaultAsync(ct);
         if (id is not null)

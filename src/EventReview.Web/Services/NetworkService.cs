@@ -52,19 +52,7 @@ public sealed class NetworkService(IDbContextFactory<AppDbContext> dbFactory)
     public async Task ReplaceAsync(ClaimsPrincipal user, string name, IReadOnlyList<Site> sites, CancellationToken ct = default)
     {
         Permissions.Require(user, Policies.Coordinate, "edit the network");
-        var fresh = new DetectorNetwork(name);
-        foreach (var s in sites)
-        {
-            fresh.Add(s);
-        }
-
         await using var db = await dbFactory.CreateDbContextAsync(ct);
-        await using var tx = await db.Database.BeginTransactionAsync(ct);
-        var old = await db.Networks.Include(n => n.Sites).ToListAsync(ct);
-        db.Networks.RemoveRange(old);
-        await db.SaveChangesAsync(ct);
-        db.Networks.Add(fresh);
-        await db.SaveChangesAsync(ct);
-        await tx.CommitAsync(ct);
+        await NetworkStore.ReplaceAsync(db, name, sites, ct);
     }
 }

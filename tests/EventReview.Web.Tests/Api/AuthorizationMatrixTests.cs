@@ -16,7 +16,7 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
     public static TheoryData<string, string, int> Matrix()
     {
         var data = new TheoryData<string, string, int>();
-        void Row(string endpoint, int anonymous, int observer, int reviewer, int coordinator, int read, int open, int evidence, int pipeline, int all)
+        void Row(string endpoint, int anonymous, int observer, int reviewer, int coordinator, int read, int open, int evidence, int pipeline, int all, int refused = 401)
         {
             data.Add(endpoint, Who.Anonymous, anonymous);
             data.Add(endpoint, Who.Observer, observer);
@@ -27,8 +27,8 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
             data.Add(endpoint, Who.TokenEvidence, evidence);
             data.Add(endpoint, Who.TokenPipeline, pipeline);
             data.Add(endpoint, Who.Token, all);
-            data.Add(endpoint, Who.TokenExpired, 401);
-            data.Add(endpoint, Who.TokenRevoked, 401);
+            data.Add(endpoint, Who.TokenExpired, refused);
+            data.Add(endpoint, Who.TokenRevoked, refused);
         }
 
         //                                                  anon obs  rev  coord | read open evid pipe all
@@ -40,7 +40,12 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
         Row("GET /api/cases/{id}/timeline",                 401, 200, 200, 200,   200, 403, 403, 403, 200);
         Row("POST /api/cases/{id}/items/{key}/notes",       401, 403, 201, 201,   403, 403, 201, 201, 201);
         Row("POST /api/cases/{id}/items/{key}/attachments", 401, 403, 201, 201,   403, 403, 201, 201, 201);
-        Row("GET /openapi/v1.json",                         401, 200, 200, 200,   200, 403, 403, 403, 200);
+        Row("GET /api/cases/{id}/items/{key}/computations", 401, 200, 200, 200,   200, 403, 403, 403, 200);
+        Row("GET /api/cases/{id}/items/{key}/signoffs",     401, 200, 200, 200,   200, 403, 403, 403, 200);
+
+        // The API's description is public (a refused token is then simply not used).
+        Row("GET /openapi/v1.json",                         200, 200, 200, 200,   200, 200, 200, 200, 200, refused: 200);
+        Row("GET /api/docs/ (reference)",                   200, 200, 200, 200,   200, 200, 200, 200, 200, refused: 200);
         Row("GET /files/{sha}",                             302, 200, 200, 200,   200, 403, 403, 403, 200);
         Row("GET /cases/{id}/dossier.zip",                  302, 200, 200, 200,   200, 403, 403, 403, 200);
         Row("GET /network.json",                            302, 200, 200, 200,   200, 403, 403, 403, 200);
@@ -73,7 +78,10 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
             "GET /api/cases/{id}/timeline" => await client.GetAsync($"/api/cases/{caseId}/timeline"),
             "POST /api/cases/{id}/items/{key}/notes" => await client.AddNoteAsync(caseId, "timing.arrival", $"Note by {who}."),
             "POST /api/cases/{id}/items/{key}/attachments" => await client.AttachAsync(caseId, "timing.arrival", System.Text.Encoding.UTF8.GetBytes($"file by {who}")),
+            "GET /api/cases/{id}/items/{key}/computations" => await client.GetAsync($"/api/cases/{caseId}/items/timing.arrival/computations"),
+            "GET /api/cases/{id}/items/{key}/signoffs" => await client.GetAsync($"/api/cases/{caseId}/items/timing.arrival/signoffs"),
             "GET /openapi/v1.json" => await client.GetAsync("/openapi/v1.json"),
+            "GET /api/docs/ (reference)" => await client.GetAsync("/api/docs/"),
             "GET /files/{sha}" => await client.GetAsync($"/files/{EventReview.Core.Evidence.Hashing.Sha256Hex(fileBytes)}?name=matrix.txt"),
             "GET /cases/{id}/dossier.zip" => await client.GetAsync($"/cases/{caseId}/dossier.zip"),
             "GET /network.json" => await client.GetAsync("/network.json"),
@@ -101,7 +109,7 @@ public sealed class AuthorizationMatrixTests(EventReviewFactory app) : IClassFix
     {
         var rows = Matrix().Select(r => ((string)r[0], (string)r[1])).ToList();
 
-        Assert.Equal(15 * (Who.People.Count + Who.Tokens.Count), rows.Distinct().Count());
+        Assert.Equal(18 * (Who.People.Count + Who.Tokens.Count), rows.Distinct().Count());
     }
 
     [Fact]

@@ -19,7 +19,8 @@ public static partial class BadInputCorpus
         yield return ("GET /api/cases/{id}/items/{key}/evidence", HttpMethod.Get, $"{CasesPath}/{t.CaseId}/items/{t.ItemKey}/evidence", () => null, "cases:read");
         yield return ("GET /api/cases/{id}/timeline", HttpMethod.Get, $"{CasesPath}/{t.CaseId}/timeline", () => null, "cases:read");
         yield return ("GET /api/sites", HttpMethod.Get, "/api/sites", () => null, "cases:read");
-        yield return ("GET /openapi/v1.json", HttpMethod.Get, "/openapi/v1.json", () => null, "cases:read");
+        yield return ("GET /api/cases/{id}/items/{key}/computations", HttpMethod.Get, $"{CasesPath}/{t.CaseId}/items/{t.ItemKey}/computations", () => null, "cases:read");
+        yield return ("GET /api/cases/{id}/items/{key}/signoffs", HttpMethod.Get, $"{CasesPath}/{t.CaseId}/items/{t.ItemKey}/signoffs", () => null, "cases:read");
         yield return ("GET /files/{sha}", HttpMethod.Get, $"/files/{new string('0', 64)}", () => null, "cases:read");
         yield return ("GET /cases/{id}/dossier.zip", HttpMethod.Get, $"/cases/{t.CaseId}/dossier.zip", () => null, "cases:read");
         yield return ("GET /network.json", HttpMethod.Get, "/network.json", () => null, "cases:read");

@@ -9,11 +9,13 @@ public sealed class HealthTests(EventReviewFactory app) : IClassFixture<EventRev
     [Fact]
     public async Task Healthz_answers_200_without_sign_in_and_names_each_part_it_checked()
     {
-        using var response = await app.Anonymous().GetAsync("/healthz");
+        using var response = await app.Anonymous().GetAsync("/healthz/ready");
 
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
         var json = await response.JsonAsync();
-        Assert.Equal("ok", (string?)json["status"]);
+
+        // The test server keeps its witness inside its data folder: passed with a warning, so degraded, not ok.
+        Assert.Equal("degraded", (string?)json["status"]);
         Assert.Equal(["database", "migrations", "attachments", "leap-seconds", "record-key", "witness"], json["checks"]!.AsArray().Select(c => (string?)c!["name"]));
         Assert.All(json["checks"]!.AsArray(), c => Assert.True(c!["ok"]!.GetValue<bool>()));
         Assert.DoesNotContain(app.DataDirectory, json.ToJsonString(), StringComparison.Ordinal);
@@ -58,6 +60,43 @@ public sealed class HealthTests(EventReviewFactory app) : IClassFixture<EventRev
         var failing = Assert.Single(json["checks"]!.AsArray(), c => !c!["ok"]!.GetValue<bool>());
         Assert.Equal("attachments", (string?)failing!["name"]);
         Assert.Contains("free", (string?)failing["detail"], StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Low_disk_space_degrades_readiness_without_failing_it_or_liveness_and_the_integrity_body_names_it()
+    {
+        await using var low = app.WithWebHostBuilder(b => b.UseSetting("EventReview:Operations:LowFreeBytes", long.MaxValue.ToString(System.Globalization.CultureInfo.InvariantCulture)));
+        var client = low.CreateClient();
+
+        using var ready = await client.GetAsync("/healthz/ready");
+        using var live = await client.GetAsync("/healthz/live");
+
+        Assert.Equal(HttpStatusCode.OK, ready.StatusCode);
+        var json = await ready.JsonAsync();
+        Assert.Equal("degraded", (string?)json["status"]);
+        var attachments = json["checks"]!.AsArray().Single(c => (string?)c!["name"] == "attachments")!;
+        Assert.True(attachments["ok"]!.GetValue<bool>());
+        Assert.True(attachments["warning"]!.GetValue<bool>());
+        Assert.Contains("disk space low", (string?)attachments["detail"], StringComparison.Ordinal);
+        Assert.Equal(HttpStatusCode.OK, live.StatusCode);
+    }
+
+    [Fact]
+    public async Task A_failing_part_fails_readiness_and_the_alias_but_never_liveness()
+    {
+        // Adversarial: a liveness probe that ran the readiness checks would restart a server whose disk is merely full.
+        await using var tight = app.WithWebHostBuilder(b => b.UseSetting("EventReview:Operations:MinimumFreeBytes", long.MaxValue.ToString(System.Globalization.CultureInfo.InvariantCulture)));
+        var client = tight.CreateClient();
+
+        using var ready = await client.GetAsync("/healthz/ready");
+        using var alias = await client.GetAsync("/healthz");
+        using var live = await client.GetAsync("/healthz/live");
+
+        Assert.Equal(HttpStatusCode.ServiceUnavailable, ready.StatusCode);
+        Assert.Equal(HttpStatusCode.ServiceUnavailable, alias.StatusCode);
+        Assert.Equal(HttpStatusCode.OK, live.StatusCode);
+        Assert.Equal("ok", (string?)(await live.JsonAsync())["status"]);
+        Assert.True(ready.Headers.CacheControl?.NoStore);
     }
 
     [Fact]

@@ -50,10 +50,20 @@ public sealed class TeamServerStartTests
             Assert.True(made.Exit == 0, made.Err + made.Out);
             var secret = JsonDocument.Parse(made.Out).RootElement.GetProperty("token").GetString()!;
 
-            await using var server = await ServerProcess.StartAsync(data, env, elsewhere, readyPath: "/healthz");
+            // The network from a file, also from the command line alone.
+            Directory.CreateDirectory(data);
+            var networkFile = Path.Combine(data, "network.json");
+            await File.WriteAllTextAsync(networkFile, """
+                {"name": "start test", "sites": [{"code": "QA", "name": "Quarry A", "latitudeDegrees": 12.5, "longitudeDegrees": -40.25, "heightMeters": 120,
+                  "xArmAzimuthDegrees": 10, "yArmAzimuthDegrees": 100, "timingUncertaintySeconds": 0.0005}]}
+                """);
+            var imported = await ChildProcesses.RunCliAsync(TimeSpan.FromMinutes(2), env, "network", "import", "--file", networkFile);
+            Assert.True(imported.Exit == 0, imported.Err + imported.Out);
+
+            await using var server = await ServerProcess.StartAsync(data, env, elsewhere, readyPath: "/healthz/ready");
             using var http = new HttpClient(new HttpClientHandler { UseCookies = false, AllowAutoRedirect = false }) { BaseAddress = new Uri(server.BaseUrl) };
 
-            var health = await http.GetAsync("/healthz");
+            var health = await http.GetAsync("/healthz/ready");
             var healthText = await health.Content.ReadAsStringAsync();
             Assert.True(health.StatusCode == HttpStatusCode.OK, healthText);
             Assert.Contains($"{provider} database answers", healthText, StringComparison.Ordinal);
