@@ -18,7 +18,8 @@ internal static class DossierPdfSections
         {
             var section = sections[s];
             w.NewPage();
-            w.Heading($"Section {s + 1}. {section[0].SectionTitle}");
+            var title = section[0].SectionTitle;
+            w.Heading(title.Length > 1 && char.IsAsciiDigit(title[0]) ? title : $"Section {s + 1}. {title}");
             foreach (var item in section)
             {
                 Item(doc, item, numbers, w);

@@ -32,6 +32,16 @@ internal static class PlotElementLayout
                 }
 
                 break;
+            case PlotPolygon polygon:
+                var corners = Enumerable.Range(0, Math.Min(polygon.Xs.Count, polygon.Ys.Count))
+                    .Select(k => (X: f.Px(polygon.Xs[k]), Y: f.Py(polygon.Ys[k]))).Where(p => !double.IsNaN(p.X + p.Y))
+                    .Select(p => PlotLayout.P(Math.Clamp(p.X, f.Left, f.Right), Math.Clamp(p.Y, f.Top, f.Bottom))).ToArray();
+                if (corners.Length > 2)
+                {
+                    marks.Add(new AreaMark(corners, polygon.Colour, polygon.Opacity));
+                }
+
+                break;
             case PlotHeatMap map:
                 HeatMap(map, f, bar!, marks);
                 break;

@@ -119,6 +119,9 @@ public static class PlotLayout
                 case PlotBand band:
                     marks.Add(new AreaMark([P(x + 6, cy - 6), P(x + 28, cy - 6), P(x + 28, cy + 6), P(x + 6, cy + 6)], band.Colour, band.Opacity));
                     break;
+                case PlotPolygon polygon:
+                    marks.Add(new AreaMark([P(x + 6, cy - 6), P(x + 28, cy - 6), P(x + 28, cy + 6), P(x + 6, cy + 6)], polygon.Colour, polygon.Opacity));
+                    break;
                 case PlotPoints pts:
                     marks.Add(new DotMark(P(x + 17, cy), Math.Max(3, pts.Radius), pts.Colour));
                     break;
