@@ -107,7 +107,7 @@ public static class PlotLayout
         const double row = 18;
         double textWidth = entries.Max(e => e.Label!.Length) * TickSize * 0.56;
         double w = Math.Min(f.Right - f.Left - 16, textWidth + 40), h = (entries.Count * row) + 8;
-        double x = figure.LegendRight ? f.Right - 8 - w : f.Left + 8, y = f.Top + 8;
+        var (x, y) = LegendCorner(figure.LegendRight, f, w, h, marks);
         marks.Add(new AreaMark([P(x, y), P(x + w, y), P(x + w, y + h), P(x, y + h)], "#ffffff", 0.85));
         marks.Add(new LineMark([P(x, y), P(x + w, y), P(x + w, y + h), P(x, y + h), P(x, y)], PlotPalette.Grey, 0.8, false));
         for (int k = 0; k < entries.Count; k++)
@@ -134,6 +134,57 @@ public static class PlotLayout
             }
 
             marks.Add(new TextMark(P(x + 34, cy + 4), e.Label!, TickSize, PlotPalette.Text, "start", false, false));
+        }
+    }
+
+    /// <summary>
+    /// The corner of the axes where the legend hides the fewest drawn points (lines and dots); the preferred corner wins ties.
+    /// </summary>
+    private static (double X, double Y) LegendCorner(bool right, PlotFrame f, double w, double h, List<PlotMark> marks)
+    {
+        (double X, double Y)[] corners =
+        [
+            (right ? f.Right - 8 - w : f.Left + 8, f.Top + 8),
+            (right ? f.Left + 8 : f.Right - 8 - w, f.Top + 8),
+            (right ? f.Right - 8 - w : f.Left + 8, f.Bottom - 8 - h),
+            (right ? f.Left + 8 : f.Right - 8 - w, f.Bottom - 8 - h),
+        ];
+        var points = marks.SelectMany(m => m switch
+        {
+            LineMark l when l.Width > 1 || l.Points.Count > 2 => Densify(l.Points),
+            DotMark d => [d.Centre],
+            _ => [],
+        }).ToList();
+        int Hidden((double X, double Y) c) => points.Count(p => p.X >= c.X && p.X <= c.X + w && p.Y >= c.Y && p.Y <= c.Y + h);
+        var best = corners[0];
+        int fewest = Hidden(best);
+        foreach (var c in corners.Skip(1))
+        {
+            int n = Hidden(c);
+            if (n < fewest)
+            {
+                (best, fewest) = (c, n);
+            }
+        }
+
+        return best;
+    }
+
+    /// <summary>The points of a polyline with extra points every ~8 px along long segments, so a straight line crossing a box counts.</summary>
+    private static IEnumerable<PlotPoint> Densify(IReadOnlyList<PlotPoint> points)
+    {
+        for (int k = 0; k < points.Count; k++)
+        {
+            yield return points[k];
+            if (k + 1 < points.Count)
+            {
+                double dx = points[k + 1].X - points[k].X, dy = points[k + 1].Y - points[k].Y;
+                int n = (int)(Math.Sqrt((dx * dx) + (dy * dy)) / 8);
+                for (int j = 1; j < n; j++)
+                {
+                    yield return new PlotPoint(points[k].X + (dx * j / n), points[k].Y + (dy * j / n));
+                }
+            }
         }
     }
 

@@ -40,7 +40,7 @@ public static class OverlapFigures
         double lag = result.RefinedLagSeconds * 1e3;
         var elements = new List<PlotElement>
         {
-            PlotBand.Rectangle(lagMs.DefaultIfEmpty(-span).Min(), lagMs.DefaultIfEmpty(span).Max(), -1, 1) with { Colour = PlotPalette.Paper, Label = "searched lags" },
+            PlotBand.Rectangle(lagMs.DefaultIfEmpty(-span).Min(), lagMs.DefaultIfEmpty(span).Max(), -1, 1) with { Colour = PlotPalette.Shade, Opacity = 0.6, Label = "searched lags" },
             new PlotLine([-span, span], [0, 0]) { Colour = PlotPalette.Grey, Width = 1 },
         };
         if (result.LagUncertaintySeconds is { } sigma)

@@ -37,7 +37,7 @@ public static class SkyMapFigure
             if (corners.Max(p => p.X) - corners.Min(p => p.X) < Root2)
             {
                 elements.Add(new PlotPolygon(corners.Select(p => p.X).ToArray(), corners.Select(p => p.Y).ToArray())
-                    { Colour = PlotPalette.Green, Opacity = 0.25, Label = first ? "allowed by the antenna patterns" : null });
+                    { Colour = PlotPalette.Grey, Opacity = 0.2, Label = first ? "allowed by the antenna patterns" : null });
                 first = false;
             }
         }
