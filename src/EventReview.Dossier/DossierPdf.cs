@@ -92,8 +92,8 @@ public static class DossierPdf
         w.Small("Latest recorded verdict of each built-in check within each checklist section; 'not run' where the section has an item for " +
                 "the check but no run is recorded, '-' where the section has none. Signed: items with all required sign-offs current.");
         w.Space(4);
-        double first = 150, each = kinds.Count == 0 ? 0 : (w.Width - first - 50) / kinds.Count;
-        var columns = new[] { 0.0 }.Concat(kinds.Select((_, k) => first + (k * each))).Append(w.Width - 50).ToArray();
+        double first = 110, each = kinds.Count == 0 ? 0 : (w.Width - first - 36) / kinds.Count;
+        var columns = new[] { 0.0 }.Concat(kinds.Select((_, k) => first + (k * each))).Append(w.Width - 36).ToArray();
         w.Row(columns, true, 7.5, ["Section", .. kinds, "Signed"]);
         foreach (var section in Sections(doc))
         {

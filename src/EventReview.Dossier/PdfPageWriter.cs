@@ -69,18 +69,23 @@ internal sealed class PdfPageWriter(PdfDocument pdf, string footer)
 
     public void Space(double points) => _y += points;
 
-    /// <summary>A table row: cells at the given column offsets, each cut to its column (tables hold short values).</summary>
+    /// <summary>A table row: cells at the given column offsets, each wrapped within its column (long words broken).</summary>
     public void Row(double[] columns, bool header, double size, params string[] cells)
     {
         var font = new XFont(DejaVuFontResolver.FamilyName, size, header ? XFontStyleEx.Bold : XFontStyleEx.Regular);
         Ensure(size + 5);
-        for (var k = 0; k < cells.Length; k++)
+        var wrapped = cells.Select((c, k) => Lines(c.ReplaceLineEndings(" "), font, (k + 1 < columns.Length ? columns[k + 1] : Width) - columns[k] - 4)).ToList();
+        var lines = wrapped.Max(l => l.Count);
+        Ensure((lines * (size + 2)) + 3);
+        for (var k = 0; k < wrapped.Count; k++)
         {
-            var width = (k + 1 < columns.Length ? columns[k + 1] : Width) - columns[k] - 4;
-            _gfx!.DrawString(Fit(cells[k], font, width), font, XBrushes.Black, new XPoint(Margin + columns[k], _y + size));
+            for (var j = 0; j < wrapped[k].Count; j++)
+            {
+                _gfx!.DrawString(wrapped[k][j], font, XBrushes.Black, new XPoint(Margin + columns[k], _y + size + (j * (size + 2))));
+            }
         }
 
-        _y += size + 5;
+        _y += (lines * (size + 2)) + 3;
         _gfx!.DrawLine(new XPen(PlotPdf.Colour(PlotPalette.Grey, 0.5), 0.4), Margin, _y - 1.5, Margin + Width, _y - 1.5);
     }
 
@@ -168,30 +173,4 @@ internal sealed class PdfPageWriter(PdfDocument pdf, string footer)
     }
 
     private double Measure(string text, XFont font) => _gfx!.MeasureString(text, font).Width;
-
-    private string Fit(string text, XFont font, double width)
-    {
-        text = text.ReplaceLineEndings(" ");
-        if (Measure(text, font) <= width)
-        {
-            return text;
-        }
-
-        var lo = 0;
-        var hi = text.Length;
-        while (lo < hi)
-        {
-            var mid = (lo + hi + 1) / 2;
-            if (Measure(text[..mid] + "…", font) <= width)
-            {
-                lo = mid;
-            }
-            else
-            {
-                hi = mid - 1;
-            }
-        }
-
-        return text[..lo] + "…";
-    }
 }

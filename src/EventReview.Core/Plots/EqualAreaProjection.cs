@@ -15,22 +15,17 @@ public static class EqualAreaProjection
     {
         double target = Math.PI * Math.Sin(phi);
         double theta = phi;
-        if (Math.Abs(Math.Abs(phi) - (Math.PI / 2)) < 1e-12)
-        {
-            theta = phi;
-        }
-        else
+        if (Math.Abs(Math.Abs(phi) - (Math.PI / 2)) > 1e-12)
         {
             for (int k = 0; k < 50; k++)
             {
-                double f = (2 * theta) + Math.Sin(2 * theta) - target;
                 double d = 2 + (2 * Math.Cos(2 * theta));
                 if (d < 1e-15)
                 {
                     break;
                 }
 
-                double step = f / d;
+                double step = ((2 * theta) + Math.Sin(2 * theta) - target) / d;
                 theta -= step;
                 if (Math.Abs(step) < 1e-12)
                 {

@@ -57,7 +57,7 @@ public static class ChainResidualFigure
         double peak = result.MaxExcessGps - centerGps;
         var elements = new List<PlotElement>
         {
-            PlotBand.Rectangle(-windowSeconds, windowSeconds, -ymax, ymax) with { Colour = PlotPalette.Paper, Label = string.Create(ci, $"on-source window ±{windowSeconds:0.###} s") },
+            PlotBand.Rectangle(-windowSeconds, windowSeconds, -ymax, ymax) with { Colour = PlotPalette.Warm, Opacity = 0.12, Label = string.Create(ci, $"on-source window ±{windowSeconds:0.###} s") },
             PlotBand.Rectangle(t0, t1, -z, z) with { Colour = PlotPalette.Shade, Label = string.Create(ci, $"±{z:0.00} σ threshold (on-source)") },
             new PlotLine(xs, ys) { Colour = PlotPalette.Ink, Width = 1, Label = "residual, recorded − predicted" },
             new PlotLine([peak, peak], [-ymax, ymax]) { Colour = PlotPalette.Warm, Dashed = true, Label = string.Create(ci, $"largest on-source excursion, {result.MaxExcessSigma:0.0} σ") },
