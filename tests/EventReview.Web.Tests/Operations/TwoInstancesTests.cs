@@ -21,8 +21,7 @@ public sealed class TwoInstancesTests
         var connection = provider == "Postgres" ? await PostgresDatabases.FreshAsync("er_two") : null;
         await using var first = new InstanceFactory(shared, connection);
         // On PostgreSQL the two instances have a data folder each, as two machines would: only the database is shared.
-        // The record key is shared as a deployment shares it (one key folder for every instance of one record).
-        await using var second = new InstanceFactory(connection is null ? shared : shared + "-b", connection, Path.Combine(shared, "keys"));
+        await using var second = new InstanceFactory(connection is null ? shared : shared + "-b", connection);
         await using var elsewhere = new InstanceFactory(Path.Combine(Path.GetTempPath(), $"er-two-{Guid.NewGuid():N}"), provider == "Postgres" ? await PostgresDatabases.FreshAsync("er_two") : null);
         try
         {
@@ -51,10 +50,10 @@ public sealed class TwoInstancesTests
             var refused = await GetAsync(c, "/api/cases", auth);
             Assert.Equal(HttpStatusCode.Unauthorized, refused.StatusCode);
 
-            // The cookie keys are rows of the shared database, not files (keys/ holds only the record's signing key).
+            // The keys are rows of the shared database, not files in a keys/ folder.
             await using var db = first.Db();
             Assert.True(await db.DataProtectionKeys.CountAsync() >= 1);
-            Assert.Empty(Directory.Exists(Path.Combine(shared, "keys")) ? Directory.GetFiles(Path.Combine(shared, "keys"), "key-*.xml") : []);
+            Assert.False(Directory.Exists(Path.Combine(shared, "keys")));
         }
         finally
         {
@@ -102,17 +101,12 @@ public sealed class TwoInstancesTests
     }
 
     /// <summary>The app on a given data folder and, for PostgreSQL, a given database (the demo is seeded once, by the first).</summary>
-    private sealed class InstanceFactory(string dataDirectory, string? postgres, string? recordKeys = null) : EventReviewFactory
+    private sealed class InstanceFactory(string dataDirectory, string? postgres) : EventReviewFactory
     {
         protected override void ConfigureWebHost(IWebHostBuilder builder)
         {
             base.ConfigureWebHost(builder);
             builder.UseSetting("EventReview:DataDirectory", dataDirectory);
-            if (recordKeys is not null)
-            {
-                builder.UseSetting("EventReview:Records:KeyDirectory", recordKeys);
-            }
-
             if (postgres is not null)
             {
                 builder.UseSetting("Database:Provider", "Postgres");
