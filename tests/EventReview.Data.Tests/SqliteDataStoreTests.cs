@@ -43,7 +43,7 @@ public sealed class SqliteDataStoreTests : DataStoreTests
         }
 
         var before = new FileInfo(file).Length;
-        var gate = new Writes.BatchingWriteGate(Factory);
+        var gate = new EventReview.Data.Writes.BatchingWriteGate(Factory);
         try
         {
             // Well under the 1,000 pages at which SQLite's own automatic checkpoint would run.

@@ -44,8 +44,10 @@ public sealed class ActivityEntry
         Hash = ComputeHash(candidateId, sequence, At, ActorId, ActorName, kind, itemKey, text, Facts, previousHash);
     }
 
+    /// <summary>Database key of the entry (not part of the hashed content).</summary>
     public long Id { get; private set; }
 
+    /// <summary>Database key of the case the entry belongs to (not part of the hashed content).</summary>
     public int ReviewCaseId { get; private set; }
 
     /// <summary>The case's candidate identifier (part of the hashed content, so entries cannot move between cases).</summary>
@@ -57,19 +59,25 @@ public sealed class ActivityEntry
     /// <summary>When, UTC, to whole milliseconds (<see cref="Time.RecordedTime"/>).</summary>
     public DateTimeOffset At { get; private set; }
 
+    /// <summary>Account id of whoever made the change (<see cref="Actor.UserId"/>).</summary>
     public string ActorId { get; private set; }
 
+    /// <summary>Printed name of whoever made the change, as it was at the time (<see cref="Actor.DisplayName"/>).</summary>
     public string ActorName { get; private set; }
 
     /// <summary>Dotted kind ("case.opened", "item.state", "evidence.note", "signoff", ...).</summary>
     public string Kind { get; private set; }
 
+    /// <summary>Key of the checklist item the change concerns; null for a change of the case itself.</summary>
     public string? ItemKey { get; private set; }
 
+    /// <summary>The change in plain language, as the timeline shows it.</summary>
     public string Text { get; private set; }
 
+    /// <summary><see cref="Hash"/> of the case's previous entry, or <see cref="GenesisHash"/> for the first entry.</summary>
     public string PreviousHash { get; private set; }
 
+    /// <summary>Lowercase hex SHA-256 of this entry's canonical content, which includes <see cref="PreviousHash"/>.</summary>
     public string Hash { get; private set; }
 
     /// <summary>

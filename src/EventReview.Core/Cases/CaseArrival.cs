@@ -31,8 +31,10 @@ public sealed class CaseArrival
         Snr = snr;
     }
 
+    /// <summary>Database key of the arrival.</summary>
     public int Id { get; private set; }
 
+    /// <summary>Code of the site, upper case, 1-8 letters or digits (as <see cref="Network.Site.Code"/>).</summary>
     public string SiteCode { get; private set; }
 
     /// <summary>Arrival time, GPS nanoseconds (see <see cref="Arrival"/>).</summary>

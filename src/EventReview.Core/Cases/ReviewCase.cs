@@ -30,6 +30,7 @@ public sealed class ReviewCase
         ChecklistName = string.Empty;
     }
 
+    /// <summary>Database key of the case.</summary>
     public int Id { get; private set; }
 
     /// <summary>The identifier given by the search that raised the candidate (unique).</summary>
@@ -38,45 +39,61 @@ public sealed class ReviewCase
     /// <summary>Candidate time, GPS nanoseconds (see <see cref="Gps"/>).</summary>
     public long GpsNanoseconds { get; private set; }
 
+    /// <summary>Candidate time on the GPS scale (from <see cref="GpsNanoseconds"/>).</summary>
     public GpsTime Gps => new(GpsNanoseconds);
 
+    /// <summary>Name of the search that raised the candidate, trimmed, at most <see cref="MaxSearchLength"/> characters.</summary>
     public string Search { get; private set; }
 
+    /// <summary>Free-text summary of the candidate given when the case was opened, at most <see cref="MaxSummaryLength"/> characters.</summary>
     public string Summary { get; private set; }
 
+    /// <summary>Where the case stands: open, in review, awaiting decision or closed.</summary>
     public CaseState State { get; private set; }
 
+    /// <summary>The committee's conclusion; null until the case is closed.</summary>
     public CaseOutcome? Outcome { get; private set; }
 
+    /// <summary>The statement of the decision given when the case was closed, trimmed; null until then.</summary>
     public string? ClosingStatement { get; private set; }
 
+    /// <summary>Account id of the coordinator who opened the case.</summary>
     public string CoordinatorId { get; private set; }
 
+    /// <summary>Printed name of the coordinator who opened the case, as it was then.</summary>
     public string CoordinatorName { get; private set; }
 
     /// <summary>Template the checklist was made from, and its version.</summary>
     public string ChecklistName { get; private set; }
 
+    /// <summary>Version of the template the checklist was made from (see <see cref="ChecklistName"/>).</summary>
     public int ChecklistVersion { get; private set; }
 
+    /// <summary>When the case was opened, UTC, to whole milliseconds (<see cref="RecordedTime"/>).</summary>
     public DateTimeOffset CreatedAt { get; private set; }
 
+    /// <summary>Time of the newest timeline entry, UTC, to whole milliseconds.</summary>
     public DateTimeOffset UpdatedAt { get; private set; }
 
     /// <summary>Optimistic-concurrency version of the whole case, bumped on every change (serialises the timeline).</summary>
     public int Version { get; private set; }
 
+    /// <summary>The candidate's arrival at each site, at most one per site code.</summary>
     public IReadOnlyList<CaseArrival> Arrivals => _arrivals;
 
+    /// <summary>The checklist items, made from the template's sections and items in their order.</summary>
     public IReadOnlyList<ChecklistItem> Items => _items;
 
+    /// <summary>The case's timeline: entries numbered by <see cref="ActivityEntry.Sequence"/> and chained by their hashes.</summary>
     public IReadOnlyList<ActivityEntry> Activity => _activity;
 
     /// <summary>Network SNR: root sum of squares of the per-site SNRs.</summary>
     public double NetworkSnr => Math.Sqrt(_arrivals.Sum(a => a.Snr * a.Snr));
 
+    /// <summary>Number of checklist items that are signed off.</summary>
     public int SignedItemCount => _items.Count(i => i.State == ItemState.SignedOff);
 
+    /// <summary>Number of checklist items with a stale sign-off that have not been signed off again.</summary>
     public int StaleItemCount => _items.Count(i => i.HasStaleSignOffs);
 
     /// <summary>Longest search name, characters.</summary>
@@ -156,6 +173,7 @@ public sealed class ReviewCase
     public ChecklistItem Item(string key) =>
         _items.FirstOrDefault(i => i.Key == key) ?? throw new KeyNotFoundException($"Case {CandidateId} has no checklist item '{key}'.");
 
+    /// <summary>Assigns an item to an owner, or unassigns it when <paramref name="ownerId"/> is null or blank; refused for a signed-off item.</summary>
     public void AssignItem(string key, string? ownerId, string? ownerName, Actor by, DateTimeOffset now)
     {
         var item = Mutable(key);
@@ -164,6 +182,7 @@ public sealed class ReviewCase
             CaseFacts.ItemOwner(key, item.OwnerId, item.OwnerName));
     }
 
+    /// <summary>Sets the item's due date (a UTC calendar date), or clears it when <paramref name="due"/> is null.</summary>
     public void SetItemDue(string key, DateOnly? due, Actor by, DateTimeOffset now)
     {
         var item = Mutable(key);
@@ -171,6 +190,7 @@ public sealed class ReviewCase
         Record(by, now, "item.due", key, due is null ? $"Due date of '{key}' cleared." : $"Item '{key}' due {due:yyyy-MM-dd}.", [CaseFacts.ItemDue(key, item.DueDate)]);
     }
 
+    /// <summary>Moves an open item to in progress; an open case goes into review.</summary>
     public void StartItem(string key, Actor by, DateTimeOffset now)
     {
         Mutable(key).Start();
@@ -178,6 +198,7 @@ public sealed class ReviewCase
         Record(by, now, "item.state", key, $"Item '{key}' started (in progress).", StateFacts(key));
     }
 
+    /// <summary>Marks an open or in-progress item ready for sign-off (it needs evidence or a computation); an open case goes into review.</summary>
     public void MarkItemReady(string key, Actor by, DateTimeOffset now)
     {
         Mutable(key).MarkReady();
@@ -185,6 +206,7 @@ public sealed class ReviewCase
         Record(by, now, "item.state", key, $"Item '{key}' marked ready for sign-off.", StateFacts(key));
     }
 
+    /// <summary>Returns an item ready for sign-off to in progress; refused once the item has a current sign-off.</summary>
     public void WithdrawItem(string key, Actor by, DateTimeOffset now)
     {
         Mutable(key).Withdraw();

@@ -41,20 +41,28 @@ public sealed class ChecklistItem
         State = ItemState.Open;
     }
 
+    /// <summary>Database key of the item.</summary>
     public int Id { get; private set; }
 
+    /// <summary>Database key of the case the item belongs to.</summary>
     public int ReviewCaseId { get; private set; }
 
+    /// <summary>The item's key from the template (<see cref="TemplateItem.Key"/>), unique within the case.</summary>
     public string Key { get; private set; }
 
+    /// <summary>Key of the template section the item belongs to.</summary>
     public string SectionKey { get; private set; }
 
+    /// <summary>Title of the item's section, as written in the template.</summary>
     public string SectionTitle { get; private set; }
 
+    /// <summary>Position of the item's section in the checklist, from 1.</summary>
     public int SectionOrder { get; private set; }
 
+    /// <summary>Position of the item within its section, from 1.</summary>
     public int Order { get; private set; }
 
+    /// <summary>The item's title, as written in the template.</summary>
     public string Title { get; private set; }
 
     /// <summary>Guidance in Markdown (rendered sanitised).</summary>
@@ -63,12 +71,16 @@ public sealed class ChecklistItem
     /// <summary>The computed check this item is served by, if any (<see cref="Checklists.CheckKind"/>).</summary>
     public string? CheckKind { get; private set; }
 
+    /// <summary>Account id of the person the item is assigned to; null when unassigned.</summary>
     public string? OwnerId { get; private set; }
 
+    /// <summary>Printed name of the item's owner; null when unassigned.</summary>
     public string? OwnerName { get; private set; }
 
+    /// <summary>The date the item is due (a UTC calendar date); null for none.</summary>
     public DateOnly? DueDate { get; private set; }
 
+    /// <summary>Where the item stands: open, in progress, ready for sign-off or signed off.</summary>
     public ItemState State { get; private set; }
 
     /// <summary>Distinct current sign-offs needed.</summary>
@@ -80,10 +92,13 @@ public sealed class ChecklistItem
     /// <summary>Optimistic-concurrency version, bumped by every change of the item.</summary>
     public int Version { get; private set; }
 
+    /// <summary>Notes, attachments and links added to the item (never edited or removed).</summary>
     public IReadOnlyList<EvidenceItem> Evidence => _evidence;
 
+    /// <summary>Stored runs of built-in checks on the item (never edited or removed).</summary>
     public IReadOnlyList<ComputationRecord> Computations => _computations;
 
+    /// <summary>Every sign-off of the item, stale ones included.</summary>
     public IReadOnlyList<SignOff> SignOffs => _signOffs;
 
     /// <summary>Sign-offs that still count (not stale).</summary>

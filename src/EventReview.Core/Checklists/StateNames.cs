@@ -5,6 +5,7 @@ namespace EventReview.Core.Checklists;
 /// <summary>Plain words for states, used in messages, the UI and the API.</summary>
 public static class StateNames
 {
+    /// <summary>The plain word for an item state: "open", "in progress", "ready for sign-off" or "signed off".</summary>
     public static string Of(ItemState state) => state switch
     {
         ItemState.Open => "open",
@@ -14,6 +15,7 @@ public static class StateNames
         _ => state.ToString(),
     };
 
+    /// <summary>The plain word for a case state: "open", "in review", "awaiting decision" or "closed".</summary>
     public static string Of(CaseState state) => state switch
     {
         CaseState.Open => "open",
@@ -23,6 +25,7 @@ public static class StateNames
         _ => state.ToString(),
     };
 
+    /// <summary>The plain word for an outcome: its member name in lower case ("astrophysical", "instrumental", ...).</summary>
     public static string Of(CaseOutcome outcome) => outcome.ToString().ToLowerInvariant();
 
     /// <summary>The item state whose plain word is <paramref name="word"/> (the reverse of <see cref="Of(ItemState)"/>).</summary>

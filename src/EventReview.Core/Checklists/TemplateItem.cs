@@ -6,6 +6,7 @@ public sealed class TemplateItem
     /// <summary>Stable key, unique in the template: lower-case letters, digits, dots and dashes.</summary>
     public string Key { get; set; } = string.Empty;
 
+    /// <summary>Title of the item, as the checklist shows it.</summary>
     public string Title { get; set; } = string.Empty;
 
     /// <summary>Guidance for whoever works the item, in Markdown.</summary>

@@ -26,6 +26,7 @@ public sealed class ConfigurationSnapshot
         ItemsJson = "{}";
     }
 
+    /// <summary>Database key of the snapshot (recorded in the case timeline when it is frozen).</summary>
     public int Id { get; private set; }
 
     /// <summary>The case the snapshot belongs to; null for a snapshot captured outside a case (set by <see cref="Freeze"/>).</summary>
@@ -40,19 +41,25 @@ public sealed class ConfigurationSnapshot
     /// <summary>User id of whoever captured the snapshot.</summary>
     public string CapturedBy { get; private set; }
 
+    /// <summary>Printed name of whoever captured the snapshot, as it was then.</summary>
     public string CapturedByName { get; private set; }
 
+    /// <summary>When the snapshot was captured, UTC, to whole milliseconds (<see cref="Time.RecordedTime"/>).</summary>
     public DateTimeOffset CapturedAt { get; private set; }
 
     /// <summary>The items as a canonical JSON object: keys in ordinal order, string values, no white space.</summary>
     public string ItemsJson { get; private set; }
 
+    /// <summary>True once a coordinator has frozen the snapshot for a case; it never changes again.</summary>
     public bool IsFrozen { get; private set; }
 
+    /// <summary>User id of the coordinator who froze the snapshot; null before the freeze.</summary>
     public string? FrozenBy { get; private set; }
 
+    /// <summary>Printed name of the coordinator who froze the snapshot; null before the freeze.</summary>
     public string? FrozenByName { get; private set; }
 
+    /// <summary>When the snapshot was frozen, UTC, to whole milliseconds; null before the freeze.</summary>
     public DateTimeOffset? FrozenAt { get; private set; }
 
     /// <summary>Start of the freeze period (inclusive).</summary>
@@ -61,6 +68,7 @@ public sealed class ConfigurationSnapshot
     /// <summary>End of the freeze period (inclusive); later than <see cref="FreezeFrom"/>.</summary>
     public DateTimeOffset? FreezeUntil { get; private set; }
 
+    /// <summary>Why the snapshot was frozen, trimmed, at most <see cref="Inputs.InputLimits.MaxStatementLength"/> characters; null before the freeze.</summary>
     public string? FreezeReason { get; private set; }
 
     /// <summary>SHA-256 (lowercase hex) of the canonical serialisation, set at freeze; null before.</summary>

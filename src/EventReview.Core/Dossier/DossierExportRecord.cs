@@ -14,6 +14,7 @@ public sealed class DossierExportRecord
         ExportedByName = string.Empty;
     }
 
+    /// <summary>Notes an export of case <paramref name="reviewCaseId"/>: manifest SHA-256, timeline head covered, ZIP size in bytes, who and when.</summary>
     public DossierExportRecord(int reviewCaseId, string manifestSha256, string chainHead, long sizeBytes, Cases.Actor by, DateTimeOffset at)
     {
         ReviewCaseId = reviewCaseId;
@@ -25,8 +26,10 @@ public sealed class DossierExportRecord
         ExportedAt = at;
     }
 
+    /// <summary>Database key of the note.</summary>
     public int Id { get; private set; }
 
+    /// <summary>Database key of the exported case.</summary>
     public int ReviewCaseId { get; private set; }
 
     /// <summary>Lowercase hex SHA-256 of manifest.json in the exported ZIP.</summary>
@@ -35,11 +38,15 @@ public sealed class DossierExportRecord
     /// <summary>Hash of the newest timeline entry covered by the export.</summary>
     public string ChainHead { get; private set; }
 
+    /// <summary>Size of the exported ZIP file, bytes.</summary>
     public long SizeBytes { get; private set; }
 
+    /// <summary>User id of whoever exported the dossier.</summary>
     public string ExportedBy { get; private set; }
 
+    /// <summary>Printed name of whoever exported the dossier, as it was then.</summary>
     public string ExportedByName { get; private set; }
 
+    /// <summary>When the dossier was exported (UTC; the export service stores it to whole milliseconds).</summary>
     public DateTimeOffset ExportedAt { get; private set; }
 }

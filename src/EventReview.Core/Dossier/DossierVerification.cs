@@ -13,6 +13,7 @@ namespace EventReview.Core.Dossier;
 public sealed record DossierVerification(bool Valid, IReadOnlyList<DossierProblem> Problems, string Status = DossierVerification.InvalidWord,
     string Signature = "not checked", string? SignedBy = null)
 {
+    /// <summary>The three words <see cref="Status"/> can hold: "valid", "unsigned" and "invalid".</summary>
     public const string ValidWord = "valid", UnsignedWord = "unsigned", InvalidWord = "invalid";
 
     /// <summary>A result holding <paramref name="problems"/>: invalid when there are any, else unsigned (no signature was checked).</summary>

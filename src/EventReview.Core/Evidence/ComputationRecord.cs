@@ -43,18 +43,25 @@ public sealed class ComputationRecord
         RunAt = Time.RecordedTime.Normalize(at);
     }
 
+    /// <summary>Database key of the record.</summary>
     public int Id { get; private set; }
 
+    /// <summary>Database key of the checklist item the record belongs to.</summary>
     public int ChecklistItemId { get; private set; }
 
+    /// <summary>The check that ran, one of <see cref="Checklists.CheckKind.All"/>.</summary>
     public string Kind { get; private set; }
 
+    /// <summary>The run's parameters as JSON; part of the content hash.</summary>
     public string ParametersJson { get; private set; }
 
+    /// <summary>SHA-256 over the run's canonical inputs; part of the content hash, so changed inputs make a new record.</summary>
     public string InputFingerprint { get; private set; }
 
+    /// <summary>Name and version of the tool with the record format that produced the result (<see cref="CheckRecords.ToolVersion"/>); part of the content hash.</summary>
     public string ToolVersion { get; private set; }
 
+    /// <summary>The check's result as JSON (the numbers the verdict rests on); part of the content hash.</summary>
     public string ResultJson { get; private set; }
 
     /// <summary>One plain word of our own: "consistent", "inconsistent", "clear", "concern", ...</summary>
@@ -66,8 +73,10 @@ public sealed class ComputationRecord
     /// <summary>Pictures as SVG documents, concatenated with a separator line "&lt;!--next--&gt;".</summary>
     public string PicturesSvg { get; private set; }
 
+    /// <summary>User id of whoever ran the check.</summary>
     public string RunBy { get; private set; }
 
+    /// <summary>Printed name of whoever ran the check, as it was then.</summary>
     public string RunByName { get; private set; }
 
     /// <summary>When it ran, UTC, to whole milliseconds (<see cref="Time.RecordedTime"/>).</summary>

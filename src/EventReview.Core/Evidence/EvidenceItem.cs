@@ -30,10 +30,13 @@ public sealed class EvidenceItem
         AddedAt = Time.RecordedTime.Normalize(at);
     }
 
+    /// <summary>Database key of the evidence.</summary>
     public int Id { get; private set; }
 
+    /// <summary>Database key of the checklist item the evidence belongs to.</summary>
     public int ChecklistItemId { get; private set; }
 
+    /// <summary>Whether this is a note, an attachment or a link.</summary>
     public EvidenceKind Kind { get; private set; }
 
     /// <summary>Note text (Markdown), link title, or attachment description.</summary>
@@ -45,14 +48,19 @@ public sealed class EvidenceItem
     /// <summary>Original file name as uploaded (display only; the file is stored by hash, never by this name).</summary>
     public string? FileName { get; private set; }
 
+    /// <summary>Content (MIME) type of an attachment as uploaded; null for notes and links.</summary>
     public string? ContentType { get; private set; }
 
+    /// <summary>Size of an attachment, bytes; null for notes and links.</summary>
     public long? SizeBytes { get; private set; }
 
+    /// <summary>Absolute http or https URL of a link; null for notes and attachments.</summary>
     public string? Url { get; private set; }
 
+    /// <summary>User id of whoever added the evidence.</summary>
     public string AddedBy { get; private set; }
 
+    /// <summary>Printed name of whoever added the evidence, as it was then.</summary>
     public string AddedByName { get; private set; }
 
     /// <summary>When it was added, UTC, to whole milliseconds (<see cref="Time.RecordedTime"/>).</summary>

@@ -27,10 +27,13 @@ public sealed class SignOff
         EvidenceFingerprint = evidenceFingerprint;
     }
 
+    /// <summary>Database key of the sign-off.</summary>
     public int Id { get; private set; }
 
+    /// <summary>Database key of the checklist item signed.</summary>
     public int ChecklistItemId { get; private set; }
 
+    /// <summary>Account id of the signer.</summary>
     public string UserId { get; private set; }
 
     /// <summary>The signer's printed name at the time of signing.</summary>
@@ -42,10 +45,13 @@ public sealed class SignOff
     /// <summary>Signing time on the GPS scale, nanoseconds.</summary>
     public long SignedAtGpsNanoseconds { get; private set; }
 
+    /// <summary>Signing time on the GPS scale (from <see cref="SignedAtGpsNanoseconds"/>).</summary>
     public GpsTime SignedAtGps => new(SignedAtGpsNanoseconds);
 
+    /// <summary>What the signature means: reviewed or approved.</summary>
     public SignOffMeaning Meaning { get; private set; }
 
+    /// <summary>The signer's statement of what was checked, trimmed, at most <see cref="Inputs.InputLimits.MaxStatementLength"/> characters.</summary>
     public string Statement { get; private set; }
 
     /// <summary>The item's evidence fingerprint (SHA-256) when signed.</summary>
@@ -54,6 +60,7 @@ public sealed class SignOff
     /// <summary>Set when the item's evidence changed after signing; the signature then no longer counts.</summary>
     public bool IsStale { get; private set; }
 
+    /// <summary>When the sign-off became stale, UTC, to whole milliseconds; null while it still counts.</summary>
     public DateTimeOffset? StaleSince { get; private set; }
 
     /// <summary>

@@ -39,10 +39,16 @@ public readonly record struct Vector3(double X, double Y, double Z)
     /// <summary>Angle between two non-zero vectors, radians in [0, π] (robust atan2 form).</summary>
     public static double AngleBetween(Vector3 a, Vector3 b) => Math.Atan2(Cross(a, b).Length, Dot(a, b));
 
+    /// <summary>Component-wise sum a + b.</summary>
     public static Vector3 operator +(Vector3 a, Vector3 b) => new(a.X + b.X, a.Y + b.Y, a.Z + b.Z);
+    /// <summary>Component-wise difference a − b.</summary>
     public static Vector3 operator -(Vector3 a, Vector3 b) => new(a.X - b.X, a.Y - b.Y, a.Z - b.Z);
+    /// <summary>The opposite vector −a.</summary>
     public static Vector3 operator -(Vector3 a) => new(-a.X, -a.Y, -a.Z);
+    /// <summary>Every component multiplied by <paramref name="s"/>.</summary>
     public static Vector3 operator *(double s, Vector3 a) => new(s * a.X, s * a.Y, s * a.Z);
+    /// <summary>Every component multiplied by <paramref name="s"/>.</summary>
     public static Vector3 operator *(Vector3 a, double s) => new(s * a.X, s * a.Y, s * a.Z);
+    /// <summary>Every component divided by <paramref name="s"/> (s = 0 gives infinite or NaN components).</summary>
     public static Vector3 operator /(Vector3 a, double s) => new(a.X / s, a.Y / s, a.Z / s);
 }

@@ -6,13 +6,20 @@ namespace EventReview.Core.Imports;
 /// </summary>
 public sealed class CsvFormatException : FormatException
 {
-    /// <summary>Creates the exception; the message is prefixed with "line N" (and "column X" when given).</summary>
-    public CsvFormatException(int lineNumber, string? column, string problem)
-        : base(column is null ? $"line {lineNumber}: {problem}" : $"line {lineNumber}, column '{column}': {problem}")
+    /// <summary>
+    /// Creates the exception; the message is prefixed with "line N" (and "column X" when given), and with the file's
+    /// name <paramref name="file"/> when one is given ("triggers.csv line 3, column 'snr': ...").
+    /// </summary>
+    public CsvFormatException(int lineNumber, string? column, string problem, string? file = null)
+        : base((string.IsNullOrEmpty(file) ? string.Empty : file + " ") + (column is null ? $"line {lineNumber}: {problem}" : $"line {lineNumber}, column '{column}': {problem}"))
     {
         LineNumber = lineNumber;
         Column = column;
+        File = string.IsNullOrEmpty(file) ? null : file;
     }
+
+    /// <summary>The file's name as given to the reader, or null.</summary>
+    public string? File { get; }
 
     /// <summary>1-based line number in the file (the header is line 1).</summary>
     public int LineNumber { get; }

@@ -11,12 +11,14 @@ public sealed class CsvRow
 {
     private readonly IReadOnlyDictionary<string, int> _columns;
     private readonly IReadOnlyList<string> _fields;
+    private readonly string? _file;
 
-    internal CsvRow(int lineNumber, IReadOnlyDictionary<string, int> columns, IReadOnlyList<string> fields)
+    internal CsvRow(int lineNumber, IReadOnlyDictionary<string, int> columns, IReadOnlyList<string> fields, string? file = null)
     {
         LineNumber = lineNumber;
         _columns = columns;
         _fields = fields;
+        _file = file;
     }
 
     /// <summary>1-based line number in the file (header = line 1).</summary>
@@ -43,7 +45,7 @@ public sealed class CsvRow
     }
 
     /// <summary>Builds an exception naming this row's line and the given column (null for the whole line).</summary>
-    public CsvFormatException Error(string? column, string problem) => new(LineNumber, column, problem);
+    public CsvFormatException Error(string? column, string problem) => new(LineNumber, column, problem, _file);
 
     private double ParseNumber(string column, string text)
     {

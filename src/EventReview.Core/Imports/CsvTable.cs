@@ -1,8 +1,10 @@
 namespace EventReview.Core.Imports;
 
 /// <summary>
-/// A minimal RFC 4180 style CSV reader: comma-separated, optional double quotes ("" escapes a quote, quoted
-/// fields may not span lines), a required header row, blank lines and lines starting with '#' skipped.
+/// The project's one CSV reader, RFC 4180 style: comma-separated, optional double quotes ("" escapes a quote, quoted
+/// fields may not span lines), a required header row of column names (any order, case-insensitive, each once; extra
+/// columns are allowed and ignored by the readers), blank lines and lines starting with '#' skipped, and every data
+/// row holding exactly as many fields as the header (an empty field is written as nothing between two commas).
 /// </summary>
 public static class CsvTable
 {
@@ -12,9 +14,19 @@ public static class CsvTable
     /// <param name="reader">The CSV text.</param>
     /// <param name="requiredColumns">Columns that must be present in the header (case-insensitive).</param>
     /// <exception cref="CsvFormatException">Missing header or column, unbalanced quotes, or more fields than header columns.</exception>
-    public static IReadOnlyList<CsvRow> Read(TextReader reader, params string[] requiredColumns)
+    public static IReadOnlyList<CsvRow> Read(TextReader reader, params string[] requiredColumns) => Read(reader, null, requiredColumns);
+
+    /// <summary>
+    /// Reads every data row, naming <paramref name="file"/> in every error (for example the uploaded file's name).
+    /// </summary>
+    /// <param name="reader">The CSV text.</param>
+    /// <param name="file">The file's name for messages, or null.</param>
+    /// <param name="requiredColumns">Columns that must be present in the header (case-insensitive).</param>
+    /// <exception cref="CsvFormatException">Missing header or column, unbalanced quotes, or a row whose field count differs from the header's.</exception>
+    public static IReadOnlyList<CsvRow> Read(TextReader reader, string? file, IReadOnlyList<string> requiredColumns)
     {
         ArgumentNullException.ThrowIfNull(reader);
+        ArgumentNullException.ThrowIfNull(requiredColumns);
         Dictionary<string, int>? columns = null;
         var rows = new List<CsvRow>();
         var lineNumber = 0;
@@ -26,7 +38,7 @@ public static class CsvTable
                 continue;
             }
 
-            var fields = Split(line, lineNumber);
+            var fields = Split(line, lineNumber, file);
             if (columns is null)
             {
                 columns = new Dictionary<string, int>(StringComparer.OrdinalIgnoreCase);
@@ -34,7 +46,7 @@ public static class CsvTable
                 {
                     if (!columns.TryAdd(fields[i].Trim(), i))
                     {
-                        throw new CsvFormatException(lineNumber, fields[i].Trim(), "column appears twice in the header");
+                        throw new CsvFormatException(lineNumber, fields[i].Trim(), "column appears twice in the header", file);
                     }
                 }
 
@@ -43,30 +55,30 @@ public static class CsvTable
                     if (!columns.ContainsKey(required))
                     {
                         throw new CsvFormatException(lineNumber, required,
-                            $"header row must contain the columns {string.Join(",", requiredColumns)}");
+                            $"header row must contain the columns {string.Join(",", requiredColumns)}", file);
                     }
                 }
 
                 continue;
             }
 
-            if (fields.Count > columns.Count)
+            if (fields.Count != columns.Count)
             {
-                throw new CsvFormatException(lineNumber, null, $"{fields.Count} fields but the header has {columns.Count} columns");
+                throw new CsvFormatException(lineNumber, null, $"{fields.Count} fields but the header has {columns.Count} columns", file);
             }
 
-            rows.Add(new CsvRow(lineNumber, columns, fields));
+            rows.Add(new CsvRow(lineNumber, columns, fields, file));
         }
 
         if (columns is null)
         {
-            throw new CsvFormatException(1, null, "the file is empty: a header row is required");
+            throw new CsvFormatException(1, null, $"the file is empty: a header row with {string.Join(",", requiredColumns)} is required", file);
         }
 
         return rows;
     }
 
-    private static List<string> Split(string line, int lineNumber)
+    private static List<string> Split(string line, int lineNumber, string? file)
     {
         var fields = new List<string>();
         var current = new System.Text.StringBuilder();
@@ -107,7 +119,7 @@ public static class CsvTable
 
         if (inQuotes)
         {
-            throw new CsvFormatException(lineNumber, null, "unbalanced double quote");
+            throw new CsvFormatException(lineNumber, null, "unbalanced double quote", file);
         }
 
         fields.Add(current.ToString());

@@ -19,6 +19,7 @@ public sealed class SealedInjectionRecord
         SealedByName = string.Empty;
     }
 
+    /// <summary>Database key of the seal.</summary>
     public int Id { get; private set; }
 
     /// <summary>Lowercase hex SHA-256 (64 characters) of the salt bytes followed by the record bytes.</summary>
@@ -27,17 +28,22 @@ public sealed class SealedInjectionRecord
     /// <summary>A short name for people ("blind injections, observing period 3").</summary>
     public string Label { get; private set; }
 
+    /// <summary>User id of whoever registered the seal.</summary>
     public string SealedById { get; private set; }
 
+    /// <summary>Printed name of whoever registered the seal, as it was then.</summary>
     public string SealedByName { get; private set; }
 
     /// <summary>When the seal was registered in the tool (UTC).</summary>
     public DateTimeOffset SealedAt { get; private set; }
 
+    /// <summary>User id of whoever opened the seal; null until opened.</summary>
     public string? OpenedById { get; private set; }
 
+    /// <summary>Printed name of whoever opened the seal; null until opened.</summary>
     public string? OpenedByName { get; private set; }
 
+    /// <summary>When the seal was opened (UTC); null until opened.</summary>
     public DateTimeOffset? OpenedAt { get; private set; }
 
     /// <summary>Id of the case in which the record was opened, or null.</summary>

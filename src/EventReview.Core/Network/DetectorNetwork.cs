@@ -16,10 +16,13 @@ public sealed class DetectorNetwork
         Name = CheckedName(name);
     }
 
+    /// <summary>Database key of the network.</summary>
     public int Id { get; private set; }
 
+    /// <summary>Name of the network: not empty, at most <see cref="Inputs.InputLimits.MaxNameLength"/> characters.</summary>
     public string Name { get; private set; }
 
+    /// <summary>The network's sites; each site code appears once.</summary>
     public IReadOnlyList<Site> Sites => _sites;
 
     /// <summary>The site with the given code (case-insensitive), or null.</summary>
@@ -43,6 +46,7 @@ public sealed class DetectorNetwork
         return s is not null && _sites.Remove(s);
     }
 
+    /// <summary>Renames the network; refuses an empty or invalid name (the message says why).</summary>
     public void Rename(string name) => Name = CheckedName(name);
 
     private static string CheckedName(string name) => string.IsNullOrWhiteSpace(name)

@@ -22,11 +22,13 @@ public sealed class Site
         Update(code, name, latitudeDegrees, longitudeDegrees, heightMeters, xArmAzimuthDegrees, yArmAzimuthDegrees, timingUncertaintySeconds);
     }
 
+    /// <summary>Database key of the site.</summary>
     public int Id { get; private set; }
 
     /// <summary>Short unique code, 1-8 letters or digits, upper case (e.g. "KX").</summary>
     public string Code { get; private set; }
 
+    /// <summary>The site's name, for people.</summary>
     public string Name { get; private set; }
 
     /// <summary>Geodetic latitude, degrees north, in [-90, 90].</summary>

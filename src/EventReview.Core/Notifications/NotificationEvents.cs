@@ -4,6 +4,7 @@ namespace EventReview.Core.Notifications;
 [Flags]
 public enum NotificationEvents
 {
+    /// <summary>No events: the person is told about nothing.</summary>
     None = 0,
 
     /// <summary>A checklist item was assigned to you.</summary>
@@ -21,5 +22,6 @@ public enum NotificationEvents
     /// <summary>An integrity verification found a problem (coordinators only).</summary>
     VerifyFailed = 16,
 
+    /// <summary>Every event above.</summary>
     All = Assigned | Due | StaleSignOff | ReadyForDecision | VerifyFailed,
 }

@@ -6,11 +6,17 @@ namespace EventReview.Core.Notifications;
 /// </summary>
 public static class NotificationKind
 {
+    /// <summary>A checklist item was assigned to the recipient.</summary>
     public const string Assigned = "item.assigned";
+    /// <summary>An item the recipient owns is due today or tomorrow (UTC dates).</summary>
     public const string DueSoon = "item.due";
+    /// <summary>An item the recipient owns is past its due date (UTC dates).</summary>
     public const string Overdue = "item.overdue";
+    /// <summary>Evidence changed after the recipient signed an item: the sign-off is stale and no longer counts.</summary>
     public const string StaleSignOff = "signoff.stale";
+    /// <summary>Every item of a case is signed off: the case can go to the committee for decision.</summary>
     public const string ReadyForDecision = "case.ready";
+    /// <summary>An integrity verification found a problem (sent to coordinators).</summary>
     public const string VerifyFailed = "verify.failed";
 
     /// <summary>A test message a person sent themselves from their profile (always delivered).</summary>

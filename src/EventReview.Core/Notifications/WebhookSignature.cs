@@ -12,8 +12,10 @@ namespace EventReview.Core.Notifications;
 /// </summary>
 public static class WebhookSignature
 {
+    /// <summary>HTTP header holding <c>sha256=</c> and the lowercase hex HMAC-SHA-256 of the signed text.</summary>
     public const string SignatureHeader = "X-EventReview-Signature";
 
+    /// <summary>HTTP header holding the sending time, Unix seconds (UTC), which is part of the signed text.</summary>
     public const string TimestampHeader = "X-EventReview-Timestamp";
 
     /// <summary>Largest clock difference a receiver should accept (5 minutes: common practice for signed webhooks).</summary>

@@ -73,6 +73,7 @@ public static class CaseFacts
         yield return ItemState(key, state);
     }
 
+    /// <summary>The case's state fact (<c>case.state</c>), written as the member name.</summary>
     public static Fact CaseState(CaseState state) => new(FactNames.Case(FactNames.State), state.ToString());
 
     /// <summary>The outcome and closing statement (both empty while the case is not closed).</summary>
@@ -82,11 +83,14 @@ public static class CaseFacts
         yield return new(FactNames.Case(FactNames.Closing), closingStatement ?? string.Empty);
     }
 
+    /// <summary>An item's state fact (<c>item[KEY].state</c>), written as the member name.</summary>
     public static Fact ItemState(string key, ItemState state) => new(FactNames.Item(key, FactNames.State), state.ToString());
 
+    /// <summary>An item's due-date fact, yyyy-MM-dd (a UTC calendar date), empty when there is none.</summary>
     public static Fact ItemDue(string key, DateOnly? due) =>
         new(FactNames.Item(key, FactNames.Due), due?.ToString("yyyy-MM-dd", CultureInfo.InvariantCulture) ?? string.Empty);
 
+    /// <summary>An item's owner facts: account id and printed name, both empty when unassigned.</summary>
     public static IEnumerable<Fact> ItemOwner(string key, string? ownerId, string? ownerName)
     {
         yield return new(FactNames.Item(key, FactNames.Owner), ownerId ?? string.Empty);
@@ -96,8 +100,10 @@ public static class CaseFacts
     /// <summary>A piece of evidence added to an item: its seal and <see cref="EvidenceItem.DetailSha256"/>.</summary>
     public static Fact Evidence(string key, EvidenceItem evidence) => new(FactNames.EvidenceAdded(key), evidence.Seal() + " " + evidence.DetailSha256());
 
+    /// <summary>A computation record added to an item: its seal (<see cref="ComputationRecord.Seal"/>).</summary>
     public static Fact Computation(string key, ComputationRecord record) => new(FactNames.ComputationAdded(key), record.Seal());
 
+    /// <summary>A sign-off added to an item: its seal (<see cref="EventReview.Core.Evidence.SignOff.Seal"/>).</summary>
     public static Fact SignOff(string key, SignOff signOff) => new(FactNames.SignOffAdded(key), signOff.Seal());
 
     /// <summary>A sign-off made stale: its seal and the UTC ticks of its stale mark.</summary>

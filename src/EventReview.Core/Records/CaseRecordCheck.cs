@@ -12,6 +12,7 @@ namespace EventReview.Core.Records;
 /// </summary>
 public static class CaseRecordCheck
 {
+    /// <summary>The problems found comparing <paramref name="stored"/> with <paramref name="recorded"/>, in the order above; empty when they agree.</summary>
     public static IReadOnlyList<IntegrityProblem> Compare(string candidateId, RecordedCase recorded, StoredCase stored)
     {
         ArgumentNullException.ThrowIfNull(recorded);

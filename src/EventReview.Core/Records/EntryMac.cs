@@ -13,5 +13,6 @@ public static class EntryMac
     /// <summary>Chain name of a case's timeline.</summary>
     public static string CaseChain(string candidateId) => "case:" + candidateId;
 
+    /// <summary>The text the MAC covers for entry hash <paramref name="hash"/> of chain <paramref name="chain"/> under key <paramref name="keyId"/>.</summary>
     public static string Input(string keyId, string chain, string hash) => string.Join('\n', "eventreview-entry-mac-v1", keyId, chain, hash);
 }

@@ -23,18 +23,25 @@ public static class FactNames
     /// <summary>Name of the fact that adds a frozen configuration record to the case.</summary>
     public const string ConfigurationAdded = "configuration+";
 
+    /// <summary>Name of a case field's fact: <c>case.FIELD</c>.</summary>
     public static string Case(string field) => "case." + field;
 
+    /// <summary>Name of a site's arrival fact: <c>arrival[SITE]</c>.</summary>
     public static string Arrival(string site) => $"arrival[{site}]";
 
+    /// <summary>Name of an item field's fact: <c>item[KEY].FIELD</c>.</summary>
     public static string Item(string key, string field) => $"item[{key}].{field}";
 
+    /// <summary>Name of the fact that adds evidence to an item: <c>evidence[KEY]+</c>.</summary>
     public static string EvidenceAdded(string key) => $"evidence[{key}]+";
 
+    /// <summary>Name of the fact that adds a computation record to an item: <c>computation[KEY]+</c>.</summary>
     public static string ComputationAdded(string key) => $"computation[{key}]+";
 
+    /// <summary>Name of the fact that adds a sign-off to an item: <c>signoff[KEY]+</c>.</summary>
     public static string SignOffAdded(string key) => $"signoff[{key}]+";
 
+    /// <summary>Name of the fact that makes a sign-off of an item stale: <c>signoff[KEY].stale</c>.</summary>
     public static string SignOffStale(string key) => $"signoff[{key}].stale";
 
     /// <summary>

@@ -22,5 +22,6 @@ public sealed class RecordedCase
     /// <summary>Sequence and UTC ticks of the newest entry replayed (0 when none).</summary>
     public int LastEntry { get; internal set; }
 
+    /// <summary>Time of the newest entry replayed, UTC ticks (100 ns since 0001-01-01); 0 when none.</summary>
     public long LastAtUtcTicks { get; internal set; }
 }

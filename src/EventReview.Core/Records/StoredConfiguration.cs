@@ -8,6 +8,7 @@ namespace EventReview.Core.Records;
 /// </summary>
 public sealed record StoredConfiguration(string Id, string SiteCode, bool IsFrozen, string? Fingerprint, string? Recomputed, string Detail)
 {
+    /// <summary>The record as stored, with its fingerprint recomputed from its content when it is frozen.</summary>
     public static StoredConfiguration Of(ConfigurationSnapshot s)
     {
         ArgumentNullException.ThrowIfNull(s);

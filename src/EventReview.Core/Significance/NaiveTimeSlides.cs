@@ -6,7 +6,7 @@ namespace EventReview.Core.Significance;
 /// sorted list), then merge them against site A's positions, looking across the seam through images at
 /// ±L. Work: 2K x (triggers of A + triggers of B).
 /// </summary>
-public static class NaiveTimeSlides
+internal static class NaiveTimeSlides
 {
     /// <summary>Sends every background coincidence of the 2K slides to the sink.</summary>
     /// <param name="pair">The two sites; B slides.</param>

@@ -1,3 +1,5 @@
+using EventReview.Core.Imports;
+
 namespace EventReview.Core.Significance;
 
 /// <summary>
@@ -12,21 +14,22 @@ public static class SegmentCsv
     /// <summary>Parses and merges segments.</summary>
     /// <param name="reader">The CSV text.</param>
     /// <param name="source">A name for error messages.</param>
-    /// <exception cref="FormatException">Naming the line and column of the first bad row.</exception>
+    /// <exception cref="CsvFormatException">Naming the file, line and column of the first bad row.</exception>
     public static SegmentImport Parse(TextReader reader, string source = "segments")
     {
         var raw = new List<Segment>();
-        CsvTable.Read(reader, source, Required, (t, line, f) =>
+        foreach (var row in CsvTable.Read(reader, source, Required))
         {
-            var start = t.Gps(f, line, "start_gps");
-            var end = t.Gps(f, line, "end_gps");
+            var start = row.Gps("start_gps");
+            var end = row.Gps("end_gps");
             if (end <= start)
             {
-                throw t.Error(line, "end_gps", $"the segment ends ({end}) at or before it starts ({start})");
+                throw row.Error("end_gps", $"the segment ends ({end}) at or before it starts ({start})");
             }
 
             raw.Add(new Segment(start, end));
-        });
+        }
+
         var merged = SegmentList.Merge(raw, out var mergedCount);
         return new SegmentImport(merged, raw.Count, mergedCount);
     }

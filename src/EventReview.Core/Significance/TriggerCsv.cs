@@ -1,3 +1,5 @@
+using EventReview.Core.Imports;
+
 namespace EventReview.Core.Significance;
 
 /// <summary>
@@ -13,33 +15,34 @@ public static class TriggerCsv
     /// <summary>Parses trigger rows in file order.</summary>
     /// <param name="reader">The CSV text.</param>
     /// <param name="source">A name for error messages (e.g. the file name).</param>
-    /// <exception cref="FormatException">Naming the line and column of the first bad value.</exception>
+    /// <exception cref="CsvFormatException">Naming the file, line and column of the first bad value.</exception>
     public static IReadOnlyList<Trigger> Parse(TextReader reader, string source = "triggers")
     {
         var list = new List<Trigger>();
-        CsvTable.Read(reader, source, Required, (t, line, f) =>
+        foreach (var row in CsvTable.Read(reader, source, Required))
         {
-            var time = t.Gps(f, line, "gps_time");
-            var snr = t.Number(f, line, "snr", optional: false)!.Value;
+            var time = row.Gps("gps_time");
+            var snr = row.Number("snr");
             if (snr < 0)
             {
-                throw t.Error(line, "snr", "SNR must not be negative");
+                throw row.Error("snr", "SNR must not be negative");
             }
 
-            var mc = t.Number(f, line, "chirp_mass", optional: true);
+            var mc = row.OptionalNumber("chirp_mass");
             if (mc is <= 0)
             {
-                throw t.Error(line, "chirp_mass", "chirp mass must be positive");
+                throw row.Error("chirp_mass", "chirp mass must be positive");
             }
 
-            var freq = t.Number(f, line, "frequency_hz", optional: true);
+            var freq = row.OptionalNumber("frequency_hz");
             if (freq is <= 0)
             {
-                throw t.Error(line, "frequency_hz", "frequency must be positive");
+                throw row.Error("frequency_hz", "frequency must be positive");
             }
 
             list.Add(new Trigger(time, snr, mc, freq));
-        });
+        }
+
         return list;
     }
 

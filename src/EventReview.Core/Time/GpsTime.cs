@@ -79,9 +79,13 @@ public readonly record struct GpsTime : IComparable<GpsTime>
     /// <inheritdoc />
     public int CompareTo(GpsTime other) => Nanoseconds.CompareTo(other.Nanoseconds);
 
+    /// <summary>True when <paramref name="a"/> is earlier than <paramref name="b"/>.</summary>
     public static bool operator <(GpsTime a, GpsTime b) => a.Nanoseconds < b.Nanoseconds;
+    /// <summary>True when <paramref name="a"/> is later than <paramref name="b"/>.</summary>
     public static bool operator >(GpsTime a, GpsTime b) => a.Nanoseconds > b.Nanoseconds;
+    /// <summary>True when <paramref name="a"/> is not later than <paramref name="b"/>.</summary>
     public static bool operator <=(GpsTime a, GpsTime b) => a.Nanoseconds <= b.Nanoseconds;
+    /// <summary>True when <paramref name="a"/> is not earlier than <paramref name="b"/>.</summary>
     public static bool operator >=(GpsTime a, GpsTime b) => a.Nanoseconds >= b.Nanoseconds;
 
     /// <summary>Decimal seconds with all nine fractional digits, trailing zeros removed ("1187008882.4").</summary>

@@ -10,7 +10,7 @@ public class EnvironmentImportTests
     [Fact]
     public void Segments_import_merges_overlapping_rows_of_one_flag_and_says_so()
     {
-        var csv = "site,flag,start_gps,end_gps,comment\nKX,GROUND_NOISE,100,110,a\nKX,GROUND_NOISE,105,120,b\nKX,OTHER,100,101\nM2,GROUND_NOISE,100,110\n";
+        var csv = "site,flag,start_gps,end_gps,comment\nKX,GROUND_NOISE,100,110,a\nKX,GROUND_NOISE,105,120,b\nKX,OTHER,100,101,\nM2,GROUND_NOISE,100,110,\n";
         var result = DataQualitySegmentCsv.Parse(new StringReader(csv), Known);
         Assert.Equal(3, result.Segments.Count);
         var merged = result.Segments.Single(s => s.Site == "KX" && s.Flag == "GROUND_NOISE");
@@ -40,12 +40,13 @@ public class EnvironmentImportTests
     }
 
     [Theory]
-    [InlineData("KX,SEIS_X,100,NaN", "snr")]
-    [InlineData("KX,SEIS_X,abc,5", "gps_time")]
-    [InlineData("KX,SEIS_X,100,-1", "snr")]
-    [InlineData("KX,SEIS_X,100,5,0", "frequency_hz")]
-    [InlineData("KX,,100,5", "channel")]
-    public void Malformed_trigger_lines_are_rejected_naming_line_and_column(string row, string column)
+    [InlineData("KX,SEIS_X,100,NaN,,", "snr")]
+    [InlineData("KX,SEIS_X,abc,5,,", "gps_time")]
+    [InlineData("KX,SEIS_X,100,-1,,", "snr")]
+    [InlineData("KX,SEIS_X,100,5,0,", "frequency_hz")]
+    [InlineData("KX,,100,5,,", "channel")]
+    [InlineData("KX,SEIS_X,100,5", null)] // fewer fields than the header: a shifted row is refused, not read with blanks
+    public void Malformed_trigger_lines_are_rejected_naming_line_and_column(string row, string? column)
     {
         var csv = "site,channel,gps_time,snr,frequency_hz,duration_s\n" + row + "\n";
         var ex = Assert.Throws<CsvFormatException>(() => AuxiliaryTriggerCsv.Parse(new StringReader(csv), Known));

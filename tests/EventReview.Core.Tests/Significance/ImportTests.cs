@@ -1,3 +1,4 @@
+using EventReview.Core.Imports;
 using EventReview.Core.Significance;
 using EventReview.Core.Time;
 
@@ -29,7 +30,7 @@ public class ImportTests
     [InlineData("time,snr\n1300000000,5\n", "line 1", "gps_time")]
     public void Malformed_trigger_files_are_rejected_naming_the_line_and_column(string csv, string line, string column)
     {
-        var ex = Assert.Throws<FormatException>(() => TriggerCsv.Parse(new StringReader(csv), "t.csv"));
+        var ex = Assert.Throws<CsvFormatException>(() => TriggerCsv.Parse(new StringReader(csv), "t.csv"));
         Assert.Contains("t.csv " + line, ex.Message);
         Assert.Contains(column, ex.Message);
     }
@@ -37,7 +38,7 @@ public class ImportTests
     [Fact]
     public void A_segment_ending_at_or_before_its_start_is_rejected_with_its_line()
     {
-        var ex = Assert.Throws<FormatException>(() => SegmentCsv.Parse(new StringReader("start_gps,end_gps\n100,200\n300,300\n"), "s.csv"));
+        var ex = Assert.Throws<CsvFormatException>(() => SegmentCsv.Parse(new StringReader("start_gps,end_gps\n100,200\n300,300\n"), "s.csv"));
         Assert.Contains("s.csv line 3, column 'end_gps'", ex.Message);
     }
 

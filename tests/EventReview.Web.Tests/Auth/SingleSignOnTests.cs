@@ -98,6 +98,11 @@ public sealed class SingleSignOnTests(SingleSignOnFactory app) : IClassFixture<S
         var change = (await AuditAsync(account.Id)).Single(e => e.Kind == AccountEventKinds.RoleChanged);
         Assert.Equal("observer -> reviewer: groups [gw-detchar]", change.Detail);
 
+        // The account and its new role are accounted for by the signed sign-in audit: whole-record verification holds.
+        var (_, database) = await app.Services.GetRequiredService<EventReview.Data.IntegrityVerifier>().VerifyAsync();
+        Assert.DoesNotContain(database, p => p.What.Contains(person.Email, StringComparison.OrdinalIgnoreCase) || p.What.Contains(account.Id, StringComparison.Ordinal));
+        Assert.Empty(database);
+
         // Removed from every review group: refused, with a page that says why, and the refusal is audited.
         app.Provider.People[person.UserName] = person with { Groups = ["somewhere-else"] };
         using var third = new SsoBrowser(app, app.Provider);

@@ -20,8 +20,10 @@ public sealed class TwoInstancesTests
         var shared = Path.Combine(Path.GetTempPath(), $"er-two-{Guid.NewGuid():N}");
         var connection = provider == "Postgres" ? await PostgresDatabases.FreshAsync("er_two") : null;
         await using var first = new InstanceFactory(shared, connection);
-        // On PostgreSQL the two instances have a data folder each, as two machines would: only the database is shared.
-        await using var second = new InstanceFactory(connection is null ? shared : shared + "-b", connection);
+        // On PostgreSQL the two instances have a data folder each, as two machines would: only the database and the
+        // record key folder and witness (which every instance must share, docs/operations.md section 11) are.
+        await using var second = new InstanceFactory(connection is null ? shared : shared + "-b", connection,
+            connection is null ? null : Path.Combine(shared, "keys"), connection is null ? null : Path.Combine(shared, "witness"));
         await using var elsewhere = new InstanceFactory(Path.Combine(Path.GetTempPath(), $"er-two-{Guid.NewGuid():N}"), provider == "Postgres" ? await PostgresDatabases.FreshAsync("er_two") : null);
         try
         {
@@ -50,10 +52,11 @@ public sealed class TwoInstancesTests
             var refused = await GetAsync(c, "/api/cases", auth);
             Assert.Equal(HttpStatusCode.Unauthorized, refused.StatusCode);
 
-            // The keys are rows of the shared database, not files in a keys/ folder.
+            // The cookie keys are rows of the shared database, not key files in a data folder (the keys/ folder holds only
+            // the record key).
             await using var db = first.Db();
             Assert.True(await db.DataProtectionKeys.CountAsync() >= 1);
-            Assert.False(Directory.Exists(Path.Combine(shared, "keys")));
+            Assert.Empty(Directory.EnumerateFiles(shared, "key-*.xml", SearchOption.AllDirectories));
         }
         finally
         {
@@ -101,12 +104,18 @@ public sealed class TwoInstancesTests
     }
 
     /// <summary>The app on a given data folder and, for PostgreSQL, a given database (the demo is seeded once, by the first).</summary>
-    private sealed class InstanceFactory(string dataDirectory, string? postgres) : EventReviewFactory
+    private sealed class InstanceFactory(string dataDirectory, string? postgres, string? keyDirectory = null, string? witnessDirectory = null) : EventReviewFactory
     {
         protected override void ConfigureWebHost(IWebHostBuilder builder)
         {
             base.ConfigureWebHost(builder);
             builder.UseSetting("EventReview:DataDirectory", dataDirectory);
+            if (keyDirectory is not null)
+            {
+                builder.UseSetting("EventReview:Records:KeyDirectory", keyDirectory);
+                builder.UseSetting("EventReview:Records:WitnessDirectory", witnessDirectory);
+            }
+
             if (postgres is not null)
             {
                 builder.UseSetting("Database:Provider", "Postgres");
