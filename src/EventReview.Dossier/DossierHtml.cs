@@ -28,7 +28,9 @@ public static class DossierHtml
         .item{border:1px solid #ccc;padding:.5em 1em;margin:1em 0;break-inside:avoid-page}
         .guidance{background:#f6f6f6;padding:.3em .8em}.muted{color:#555}
         img.picture{max-width:100%;border:1px solid #ddd;margin:.3em 0}
-        @media print{body{margin:0}a{color:#000}}
+        figure{margin:.6em 0;break-inside:avoid}figcaption{font-size:10pt}
+        @media print{body{margin:0;max-width:none;font-size:10pt}a{color:#000}details{display:none}h2{break-before:page}
+        h2:first-of-type{break-before:auto}.item{border:none;padding:0}img.picture{border:none}}
         """;
 
     /// <summary>Renders the page as UTF-8 bytes.</summary>
@@ -98,6 +100,7 @@ public static class DossierHtml
 
     private static void Item(StringBuilder h, DossierItem i, DossierDocument doc, HtmlSanitizer sanitizer)
     {
+        var figures = DossierPdfSections.FigureNumbers(doc);
         h.Append("<div class=\"item\" id=\"item-").Append(E(i.Key)).Append("\">\n<h3>").Append(E(i.Title)).Append(" <span class=\"muted\">(")
          .Append(E(i.Key)).Append(")</span></h3>\n");
         h.Append("<p>State: <strong>").Append(E(i.State)).Append("</strong>");
@@ -146,8 +149,11 @@ public static class DossierHtml
             {
                 if (doc.PictureSvgs.TryGetValue(p, out var svg))
                 {
-                    h.Append("<img class=\"picture\" alt=\"").Append(E(p)).Append("\" src=\"data:image/svg+xml;base64,")
-                     .Append(Convert.ToBase64String(Encoding.UTF8.GetBytes(svg))).Append("\">\n");
+                    var caption = Core.Plots.PlotSvg.Read(svg)?.Caption;
+                    var n = figures.TryGetValue((r.Id, p), out var k) ? k : 0;
+                    h.Append("<figure id=\"figure-").Append(n).Append("\"><img class=\"picture\" alt=\"").Append(E(caption ?? p)).Append("\" src=\"data:image/svg+xml;base64,")
+                     .Append(Convert.ToBase64String(Encoding.UTF8.GetBytes(svg))).Append("\">\n<figcaption>Figure ").Append(n).Append(". ")
+                     .Append(E(caption ?? p)).Append(" <span class=\"muted\">(").Append(E(r.Kind)).Append(" check, ").Append(E(p)).Append(")</span></figcaption></figure>\n");
                 }
             }
         }
@@ -160,10 +166,10 @@ public static class DossierHtml
                 h.Append("<tr><td>").Append(E(s.SignerName));
                 if (s.IsStale)
                 {
-                    h.Append(" <span class=\"stale\">STALE since ").Append(E(s.StaleSinceUtc ?? "?")).Append("</span>");
+                    h.Append(" <span class=\"stale\">STALE since ").Append(E(s.StaleSinceUtcTicks is { } st ? DossierPdf.Utc(st) : "an unknown time")).Append("</span>");
                 }
 
-                h.Append("</td><td>").Append(E(s.Meaning)).Append("</td><td>").Append(E(s.SignedAtUtc)).Append("</td><td>").Append(E(s.SignedAtGps))
+                h.Append("</td><td>").Append(E(s.Meaning)).Append("</td><td>").Append(E(DossierPdf.Utc(s.SignedAtUtcTicks))).Append("</td><td>").Append(E(s.SignedAtGps))
                  .Append("</td><td>").Append(E(s.Statement)).Append("</td><td class=\"hash\">").Append(E(s.EvidenceFingerprint)).Append("</td></tr>\n");
             }
 

@@ -1,21 +1,20 @@
 using System.Globalization;
 using EventReview.Core.Dossier;
-using PdfSharp.Drawing;
 using PdfSharp.Pdf;
 
 namespace EventReview.Dossier;
 
 /// <summary>
-/// Writes <c>summary.pdf</c>: a few A4 pages with the case summary, the item table (state, verdict, signers, stale marks)
-/// and the configuration freeze. Deterministic for a given document: creation and modification dates are the case's
-/// last update time, and the random ids PDFsharp writes are replaced by values derived from the chain head
-/// (<see cref="PdfStabilizer"/>).
+/// Writes <c>summary.pdf</c> for the committee: a cover with the case, its decision status and headline numbers; the
+/// verdict matrix (checklist sections × built-in checks); one part per section with item titles, verdicts, checks with
+/// their figures (numbered, captioned, drawn natively from the plot model by <see cref="Plots.PlotPdf"/>), signers with
+/// statements and times (UTC to the second and GPS seconds); the frozen configuration and its drift; the chain head
+/// and the record's signing-key fingerprint. A pure function of the document and its pictures: creation and
+/// modification dates are the case's last update time, and the random ids PDFsharp writes are replaced by values
+/// derived from the chain head (<see cref="PdfStabilizer"/>), so the verifier can re-render it from <c>dossier.json</c>.
 /// </summary>
 public static class DossierPdf
 {
-    private const double Margin = 50;
-    private const double LineHeight = 14;
-
     /// <summary>Renders the PDF bytes of <paramref name="doc"/>.</summary>
     public static byte[] Render(DossierDocument doc)
     {
@@ -28,173 +27,134 @@ public static class DossierPdf
         pdf.Info.Creator = $"{doc.Generator.Name} {doc.Generator.Version}";
         pdf.Info.CreationDate = stamp;
         pdf.Info.ModificationDate = stamp;
-        var writer = new PageWriter(pdf);
-        var c = doc.Case;
-        writer.Title($"Review dossier: {c.CandidateId}");
-        writer.Line($"GPS time {c.Gps} s   search {c.Search}   state {c.State}" + (c.Outcome is null ? string.Empty : $"   outcome {c.Outcome}"));
-        writer.Line($"Coordinator {c.CoordinatorName}   checklist {c.ChecklistName} v{c.ChecklistVersion}");
-        writer.Line(string.Create(CultureInfo.InvariantCulture, $"Network SNR {c.NetworkSnr:F2}   items {c.ItemCount}, signed {c.SignedItemCount}, stale {c.StaleItemCount}"));
-        writer.Line($"Opened {c.CreatedAtUtc}   last change {c.UpdatedAtUtc}");
-        foreach (var a in doc.Arrivals)
-        {
-            writer.Line(string.Create(CultureInfo.InvariantCulture, $"  arrival at {a.SiteCode}: GPS {a.ArrivalGps} s, SNR {a.Snr:F2}"));
-        }
-
-        writer.Wrap(c.Summary);
-        if (c.ClosingStatement is not null)
-        {
-            writer.Wrap("Decision: " + c.ClosingStatement);
-        }
-
-        writer.Heading("Items");
-        writer.Row(true, "Item", "State", "Verdict", "Signed by");
-        foreach (var i in doc.Items)
-        {
-            var signers = string.Join(", ", i.SignOffs.Select(s => s.SignerName + (s.IsStale ? " (stale)" : string.Empty)));
-            writer.Row(false, i.Key, i.State, i.LatestVerdict ?? "-", signers.Length == 0 ? "-" : signers);
-        }
-
-        var frozen = doc.Configurations.Where(s => s.IsFrozen).ToList();
-        if (doc.Configurations.Count > 0)
-        {
-            writer.Heading("Configuration");
-            foreach (var s in frozen)
-            {
-                writer.Line($"{s.SiteCode} frozen {s.FreezeFromUtc} to {s.FreezeUntilUtc} by {s.FrozenByName}: {s.Items.Count} items");
-                writer.Line($"  fingerprint {s.Fingerprint}");
-            }
-
-            foreach (var s in doc.Configurations.Where(s => s.Drift is not null))
-            {
-                writer.Wrap($"{s.SiteCode} snapshot '{s.Label}' ({s.CapturedAtUtc}): {s.Drift!.Verdict}. {s.Drift.Summary}");
-            }
-        }
-
-        writer.Heading("Integrity");
-        writer.Line($"Timeline entries {doc.Timeline.Count}; chain head");
-        writer.Line("  " + doc.ChainHead);
-        writer.Line("Verify offline: eventreview dossier verify <file.zip>");
-        writer.Finish();
+        var w = new PdfPageWriter(pdf, $"Review dossier {doc.Case.CandidateId} - chain head {Short(doc.ChainHead)}");
+        Cover(doc, w);
+        Matrix(doc, w);
+        DossierPdfSections.Write(doc, w);
+        Configuration(doc, w);
+        Integrity(doc, w);
+        w.Finish();
 
         using var ms = new MemoryStream();
         pdf.Save(ms, false);
         return PdfStabilizer.Stabilize(ms.ToArray(), doc.Case.CandidateId + "/" + doc.ChainHead);
     }
 
-    private sealed class PageWriter(PdfDocument pdf)
+    /// <summary>UTC to the second, from 100 ns ticks: "2026-03-01 12:00:05 UTC".</summary>
+    internal static string Utc(long ticks) => new DateTime(ticks, DateTimeKind.Utc).ToString("yyyy-MM-dd HH:mm:ss 'UTC'", CultureInfo.InvariantCulture);
+
+    /// <summary>GPS seconds, whole: "GPS 1615248600 s".</summary>
+    internal static string Gps(long nanoseconds) => string.Create(CultureInfo.InvariantCulture, $"GPS {Math.Floor(nanoseconds / 1e9):0} s");
+
+    internal static string Short(string hash) => hash.Length > 16 ? hash[..16] + "…" : hash;
+
+    private static void Cover(DossierDocument doc, PdfPageWriter w)
     {
-        private readonly XFont _regular = new(DejaVuFontResolver.FamilyName, 9.5, XFontStyleEx.Regular);
-        private readonly XFont _bold = new(DejaVuFontResolver.FamilyName, 10, XFontStyleEx.Bold);
-        private readonly XFont _title = new(DejaVuFontResolver.FamilyName, 16, XFontStyleEx.Bold);
-        private readonly double[] _columns = [0, 150, 250, 330];
-        private XGraphics? _gfx;
-        private PdfPage? _page;
-        private double _y;
-
-        public void Title(string text)
+        var c = doc.Case;
+        w.NewPage();
+        w.Small("REVIEW DOSSIER FOR THE COMMITTEE");
+        w.Title(c.CandidateId);
+        w.Line($"Candidate time {Gps(c.GpsNanoseconds)} ({c.Gps} s), search {c.Search}");
+        w.Heading("Decision status");
+        w.Bold(c.Outcome is null ? $"Open: the review is {c.State}; no decision has been recorded." : $"Closed: {c.Outcome} (state {c.State}).");
+        if (c.ClosingStatement is not null)
         {
-            Ensure(30);
-            _gfx!.DrawString(Fit(text, _title, Width), _title, XBrushes.Black, new XPoint(Margin, _y + 16));
-            _y += 28;
+            w.Line("Closing statement: " + c.ClosingStatement);
         }
 
-        public void Heading(string text)
+        w.Heading("Headline numbers");
+        w.Line(string.Create(CultureInfo.InvariantCulture, $"Network SNR {c.NetworkSnr:F2} (root sum of squares of the site SNRs, dimensionless)"));
+        foreach (var a in doc.Arrivals)
         {
-            Ensure(3 * LineHeight);
-            _y += 6;
-            _gfx!.DrawString(text, _bold, XBrushes.Black, new XPoint(Margin, _y + 10));
-            _y += LineHeight + 2;
+            w.Line(string.Create(CultureInfo.InvariantCulture, $"{a.SiteCode}: arrival GPS {a.ArrivalGps} s, SNR {a.Snr:F2}"), 12);
         }
 
-        public void Line(string text)
-        {
-            Ensure(LineHeight);
-            _gfx!.DrawString(Fit(text, _regular, Width), _regular, XBrushes.Black, new XPoint(Margin, _y + 10));
-            _y += LineHeight;
-        }
+        var runs = doc.Items.SelectMany(i => i.Computations).ToList();
+        w.Line($"Checklist items: {c.ItemCount}; fully signed {c.SignedItemCount}; with stale sign-offs {c.StaleItemCount}; not yet signed {c.ItemCount - c.SignedItemCount}");
+        w.Line($"Check runs recorded: {runs.Count}" + (runs.Count == 0 ? string.Empty
+            : " (" + string.Join(", ", runs.GroupBy(r => r.Verdict).OrderBy(g => g.Key, StringComparer.Ordinal).Select(g => $"{g.Count()} {g.Key}")) + ")"));
+        w.Line($"Figures: {doc.Items.SelectMany(i => i.Computations).Sum(r => r.Pictures.Count)}; timeline entries: {doc.Timeline.Count}");
+        w.Heading("Case");
+        w.Line($"Coordinator {c.CoordinatorName}; checklist {c.ChecklistName} version {c.ChecklistVersion}");
+        w.Line($"Opened {Utc(c.CreatedAtUtcTicks)}; last change {Utc(c.UpdatedAtUtcTicks)}");
+        w.Line(c.Summary);
+        w.Space(8);
+        w.Small("This summary is rendered from dossier.json and checked against it by 'eventreview dossier verify'. The decision rests " +
+                "with the people who sign, under their collaboration's own procedures.");
+    }
 
-        public void Wrap(string text)
+    private static void Matrix(DossierDocument doc, PdfPageWriter w)
+    {
+        var kinds = doc.Items.Select(i => i.CheckKind).Concat(doc.Items.SelectMany(i => i.Computations).Select(r => r.Kind))
+            .OfType<string>().Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToList();
+        w.Space(10);
+        w.Heading("Verdict matrix");
+        w.Small("Latest recorded verdict of each built-in check within each checklist section; 'not run' where the section has an item for " +
+                "the check but no run is recorded, '-' where the section has none. Signed: items with all required sign-offs current.");
+        w.Space(4);
+        double first = 110, each = kinds.Count == 0 ? 0 : (w.Width - first - 36) / kinds.Count;
+        var columns = new[] { 0.0 }.Concat(kinds.Select((_, k) => first + (k * each))).Append(w.Width - 36).ToArray();
+        w.Row(columns, true, 7.5, ["Section", .. kinds, "Signed"]);
+        foreach (var section in Sections(doc))
         {
-            foreach (var paragraph in text.ReplaceLineEndings("\n").Split('\n'))
+            var cells = kinds.Select(kind =>
             {
-                var line = string.Empty;
-                foreach (var word in paragraph.Split(' ', StringSplitOptions.RemoveEmptyEntries))
-                {
-                    var next = line.Length == 0 ? word : line + " " + word;
-                    if (line.Length > 0 && _gfx is not null && Measure(next, _regular) > Width)
-                    {
-                        Line(line);
-                        line = word;
-                    }
-                    else
-                    {
-                        line = next;
-                    }
-                }
+                var latest = section.SelectMany(i => i.Computations).Where(r => r.Kind == kind).OrderBy(r => r.RunAtUtcTicks).ThenBy(r => r.Id).LastOrDefault();
+                return latest?.Verdict ?? (section.Any(i => i.CheckKind == kind) ? "not run" : "-");
+            });
+            var signed = section.Count(i => i.SignOffs.Count(s => !s.IsStale) >= i.RequiredSignOffs && i.RequiredSignOffs > 0);
+            w.Row(columns, false, 7.5, [section[0].SectionTitle, .. cells, $"{signed}/{section.Count}"]);
+        }
+    }
 
-                if (line.Length > 0)
-                {
-                    Line(line);
-                }
+    internal static List<List<DossierItem>> Sections(DossierDocument doc) =>
+        doc.Items.GroupBy(i => (i.SectionOrder, i.SectionKey)).OrderBy(g => g.Key.SectionOrder).ThenBy(g => g.Key.SectionKey, StringComparer.Ordinal)
+            .Select(g => g.OrderBy(i => i.Order).ToList()).ToList();
+
+    private static void Configuration(DossierDocument doc, PdfPageWriter w)
+    {
+        if (doc.Configurations.Count == 0)
+        {
+            return;
+        }
+
+        w.Heading("Configuration");
+        foreach (var s in doc.Configurations.Where(s => s.IsFrozen))
+        {
+            w.Bold($"{s.SiteCode}: '{s.Label}' frozen by {s.FrozenByName}, {s.FreezeFromUtc} to {s.FreezeUntilUtc}");
+            w.Line($"{s.Items.Count} items; fingerprint {s.Fingerprint}", 12);
+            foreach (var item in s.Items)
+            {
+                w.Small($"{item.Key} = {item.Value}", 24);
             }
         }
 
-        public void Row(bool header, params string[] cells)
+        foreach (var s in doc.Configurations.Where(s => s.Drift is not null))
         {
-            Ensure(LineHeight);
-            var font = header ? _bold : _regular;
-            for (var k = 0; k < cells.Length; k++)
-            {
-                var width = (k + 1 < _columns.Length ? _columns[k + 1] : Width) - _columns[k] - 6;
-                _gfx!.DrawString(Fit(cells[k], font, width), font, XBrushes.Black, new XPoint(Margin + _columns[k], _y + 10));
-            }
-
-            _y += LineHeight;
+            w.Line($"{s.SiteCode} snapshot '{s.Label}' captured {s.CapturedAtUtc}: {s.Drift!.Verdict}. {s.Drift.Summary}");
         }
+    }
 
-        public void Finish() => _gfx?.Dispose();
-
-        private double Width => (_page?.Width.Point ?? 595) - 2 * Margin;
-
-        private void Ensure(double height)
+    private static void Integrity(DossierDocument doc, PdfPageWriter w)
+    {
+        w.Heading("Integrity");
+        w.Line($"Timeline entries: {doc.Timeline.Count}. Chain head (SHA-256 of the last entry):");
+        w.Line(doc.ChainHead, 12);
+        var keys = doc.Timeline.Select(t => t.KeyId).OfType<string>().Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).ToList();
+        if (keys.Count == 0)
         {
-            if (_gfx is null || _y + height > _page!.Height.Point - Margin)
+            w.Line("Signing key: the timeline entries carry no record-key signature (written without a record key).");
+        }
+        else
+        {
+            w.Line($"Signing-key fingerprint{(keys.Count > 1 ? "s" : string.Empty)} of the record (timeline entries are keyed with it):");
+            foreach (var k in keys)
             {
-                _gfx?.Dispose();
-                _page = pdf.AddPage();
-                _page.Size = PdfSharp.PageSize.A4;
-                _gfx = XGraphics.FromPdfPage(_page);
-                _y = Margin;
-                _gfx.DrawString($"page {pdf.PageCount}", _regular, XBrushes.Gray, new XPoint(_page.Width.Point - Margin - 40, _page.Height.Point - 25));
+                w.Line(k, 12);
             }
         }
 
-        private double Measure(string text, XFont font) => _gfx!.MeasureString(text, font).Width;
-
-        private string Fit(string text, XFont font, double width)
-        {
-            text = text.ReplaceLineEndings(" ");
-            if (_gfx is null || Measure(text, font) <= width)
-            {
-                return text;
-            }
-
-            var lo = 0;
-            var hi = text.Length;
-            while (lo < hi)
-            {
-                var mid = (lo + hi + 1) / 2;
-                if (Measure(text[..mid] + "...", font) <= width)
-                {
-                    lo = mid;
-                }
-                else
-                {
-                    hi = mid - 1;
-                }
-            }
-
-            return text[..lo] + "...";
-        }
+        w.Line("The manifest (manifest.json) lists every file's SHA-256 and carries the server's signature when one was configured.");
+        w.Line("Verify offline: eventreview dossier verify <file.zip>");
     }
 }

@@ -80,8 +80,8 @@ public class DossierRenderingCheckTests
         Assert.Equal(DossierVerification.InvalidWord, v.Status);
         var p = Assert.Single(v.Problems);
         Assert.Equal("summary.pdf", p.File);
-        Assert.Contains("outcome astrophysical", p.What, StringComparison.Ordinal);
-        Assert.Contains("state in review", p.What, StringComparison.Ordinal);
+        Assert.Contains("Closed: astrophysical", p.What, StringComparison.Ordinal);
+        Assert.Contains("Open: the review is in review", p.What, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -110,8 +110,8 @@ public class DossierRenderingCheckTests
     {
         var text = PdfText.Extract((await FilesAsync())["summary.pdf"]);
 
-        Assert.Contains("Review dossier: ER-C-0314", text);
-        Assert.Contains(text, t => t.Contains("Cleo Vance (stale)", StringComparison.Ordinal));
+        Assert.Contains("ER-C-0314", text);
+        Assert.Contains(text, t => t.StartsWith("Cleo Vance, approved, ", StringComparison.Ordinal) && t.Contains("STALE since", StringComparison.Ordinal));
         Assert.Empty(PdfText.Extract("not a pdf"u8.ToArray()));
     }
 }

@@ -35,8 +35,8 @@ public static class ChirpCommand
                 var loudest = r.Map.Loudest();
                 if (parse.GetValue(svg) is { } prefix)
                 {
-                    File.WriteAllText(prefix + "-map.svg", Core.Signal.Pictures.QMapPicture.Draw(r.Map, fit, "site"));
-                    File.WriteAllText(prefix + "-zoom.svg", Core.Signal.Pictures.QMapPicture.Draw(r.Zoom, fit, "site", "last part of the signal"));
+                    File.WriteAllText(prefix + "-map.svg", Core.Plots.PlotSvg.Write(Core.Plots.Figures.QMapFigure.Build(r.Map, fit, "site")));
+                    File.WriteAllText(prefix + "-zoom.svg", Core.Plots.PlotSvg.Write(Core.Plots.Figures.QMapFigure.Build(r.Zoom, fit, "site", "zoom on the last part of the signal")));
                 }
 
                 if (parse.GetValue(json))

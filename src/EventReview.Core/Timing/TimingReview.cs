@@ -41,7 +41,7 @@ public static class TimingReview
         return new TimingReviewResult(timing, antenna, judgement)
         {
             Summary = Summarise(timing, antenna),
-            PictureSvg = SkyMapSvg.Render(used, timing, cells),
+            PictureSvg = Plots.PlotSvg.Write(Plots.Figures.SkyMapFigure.Build(used, timing, cells)),
         };
     }
 

@@ -193,6 +193,35 @@ public class DataChainCheckTests
     }
 
     [Fact]
+    public void Residual_figure_zooms_on_the_candidate_against_the_threshold_band_in_robust_sigma()
+    {
+        var (input, output, _) = Simulate(seed: 11, burstAmplitudeSigma: 12);
+        var (report, traces) = DataChainCheck.RunWithTraces(input, [output], [Stage], Start.AddSeconds(10));
+        var stage = report.Stages[0];
+        var fig = Core.Plots.Figures.ChainResidualFigure.Build(traces[0], stage, report.CenterGps, report.WindowSeconds);
+
+        var band = fig.Elements.OfType<Core.Plots.PlotBand>().Single(b => b.Label!.Contains("threshold", StringComparison.Ordinal));
+        Assert.Equal(-stage.ThresholdSigma, band.Lower[0], 12);
+        Assert.Equal(stage.ThresholdSigma, band.Upper[0], 12);
+        Assert.InRange(fig.X.Min, -4 * report.WindowSeconds - 0.01, 0);
+        Assert.InRange(fig.X.Max, 0, 4 * report.WindowSeconds + 0.01);
+        var residual = fig.Elements.OfType<Core.Plots.PlotLine>().Single(l => l.Label!.StartsWith("residual", StringComparison.Ordinal));
+        Assert.True(residual.Ys.Max(Math.Abs) > stage.ThresholdSigma, "a 12 sigma burst must leave the band on the picture");
+        Assert.Contains("σ", fig.Y.Label);
+        Assert.True(fig.Y.Max >= stage.ThresholdSigma, "the band must be inside the drawn range");
+    }
+
+    [Fact]
+    public void Residual_figure_of_a_quiet_stage_keeps_the_band_in_view_rather_than_autoscaling_to_the_noise()
+    {
+        // Adversarial: scaled to its own noise, a quiet residual fills the panel and looks as alarming as a loud one.
+        var (input, output, _) = Simulate(seed: 3, burstAmplitudeSigma: 0);
+        var (report, traces) = DataChainCheck.RunWithTraces(input, [output], [Stage], Start.AddSeconds(10));
+        var fig = Core.Plots.Figures.ChainResidualFigure.Build(traces[0], report.Stages[0], report.CenterGps, report.WindowSeconds);
+        Assert.True(fig.Y.Max >= 1.25 * report.Stages[0].ThresholdSigma);
+    }
+
+    [Fact]
     public void In_a_chain_only_the_stage_that_added_something_is_flagged()
     {
         var (input, output1, _) = Simulate(seed: 3, burstAmplitudeSigma: 0);

@@ -75,7 +75,13 @@ internal sealed class SampleCase
         t = t.AddMinutes(1);
         c.AddEvidence("timing.delay", EvidenceItem.Link("https://logbook.example.org/entry/42", "Log entry", Analyst, t), Analyst, t);
         t = t.AddMinutes(1);
-        var svg1 = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"10\" height=\"10\"><circle cx=\"5\" cy=\"5\" r=\"4\"/></svg>";
+        var svg1 = Core.Plots.PlotSvg.Write(new Core.Plots.PlotFigure(
+            "Delay between the sites against the light travel time: the marked delay should sit inside the band",
+            new Core.Plots.PlotAxis("delay (ms)", -12, 12), new Core.Plots.PlotAxis("likelihood (dimensionless)", 0, 1.1),
+            [
+                Core.Plots.PlotBand.Rectangle(-10, 10, 0, 1.1) with { Colour = Core.Plots.PlotPalette.Shade, Label = "allowed by light travel time ± 10 ms" },
+                new Core.Plots.PlotLine([5, 6, 7, 8, 9], [0.1, 0.6, 1, 0.6, 0.1]) with { Label = "measured delay ± 1σ" },
+            ]));
         var svg2 = "<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"10\" height=\"10\"><rect width=\"4\" height=\"4\"/></svg>";
         c.AddComputation("timing.delay", new ComputationRecord(CheckKind.Timing, "{\"sites\":[\"KX\",\"MV\"]}", new string('a', 64), "eventreview-core 0.1.0",
             "{\"delaySeconds\":0.0046}", "consistent", "delay 4.6 ms within 13.0 ms", svg1 + "\n<!--next-->\n" + svg2, Analyst, t), Analyst, t);

@@ -1,5 +1,6 @@
 using System.Globalization;
-using EventReview.Core.Signal.Pictures;
+using EventReview.Core.Plots;
+using EventReview.Core.Plots.Figures;
 using EventReview.Core.Signal.TimeFrequency;
 using EventReview.Core.Verdicts;
 
@@ -60,9 +61,9 @@ public static class OverlapReview
         };
         var pictures = new List<string>
         {
-            OverlapPictures.Overlay(overlap, a.Code, b.Code),
-            OverlapPictures.CorrelationCurve(overlap),
-            OverlapPictures.OffSourceHistogram(overlap),
+            PlotSvg.Write(OverlapFigures.Overlay(overlap, a.Code, b.Code)),
+            PlotSvg.Write(OverlapFigures.CorrelationCurve(overlap)),
+            PlotSvg.Write(OverlapFigures.OffSourceHistogram(overlap)),
         };
         pictures.AddRange(maps.SelectMany(m => m.Svg));
         return result with { Summary = Summarise(result), PicturesSvg = pictures };
@@ -152,7 +153,7 @@ public static class OverlapReview
             var summary = new OverlapSiteMap(site.Code, site.FileName, r.Fit, null, r.Map.TimesSeconds[0], r.Map.TimesSeconds[^1], r.Map.FrequenciesHz[0],
                 r.Map.FrequenciesHz[^1], 0, 0, peak.Energy, peak.TimeSeconds, peak.FrequencyHz, peak.Q, r.Map.QPlanes[0], r.Map.QPlanes[^1], r.Map.MaxMismatch,
                 r.Map.Percentile(0.995));
-            return (summary, [QMapPicture.Draw(r.Map, r.Fit, site.Code), QMapPicture.Draw(r.Zoom, r.Fit, site.Code, "last part of the signal")]);
+            return (summary, [PlotSvg.Write(QMapFigure.Build(r.Map, r.Fit, site.Code)), PlotSvg.Write(QMapFigure.Build(r.Zoom, r.Fit, site.Code, "zoom on the last part of the signal"))]);
         }
         catch (ArgumentException ex)
         {
