@@ -1,3 +1,4 @@
+using EventReview.Core.Evidence.Roles;
 using EventReview.Core.Inputs;
 
 namespace EventReview.Core.Evidence;
@@ -16,8 +17,10 @@ public sealed class EvidenceItem
         ContentSha256 = string.Empty;
     }
 
-    private EvidenceItem(EvidenceKind kind, string text, string contentSha256, string? fileName, string? contentType, long? sizeBytes, string? url, Cases.Actor by, DateTimeOffset at)
+    private EvidenceItem(EvidenceKind kind, string text, string contentSha256, string? fileName, string? contentType, long? sizeBytes, string? url, Cases.Actor by, DateTimeOffset at,
+        string? role = null)
     {
+        Role = role;
         Kind = kind;
         Text = text;
         ContentSha256 = contentSha256;
@@ -51,6 +54,15 @@ public sealed class EvidenceItem
 
     public string? Url { get; private set; }
 
+    /// <summary>
+    /// An attachment's role as stored (<see cref="FileRole.Word"/>: "strain:KP", "dq-segments"), given or confirmed at upload;
+    /// null for notes, links and attachments stored before roles existed. Sealed with the row (seal version 2).
+    /// </summary>
+    public string? Role { get; private set; }
+
+    /// <summary>The role read from <see cref="Role"/>, or null when none was stored.</summary>
+    public FileRole? FileRole => Roles.FileRole.TryParse(Role);
+
     public string AddedBy { get; private set; }
 
     public string AddedByName { get; private set; }
@@ -60,12 +72,19 @@ public sealed class EvidenceItem
 
     /// <summary>
     /// SHA-256 over this row's canonical content (version 1: kind, content hash, file name, size, URL, who added it and
-    /// the UTC ticks of when), recorded in the case timeline when the evidence is added, so that a later edit of the row
-    /// is caught by verification.
+    /// the UTC ticks of when; version 2, for a row with a <see cref="Role"/>: the same fields followed by the role),
+    /// recorded in the case timeline when the evidence is added, so that a later edit of the row is caught by
+    /// verification. Rows without a role keep version 1, so rows stored before roles existed still verify.
     /// </summary>
-    public string Seal() => Hashing.Sha256Hex(string.Join('\n', "eventreview-evidence-row-v1", Kind.ToString(), ContentSha256, FileName ?? string.Empty,
-        SizeBytes?.ToString(System.Globalization.CultureInfo.InvariantCulture) ?? string.Empty, Url ?? string.Empty, AddedBy, AddedByName,
-        AddedAt.UtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture)));
+    public string Seal()
+    {
+        string[] fields = [Kind.ToString(), ContentSha256, FileName ?? string.Empty,
+            SizeBytes?.ToString(System.Globalization.CultureInfo.InvariantCulture) ?? string.Empty, Url ?? string.Empty, AddedBy, AddedByName,
+            AddedAt.UtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture)];
+        return Role is null
+            ? Hashing.Sha256Hex(string.Join('\n', ["eventreview-evidence-row-v1", .. fields]))
+            : Hashing.Sha256Hex(string.Join('\n', ["eventreview-evidence-row-v2", .. fields, Role]));
+    }
 
     /// <summary>True when a note's stored hash matches its text (other kinds: always true here; files are checked on disk).</summary>
     public bool NoteHashMatches() => Kind != EvidenceKind.Note || ContentSha256 == Hashing.Sha256Hex(Text);
@@ -86,9 +105,13 @@ public sealed class EvidenceItem
         return new EvidenceItem(EvidenceKind.Note, markdown, Hashing.Sha256Hex(markdown), null, null, null, null, by, at);
     }
 
-    /// <summary>An attachment already stored under its SHA-256; <paramref name="fileName"/> is kept for display only.</summary>
+    /// <summary>
+    /// An attachment already stored under its SHA-256; <paramref name="fileName"/> is kept for display only, <paramref name="role"/>
+    /// says which check input it is (null: none recorded).
+    /// </summary>
     /// <exception cref="ArgumentException">When the hash, size, content type or description is invalid (see <see cref="CheckAttachmentFields"/>).</exception>
-    public static EvidenceItem Attachment(string fileName, string contentType, long sizeBytes, string sha256, string description, Cases.Actor by, DateTimeOffset at)
+    public static EvidenceItem Attachment(string fileName, string contentType, long sizeBytes, string sha256, string description, Cases.Actor by, DateTimeOffset at,
+        FileRole? role = null)
     {
         if (!Hashing.IsSha256Hex(sha256))
         {
@@ -103,7 +126,7 @@ public sealed class EvidenceItem
         CheckAttachmentFields(contentType, description);
         var safeName = SafeFileName.From(fileName);
 
-        return new EvidenceItem(EvidenceKind.Attachment, description ?? string.Empty, sha256, safeName, contentType, sizeBytes, null, by, at);
+        return new EvidenceItem(EvidenceKind.Attachment, description ?? string.Empty, sha256, safeName, contentType, sizeBytes, null, by, at, role?.Word);
     }
 
     /// <summary>

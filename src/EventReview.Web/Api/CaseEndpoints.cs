@@ -126,12 +126,23 @@ public static class CaseEndpoints
                     throw new MalformedRequestException("description", "The form has more than one 'description' field; send one.");
                 }
 
+                if (form["role"].Count > 1)
+                {
+                    throw new MalformedRequestException("role", "The form has more than one 'role' field; send one.");
+                }
+
+                // The role is checked before the bytes are stored, so a refused upload leaves nothing behind.
+                var role = string.IsNullOrWhiteSpace(form["role"].ToString()) ? null : EventReview.Core.Evidence.Roles.FileRole.Parse(form["role"].ToString());
                 await using var stream = file.OpenReadStream();
                 var r = await cases.AppendAttachmentAsync(user, id, key, stream, file.FileName, string.IsNullOrWhiteSpace(file.ContentType) ? "application/octet-stream" : file.ContentType,
-                    form["description"].ToString(), max);
-                return Results.Created($"/api/cases/{id}/items/{key}", new { id = r.EvidenceId, sha256 = r.ContentSha256, sizeBytes = r.SizeBytes, fileName = r.FileName, fingerprint = r.ItemFingerprint });
+                    form["description"].ToString(), max, role);
+                return Results.Created($"/api/cases/{id}/items/{key}", new
+                {
+                    id = r.EvidenceId, sha256 = r.ContentSha256, sizeBytes = r.SizeBytes, fileName = r.FileName, fingerprint = r.ItemFingerprint,
+                    role = r.Role?.Word, roleGuessedFrom = r.RoleGuess,
+                });
             })).RequireAuthorization(Policies.AddEvidence).DisableAntiforgery()
-              .WithSummary("Attach a file (multipart field 'file', optional 'description'); stored by SHA-256.");
+              .WithSummary("Attach a file (multipart field 'file', optional 'description' and 'role', e.g. strain:KP or dq-segments; without a role it is guessed from the content and the answer says from what); stored by SHA-256.");
 
         app.MapGet("/files/{sha}", (string sha, EventReview.Data.AttachmentStore store, string? name) =>
         {
