@@ -67,6 +67,20 @@ public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext
 
     public DbSet<Core.Injections.SealedInjectionRecord> SealedInjectionRecords => Set<Core.Injections.SealedInjectionRecord>();
 
+    /// <summary>Heads of the chain entries the save in progress writes (see <see cref="Records.RecordSigningInterceptor"/>).</summary>
+    internal List<Records.WitnessedHead> SavingHeads { get; } = [];
+
+    /// <summary>Heads written by saves of this context that are not witnessed yet (they wait for a commit).</summary>
+    internal List<Records.WitnessedHead> PendingHeads { get; } = [];
+
+    /// <summary>Takes the heads this context wrote since the last call, for the witness once their transaction committed.</summary>
+    public IReadOnlyList<Records.WitnessedHead> TakeWitnessHeads()
+    {
+        var heads = PendingHeads.ToList();
+        PendingHeads.Clear();
+        return heads;
+    }
+
     /// <summary>Loads a whole case aggregate (arrivals, items with evidence, computations, sign-offs, timeline).</summary>
     public IQueryable<ReviewCase> CasesWithEverything() => Cases
         .Include(c => c.Arrivals)

@@ -6,11 +6,22 @@ namespace EventReview.Data;
 
 public static class DataServiceCollectionExtensions
 {
-    /// <summary>Registers the database settings, the context factory and a scoped context (for Identity).</summary>
-    public static IServiceCollection AddEventReviewData(this IServiceCollection services, DatabaseSettings settings)
+    /// <summary>
+    /// Registers the database settings, the context factory and a scoped context (for Identity). With
+    /// <paramref name="records"/> (the record key ring and witness) every save signs its chain entries and the verifier
+    /// checks signatures and the witness.
+    /// </summary>
+    public static IServiceCollection AddEventReviewData(this IServiceCollection services, DatabaseSettings settings, Records.RecordKeeping? records = null)
     {
-        var factory = new AppDbContextFactory(settings);
+        var factory = new AppDbContextFactory(settings, records);
         services.AddSingleton(settings);
+        if (records is not null)
+        {
+            // Made by a factory, so the container disposes it on shutdown: the witness writes what is still waiting.
+            services.AddSingleton(_ => records);
+            services.AddSingleton(records.Keys);
+        }
+
         services.AddSingleton(factory);
         services.AddSingleton<IDbContextFactory<AppDbContext>>(factory);
         services.AddScoped(sp => sp.GetRequiredService<IDbContextFactory<AppDbContext>>().CreateDbContext());
@@ -18,7 +29,7 @@ public static class DataServiceCollectionExtensions
             ? new Writes.BatchingWriteGate(factory)
             : new Writes.DirectWriteGate(factory));
         services.AddSingleton<AttachmentStore>();
-        services.AddSingleton<IntegrityVerifier>();
+        services.AddSingleton(sp => new IntegrityVerifier(factory, sp.GetRequiredService<AttachmentStore>(), settings, records));
         services.AddSingleton<Auth.TokenRevocations>();
         services.AddScoped<Auth.AccountAdmin>();
         services.AddSingleton<Auth.AccountAudit>();

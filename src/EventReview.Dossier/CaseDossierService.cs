@@ -12,7 +12,7 @@ namespace EventReview.Dossier;
 /// network's sites and the configuration records of the case's sites, builds the document, writes the ZIP and notes
 /// the export (manifest hash and chain head) outside the case's timeline.
 /// </summary>
-public sealed class CaseDossierService(IDbContextFactory<AppDbContext> dbFactory, AttachmentStore store, TimeProvider clock)
+public sealed class CaseDossierService(IDbContextFactory<AppDbContext> dbFactory, AttachmentStore store, TimeProvider clock, Data.Records.RecordKeeping? records = null)
 {
     /// <summary>Writes the dossier of case <paramref name="caseId"/> to <paramref name="output"/>; returns the export note.</summary>
     /// <exception cref="KeyNotFoundException">When there is no such case.</exception>
@@ -27,7 +27,7 @@ public sealed class CaseDossierService(IDbContextFactory<AppDbContext> dbFactory
             .OrderBy(s => s.Id).ToList();
         var doc = DossierBuilder.Build(c, sites, snapshots);
         using var buffer = new MemoryStream();
-        await DossierExporter.ExportAsync(doc, store.Open, buffer, ct);
+        await DossierExporter.ExportAsync(doc, store.Open, buffer, records?.Keys.Current, ct);
         buffer.Position = 0;
         string manifestSha;
         using (var zip = new ZipArchive(buffer, ZipArchiveMode.Read, leaveOpen: true))

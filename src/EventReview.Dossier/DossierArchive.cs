@@ -4,7 +4,8 @@ using EventReview.Core.Dossier;
 namespace EventReview.Dossier;
 
 /// <summary>
-/// Reads a dossier ZIP safely and verifies it with <see cref="DossierVerifier"/>. Entries whose names hold "..", start
+/// Reads a dossier ZIP safely and verifies it with <see cref="DossierVerifier"/> (against the trusted record keys) and
+/// <see cref="DossierRenderingCheck"/> (the readable files re-rendered from <c>dossier.json</c>). Entries whose names hold "..", start
 /// with '/' or a drive letter, or use backslashes are refused (and not read); so are archives with more than
 /// <see cref="MaxEntries"/> entries or more than <see cref="MaxTotalBytes"/> bytes uncompressed. A truncated or corrupt
 /// ZIP gives a problem, not an exception.
@@ -20,8 +21,8 @@ public static class DossierArchive
     /// <summary>Name used for problems about the ZIP as a whole.</summary>
     public const string ZipName = "(zip)";
 
-    /// <summary>Reads and verifies the ZIP in <paramref name="zip"/>.</summary>
-    public static async Task<DossierVerification> VerifyAsync(Stream zip, CancellationToken ct = default)
+    /// <summary>Reads and verifies the ZIP in <paramref name="zip"/>; only a signature by one of <paramref name="trustedKeys"/> makes it valid.</summary>
+    public static async Task<DossierVerification> VerifyAsync(Stream zip, IReadOnlyList<Core.Records.RecordPublicKey>? trustedKeys = null, CancellationToken ct = default)
     {
         ArgumentNullException.ThrowIfNull(zip);
         var problems = new List<DossierProblem>();
@@ -31,8 +32,14 @@ public static class DossierArchive
             return DossierVerification.Of(problems);
         }
 
-        problems.AddRange(DossierVerifier.Verify(files).Problems);
-        return DossierVerification.Of(problems);
+        var result = DossierVerifier.Verify(files, trustedKeys);
+        problems.AddRange(result.Problems);
+        if (DossierVerifier.Read(files, []) is { } doc)
+        {
+            DossierRenderingCheck.Check(doc, files, problems);
+        }
+
+        return DossierVerification.Of(problems, result.SignedBy, result.Signature);
     }
 
     /// <summary>

@@ -10,7 +10,9 @@ namespace EventReview.Dossier;
 /// Writes a case's dossier ZIP (format in <c>docs/formats/dossier.md</c>). Entries are written in a fixed order
 /// (<c>dossier.json</c>, <c>index.html</c>, <c>summary.pdf</c>, <c>pictures/&lt;n&gt;.svg</c> by n,
 /// <c>attachments/&lt;sha256&gt;</c> by hash, <c>manifest.json</c> last), all dated 1980-01-01 00:00, with no
-/// directory entries and no extra fields, so exporting an unchanged case twice gives the same files and manifest.
+/// directory entries and no extra fields, so exporting an unchanged case twice gives the same files and manifest
+/// (only the value of the manifest's signature differs: ECDSA signatures are randomised). With a signer, the manifest
+/// carries the server's signature (<see cref="DossierSignature"/>) over its listed files and the head it saw.
 /// </summary>
 public static class DossierExporter
 {
@@ -23,7 +25,11 @@ public static class DossierExporter
     /// </summary>
     /// <exception cref="FileNotFoundException">When an attachment is missing from the store.</exception>
     /// <exception cref="InvalidDataException">When an attachment's stored bytes no longer match its hash (export refused).</exception>
-    public static async Task ExportAsync(DossierDocument doc, Func<string, Stream?> openAttachment, Stream output, CancellationToken ct = default)
+    public static async Task ExportAsync(DossierDocument doc, Func<string, Stream?> openAttachment, Stream output, CancellationToken ct = default) =>
+        await ExportAsync(doc, openAttachment, output, null, ct);
+
+    /// <summary>As above, signing the manifest with <paramref name="signer"/> (the server's record key) when given.</summary>
+    public static async Task ExportAsync(DossierDocument doc, Func<string, Stream?> openAttachment, Stream output, Core.Records.IRecordSigner? signer, CancellationToken ct = default)
     {
         ArgumentNullException.ThrowIfNull(doc);
         ArgumentNullException.ThrowIfNull(openAttachment);
@@ -47,12 +53,21 @@ public static class DossierExporter
             }
 
             var manifest = new DossierManifest(DossierDocument.CurrentSchemaVersion, doc.Case.CandidateId, doc.ChainHead,
-                listed.OrderBy(f => f.Path, StringComparer.Ordinal).ToList());
+                listed.OrderBy(f => f.Path, StringComparer.Ordinal).ToList(), doc.Timeline.Count == 0 ? 0 : doc.Timeline[^1].Sequence);
+            if (signer is not null)
+            {
+                manifest = manifest with { Signature = Sign(manifest, signer) };
+            }
+
             await AddAsync(zip, DossierManifest.FileName, DossierJson.Serialize(manifest), null, ct);
         }
 
         await output.FlushAsync(ct);
     }
+
+    /// <summary>The signature of <paramref name="manifest"/> (without one) by <paramref name="signer"/>.</summary>
+    public static DossierSignature Sign(DossierManifest manifest, Core.Records.IRecordSigner signer) =>
+        new(signer.KeyId, Core.Records.RecordPublicKey.Algorithm, Convert.ToBase64String(signer.PublicKey), Convert.ToBase64String(signer.Sign(manifest.SignedText())));
 
     private static async Task AddAsync(ZipArchive zip, string name, byte[] bytes, List<DossierManifestFile>? listed, CancellationToken ct)
     {

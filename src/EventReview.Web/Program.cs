@@ -24,6 +24,7 @@ builder.Services.Configure<Microsoft.AspNetCore.Http.Features.FormOptions>(o => 
 var app = builder.Build();
 
 await DatabaseInitializer.MigrateAsync(app.Services.GetRequiredService<AppDbContextFactory>());
+await EventReview.Data.Records.RecordKeyStartup.EnsureSigningKeyAsync(app.Services.GetRequiredService<AppDbContextFactory>(), TimeProvider.System);
 using (var scope = app.Services.CreateScope())
 {
     await scope.ServiceProvider.GetRequiredService<EventReview.Data.Auth.AccountAdmin>().EnsureRolesAsync();
@@ -61,6 +62,7 @@ app.MapStaticAssets().AllowAnonymous();
 app.MapHealth();
 app.MapOpenApi().RequireAuthorization(EventReview.Web.Auth.Policies.Read);
 app.MapEventReviewApi();
+app.MapRecordKeyApi();
 app.MapAccountEndpoints();
 app.MapSingleSignOnEndpoints();
 app.MapRazorComponents<App>()

@@ -18,7 +18,9 @@ public static class WebServiceCollectionExtensions
         services.Configure<EventReviewOptions>(configuration.GetSection(EventReviewOptions.Section));
         var options = configuration.GetSection(EventReviewOptions.Section).Get<EventReviewOptions>() ?? new EventReviewOptions();
         var settings = DatabaseSettings.From(configuration["Database:Provider"], configuration.GetConnectionString("Default"), options.DataDirectory);
-        services.AddEventReviewData(settings);
+        var records = Data.Records.RecordSettings.From(configuration["EventReview:Records:KeyDirectory"], configuration["EventReview:Records:WitnessDirectory"],
+            configuration["EventReview:Records:WitnessUrl"], settings.DataDirectory);
+        services.AddEventReviewData(settings, Data.Records.RecordKeeping.Open(records));
         services.AddSingleton(TimeProvider.System);
 
         services.AddEventReviewIdentityCore()
@@ -87,6 +89,7 @@ public static class WebServiceCollectionExtensions
         Services.Checks.CheckRunners.RegisterResultView(Core.Checklists.CheckKind.Background, typeof(Components.Checks.BackgroundResultView));
         services.AddScoped<IDemoSeedStep, BackgroundDemoStep>();
         services.AddScoped<IDemoSeedStep, TimingDemoStep>();
+        services.AddScoped<IDemoSeedStep, FreezeDemoStep>();
 
         services.AddRazorComponents().AddInteractiveServerComponents();
         services.AddMudServices();

@@ -46,7 +46,11 @@ public sealed class StoredScriptTests(RunningApp app) : IClassFixture<RunningApp
         {
             await OpenItemAsync(page);
             const string note = "Payload check <script>window.__xss = 1</script>\n\n<img src=x onerror=\"window.__xss = 2\">\n\n[harmless looking link](javascript:window.__xss=3)";
-            await page.Locator("textarea#note-text").FillAsync(note);
+            // The note field sends its text on change: fill, check the field kept it, leave it (change), then add.
+            var field = page.Locator("textarea#note-text");
+            await field.FillAsync(note);
+            await Assertions.Expect(field).ToHaveValueAsync(note);
+            await field.PressAsync("Tab");
             await page.Locator("#add-note").ClickAsync();
             var evidence = page.Locator("ul.evidence");
             await Assertions.Expect(evidence).ToContainTextAsync("Payload check", new() { Timeout = 20_000 }); // a busy test machine can take seconds

@@ -23,7 +23,7 @@ public abstract partial class DataStoreTests : IAsyncLifetime
 
     public async Task InitializeAsync()
     {
-        _factory = new AppDbContextFactory(await SettingsAsync());
+        _factory = TestRecords.Factory(await SettingsAsync());
         await DatabaseInitializer.MigrateAsync(_factory);
     }
 

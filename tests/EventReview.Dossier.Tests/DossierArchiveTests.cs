@@ -11,7 +11,7 @@ public class DossierArchiveTests
     {
         var zip = await DossierExporterTests.ExportAsync(SampleCase.Build());
 
-        var v = await DossierArchive.VerifyAsync(new MemoryStream(zip[..(zip.Length / 2)]));
+        var v = await DossierArchive.VerifyAsync(new MemoryStream(zip[..(zip.Length / 2)]), DossierFiles.Trusted);
 
         Assert.False(v.Valid);
         Assert.Contains("not a readable ZIP", Assert.Single(v.Problems).What);
@@ -20,7 +20,7 @@ public class DossierArchiveTests
     [Fact]
     public async Task Garbage_is_a_clear_problem()
     {
-        var v = await DossierArchive.VerifyAsync(new MemoryStream(Encoding.UTF8.GetBytes("this is not a zip")));
+        var v = await DossierArchive.VerifyAsync(new MemoryStream(Encoding.UTF8.GetBytes("this is not a zip")), DossierFiles.Trusted);
 
         Assert.False(v.Valid);
         Assert.Equal(DossierArchive.ZipName, v.Problems[0].File);
@@ -39,7 +39,7 @@ public class DossierArchiveTests
         }
 
         ms.Position = 0;
-        var v = await DossierArchive.VerifyAsync(ms);
+        var v = await DossierArchive.VerifyAsync(ms, DossierFiles.Trusted);
 
         Assert.False(v.Valid);
         var p = Assert.Single(v.Problems);
@@ -67,7 +67,7 @@ public class DossierArchiveTests
         {
             var bad = (byte[])zip.Clone();
             bad[at] ^= 0x5A;
-            var v = await DossierArchive.VerifyAsync(new MemoryStream(bad));
+            var v = await DossierArchive.VerifyAsync(new MemoryStream(bad), DossierFiles.Trusted);
             if (!v.Valid)
             {
                 found++;
@@ -87,7 +87,7 @@ public class DossierArchiveTests
         var bad = (byte[])zip.Clone();
         bad[30 + "dossier.json".Length + 100] ^= 0xFF;
 
-        var v = await DossierArchive.VerifyAsync(new MemoryStream(bad));
+        var v = await DossierArchive.VerifyAsync(new MemoryStream(bad), DossierFiles.Trusted);
 
         Assert.False(v.Valid);
         Assert.Contains(v.Problems, p => p.File == "dossier.json");

@@ -19,7 +19,7 @@ public static class CasesCommand
         {
             try
             {
-                await using var provider = await data.OpenAsync(parse);
+                await using var provider = await data.OpenAsync(parse, writes: false);
                 await using var db = await provider.GetRequiredService<IDbContextFactory<AppDbContext>>().CreateDbContextAsync(ct);
                 var all = await db.Cases.AsNoTracking().OrderByDescending(c => c.GpsNanoseconds).ToListAsync(ct);
                 if (parse.GetValue(data.Json))

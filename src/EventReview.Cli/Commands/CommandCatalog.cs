@@ -26,5 +26,6 @@ public static class CommandCatalog
         yield return BackgroundCommand.Build();
         yield return BackupCommand.Build();
         yield return RestoreCommand.Build();
+        yield return KeysCommand.Build();
     }
 }

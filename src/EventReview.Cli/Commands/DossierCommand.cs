@@ -4,9 +4,13 @@ using EventReview.Dossier;
 namespace EventReview.Cli.Commands;
 
 /// <summary>
-/// <c>eventreview dossier verify FILE.zip [--json]</c>: verifies an exported dossier offline (manifest, file hashes,
-/// timeline chain, evidence fingerprints, sign-offs, frozen configuration). Prints <c>valid</c> or one problem per line;
-/// exit 0 when valid, 1 when not, 2 when the file cannot be opened. <c>--json</c>: <c>{"valid": .., "problems": [{file, where, what}]}</c>.
+/// <c>eventreview dossier verify FILE.zip [--key PUBLIC_KEY_FILE] [--json]</c>: verifies an exported dossier offline
+/// (manifest, file hashes, timeline chain, the contents against the timeline's facts, evidence fingerprints, sign-offs,
+/// frozen configuration, index.html and the text of summary.pdf re-rendered from dossier.json) and its signature against
+/// the trusted key: the file given with <c>--key</c> (PEM, or the JSON of <c>/api/signing-key</c>), else the public keys
+/// of the configured key folder. Prints <c>valid</c>, <c>unsigned</c> (and why) or one problem per line; exit 0 only when
+/// valid, 1 when unsigned or invalid, 2 when a file cannot be read.
+/// <c>--json</c>: <c>{"status", "valid", "signedBy", "signature", "problems": [{file, where, what}]}</c>.
 /// </summary>
 public static class DossierCommand
 {
@@ -22,9 +26,11 @@ public static class DossierCommand
     {
         var file = new Argument<string>("file") { Description = "The dossier ZIP to verify." };
         var json = new Option<bool>("--json") { Description = "Write the result as JSON." };
-        var command = new Command("verify", "Verify a dossier ZIP offline, without the database.");
+        var key = new Option<string>("--key") { Description = "Trusted public key: PEM, or the JSON of /api/signing-key. Default: the public keys of EventReview__Records__KeyDirectory, else keys/ in the data folder." };
+        var command = new Command("verify", "Verify a dossier ZIP offline, without the database, against the server's public key.");
         command.Arguments.Add(file);
         command.Options.Add(json);
+        command.Options.Add(key);
         command.SetAction(parse =>
         {
             var path = parse.GetValue(file)!;
@@ -36,21 +42,26 @@ public static class DossierCommand
             Core.Dossier.DossierVerification result;
             try
             {
+                var trusted = TrustedKeys(parse.GetValue(key));
                 using var stream = File.OpenRead(path);
-                result = DossierArchive.VerifyAsync(stream).GetAwaiter().GetResult();
+                result = DossierArchive.VerifyAsync(stream, trusted).GetAwaiter().GetResult();
             }
             catch (IOException ex)
             {
                 return CliOutput.Fail($"{path}: {ex.Message}");
             }
+            catch (InvalidDataException ex)
+            {
+                return CliOutput.Fail(ex.Message);
+            }
 
             if (parse.GetValue(json))
             {
-                CliOutput.WriteJson(new { valid = result.Valid, problems = result.Problems });
+                CliOutput.WriteJson(new { status = result.Status, valid = result.Valid, signedBy = result.SignedBy, signature = result.Signature, problems = result.Problems });
             }
             else if (result.Valid)
             {
-                Console.Out.WriteLine("valid");
+                Console.Out.WriteLine($"valid ({result.Signature})");
             }
             else
             {
@@ -58,11 +69,34 @@ public static class DossierCommand
                 {
                     Console.Out.WriteLine(p.ToString().ReplaceLineEndings(" "));
                 }
+
+                Console.Out.WriteLine($"{result.Status}: {result.Signature}");
             }
 
             return result.Valid ? CliOutput.Success : CliOutput.Negative;
         });
         return command;
+    }
+
+    /// <summary>The trusted public keys: the given file, else the configured key folder's list (none when there is none).</summary>
+    private static IReadOnlyList<Core.Records.RecordPublicKey> TrustedKeys(string? file)
+    {
+        if (file is not null)
+        {
+            return Data.Records.PublicKeyFile.Read(file);
+        }
+
+        var data = Environment.GetEnvironmentVariable("EventReview__DataDirectory") ?? "./data";
+        var folder = Data.Records.RecordSettings.FromEnvironment(data).KeyDirectory;
+        try
+        {
+            using var ring = Data.Records.FileRecordKeyRing.Open(folder);
+            return ring.Keys;
+        }
+        catch (Exception ex) when (ex is InvalidDataException or UnauthorizedAccessException)
+        {
+            return [];
+        }
     }
 
     private static Command Export()
@@ -89,7 +123,8 @@ public static class DossierCommand
                 var service = new EventReview.Dossier.CaseDossierService(
                     Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<Microsoft.EntityFrameworkCore.IDbContextFactory<EventReview.Data.AppDbContext>>(provider),
                     Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetRequiredService<EventReview.Data.AttachmentStore>(provider),
-                    TimeProvider.System);
+                    TimeProvider.System,
+                    Microsoft.Extensions.DependencyInjection.ServiceProviderServiceExtensions.GetService<EventReview.Data.Records.RecordKeeping>(provider));
                 EventReview.Core.Dossier.DossierExportRecord record;
                 await using (var file = File.Create(temp))
                 {

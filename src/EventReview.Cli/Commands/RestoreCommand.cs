@@ -6,9 +6,9 @@ using EventReview.Data.Backup;
 namespace EventReview.Cli.Commands;
 
 /// <summary>
-/// <c>eventreview restore --in FILE --data DIR [--force] [--allow-invalid] [--json]</c>: checks the archive against
-/// its manifest, unpacks it beside the target, verifies the whole record (timelines, row seals, attachments) and only
-/// then moves it into place. Exit 0 when restored and valid, 1 when the restored copy fails verification (problems
+/// <c>eventreview restore --in FILE --data DIR [--keys DIR] [--witness DIR] [--force] [--allow-invalid] [--json]</c>:
+/// checks the archive against its manifest, unpacks it beside the target, verifies the whole record (timelines, their
+/// signatures under the record key, recomputed rows, attachments, the witnessed heads) and only then moves it into place. Exit 0 when restored and valid, 1 when the restored copy fails verification (problems
 /// listed), 2 when refused (non-empty target without --force, unsafe or altered archive entry, wrong provider).
 /// </summary>
 public static class RestoreCommand
@@ -28,7 +28,7 @@ public static class RestoreCommand
         {
             try
             {
-                var options = new RestoreOptions(parse.GetValue(force), parse.GetValue(allowInvalid));
+                var options = new RestoreOptions(parse.GetValue(force), parse.GetValue(allowInvalid), Records: data.RecordSettings(parse));
                 var report = await BackupRestorer.RestoreAsync(parse.GetValue(input)!, data.Settings(parse), options, ct);
                 if (parse.GetValue(data.Json))
                 {
@@ -77,6 +77,11 @@ public static class RestoreCommand
         else
         {
             Console.WriteLine($"verification FAILED: {report.Problems.Count} problem(s) listed above; nothing was placed in {report.TargetPath} (--allow-invalid places it anyway)");
+        }
+
+        foreach (var note in report.Notes ?? [])
+        {
+            Console.WriteLine("note: " + note);
         }
 
         if (report.PreviousFolderMovedTo is not null)

@@ -75,7 +75,7 @@ public static class TokensCommand
         data.AddTo(list);
         list.SetAction(async (parse, ct) =>
         {
-            await using var provider = await data.OpenAsync(parse);
+            await using var provider = await data.OpenAsync(parse, writes: false);
             await using var scope = provider.CreateAsyncScope();
             var all = await scope.ServiceProvider.GetRequiredService<AccountAdmin>().ListTokensAsync();
             var now = scope.ServiceProvider.GetRequiredService<TimeProvider>().GetUtcNow();

@@ -75,7 +75,7 @@ public static class UsersCommand
         {
             try
             {
-                await using var provider = await data.OpenAsync(parse);
+                await using var provider = await data.OpenAsync(parse, writes: false);
                 await using var scope = provider.CreateAsyncScope();
                 var all = await scope.ServiceProvider.GetRequiredService<AccountAdmin>().ListUsersAsync();
                 if (parse.GetValue(data.Json))

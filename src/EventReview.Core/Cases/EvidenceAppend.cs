@@ -43,9 +43,16 @@ public static class EvidenceAppend
             throw new InvalidOperationException($"Item '{head.ItemKey}' has current sign-offs; adding evidence makes them stale and needs the whole case.");
         }
 
-        var entry = new ActivityEntry(head.CandidateId, head.LastSequence + 1, now, by, EntryKind(evidence), head.ItemKey, EntryText(head.ItemKey, evidence), head.LastHash);
-        return new Outcome(entry, ChecklistItem.StateAfterEvidence(head.ItemState, madeStale: false), ReviewCase.StateWhenWorkBegins(head.CaseState));
+        var itemState = ChecklistItem.StateAfterEvidence(head.ItemState, madeStale: false);
+        var caseState = ReviewCase.StateWhenWorkBegins(head.CaseState);
+        var entry = new ActivityEntry(head.CandidateId, head.LastSequence + 1, now, by, EntryKind(evidence), head.ItemKey, EntryText(head.ItemKey, evidence), head.LastHash,
+            EntryFacts(head.ItemKey, evidence, itemState, caseState));
+        return new Outcome(entry, itemState, caseState);
     }
+
+    /// <summary>Facts of the timeline entry: the evidence row's seal and detail, then the item's and the case's state after it.</summary>
+    public static IEnumerable<Records.Fact> EntryFacts(string key, EvidenceItem evidence, ItemState itemState, CaseState caseState) =>
+        [Records.CaseFacts.Evidence(key, evidence), Records.CaseFacts.ItemState(key, itemState), Records.CaseFacts.CaseState(caseState)];
 
     /// <summary>Kind of the timeline entry: "evidence.note", "evidence.attachment" or "evidence.link".</summary>
     public static string EntryKind(EvidenceItem evidence) => "evidence." + evidence.Kind.ToString().ToLowerInvariant();

@@ -1,6 +1,8 @@
 using EventReview.Core.Checklists;
+using EventReview.Core.Configuration;
 using EventReview.Core.Evidence;
 using EventReview.Core.Inputs;
+using EventReview.Core.Records;
 using EventReview.Core.Time;
 
 namespace EventReview.Core.Cases;
@@ -8,7 +10,9 @@ namespace EventReview.Core.Cases;
 /// <summary>
 /// The case file of one candidate: its times, arrivals, checklist, evidence, sign-offs and timeline. This is the
 /// aggregate root: every change goes through a method here, which checks the rule, applies the change and appends
-/// a timeline entry. A refused change throws <see cref="DomainRuleException"/> and leaves everything as it was.
+/// a timeline entry with the facts of the change (<see cref="CaseFacts"/>: the new values of what it changed and the
+/// seals of the rows it added), so that the stored case can be recomputed from its timeline (<see cref="CaseReplay"/>).
+/// A refused change throws <see cref="DomainRuleException"/> and leaves everything as it was.
 /// </summary>
 public sealed class ReviewCase
 {
@@ -124,8 +128,8 @@ public sealed class ReviewCase
             CoordinatorName = coordinator.DisplayName,
             ChecklistName = template.Name,
             ChecklistVersion = template.Version,
-            CreatedAt = now,
-            UpdatedAt = now,
+            CreatedAt = RecordedTime.Normalize(now),
+            UpdatedAt = RecordedTime.Normalize(now),
         };
         c._arrivals.AddRange(list);
         var sectionOrder = 0;
@@ -142,7 +146,8 @@ public sealed class ReviewCase
         }
 
         c.Record(coordinator, now, "case.opened", null,
-            $"Opened case {candidateId} at GPS {gps} from search '{c.Search}' with checklist '{template.Name}' v{template.Version} ({c._items.Count} items).");
+            $"Opened case {candidateId} at GPS {gps} from search '{c.Search}' with checklist '{template.Name}' v{template.Version} ({c._items.Count} items).",
+            CaseFacts.Fields(c));
         return c;
     }
 
@@ -155,34 +160,35 @@ public sealed class ReviewCase
     {
         var item = Mutable(key);
         item.Assign(ownerId, ownerName);
-        Record(by, now, "item.assigned", key, ownerId is null ? $"Item '{key}' unassigned." : $"Item '{key}' assigned to {ownerName}.");
+        Record(by, now, "item.assigned", key, ownerId is null ? $"Item '{key}' unassigned." : $"Item '{key}' assigned to {ownerName}.",
+            CaseFacts.ItemOwner(key, item.OwnerId, item.OwnerName));
     }
 
     public void SetItemDue(string key, DateOnly? due, Actor by, DateTimeOffset now)
     {
         var item = Mutable(key);
         item.SetDue(due);
-        Record(by, now, "item.due", key, due is null ? $"Due date of '{key}' cleared." : $"Item '{key}' due {due:yyyy-MM-dd}.");
+        Record(by, now, "item.due", key, due is null ? $"Due date of '{key}' cleared." : $"Item '{key}' due {due:yyyy-MM-dd}.", [CaseFacts.ItemDue(key, item.DueDate)]);
     }
 
     public void StartItem(string key, Actor by, DateTimeOffset now)
     {
         Mutable(key).Start();
         BeginReviewIfOpen();
-        Record(by, now, "item.state", key, $"Item '{key}' started (in progress).");
+        Record(by, now, "item.state", key, $"Item '{key}' started (in progress).", StateFacts(key));
     }
 
     public void MarkItemReady(string key, Actor by, DateTimeOffset now)
     {
         Mutable(key).MarkReady();
         BeginReviewIfOpen();
-        Record(by, now, "item.state", key, $"Item '{key}' marked ready for sign-off.");
+        Record(by, now, "item.state", key, $"Item '{key}' marked ready for sign-off.", StateFacts(key));
     }
 
     public void WithdrawItem(string key, Actor by, DateTimeOffset now)
     {
         Mutable(key).Withdraw();
-        Record(by, now, "item.state", key, $"Item '{key}' returned to in progress.");
+        Record(by, now, "item.state", key, $"Item '{key}' returned to in progress.", StateFacts(key));
     }
 
     /// <summary>Adds a note, attachment or link; current sign-offs of the item become stale.</summary>
@@ -191,17 +197,34 @@ public sealed class ReviewCase
         var item = Mutable(key);
         var stale = item.AddEvidence(evidence, now);
         BeginReviewIfOpen();
-        Record(by, now, EvidenceAppend.EntryKind(evidence), key, EvidenceAppend.EntryText(key, evidence));
+        Record(by, now, EvidenceAppend.EntryKind(evidence), key, EvidenceAppend.EntryText(key, evidence),
+            EvidenceAppend.EntryFacts(key, evidence, item.State, State));
         AfterStale(key, stale, by, now);
     }
 
-    /// <summary>Attaches a computation record; current sign-offs of the item become stale.</summary>
-    public void AddComputation(string key, ComputationRecord record, Actor by, DateTimeOffset now)
+    /// <summary>
+    /// Attaches a computation record; current sign-offs of the item become stale. When the record documents a freeze,
+    /// <paramref name="frozen"/> is the configuration record frozen for this case in the same change: the entry records
+    /// it too, so that it cannot later be edited or unfrozen unnoticed.
+    /// </summary>
+    /// <exception cref="ArgumentException">When <paramref name="frozen"/> is not frozen for this case.</exception>
+    public void AddComputation(string key, ComputationRecord record, Actor by, DateTimeOffset now, ConfigurationSnapshot? frozen = null)
     {
+        if (frozen is not null && (!frozen.IsFrozen || frozen.ReviewCaseId != Id))
+        {
+            throw new ArgumentException($"The configuration record of {frozen.SiteCode} is not frozen for case {CandidateId}.", nameof(frozen));
+        }
+
         var item = Mutable(key);
         var stale = item.AddComputation(record, now);
         BeginReviewIfOpen();
-        Record(by, now, "computation." + record.Kind, key, $"Check '{record.Kind}' run on '{key}': {record.Verdict}. {record.Summary} Seal {record.Seal()}.");
+        List<Fact> facts = [CaseFacts.Computation(key, record), CaseFacts.ItemState(key, item.State), CaseFacts.CaseState(State)];
+        if (frozen is not null)
+        {
+            facts.Add(CaseFacts.Frozen(frozen));
+        }
+
+        Record(by, now, "computation." + record.Kind, key, $"Check '{record.Kind}' run on '{key}': {record.Verdict}. {record.Summary} Seal {record.Seal()}.", facts);
         AfterStale(key, stale, by, now);
     }
 
@@ -212,7 +235,8 @@ public sealed class ReviewCase
         var s = item.Sign(signer, meaning, statement, seenFingerprint, atUtc, atGps);
         Record(signer, atUtc, "signoff", key,
             $"{signer.DisplayName} signed '{key}' as {meaning.ToString().ToLowerInvariant()} against evidence {s.EvidenceFingerprint[..12]}: {s.Statement}" +
-            (item.State == ItemState.SignedOff ? " Item signed off." : $" ({item.CurrentSignOffs.Count()} of {item.RequiredSignOffs}).") + $" Seal {s.Seal()}.");
+            (item.State == ItemState.SignedOff ? " Item signed off." : $" ({item.CurrentSignOffs.Count()} of {item.RequiredSignOffs}).") + $" Seal {s.Seal()}.",
+            [CaseFacts.SignOff(key, s), CaseFacts.ItemState(key, item.State)]);
         return s;
     }
 
@@ -227,7 +251,7 @@ public sealed class ReviewCase
 
         EnsureAllSigned("submit it for decision");
         State = CaseState.AwaitingDecision;
-        Record(by, now, "case.state", null, "Case submitted for decision: every item signed off.");
+        Record(by, now, "case.state", null, "Case submitted for decision: every item signed off.", [CaseFacts.CaseState(State)]);
     }
 
     /// <summary>Sends a case awaiting decision back to review.</summary>
@@ -241,7 +265,7 @@ public sealed class ReviewCase
         InputGuard.Text(reason, InputLimits.MaxStatementLength, nameof(reason));
 
         State = CaseState.InReview;
-        Record(by, now, "case.state", null, $"Case returned to review: {reason}");
+        Record(by, now, "case.state", null, $"Case returned to review: {reason}", [CaseFacts.CaseState(State)]);
     }
 
     /// <summary>
@@ -258,7 +282,7 @@ public sealed class ReviewCase
         }
 
         InputGuard.Text(reason.Trim(), InputLimits.MaxStatementLength, nameof(reason));
-        Record(by, now, "override", key, $"Coordinator override of rule '{rule}' on '{key}': {reason.Trim()}");
+        Record(by, now, "override", key, $"Coordinator override of rule '{rule}' on '{key}': {reason.Trim()}", []);
     }
 
     /// <summary>Closes the case with an outcome; every item must be signed off and no sign-off stale.</summary>
@@ -280,7 +304,8 @@ public sealed class ReviewCase
         State = CaseState.Closed;
         Outcome = outcome;
         ClosingStatement = statement.Trim();
-        Record(by, now, "case.closed", null, $"Case closed as {StateNames.Of(outcome)}: {ClosingStatement}");
+        Record(by, now, "case.closed", null, $"Case closed as {StateNames.Of(outcome)}: {ClosingStatement}",
+            [CaseFacts.CaseState(State), .. CaseFacts.Closed(Outcome, ClosingStatement)]);
     }
 
     private void EnsureAllSigned(string action)
@@ -324,25 +349,28 @@ public sealed class ReviewCase
         State = StateWhenWorkBegins(State);
     }
 
-    private void AfterStale(string key, bool stale, Actor by, DateTimeOffset now)
+    private void AfterStale(string key, IReadOnlyList<SignOff> stale, Actor by, DateTimeOffset now)
     {
-        if (stale)
+        if (stale.Count > 0)
         {
-            Record(by, now, "signoff.stale", key, $"Evidence of '{key}' changed after signing: its sign-offs are now stale and the item is back to ready for sign-off.");
+            Record(by, now, "signoff.stale", key, $"Evidence of '{key}' changed after signing: its sign-offs are now stale and the item is back to ready for sign-off.",
+                stale.Select(s => CaseFacts.Stale(key, s)).Append(CaseFacts.ItemState(key, Item(key).State)));
         }
 
-        if (stale && State == CaseState.AwaitingDecision)
+        if (stale.Count > 0 && State == CaseState.AwaitingDecision)
         {
             State = CaseState.InReview;
-            Record(by, now, "case.state", null, "Case returned to review because a sign-off became stale.");
+            Record(by, now, "case.state", null, "Case returned to review because a sign-off became stale.", [CaseFacts.CaseState(State)]);
         }
     }
 
-    private void Record(Actor by, DateTimeOffset now, string kind, string? itemKey, string text)
+    private List<Fact> StateFacts(string key) => [CaseFacts.ItemState(key, Item(key).State), CaseFacts.CaseState(State)];
+
+    private void Record(Actor by, DateTimeOffset now, string kind, string? itemKey, string text, IEnumerable<Fact> facts)
     {
         var last = _activity.Count == 0 ? null : _activity.MaxBy(a => a.Sequence);
-        _activity.Add(new ActivityEntry(CandidateId, (last?.Sequence ?? 0) + 1, now, by, kind, itemKey, text, last?.Hash ?? ActivityEntry.GenesisHash));
-        UpdatedAt = now;
+        _activity.Add(new ActivityEntry(CandidateId, (last?.Sequence ?? 0) + 1, now, by, kind, itemKey, text, last?.Hash ?? ActivityEntry.GenesisHash, facts));
+        UpdatedAt = _activity[^1].At;
         Version++;
     }
 }

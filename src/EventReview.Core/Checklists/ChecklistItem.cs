@@ -160,13 +160,15 @@ public sealed class ChecklistItem
         Version++;
     }
 
-    internal bool AddEvidence(EvidenceItem evidence, DateTimeOffset now)
+    /// <summary>Adds evidence; returns the sign-offs it made stale.</summary>
+    internal IReadOnlyList<SignOff> AddEvidence(EvidenceItem evidence, DateTimeOffset now)
     {
         _evidence.Add(evidence);
         return AfterEvidenceChanged(now);
     }
 
-    internal bool AddComputation(ComputationRecord record, DateTimeOffset now)
+    /// <summary>Adds a computation record; returns the sign-offs it made stale.</summary>
+    internal IReadOnlyList<SignOff> AddComputation(ComputationRecord record, DateTimeOffset now)
     {
         _computations.Add(record);
         return AfterEvidenceChanged(now);
@@ -217,16 +219,15 @@ public sealed class ChecklistItem
         return signOff;
     }
 
-    private bool AfterEvidenceChanged(DateTimeOffset now)
+    private List<SignOff> AfterEvidenceChanged(DateTimeOffset now)
     {
-        var madeStale = false;
-        foreach (var s in _signOffs.Where(s => !s.IsStale))
+        var madeStale = _signOffs.Where(s => !s.IsStale).ToList();
+        foreach (var s in madeStale)
         {
             s.MarkStale(now);
-            madeStale = true;
         }
 
-        State = StateAfterEvidence(State, madeStale);
+        State = StateAfterEvidence(State, madeStale.Count > 0);
         Version++;
         return madeStale;
     }

@@ -24,4 +24,25 @@ public static class StateNames
     };
 
     public static string Of(CaseOutcome outcome) => outcome.ToString().ToLowerInvariant();
+
+    /// <summary>The item state whose plain word is <paramref name="word"/> (the reverse of <see cref="Of(ItemState)"/>).</summary>
+    public static bool TryParse(string? word, out ItemState state)
+    {
+        state = Enum.GetValues<ItemState>().FirstOrDefault(s => Of(s) == word);
+        return word is not null && Of(state) == word;
+    }
+
+    /// <summary>The case state whose plain word is <paramref name="word"/>.</summary>
+    public static bool TryParse(string? word, out CaseState state)
+    {
+        state = Enum.GetValues<CaseState>().FirstOrDefault(s => Of(s) == word);
+        return word is not null && Of(state) == word;
+    }
+
+    /// <summary>The outcome whose plain word is <paramref name="word"/>.</summary>
+    public static bool TryParse(string? word, out CaseOutcome outcome)
+    {
+        outcome = Enum.GetValues<CaseOutcome>().FirstOrDefault(o => Of(o) == word);
+        return word is not null && Of(outcome) == word;
+    }
 }

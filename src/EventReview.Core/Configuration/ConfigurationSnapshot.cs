@@ -113,7 +113,7 @@ public sealed class ConfigurationSnapshot
             Label = label,
             CapturedBy = by.UserId,
             CapturedByName = by.DisplayName,
-            CapturedAt = at,
+            CapturedAt = Time.RecordedTime.Normalize(at),
             ItemsJson = JsonSerializer.Serialize(sorted, ItemsJsonOptions),
             _items = sorted,
         };
@@ -138,7 +138,7 @@ public sealed class ConfigurationSnapshot
             throw new DomainRuleException("other-case", $"The configuration snapshot of {SiteCode} belongs to another case; capture a new snapshot for this case.");
         }
 
-        if (until <= from)
+        if (Time.RecordedTime.Normalize(until) <= Time.RecordedTime.Normalize(from))
         {
             throw new DomainRuleException("freeze-period", $"The freeze period must end after it starts (from {from:u}, until {until:u}).");
         }
@@ -154,11 +154,33 @@ public sealed class ConfigurationSnapshot
         IsFrozen = true;
         FrozenBy = by.UserId;
         FrozenByName = by.DisplayName;
-        FrozenAt = at;
-        FreezeFrom = from;
-        FreezeUntil = until;
+        // Whole milliseconds, as every time that enters a hash (PostgreSQL keeps microseconds, so 100 ns ticks would not survive a save).
+        FrozenAt = Time.RecordedTime.Normalize(at);
+        FreezeFrom = Time.RecordedTime.Normalize(from);
+        FreezeUntil = Time.RecordedTime.Normalize(until);
         FreezeReason = reason.Trim();
         Fingerprint = ConfigurationCanonical.Fingerprint(this);
+    }
+
+    /// <summary>
+    /// True when the record is frozen and its stored fingerprint still recomputes from its items, period and reason;
+    /// false when not frozen, or when something was changed after freezing (or its items cannot be read).
+    /// </summary>
+    public bool FingerprintMatches()
+    {
+        if (!IsFrozen || Fingerprint is null || FreezeFrom is null || FreezeUntil is null || FreezeReason is null)
+        {
+            return false;
+        }
+
+        try
+        {
+            return string.Equals(ConfigurationCanonical.Fingerprint(this), Fingerprint, StringComparison.Ordinal);
+        }
+        catch (JsonException)
+        {
+            return false;
+        }
     }
 
     /// <summary>True when <paramref name="at"/> lies inside the freeze period (bounds inclusive); false when not frozen.</summary>

@@ -40,7 +40,8 @@ public static class DossierBuilder
             .Select(i => Item(i, pictures)).ToList();
         var used = c.Arrivals.Select(a => a.SiteCode).Concat(snapshots.Select(s => s.SiteCode)).ToHashSet(StringComparer.Ordinal);
         var timeline = c.Activity.OrderBy(a => a.Sequence).Select(a => new DossierTimelineEntry(
-            a.Sequence, ActivityEntry.FormatUtc(a.At), a.At.UtcTicks, a.ActorId, a.ActorName, a.Kind, a.ItemKey, a.Text, a.PreviousHash, a.Hash)).ToList();
+            a.Sequence, ActivityEntry.FormatUtc(a.At), a.At.UtcTicks, a.ActorId, a.ActorName, a.Kind, a.ItemKey, a.Text, a.PreviousHash, a.Hash,
+            a.Facts, a.KeyId, a.Mac)).ToList();
         return new DossierDocument(
             DossierDocument.CurrentSchemaVersion,
             new DossierGenerator(GeneratorName, GeneratorVersion),
@@ -51,7 +52,7 @@ public static class DossierBuilder
                 .Select(s => new DossierSite(s.Code, s.Name, s.LatitudeDegrees, s.LongitudeDegrees, s.HeightMeters, s.XArmAzimuthDegrees, s.YArmAzimuthDegrees, s.TimingUncertaintySeconds))
                 .ToList(),
             items,
-            Configurations(snapshots),
+            Configurations(snapshots, c.Id),
             timeline,
             timeline.Count == 0 ? ActivityEntry.GenesisHash : timeline[^1].Hash)
         {
@@ -70,7 +71,7 @@ public static class DossierBuilder
         var evidence = i.Evidence.OrderBy(e => e.AddedAt).ThenBy(e => e.Id).Select(e => new DossierEvidence(
             e.Id, EvidenceFingerprint.KindName(e.Kind), e.Text, e.FileName, e.ContentType, e.SizeBytes, e.Url, e.ContentSha256,
             e.Kind == EvidenceKind.Attachment ? AttachmentPath(e.ContentSha256) : null,
-            e.AddedBy, e.AddedByName, Utc(e.AddedAt), e.AddedAt.UtcTicks)).ToList();
+            e.AddedBy, e.AddedByName, Utc(e.AddedAt), e.AddedAt.UtcTicks, e.Role)).ToList();
         var computations = new List<DossierComputation>();
         foreach (var r in i.Computations.OrderBy(r => r.RunAt).ThenBy(r => r.Id))
         {
@@ -83,7 +84,7 @@ public static class DossierBuilder
             }
 
             computations.Add(new DossierComputation(r.Id, r.Kind, r.ParametersJson, r.InputFingerprint, r.ToolVersion, r.ResultJson,
-                r.Verdict, r.Summary, r.ContentSha256, r.RunBy, r.RunByName, Utc(r.RunAt), r.RunAt.UtcTicks, names));
+                r.Verdict, r.Summary, r.ContentSha256, r.RunBy, r.RunByName, Utc(r.RunAt), r.RunAt.UtcTicks, names, Hashing.Sha256Hex(r.PicturesSvg)));
         }
 
         var signOffs = i.SignOffs.OrderBy(s => s.SignedAtUtc).ThenBy(s => s.Id).Select(s => new DossierSignOff(
@@ -96,7 +97,7 @@ public static class DossierBuilder
             evidence, computations, signOffs, null, i.Fingerprint());
     }
 
-    private static List<DossierConfiguration> Configurations(IReadOnlyList<ConfigurationSnapshot> snapshots)
+    private static List<DossierConfiguration> Configurations(IReadOnlyList<ConfigurationSnapshot> snapshots, int caseId)
     {
         var ordered = snapshots.OrderBy(s => s.SiteCode, StringComparer.Ordinal).ThenBy(s => s.CapturedAt).ThenBy(s => s.Id).ToList();
         var result = new List<DossierConfiguration>(ordered.Count);
@@ -120,7 +121,7 @@ public static class DossierBuilder
                 s.FreezeUntil is { } fu ? Utc(fu) : null, s.FreezeUntil?.UtcTicks,
                 s.FreezeReason, s.Fingerprint,
                 s.Items.OrderBy(kv => kv.Key, StringComparer.Ordinal).Select(kv => new ConfigurationEntry(kv.Key, kv.Value)).ToList(),
-                drift));
+                drift, s.FrozenAt?.UtcTicks, s.ReviewCaseId == caseId));
         }
 
         return result;

@@ -4,7 +4,8 @@ namespace EventReview.Core.Dossier;
 /// A computation record. <paramref name="ResultJson"/> and <paramref name="ParametersJson"/> are the stored JSON
 /// texts, kept as strings so their hash is recomputable byte for byte; <paramref name="ContentSha256"/> is
 /// <see cref="Evidence.ComputationRecord.ComputeContentSha256"/> of them. <paramref name="Pictures"/> names the SVG
-/// files in the ZIP (<c>pictures/&lt;n&gt;.svg</c>).
+/// files in the ZIP (<c>pictures/&lt;n&gt;.svg</c>); <paramref name="PicturesSha256"/> (schema 2) is the SHA-256 of the
+/// pictures as stored (one text, separated by <c>&lt;!--next--&gt;</c>), which the record's seal covers.
 /// </summary>
 public sealed record DossierComputation(
     long Id,
@@ -20,4 +21,5 @@ public sealed record DossierComputation(
     string RunByName,
     string RunAtUtc,
     long RunAtUtcTicks,
-    IReadOnlyList<string> Pictures);
+    IReadOnlyList<string> Pictures,
+    string? PicturesSha256 = null);

@@ -6,6 +6,7 @@ namespace EventReview.Core.Dossier;
 /// A configuration snapshot. Frozen ones carry the freeze fields and <paramref name="Fingerprint"/> (recomputable with
 /// <see cref="ConfigurationCanonical"/> from the site, label, freeze ticks, reason and items); later, unfrozen ones of a
 /// site with a frozen snapshot carry <paramref name="Drift"/> against the newest frozen one of that site.
+/// Schema 2 adds <paramref name="FrozenAtUtcTicks"/> and <paramref name="OfThisCase"/> (captured or frozen for this case).
 /// </summary>
 public sealed record DossierConfiguration(
     long Id,
@@ -26,4 +27,6 @@ public sealed record DossierConfiguration(
     string? FreezeReason,
     string? Fingerprint,
     IReadOnlyList<ConfigurationEntry> Items,
-    DossierDrift? Drift);
+    DossierDrift? Drift,
+    long? FrozenAtUtcTicks = null,
+    bool OfThisCase = false);

@@ -30,7 +30,10 @@ public sealed record DossierDocument(
     string ChainHead)
 {
     /// <summary>The schema version this code writes and reads.</summary>
-    public const string CurrentSchemaVersion = "eventreview-dossier/1";
+    public const string CurrentSchemaVersion = "eventreview-dossier/2";
+
+    /// <summary>The first schema version (no facts, unsigned manifest): still read, always reported unsigned.</summary>
+    public const string LegacySchemaVersion = "eventreview-dossier/1";
 
     /// <summary>
     /// The SVG pictures named in <see cref="DossierComputation.Pictures"/>, keyed by file name ("pictures/1.svg").

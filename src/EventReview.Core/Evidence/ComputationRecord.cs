@@ -74,8 +74,12 @@ public sealed class ComputationRecord
     public DateTimeOffset RunAt { get; private set; }
 
     /// <summary>SHA-256 over the content hash, pictures, summary, who ran it and when: recorded in the case timeline.</summary>
-    public string Seal() => Hashing.Sha256Hex(string.Join('\n', "eventreview-computation-row-v1", ContentSha256, Hashing.Sha256Hex(PicturesSvg), Summary, RunBy, RunByName,
-        RunAt.UtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture)));
+    public string Seal() => ComputeSeal(ContentSha256, Hashing.Sha256Hex(PicturesSvg), Summary, RunBy, RunByName, RunAt.UtcTicks);
+
+    /// <summary>The seal (see <see cref="Seal"/>) from plain values; <paramref name="picturesSha256"/> is the SHA-256 of <see cref="PicturesSvg"/>.</summary>
+    public static string ComputeSeal(string contentSha256, string picturesSha256, string summary, string runBy, string runByName, long runUtcTicks) =>
+        Hashing.Sha256Hex(string.Join('\n', "eventreview-computation-row-v1", contentSha256, picturesSha256, summary, runBy, runByName,
+            runUtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture)));
 
     /// <summary>SHA-256 over kind, parameters, input fingerprint, tool version and result (what the sign-off binds to).</summary>
     public string ContentSha256 => ComputeContentSha256(Kind, ParametersJson, InputFingerprint, ToolVersion, ResultJson, Verdict);

@@ -76,15 +76,32 @@ public sealed class EvidenceItem
     /// recorded in the case timeline when the evidence is added, so that a later edit of the row is caught by
     /// verification. Rows without a role keep version 1, so rows stored before roles existed still verify.
     /// </summary>
-    public string Seal()
+    public string Seal() => ComputeSeal(Kind.ToString(), ContentSha256, FileName, SizeBytes, Url, AddedBy, AddedByName, AddedAt.UtcTicks, Role);
+
+    /// <summary>
+    /// The seal (see <see cref="Seal"/>) from plain values; <paramref name="kind"/> is the member name ("Note", "Attachment", "Link"),
+    /// <paramref name="role"/> the stored role word (null: version 1, without it).
+    /// </summary>
+    public static string ComputeSeal(string kind, string contentSha256, string? fileName, long? sizeBytes, string? url, string addedBy, string addedByName, long addedUtcTicks,
+        string? role = null)
     {
-        string[] fields = [Kind.ToString(), ContentSha256, FileName ?? string.Empty,
-            SizeBytes?.ToString(System.Globalization.CultureInfo.InvariantCulture) ?? string.Empty, Url ?? string.Empty, AddedBy, AddedByName,
-            AddedAt.UtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture)];
-        return Role is null
+        string[] fields = [kind, contentSha256, fileName ?? string.Empty,
+            sizeBytes?.ToString(System.Globalization.CultureInfo.InvariantCulture) ?? string.Empty, url ?? string.Empty, addedBy, addedByName,
+            addedUtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture)];
+        return role is null
             ? Hashing.Sha256Hex(string.Join('\n', ["eventreview-evidence-row-v1", .. fields]))
-            : Hashing.Sha256Hex(string.Join('\n', ["eventreview-evidence-row-v2", .. fields, Role]));
+            : Hashing.Sha256Hex(string.Join('\n', ["eventreview-evidence-row-v2", .. fields, role]));
     }
+
+    /// <summary>
+    /// SHA-256 over what the seal does not cover (version 1: the text, i.e. a link's title or a file's description, and
+    /// the content type), recorded next to the seal in the timeline entry's facts.
+    /// </summary>
+    public string DetailSha256() => ComputeDetailSha256(Text, ContentType);
+
+    /// <summary>The detail hash (see <see cref="DetailSha256"/>) from plain values.</summary>
+    public static string ComputeDetailSha256(string text, string? contentType) =>
+        Hashing.Sha256Hex(string.Join('\n', "eventreview-evidence-detail-v1", text, contentType ?? string.Empty));
 
     /// <summary>True when a note's stored hash matches its text (other kinds: always true here; files are checked on disk).</summary>
     public bool NoteHashMatches() => Kind != EvidenceKind.Note || ContentSha256 == Hashing.Sha256Hex(Text);

@@ -20,7 +20,7 @@ public sealed class SignOff
     {
         UserId = signer.UserId;
         SignerName = signer.DisplayName;
-        SignedAtUtc = atUtc;
+        SignedAtUtc = Time.RecordedTime.Normalize(atUtc);
         SignedAtGpsNanoseconds = atGps.Nanoseconds;
         Meaning = meaning;
         Statement = statement;
@@ -36,6 +36,7 @@ public sealed class SignOff
     /// <summary>The signer's printed name at the time of signing.</summary>
     public string SignerName { get; private set; }
 
+    /// <summary>When signed, UTC, to whole milliseconds (<see cref="Time.RecordedTime"/>).</summary>
     public DateTimeOffset SignedAtUtc { get; private set; }
 
     /// <summary>Signing time on the GPS scale, nanoseconds.</summary>
@@ -60,16 +61,20 @@ public sealed class SignOff
     /// meaning, statement, evidence fingerprint). Recorded in the case timeline when signing; the stale mark is not part
     /// of it (staleness is recorded by its own timeline entry).
     /// </summary>
-    public string Seal() => Hashing.Sha256Hex(string.Join('\n', "eventreview-signoff-row-v1", UserId, SignerName,
-        SignedAtUtc.UtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture),
-        SignedAtGpsNanoseconds.ToString(System.Globalization.CultureInfo.InvariantCulture), Meaning.ToString(), Statement, EvidenceFingerprint));
+    public string Seal() => ComputeSeal(UserId, SignerName, SignedAtUtc.UtcTicks, SignedAtGpsNanoseconds, Meaning.ToString(), Statement, EvidenceFingerprint);
+
+    /// <summary>The seal (see <see cref="Seal"/>) from plain values; <paramref name="meaning"/> is the member name ("Reviewed", "Approved").</summary>
+    public static string ComputeSeal(string userId, string signerName, long signedUtcTicks, long signedGpsNanoseconds, string meaning, string statement, string evidenceFingerprint) =>
+        Hashing.Sha256Hex(string.Join('\n', "eventreview-signoff-row-v1", userId, signerName,
+            signedUtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture),
+            signedGpsNanoseconds.ToString(System.Globalization.CultureInfo.InvariantCulture), meaning, statement, evidenceFingerprint));
 
     internal void MarkStale(DateTimeOffset at)
     {
         if (!IsStale)
         {
             IsStale = true;
-            StaleSince = at;
+            StaleSince = Time.RecordedTime.Normalize(at);
         }
     }
 }

@@ -1,3 +1,4 @@
+using EventReview.Core.Records;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Logging;
 
@@ -11,8 +12,9 @@ public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, Time
 {
     private static readonly SemaphoreSlim Gate = new(1, 1);
 
-    /// <summary>Appends one entry; never pass a password or a token secret in any field.</summary>
-    public async Task RecordAsync(string kind, string? userId, string? account, string? address, string? detail = null, CancellationToken ct = default)
+    /// <summary>Appends one entry (with the <paramref name="facts"/> of what it changed); never pass a password or a token secret in any field.</summary>
+    public async Task RecordAsync(string kind, string? userId, string? account, string? address, string? detail = null, CancellationToken ct = default,
+        IEnumerable<Fact>? facts = null)
     {
         await Gate.WaitAsync(ct);
         try
@@ -20,8 +22,7 @@ public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, Time
             for (var attempt = 1; ; attempt++)
             {
                 await using var db = await dbFactory.CreateDbContextAsync(ct);
-                var last = await db.AccountEvents.AsNoTracking().OrderByDescending(e => e.Sequence).Select(e => new { e.Sequence, e.Hash }).FirstOrDefaultAsync(ct);
-                db.AccountEvents.Add(AccountEvent.Next((last?.Sequence ?? 0) + 1, last?.Hash ?? AccountEvent.GenesisHash, clock.GetUtcNow(), kind, userId, account, address, detail));
+                await AddNextAsync(db, kind, userId, account, address, detail, facts, ct);
                 try
                 {
                     await db.SaveChangesAsync(ct);
@@ -38,6 +39,52 @@ public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, Time
         {
             Gate.Release();
         }
+    }
+
+    /// <summary>
+    /// Holds the audit's append lock for a change that will record itself with <see cref="RecordInAsync"/>. Take it
+    /// before the change's transaction writes anything: appends are serialised by this lock first and the database's
+    /// write lock second, always in that order, so two of them can never wait on each other.
+    /// </summary>
+    public async Task<IAsyncDisposable> HoldAsync(CancellationToken ct = default)
+    {
+        await Gate.WaitAsync(ct);
+        return new Held();
+    }
+
+    /// <summary>
+    /// Appends one entry through <paramref name="db"/> and saves it there, so that it commits with the change it records
+    /// (the caller's transaction on that context). The caller holds <see cref="HoldAsync"/>. Throws what the save
+    /// throws; the caller's transaction then rolls back.
+    /// </summary>
+    public async Task RecordInAsync(AppDbContext db, string kind, string? userId, string? account, string? address, string? detail,
+        IEnumerable<Fact> facts, CancellationToken ct = default)
+    {
+        ArgumentNullException.ThrowIfNull(db);
+        await AddNextAsync(db, kind, userId, account, address, detail, facts, ct);
+        await db.SaveChangesAsync(ct);
+        log.LogInformation("Account event {Kind} for {Account} from {Address}", kind, account ?? "(none)", address ?? "(unknown)");
+    }
+
+    private sealed class Held : IAsyncDisposable
+    {
+        private int _released;
+
+        public ValueTask DisposeAsync()
+        {
+            if (Interlocked.Exchange(ref _released, 1) == 0)
+            {
+                Gate.Release();
+            }
+
+            return ValueTask.CompletedTask;
+        }
+    }
+
+    private async Task AddNextAsync(AppDbContext db, string kind, string? userId, string? account, string? address, string? detail, IEnumerable<Fact>? facts, CancellationToken ct)
+    {
+        var last = await db.AccountEvents.AsNoTracking().OrderByDescending(e => e.Sequence).Select(e => new { e.Sequence, e.Hash }).FirstOrDefaultAsync(ct);
+        db.AccountEvents.Add(AccountEvent.Next((last?.Sequence ?? 0) + 1, last?.Hash ?? AccountEvent.GenesisHash, clock.GetUtcNow(), kind, userId, account, address, detail, facts));
     }
 
     /// <summary>One page of entries, newest first, and the total count.</summary>

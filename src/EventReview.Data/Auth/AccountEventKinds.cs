@@ -9,15 +9,17 @@ public static class AccountEventKinds
     public const string SignedOut = "signout";
     public const string TokenCreated = "token.created";
     public const string TokenRevoked = "token.revoked";
+    public const string SealRegistered = "seal.registered";
+    public const string SealOpened = "seal.opened";
 
-    /// <summary>First single sign-on of a person: their account was made.</summary>
+    /// <summary>An account was made: by a coordinator, by the demo, or at a person's first single sign-on.</summary>
     public const string AccountCreated = "account.created";
 
     /// <summary>A single sign-on identity was joined to an existing account with the same, provider-verified e-mail.</summary>
     public const string AccountLinked = "account.linked";
 
-    /// <summary>A role changed because the person's groups at the identity provider changed.</summary>
-    public const string RoleChanged = "role.changed";
+    /// <summary>A role changed: set by a coordinator, or because the person's groups at the identity provider changed.</summary>
+    public const string RoleChanged = "account.role";
 
     /// <summary>A signer re-authenticated at the identity provider to sign a review item.</summary>
     public const string SignatureReauthenticated = "signature.reauthenticated";
@@ -39,6 +41,8 @@ public static class AccountEventKinds
         RoleChanged => "role changed",
         SignatureReauthenticated => "re-authenticated to sign",
         SignatureRefused => "signature refused",
+        SealRegistered => "sealed record registered",
+        SealOpened => "sealed record opened",
         _ => kind,
     };
 }

@@ -12,7 +12,9 @@ namespace EventReview.Data.Backup;
 /// <see cref="IntegrityVerifier"/>. Only a copy that verifies clean is moved into place (unless
 /// <see cref="RestoreOptions.AllowInvalid"/>), so a failed restore never leaves a half-written data folder. A non-empty
 /// target is refused unless <see cref="RestoreOptions.Force"/>; then it is moved aside to
-/// <c>DIR.before-restore-yyyyMMddTHHmmssZ</c>, never deleted.
+/// <c>DIR.before-restore-yyyyMMddTHHmmssZ</c>, never deleted. The copy is verified with the record keys and against the
+/// witness (<see cref="RestoreOptions.Records"/>; a backup older than the witness reports the entries it lacks); a key
+/// folder or witness kept inside the old data folder is copied into the restored one.
 /// For a PostgreSQL archive (attachments only), <paramref name="target"/> must name the database already restored with
 /// <c>pg_restore</c>; the attachments go into the target folder and that database is verified against them.
 /// </summary>
@@ -59,18 +61,24 @@ public static class BackupRestorer
             }
 
             Directory.CreateDirectory(stagingSettings.AttachmentDirectory);
-            var (problems, cases, entries) = await VerifyAsync(stagingSettings, ct);
+            var records = options.Records ?? Records.RecordSettings.ForDataDirectory(folder);
+            // A SQLite archive was taken at a known moment: every entry witnessed before it must be in it. A PostgreSQL
+            // dump was taken separately, at a time this archive does not know: newer witnessed entries are only listed.
+            var witnessedBefore = manifest.Provider == DatabaseProvider.Sqlite ? manifest.CreatedUtc : DateTimeOffset.MinValue;
+            var (problems, cases, entries, notes) = await VerifyAsync(stagingSettings, records, witnessedBefore, ct);
             var valid = problems.Count == 0;
             string? movedAside = null;
             var placed = valid || options.AllowInvalid;
             if (placed)
             {
+                CarryOver(records.KeyDirectory, folder, staging);
+                CarryOver(records.WitnessDirectory, folder, staging);
                 movedAside = Swap(staging, folder, nonEmpty);
             }
 
             var attachments = manifest.Entries.Count(e => e.Path.StartsWith(BackupFormat.AttachmentPrefix, StringComparison.Ordinal));
             return new RestoreReport(folder, manifest.Provider, manifest.CreatedUtc, manifest.Entries.Count, archive.TotalBytes, attachments,
-                cases, entries, Stopwatch.GetElapsedTime(started).TotalSeconds, valid, placed, problems, movedAside);
+                cases, entries, Stopwatch.GetElapsedTime(started).TotalSeconds, valid, placed, problems, movedAside, notes);
         }
         finally
         {
@@ -114,17 +122,49 @@ public static class BackupRestorer
         }
     }
 
-    private static async Task<(IReadOnlyList<IntegrityProblem> Problems, int Cases, int Entries)> VerifyAsync(DatabaseSettings settings, CancellationToken ct)
+    /// <summary>Copies a key folder or witness that lives inside the old data folder into the same place in the restored copy.</summary>
+    private static void CarryOver(string path, string folder, string staging)
     {
-        var factory = new AppDbContextFactory(settings);
+        var full = Path.GetFullPath(path);
+        var prefix = folder + Path.DirectorySeparatorChar;
+        if (!full.StartsWith(prefix, StringComparison.Ordinal) || !Directory.Exists(full))
+        {
+            return;
+        }
+
+        var target = Path.Combine(staging, full[prefix.Length..]);
+        foreach (var file in Directory.EnumerateFiles(full, "*", SearchOption.AllDirectories))
+        {
+            var to = Path.Combine(target, Path.GetRelativePath(full, file));
+            Records.FileRecordKeyRing.CreatePrivateFolder(Path.GetDirectoryName(to)!);
+            File.Copy(file, to, overwrite: false);
+            if (!OperatingSystem.IsWindows())
+            {
+                File.SetUnixFileMode(to, File.GetUnixFileMode(file));
+            }
+        }
+    }
+
+    private static async Task<(IReadOnlyList<IntegrityProblem> Problems, int Cases, int Entries, IReadOnlyList<string> Notes)> VerifyAsync(
+        DatabaseSettings settings, Records.RecordSettings records, DateTimeOffset backupTime, CancellationToken ct)
+    {
+        using var keeping = Records.RecordKeeping.Open(records);
+        var factory = new AppDbContextFactory(settings, keeping);
         if (settings.Provider == DatabaseProvider.Sqlite)
         {
             // As the app does on start: bring the schema up to date and use WAL.
             await DatabaseInitializer.MigrateAsync(factory, ct);
         }
 
-        var (cases, database) = await new IntegrityVerifier(factory, new AttachmentStore(settings), settings).VerifyAsync(null, ct);
-        return (database.Concat(cases.SelectMany(c => c.Problems)).ToList(), cases.Count, cases.Sum(c => c.Entries));
+        var (cases, database) = await new IntegrityVerifier(factory, new AttachmentStore(settings), settings, keeping).VerifyAsync(null, ct, backupTime);
+
+        // Entries witnessed after the backup was taken are not in it: said plainly, not counted as problems.
+        var newest = keeping.Witness.Read().Newest;
+        var notes = cases.Select(c => newest.TryGetValue(Core.Records.EntryMac.CaseChain(c.CandidateId), out var w) && w.Head.Sequence > c.Entries
+                ? $"{c.CandidateId}: this backup ends at entry {c.Entries}; the witness saw entries up to {w.Head.Sequence} (last on {w.At}), which are not in it."
+                : null)
+            .OfType<string>().ToList();
+        return (database.Concat(cases.SelectMany(c => c.Problems)).ToList(), cases.Count, cases.Sum(c => c.Entries), notes);
     }
 
     /// <summary>Moves the verified staging folder to the target; a non-empty target is moved aside first (and back on failure).</summary>

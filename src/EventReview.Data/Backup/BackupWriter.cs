@@ -44,6 +44,8 @@ public static class BackupWriter
         try
         {
             Directory.CreateDirectory(work);
+            // The backup's time is taken before the snapshot: every entry witnessed before it is in the snapshot.
+            var created = DateTimeOffset.UtcNow;
             string? snapshot = null;
             var factsFrom = settings;
             if (settings.Provider == DatabaseProvider.Sqlite)
@@ -63,7 +65,6 @@ public static class BackupWriter
                     + string.Join(", ", missing.Take(5)) + (missing.Count > 5 ? ", ..." : string.Empty));
             }
 
-            var created = DateTimeOffset.UtcNow;
             var entries = new List<BackupManifestEntry>();
             await using (var stream = new FileStream(partial, FileMode.Create, FileAccess.Write, FileShare.None, 81920, FileOptions.Asynchronous))
             {

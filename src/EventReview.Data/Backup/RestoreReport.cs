@@ -8,7 +8,8 @@ namespace EventReview.Data.Backup;
 /// and the outcome of the full integrity verification of the restored copy (<see cref="Valid"/> and the
 /// <see cref="Problems"/> found, each naming the case, entry or item). <see cref="Placed"/> is false when an invalid
 /// copy was not moved into the target (the target is then as it was). <see cref="PreviousFolderMovedTo"/> is where a
-/// non-empty target folder was moved when <c>--force</c> was given (null otherwise).
+/// non-empty target folder was moved when <c>--force</c> was given (null otherwise). <see cref="Notes"/> lists cases
+/// whose witness saw entries newer than the backup (written after it was taken, so not in it).
 /// </summary>
 public sealed record RestoreReport(
     string TargetPath,
@@ -23,4 +24,5 @@ public sealed record RestoreReport(
     bool Valid,
     bool Placed,
     IReadOnlyList<IntegrityProblem> Problems,
-    string? PreviousFolderMovedTo);
+    string? PreviousFolderMovedTo,
+    IReadOnlyList<string>? Notes = null);

@@ -18,5 +18,7 @@ public sealed class AccountEventConfiguration : IEntityTypeConfiguration<Account
         b.Property(e => e.Detail).HasMaxLength(300);
         b.Property(e => e.PreviousHash).HasMaxLength(64);
         b.Property(e => e.Hash).HasMaxLength(64);
+        b.Property(e => e.KeyId).HasMaxLength(64);
+        b.Property(e => e.Mac).HasMaxLength(64);
     }
 }

@@ -18,5 +18,8 @@ public sealed class ActivityEntryConfiguration : IEntityTypeConfiguration<Activi
         b.Property(a => a.ItemKey).HasMaxLength(64);
         b.Property(a => a.PreviousHash).HasMaxLength(64);
         b.Property(a => a.Hash).HasMaxLength(64);
+        b.Property(a => a.KeyId).HasMaxLength(64);
+        b.Property(a => a.Mac).HasMaxLength(64);
+        b.Ignore(a => a.Chain);
     }
 }

@@ -18,7 +18,9 @@ namespace EventReview.Data.Writes;
 /// statements of hand-written units (<see cref="RunSqlAsync"/>) stay prepared on it; after any failure of a batch the
 /// connection is closed and a fresh one opened for the next. A background task copies committed pages from the
 /// write-ahead log into the database file every <see cref="CheckpointEvery"/> (see <see cref="CheckpointLoopAsync"/>).
-/// The writer's figures are published as metrics (<see cref="MeterName"/>).
+/// The writer's figures are published as metrics (<see cref="MeterName"/>). After each commit, one witness line with the
+/// newest head of every chain the batch changed goes to the witness (<see cref="Records.HeadWitness"/>): one line per
+/// batch, not per write.
 /// </summary>
 public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 {
@@ -213,6 +215,7 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
             var committing = Stopwatch.GetTimestamp();
             await tx.CommitAsync();
+            _factory.Records?.Witness.Append(saved.SelectMany(u => u.Heads).ToList());
             Interlocked.Increment(ref _commits);
             CommitTime.Record(Stopwatch.GetElapsedTime(committing).TotalMilliseconds);
             BatchTime.Record(Stopwatch.GetElapsedTime(started).TotalMilliseconds);
@@ -255,6 +258,9 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
         public long Queued { get; } = Stopwatch.GetTimestamp();
 
+        /// <summary>Heads of the chain entries the unit wrote (valid once it executed without error).</summary>
+        public List<Records.WitnessedHead> Heads { get; } = [];
+
         public abstract Task ExecuteAsync(DbConnection connection, DbTransaction tx);
 
         public abstract void Complete();
@@ -274,6 +280,7 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
             {
                 Enlist(db, connection, tx);
                 await db.SaveChangesAsync(Cancelled);
+                Heads.AddRange(db.TakeWitnessHeads());
             }
             finally
             {
@@ -296,12 +303,13 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
         public override async Task ExecuteAsync(DbConnection connection, DbTransaction tx)
         {
-            using var unit = new SqlUnit(DatabaseProvider.Sqlite, connection, tx, gate._prepared);
+            using var unit = new SqlUnit(DatabaseProvider.Sqlite, connection, tx, gate._prepared, gate._factory.Records);
             await unit.Command("SAVEPOINT eventreview_sql").ExecuteNonQueryAsync(Cancelled);
             try
             {
                 _value = await work(unit, Cancelled);
                 await unit.Command("RELEASE eventreview_sql").ExecuteNonQueryAsync(Cancelled);
+                Heads.AddRange(unit.Heads);
             }
             catch
             {
@@ -335,6 +343,7 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
             {
                 _value = await work(db, Cancelled);
                 await tx.ReleaseAsync(savepoint, Cancelled);
+                Heads.AddRange(db.TakeWitnessHeads());
             }
             catch
             {

@@ -2,7 +2,10 @@ using Microsoft.EntityFrameworkCore;
 
 namespace EventReview.Data.Writes;
 
-/// <summary>For servers that handle concurrent writers themselves (PostgreSQL): a plain save, which commits.</summary>
+/// <summary>
+/// For servers that handle concurrent writers themselves (PostgreSQL): a plain save, which commits (its chain heads go to
+/// the witness as it commits, see <see cref="Records.RecordSigningInterceptor"/>).
+/// </summary>
 public sealed class DirectWriteGate(AppDbContextFactory factory) : IWriteGate
 {
     public Task SaveAsync(AppDbContext db, CancellationToken ct = default) => db.SaveChangesAsync(ct);
@@ -19,9 +22,10 @@ public sealed class DirectWriteGate(AppDbContextFactory factory) : IWriteGate
         var connection = db.Database.GetDbConnection();
         await db.Database.OpenConnectionAsync(ct);
         await using var tx = await connection.BeginTransactionAsync(ct);
-        using var unit = new SqlUnit(factory.Settings.Provider, connection, tx, prepared: null);
+        using var unit = new SqlUnit(factory.Settings.Provider, connection, tx, prepared: null, factory.Records);
         var result = await work(unit, ct);
         await tx.CommitAsync(ct);
+        factory.Records?.Witness.Append(unit.Heads);
         return result;
     }
 }

@@ -12,7 +12,8 @@ public sealed record AppendedEvidence(int EvidenceId, EvidenceItem Evidence, Ite
 /// The short path for adding evidence, the most frequent write: instead of loading the case, it reads the few values
 /// the change depends on (<see cref="EvidenceAppend.Head"/>), lets the domain rules (<see cref="EvidenceAppend.Plan"/>)
 /// decide, and stores the evidence row, the timeline entry and the new versions and states with four prepared
-/// statements. The rows are the same as the loaded case would store (a test compares them). It does not cover an item
+/// statements. The rows are the same as the loaded case would store, facts and signature included (a test compares
+/// them); the unit signs the timeline entry and notes its head for the witness. It does not cover an item
 /// with current sign-offs; for that it stores nothing and returns null, and the caller takes the full path.
 /// Run it inside <see cref="IWriteGate.RunSqlAsync"/>: on PostgreSQL it first locks the case row for the transaction; on
 /// SQLite the single writer already excludes every other writer.
@@ -39,8 +40,8 @@ public static class EvidenceAppendSql
         """;
 
     private const string InsertActivitySql = """
-        INSERT INTO "Activity" ("ReviewCaseId", "CandidateId", "Sequence", "At", "ActorId", "ActorName", "Kind", "ItemKey", "Text", "PreviousHash", "Hash")
-        VALUES (@case, @candidate, @sequence, @at, @actor, @actorName, @kind, @key, @text, @previous, @hash)
+        INSERT INTO "Activity" ("ReviewCaseId", "CandidateId", "Sequence", "At", "ActorId", "ActorName", "Kind", "ItemKey", "Text", "PreviousHash", "Hash", "Facts", "KeyId", "Mac")
+        VALUES (@case, @candidate, @sequence, @at, @actor, @actorName, @kind, @key, @text, @previous, @hash, @facts, @keyId, @mac)
         """;
 
     private const string UpdateItemSql = """
@@ -125,6 +126,7 @@ public static class EvidenceAppendSql
         var evidenceId = Convert.ToInt32(await insert.ExecuteScalarAsync(ct), System.Globalization.CultureInfo.InvariantCulture);
 
         var e = outcome.Entry;
+        unit.Sign(e);
         var activity = unit.Bound(InsertActivitySql,
             ("@case", caseId),
             ("@candidate", e.CandidateId),
@@ -136,7 +138,10 @@ public static class EvidenceAppendSql
             ("@key", e.ItemKey),
             ("@text", e.Text),
             ("@previous", e.PreviousHash),
-            ("@hash", e.Hash));
+            ("@hash", e.Hash),
+            ("@facts", e.Facts),
+            ("@keyId", e.KeyId),
+            ("@mac", e.Mac));
         await activity.ExecuteNonQueryAsync(ct);
 
         var item = unit.Bound(UpdateItemSql,

@@ -12,12 +12,25 @@ public sealed class SqlUnit : IDisposable
     private readonly Dictionary<string, DbCommand>? _prepared;
     private readonly List<DbCommand> _owned = [];
 
-    internal SqlUnit(DatabaseProvider provider, DbConnection connection, DbTransaction transaction, Dictionary<string, DbCommand>? prepared)
+    internal SqlUnit(DatabaseProvider provider, DbConnection connection, DbTransaction transaction, Dictionary<string, DbCommand>? prepared, Records.RecordKeeping? records = null)
     {
         Provider = provider;
         Connection = connection;
         Transaction = transaction;
         _prepared = prepared;
+        _records = records;
+    }
+
+    private readonly Records.RecordKeeping? _records;
+
+    /// <summary>Heads of the chain entries this unit wrote (for the witness, once committed).</summary>
+    public List<Records.WitnessedHead> Heads { get; } = [];
+
+    /// <summary>Signs a timeline entry the unit is about to insert (as every save does) and notes its head for the witness.</summary>
+    public void Sign(Core.Cases.ActivityEntry entry)
+    {
+        ArgumentNullException.ThrowIfNull(entry);
+        Heads.Add(_records?.Sign(entry) ?? new Records.WitnessedHead(entry.Chain, entry.Sequence, entry.Hash));
     }
 
     public DatabaseProvider Provider { get; }

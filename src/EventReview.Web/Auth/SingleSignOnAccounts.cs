@@ -48,9 +48,7 @@ public sealed class SingleSignOnAccounts(UserManager<AppUser> users, AccountAdmi
         var current = (await users.GetRolesAsync(user)).FirstOrDefault();
         if (!string.Equals(current, role, StringComparison.Ordinal))
         {
-            await admin.SetRoleAsync(user.Id, role);
-            await audit.RecordAsync(AccountEventKinds.RoleChanged, user.Id, user.Email, address,
-                $"{current ?? "(none)"} -> {role}: {Because(role, groups, map)}");
+            await admin.SetRoleAsync(user.Id, role, $"{current ?? "(none)"} -> {role}: {Because(role, groups, map)}", address);
         }
 
         return new SingleSignOnAdmission(user, null);
@@ -83,18 +81,8 @@ public sealed class SingleSignOnAccounts(UserManager<AppUser> users, AccountAdmi
         }
 
         var name = external.FindFirst("name")?.Value ?? external.FindFirst("preferred_username")?.Value;
-        var user = new AppUser
-        {
-            UserName = email,
-            Email = email,
-            EmailConfirmed = true,
-            DisplayName = string.IsNullOrWhiteSpace(name) ? email.Split('@')[0] : name.Trim(),
-        };
-        Ensure(await users.CreateAsync(user), "create the account");
-        Ensure(await users.AddLoginAsync(user, login), "link the account");
-        Ensure(await users.AddToRoleAsync(user, role), "give the role");
-        await audit.RecordAsync(AccountEventKinds.AccountCreated, user.Id, email, address,
-            $"first single sign-on; role {role}: {Because(role, groups, map)}");
+        var display = string.IsNullOrWhiteSpace(name) ? email.Split('@')[0] : name.Trim();
+        var user = await admin.CreateExternalAsync(email, display, login, role, $"first single sign-on; role {role}: {Because(role, groups, map)}", address);
         return user;
     }
 

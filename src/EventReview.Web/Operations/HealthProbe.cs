@@ -9,7 +9,8 @@ namespace EventReview.Web.Operations;
 /// The checks behind <c>GET /healthz</c>: the database answers, no migration is pending, the attachment folder
 /// takes a write and has free space, and the bundled leap-second table has not expired.
 /// </summary>
-public sealed class HealthProbe(IDbContextFactory<AppDbContext> dbFactory, DatabaseSettings settings, IOptions<OperationsOptions> options, TimeProvider clock)
+public sealed class HealthProbe(IDbContextFactory<AppDbContext> dbFactory, DatabaseSettings settings, IOptions<OperationsOptions> options, TimeProvider clock,
+    EventReview.Data.Records.RecordKeeping? records = null)
 {
     public async Task<HealthReport> RunAsync(CancellationToken ct)
     {
@@ -27,6 +28,7 @@ public sealed class HealthProbe(IDbContextFactory<AppDbContext> dbFactory, Datab
 
         lines.Add(Attachments());
         lines.Add(LeapSeconds());
+        lines.AddRange(RecordLines(records, settings.DataDirectory));
         var report = new HealthReport("ok", lines);
         return report.Healthy ? report : report with { Status = "failing" };
     }
@@ -58,6 +60,39 @@ public sealed class HealthProbe(IDbContextFactory<AppDbContext> dbFactory, Datab
         catch (Exception ex) when (ex is not OperationCanceledException)
         {
             lines.Add(new HealthCheckLine("migrations", false, $"Could not read the migration history ({ex.GetType().Name})."));
+        }
+    }
+
+    /// <summary>
+    /// The record key (must be able to sign) and the witness (its last append must have worked; a warning while it sits
+    /// inside the data folder, where whoever can change the database can change it too).
+    /// </summary>
+    public static IEnumerable<HealthCheckLine> RecordLines(EventReview.Data.Records.RecordKeeping? records, string dataDirectory)
+    {
+        if (records is null)
+        {
+            yield return new HealthCheckLine("record-key", false, "No record key is configured: new entries are not signed.");
+            yield break;
+        }
+
+        var current = records.Keys.Current;
+        yield return current is null
+            ? new HealthCheckLine("record-key", false, "No record key can sign: see the key folder (EventReview:Records:KeyDirectory).")
+            : new HealthCheckLine("record-key", true, $"Record key {Core.Records.RecordKeyFingerprint.Short(current.KeyId)} signs.");
+        var w = records.Witness;
+        var sender = w.Sender is { } s ? s.LastError is null ? $" Also sent to {s.Endpoint.Host}." : $" Sending to {s.Endpoint.Host} fails ({s.LastError}); {s.Waiting} line(s) waiting." : string.Empty;
+        if (w.LastError is { } error)
+        {
+            yield return new HealthCheckLine("witness", false, $"The last append to the witness failed ({error.Split(':')[0]}); see the Integrity page.{sender}");
+        }
+        else if (records.Settings.WitnessInside(dataDirectory))
+        {
+            yield return new HealthCheckLine("witness", true, "Warning: the witness is inside the data folder, where whoever can change the database can change it too. "
+                + $"Move it to another machine's mount (EventReview:Records:WitnessDirectory).{sender}", Warning: true);
+        }
+        else
+        {
+            yield return new HealthCheckLine("witness", true, "Witness outside the data folder" + (w.LastAppend is { } at ? $", last written {at.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC." : ".") + sender);
         }
     }
 

@@ -10,7 +10,8 @@ public sealed record HealthReport(string Status, IReadOnlyList<HealthCheckLine> 
 }
 
 /// <summary>One part of the health report.</summary>
-/// <param name="Name">database, migrations, attachments or leap-seconds.</param>
+/// <param name="Name">database, migrations, attachments, leap-seconds, record-key or witness.</param>
 /// <param name="Ok">Whether it passed.</param>
 /// <param name="Detail">What was found, in words (never a secret or a connection string).</param>
-public sealed record HealthCheckLine(string Name, bool Ok, string Detail);
+/// <param name="Warning">Passed, but something should be changed (the detail says what); does not fail the report.</param>
+public sealed record HealthCheckLine(string Name, bool Ok, string Detail, bool Warning = false);

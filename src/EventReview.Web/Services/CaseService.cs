@@ -359,14 +359,19 @@ public sealed class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWrit
     /// <summary>
     /// Attaches a computation record made inside the same database transaction as other changes (e.g. freezing a
     /// configuration record): <paramref name="make"/> gets the context and the time, may change other tracked entities,
-    /// and returns the record. Everything is saved together or not at all.
+    /// and returns the record and, when it froze one, the configuration record (which the timeline entry then records).
+    /// Everything is saved together or not at all.
     /// </summary>
     public Task<ReviewCase> AddComputationWithAsync(ClaimsPrincipal user, string policy, int caseId, string itemKey,
-        Func<AppDbContext, ReviewCase, DateTimeOffset, Task<ComputationRecord>> make, CancellationToken ct = default)
+        Func<AppDbContext, ReviewCase, DateTimeOffset, Task<(ComputationRecord Record, Core.Configuration.ConfigurationSnapshot? Frozen)>> make, CancellationToken ct = default)
     {
         Permissions.Require(user, policy, "do this");
         var actor = user.ToActor();
-        return MutateCoreAsync(caseId, itemKey, null, async (db, c, now) => c.AddComputation(itemKey, await make(db, c, now), actor, now), ct);
+        return MutateCoreAsync(caseId, itemKey, null, async (db, c, now) =>
+        {
+            var (record, frozen) = await make(db, c, now);
+            c.AddComputation(itemKey, record, actor, now, frozen);
+        }, ct);
     }
 
     private Task<ReviewCase> MutateAsync(int caseId, string? itemKey, int? expectedItemVersion, Action<ReviewCase, DateTimeOffset> change, CancellationToken ct) =>

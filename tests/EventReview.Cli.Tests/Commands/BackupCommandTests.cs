@@ -18,14 +18,19 @@ public sealed class BackupCommandTests : IAsyncLifetime
 
     private string Restored => Path.Combine(_root, "restored");
 
+    /// <summary>The source's record key and witness: a backup holds neither, so restoring elsewhere is told where they are.</summary>
+    private string KeyFolder => Path.Combine(Data, "keys");
+
+    private string WitnessFolder => Path.Combine(Data, "witness");
+
     public async Task InitializeAsync()
     {
         var settings = DatabaseSettings.ForSqlite(Data);
-        var factory = new AppDbContextFactory(settings);
+        var factory = new AppDbContextFactory(settings, CliRecords.For(Data));
         await DatabaseInitializer.MigrateAsync(factory);
         await new AttachmentStore(settings).SaveAsync(new MemoryStream(SampleCase.AttachmentBytes), 1024);
         await using var db = factory.CreateDbContext();
-        db.Cases.Add(SampleCase.Build().Case);
+        db.Cases.Add(SampleCase.Build(freezeInTimeline: false).Case);
         await db.SaveChangesAsync();
     }
 
@@ -49,7 +54,7 @@ public sealed class BackupCommandTests : IAsyncLifetime
     public void Backup_then_restore_exit_0_and_report_counts_and_a_valid_verification_in_json()
     {
         var (backupCode, backupOut, backupErr) = CliRunner.Run(BackupCommand.Build(), "backup", "--data", Data, "--out", Zip, "--json");
-        var (restoreCode, restoreOut, restoreErr) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", Zip, "--data", Restored, "--json");
+        var (restoreCode, restoreOut, restoreErr) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", Zip, "--data", Restored, "--keys", KeyFolder, "--witness", WitnessFolder, "--json");
 
         Assert.True(backupCode == 0, backupErr);
         var backup = Json(backupOut);
@@ -63,16 +68,16 @@ public sealed class BackupCommandTests : IAsyncLifetime
         Assert.Equal(0, restore.GetProperty("problems").GetArrayLength());
         Assert.Equal(1, restore.GetProperty("caseCount").GetInt32());
 
-        var (verifyCode, verifyOut, _) = CliRunner.Run(VerifyCommand.Build(), "verify", "--data", Restored);
+        var (verifyCode, verifyOut, _) = CliRunner.Run(VerifyCommand.Build(), "verify", "--data", Restored, "--keys", KeyFolder, "--witness", WitnessFolder);
         Assert.Equal(0, verifyCode);
-        Assert.StartsWith("valid (1 case(s)", verifyOut.Trim(), StringComparison.Ordinal);
+        Assert.StartsWith("valid (1 case(s)", verifyOut.Trim().Split('\n')[^1], StringComparison.Ordinal);
     }
 
     [Fact]
     public void Text_output_names_what_was_backed_up_and_restored()
     {
         var (backupCode, backupOut, _) = CliRunner.Run(BackupCommand.Build(), "backup", "--data", Data, "--out", Zip);
-        var (restoreCode, restoreOut, _) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", Zip, "--data", Restored);
+        var (restoreCode, restoreOut, _) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", Zip, "--data", Restored, "--keys", KeyFolder, "--witness", WitnessFolder);
 
         Assert.Equal((0, 0), (backupCode, restoreCode));
         Assert.StartsWith("backed up 1 case(s), ", backupOut, StringComparison.Ordinal);
@@ -116,8 +121,8 @@ public sealed class BackupCommandTests : IAsyncLifetime
         var notZip = Path.Combine(_root, "notes.txt");
         File.WriteAllText(notZip, "not an archive");
 
-        var (missing, _, missingErr) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", Path.Combine(_root, "none.zip"), "--data", Restored);
-        var (foreign, _, foreignErr) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", notZip, "--data", Restored);
+        var (missing, _, missingErr) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", Path.Combine(_root, "none.zip"), "--data", Restored, "--keys", KeyFolder, "--witness", WitnessFolder);
+        var (foreign, _, foreignErr) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", notZip, "--data", Restored, "--keys", KeyFolder, "--witness", WitnessFolder);
 
         Assert.Equal((2, 2), (missing, foreign));
         Assert.Contains("There is no backup file at", missingErr, StringComparison.Ordinal);
@@ -138,7 +143,7 @@ public sealed class BackupCommandTests : IAsyncLifetime
         }
 
         CliRunner.Run(BackupCommand.Build(), "backup", "--data", Data, "--out", Zip);
-        var (code, output, _) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", Zip, "--data", Restored);
+        var (code, output, _) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", Zip, "--data", Restored, "--keys", KeyFolder, "--witness", WitnessFolder);
 
         Assert.Equal(1, code);
         Assert.Contains(" entry 2: Timeline: Entry 2 (", output, StringComparison.Ordinal);
@@ -151,7 +156,7 @@ public sealed class BackupCommandTests : IAsyncLifetime
     {
         CliRunner.Run(BackupCommand.Build(), "backup", "--data", Data, "--out", Zip);
 
-        var (code, _, error) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", Zip, "--data", Restored, "--provider", "Postgres", "--connection", "Host=127.0.0.1;Database=none");
+        var (code, _, error) = CliRunner.Run(RestoreCommand.Build(), "restore", "--in", Zip, "--data", Restored, "--keys", KeyFolder, "--witness", WitnessFolder, "--provider", "Postgres", "--connection", "Host=127.0.0.1;Database=none");
 
         Assert.Equal(2, code);
         Assert.Contains("This archive holds a SQLite database", error, StringComparison.Ordinal);

@@ -3,6 +3,7 @@ using System.Text.Json;
 using EventReview.Cli.Commands;
 using EventReview.Core.Dossier;
 using EventReview.Core.Tests.Dossier;
+using EventReview.Core.Tests.Records;
 using EventReview.Dossier;
 
 namespace EventReview.Cli.Tests.Commands;
@@ -17,10 +18,46 @@ public class DossierCommandTests
         var path = Path.Combine(Path.GetTempPath(), "er-dossier-" + Guid.NewGuid().ToString("N") + ".zip");
         using (var file = File.Create(path))
         {
-            DossierExporter.ExportAsync(doc, sha => sha == s.AttachmentSha256 ? new MemoryStream(SampleCase.AttachmentBytes) : null, file).GetAwaiter().GetResult();
+            DossierExporter.ExportAsync(doc, sha => sha == s.AttachmentSha256 ? new MemoryStream(SampleCase.AttachmentBytes) : null, file, TestSigner.Instance).GetAwaiter().GetResult();
         }
 
         return path;
+    }
+
+    /// <summary>The signing key's public part as a PEM file (what the Integrity page shows).</summary>
+    private static string KeyFile()
+    {
+        var path = Path.Combine(Path.GetTempPath(), "er-key-" + Guid.NewGuid().ToString("N") + ".pem");
+        File.WriteAllText(path, TestSigner.Instance.Public.Pem());
+        return path;
+    }
+
+    [Fact]
+    public void Verify_without_a_trusted_key_reports_unsigned_and_exits_1()
+    {
+        var (code, output, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", ExportZip(), "--key", OtherKeyFile());
+
+        Assert.Equal(1, code);
+        Assert.StartsWith("unsigned: signed by key ", output.Trim());
+        Assert.Contains("which is not one of the 1 trusted key(s)", output);
+    }
+
+    private static string OtherKeyFile()
+    {
+        var path = Path.Combine(Path.GetTempPath(), "er-key-" + Guid.NewGuid().ToString("N") + ".pem");
+        File.WriteAllText(path, TestSigner.Other().Public.Pem());
+        return path;
+    }
+
+    [Fact]
+    public void Verify_with_a_file_that_is_not_a_key_exits_2()
+    {
+        var notKey = CliRunner.TempFile("hello", ".pem");
+
+        var (code, _, error) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", ExportZip(), "--key", notKey);
+
+        Assert.Equal(2, code);
+        Assert.Contains("is not a record public key", error);
     }
 
     [Fact]
@@ -28,10 +65,10 @@ public class DossierCommandTests
     {
         var path = ExportZip();
 
-        var (code, output, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", path);
+        var (code, output, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", path, "--key", KeyFile());
 
         Assert.Equal(0, code);
-        Assert.Equal("valid", output.Trim());
+        Assert.StartsWith("valid (signed by the trusted key ", output.Trim());
     }
 
     [Fact]
@@ -45,14 +82,17 @@ public class DossierCommandTests
             s.Write("<svg xmlns=\"http://www.w3.org/2000/svg\"/>"u8);
         }
 
-        var (code, output, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", path, "--json");
+        var (code, output, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", path, "--json", "--key", KeyFile());
 
         Assert.Equal(1, code);
         using var doc = JsonDocument.Parse(output);
         Assert.False(doc.RootElement.GetProperty("valid").GetBoolean());
-        var p = Assert.Single(doc.RootElement.GetProperty("problems").EnumerateArray());
+        Assert.Equal("invalid", doc.RootElement.GetProperty("status").GetString());
+        var p = doc.RootElement.GetProperty("problems").EnumerateArray().First();
         Assert.Equal("pictures/1.svg", p.GetProperty("file").GetString());
         Assert.Contains("altered", p.GetProperty("what").GetString());
+        // The page embeds the picture: re-rendered from the altered one, it no longer matches index.html either.
+        Assert.Contains(doc.RootElement.GetProperty("problems").EnumerateArray(), x => x.GetProperty("file").GetString() == "index.html");
     }
 
     [Fact]

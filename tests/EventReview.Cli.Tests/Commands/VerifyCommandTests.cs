@@ -21,10 +21,10 @@ public sealed class VerifyCommandTests : IAsyncLifetime
     public async Task InitializeAsync()
     {
         var settings = DatabaseSettings.ForSqlite(_dir);
-        var factory = new AppDbContextFactory(settings);
+        var factory = new AppDbContextFactory(settings, CliRecords.For(_dir));
         await DatabaseInitializer.MigrateAsync(factory);
         await new AttachmentStore(settings).SaveAsync(new MemoryStream(SampleCase.AttachmentBytes), 1024);
-        var c = SampleCase.Build().Case;
+        var c = SampleCase.Build(freezeInTimeline: false).Case;
         await using var db = factory.CreateDbContext();
         db.Cases.Add(c);
         await db.SaveChangesAsync();
@@ -75,7 +75,11 @@ public sealed class VerifyCommandTests : IAsyncLifetime
         var (code, output, _) = CliRunner.Run(VerifyCommand.Build(), "verify", "--data", _dir, "--case", _caseId.ToString(System.Globalization.CultureInfo.InvariantCulture));
 
         Assert.Equal(0, code);
-        Assert.StartsWith("valid (1 case(s), ", output.Trim(), StringComparison.Ordinal);
+        var lines = output.Trim().Split('\n');
+        Assert.StartsWith("record key ", lines[0], StringComparison.Ordinal);
+        Assert.Contains("(current, from ", lines[0], StringComparison.Ordinal);
+        Assert.StartsWith("witness " + Path.Combine(_dir, "witness", "record-heads.jsonl"), lines[1], StringComparison.Ordinal);
+        Assert.StartsWith("valid (1 case(s), ", lines[^1], StringComparison.Ordinal);
     }
 
     [Fact]
@@ -89,11 +93,10 @@ public sealed class VerifyCommandTests : IAsyncLifetime
         Assert.Equal(1, code);
         var json = Json(output);
         Assert.False(json.GetProperty("valid").GetBoolean());
-        var p = Assert.Single(json.GetProperty("problems").EnumerateArray());
-        Assert.Equal(_candidate, p.GetProperty("case").GetString());
+        var problems = json.GetProperty("problems").EnumerateArray().ToList();
+        Assert.All(problems, p => Assert.Equal((_candidate, "timing.delay"), (p.GetProperty("case").GetString(), p.GetProperty("item").GetString())));
+        var p = Assert.Single(problems, p => p.GetProperty("what").GetString()!.Contains("text no longer matches its SHA-256", StringComparison.Ordinal));
         Assert.Equal(JsonValueKind.Null, p.GetProperty("entry").ValueKind);
-        Assert.Equal("timing.delay", p.GetProperty("item").GetString());
-        Assert.Contains("text no longer matches its SHA-256", p.GetProperty("what").GetString(), StringComparison.Ordinal);
     }
 
     [Fact]
@@ -163,11 +166,13 @@ public sealed class VerifyCommandTests : IAsyncLifetime
         var zip = Path.Combine(_dir, "case.zip");
 
         var (exportCode, _, exportError) = CliRunner.Run(DossierCommand.Build(), "dossier", "export", "--data", _dir, "--case", _caseId.ToString(System.Globalization.CultureInfo.InvariantCulture), "--out", zip);
-        var (verifyCode, verifyOutput, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", zip);
+        var keys = Path.Combine(_dir, "keys", "record-keys.json");
+        var (verifyCode, verifyOutput, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", zip, "--key", keys);
 
         Assert.True(exportCode == 0, exportError);
         Assert.False(File.Exists(zip + ".partial"));
-        Assert.Equal((0, "valid"), (verifyCode, verifyOutput.Trim()));
+        Assert.Equal(0, verifyCode);
+        Assert.StartsWith("valid (signed by the trusted key ", verifyOutput.Trim(), StringComparison.Ordinal);
 
         // Change one byte of dossier.json's content (re-compressed so the ZIP itself stays readable).
         using (var archive = ZipFile.Open(zip, ZipArchiveMode.Update))
@@ -189,7 +194,7 @@ public sealed class VerifyCommandTests : IAsyncLifetime
             w.Write(bytes);
         }
 
-        var (badCode, badOutput, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", zip, "--json");
+        var (badCode, badOutput, _) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", zip, "--json", "--key", keys);
 
         Assert.Equal(1, badCode);
         var json = Json(badOutput);

@@ -46,10 +46,10 @@ public class ActivityChainTests
     public void The_entry_hash_is_sha256_of_the_documented_canonical_lines()
     {
         var e = new CaseBuilder().Build().Activity[0];
-        var lines = string.Join('\n', "eventreview-activity-v1", "TC-0001", "1", "2026-03-01T12:00:00.0000000Z",
-            People.Coordinator.UserId, People.Coordinator.DisplayName, "case.opened", "", e.Text, ActivityEntry.GenesisHash);
+        var lines = "eventreview-activity-v2\n" + string.Concat(new[] { "TC-0001", "1", "2026-03-01T12:00:00.0000000Z",
+            People.Coordinator.UserId, People.Coordinator.DisplayName, "case.opened", "", e.Text, e.Facts!, ActivityEntry.GenesisHash }.Select(f => $"{f.Length}:{f}\n"));
 
-        // Oracle: the canonical form written out by hand from the doc comment, hashed with the platform's SHA-256.
+        // Oracle: the canonical form (version 2: each field as length:value) written out by hand from the doc comment, hashed with the platform's SHA-256.
         Assert.Equal(Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(lines))), e.Hash);
         Assert.True(e.HashMatches());
     }

@@ -15,7 +15,7 @@ public class ActivityEntryTests
         Assert.True(c.Activity.Count > 10);
         foreach (var e in c.Activity)
         {
-            Assert.Equal(e.Hash, ActivityEntry.ComputeHash(c.CandidateId, e.Sequence, e.At, e.ActorId, e.ActorName, e.Kind, e.ItemKey, e.Text, e.PreviousHash));
+            Assert.Equal(e.Hash, ActivityEntry.ComputeHash(c.CandidateId, e.Sequence, e.At, e.ActorId, e.ActorName, e.Kind, e.ItemKey, e.Text, e.Facts, e.PreviousHash));
             Assert.True(e.HashMatches());
         }
 
@@ -28,11 +28,36 @@ public class ActivityEntryTests
         var c = SampleCase.Build().Case;
         var e = c.Activity[0];
 
-        // Oracle: version-1 content written out by hand from the ActivityEntry remarks.
-        var text = $"eventreview-activity-v1\nC31-0314A\n1\n2031-03-14T09:26:53.0000000Z\nu-coord\nAda Quill\ncase.opened\n\n{e.Text}\n{ActivityEntry.GenesisHash}";
+        // Oracle: version-2 content written out by hand from the ActivityEntry remarks (each field as length:value).
+        static string F(string v) => $"{v.Length}:{v}\n";
+        var text = "eventreview-activity-v2\n" + F("C31-0314A") + F("1") + F("2031-03-14T09:26:53.0000000Z") + F("u-coord") + F("Ada Quill")
+            + F("case.opened") + F(string.Empty) + F(e.Text) + F(e.Facts!) + F(ActivityEntry.GenesisHash);
 
         Assert.Equal(Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text))), e.Hash);
         Assert.Equal(text, e.CanonicalContent());
+        Assert.StartsWith("case.candidate=C31-0314A\n", e.Facts, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void An_entry_without_facts_keeps_the_version_1_canonical_text()
+    {
+        // Oracle: version-1 content written out by hand from the ActivityEntry remarks.
+        var at = new DateTimeOffset(2031, 3, 14, 9, 26, 53, TimeSpan.Zero);
+        var text = $"eventreview-activity-v1\nC31-0314A\n1\n2031-03-14T09:26:53.0000000Z\nu-coord\nAda Quill\ncase.opened\n\nOpened.\n{ActivityEntry.GenesisHash}";
+
+        Assert.Equal(text, ActivityEntry.ComputeCanonicalContent("C31-0314A", 1, at, "u-coord", "Ada Quill", "case.opened", null, "Opened.", null, ActivityEntry.GenesisHash));
+        Assert.Equal(Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(text))),
+            ActivityEntry.ComputeHash("C31-0314A", 1, at, "u-coord", "Ada Quill", "case.opened", null, "Opened.", null, ActivityEntry.GenesisHash));
+    }
+
+    [Fact]
+    public void Moving_text_between_the_entry_text_and_its_facts_changes_the_version_2_hash()
+    {
+        var at = new DateTimeOffset(2031, 3, 14, 9, 26, 53, TimeSpan.Zero);
+
+        Assert.NotEqual(
+            ActivityEntry.ComputeHash("c", 1, at, "u", "n", "k", null, "A\nB", "case.state=Open", ActivityEntry.GenesisHash),
+            ActivityEntry.ComputeHash("c", 1, at, "u", "n", "k", null, "A", "B\ncase.state=Open", ActivityEntry.GenesisHash));
     }
 
     [Fact]
@@ -41,7 +66,7 @@ public class ActivityEntryTests
         var utc = new DateTimeOffset(2031, 1, 1, 12, 0, 0, TimeSpan.Zero);
         var local = utc.ToOffset(TimeSpan.FromHours(5.5));
 
-        Assert.Equal(ActivityEntry.ComputeHash("c", 1, utc, "u", "n", "k", null, "t", ActivityEntry.GenesisHash),
-            ActivityEntry.ComputeHash("c", 1, local, "u", "n", "k", null, "t", ActivityEntry.GenesisHash));
+        Assert.Equal(ActivityEntry.ComputeHash("c", 1, utc, "u", "n", "k", null, "t", string.Empty, ActivityEntry.GenesisHash),
+            ActivityEntry.ComputeHash("c", 1, local, "u", "n", "k", null, "t", string.Empty, ActivityEntry.GenesisHash));
     }
 }

@@ -40,7 +40,8 @@ public class ConfigurationDiffTests
         var frozen = ConfigurationSnapshot.Capture("KX", "f", new Dictionary<string, string> { ["fw"] = "1" }, Coordinator, T);
         frozen.Freeze(1, T, T.AddDays(3), "review", Coordinator, T);
         var during = ConfigurationSnapshot.Capture("KX", "d", new Dictionary<string, string> { ["fw"] = "2" }, Coordinator, T.AddDays(3));
-        var after = ConfigurationSnapshot.Capture("KX", "a", new Dictionary<string, string> { ["fw"] = "2" }, Coordinator, T.AddDays(3).AddTicks(1));
+        // Capture times are kept to the millisecond (as every recorded time): one millisecond after the end is after it.
+        var after = ConfigurationSnapshot.Capture("KX", "a", new Dictionary<string, string> { ["fw"] = "2" }, Coordinator, T.AddDays(3).AddMilliseconds(1));
         var same = ConfigurationSnapshot.Capture("KX", "s", new Dictionary<string, string> { ["fw"] = "1" }, Coordinator, T.AddDays(1));
 
         var r1 = DriftCheck.Run(frozen, during);

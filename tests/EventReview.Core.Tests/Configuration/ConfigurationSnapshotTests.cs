@@ -43,6 +43,21 @@ public class ConfigurationSnapshotTests
     }
 
     [Fact]
+    public void A_frozen_record_whose_items_were_changed_afterwards_no_longer_matches_its_fingerprint()
+    {
+        var s = Capture(new() { ["fw"] = "1" });
+        Assert.False(s.FingerprintMatches()); // not frozen
+        s.Freeze(7, T.AddHours(-1), T.AddDays(1), "review", Coordinator, T);
+        Assert.True(s.FingerprintMatches());
+
+        // What an intruder editing the stored row does (the class itself offers no way): the items change, the fingerprint stays.
+        typeof(ConfigurationSnapshot).GetProperty(nameof(ConfigurationSnapshot.ItemsJson))!.SetValue(s, "{\"fw\":\"2\"}");
+        typeof(ConfigurationSnapshot).GetField("_items", System.Reflection.BindingFlags.NonPublic | System.Reflection.BindingFlags.Instance)!.SetValue(s, null);
+
+        Assert.False(s.FingerprintMatches());
+    }
+
+    [Fact]
     public void Escaping_keeps_a_value_with_a_newline_from_posing_as_two_items()
     {
         var one = Capture(new() { ["a"] = "1\nb=2" });

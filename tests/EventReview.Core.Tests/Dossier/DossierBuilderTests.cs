@@ -24,7 +24,7 @@ public class DossierBuilderTests
 
         var doc = DossierBuilder.Build(s.Case, s.Sites, s.Snapshots);
 
-        Assert.Equal("eventreview-dossier/1", doc.SchemaVersion);
+        Assert.Equal("eventreview-dossier/2", doc.SchemaVersion);
         Assert.Equal(["KX", "M2"], doc.Sites.Select(x => x.Code).ToArray());
         Assert.Equal(["timing.delay", "timing.notes", "config.frozen"], doc.Items.Select(i => i.Key).ToArray());
         Assert.Equal(s.Case.Activity[^1].Hash, doc.ChainHead);
@@ -70,7 +70,7 @@ public class DossierBuilderTests
 
         var text = System.Text.Encoding.UTF8.GetString(DossierJson.Serialize(DossierBuilder.Build(s.Case, s.Sites, s.Snapshots)));
 
-        Assert.StartsWith("{\n  \"schemaVersion\": \"eventreview-dossier/1\",", text);
+        Assert.StartsWith("{\n  \"schemaVersion\": \"eventreview-dossier/2\",", text);
         Assert.Contains("\"chainHead\":", text);
         Assert.DoesNotContain("pictureSvgs", text);
         Assert.DoesNotContain("\r", text);

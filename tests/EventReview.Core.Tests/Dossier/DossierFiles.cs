@@ -2,10 +2,15 @@ using System.Text;
 using System.Text.Json.Nodes;
 using EventReview.Core.Dossier;
 using EventReview.Core.Evidence;
+using EventReview.Core.Records;
+using EventReview.Core.Tests.Records;
 
 namespace EventReview.Core.Tests.Dossier;
 
-/// <summary>Makes the files of a dossier in memory (dossier.json, pictures, attachments, manifest) and alters them as a tamperer would.</summary>
+/// <summary>
+/// Makes the files of a dossier in memory (dossier.json, pictures, attachments, a manifest signed by <see cref="TestSigner"/>)
+/// and alters them as a tamperer would: someone without the key can recompute the manifest but not its signature.
+/// </summary>
 internal static class DossierFiles
 {
     public static Dictionary<string, byte[]> From(DossierDocument doc, IReadOnlyDictionary<string, byte[]> attachmentsBySha)
@@ -24,17 +29,40 @@ internal static class DossierFiles
             files[e.AttachmentPath!] = attachmentsBySha[e.ContentSha256];
         }
 
-        Reseal(files, doc.ChainHead, doc.Case.CandidateId);
+        Reseal(files, doc.ChainHead, doc.Case.CandidateId, doc.Timeline.Count == 0 ? 0 : doc.Timeline[^1].Sequence, TestSigner.Instance);
         return files;
     }
 
-    /// <summary>Rewrites the manifest over the current files (what someone altering the dossier would also do).</summary>
-    public static void Reseal(Dictionary<string, byte[]> files, string chainHead, string candidateId)
+    /// <summary>The trusted keys of the tests: the key the untouched dossiers are signed with.</summary>
+    public static IReadOnlyList<RecordPublicKey> Trusted => [TestSigner.Instance.Public];
+
+    /// <summary>Verifies against <see cref="Trusted"/>.</summary>
+    public static DossierVerification Verify(Dictionary<string, byte[]> files) => DossierVerifier.Verify(files, Trusted);
+
+    /// <summary>
+    /// Rewrites the manifest over the current files (what someone altering the dossier would also do), signed by
+    /// <paramref name="signer"/>: by default none (a forger does not hold the key), or a key of the forger's own.
+    /// </summary>
+    public static void Reseal(Dictionary<string, byte[]> files, string chainHead, string candidateId, int? headSequence = null, IRecordSigner? signer = null)
     {
+        if (headSequence is null && files.TryGetValue(DossierManifest.FileName, out var old))
+        {
+            headSequence = DossierJson.Deserialize<DossierManifest>(old).HeadSequence;
+        }
+
         files.Remove(DossierManifest.FileName);
         var list = files.OrderBy(f => f.Key, StringComparer.Ordinal)
             .Select(f => new DossierManifestFile(f.Key, Hashing.Sha256Hex(f.Value), f.Value.LongLength)).ToList();
-        files[DossierManifest.FileName] = DossierJson.Serialize(new DossierManifest(DossierDocument.CurrentSchemaVersion, candidateId, chainHead, list));
+        var manifest = new DossierManifest(DossierDocument.CurrentSchemaVersion, candidateId, chainHead, list, headSequence);
+        if (signer is not null)
+        {
+            manifest = manifest with
+            {
+                Signature = new DossierSignature(signer.KeyId, RecordPublicKey.Algorithm, Convert.ToBase64String(signer.PublicKey), Convert.ToBase64String(signer.Sign(manifest.SignedText()))),
+            };
+        }
+
+        files[DossierManifest.FileName] = DossierJson.Serialize(manifest);
     }
 
     /// <summary>Edits dossier.json as JSON and reseals the manifest (keeping the manifest's chain head).</summary>

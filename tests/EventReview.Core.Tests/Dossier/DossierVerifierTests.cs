@@ -1,6 +1,7 @@
 using System.Text;
 using System.Text.Json.Nodes;
 using EventReview.Core.Dossier;
+using EventReview.Core.Tests.Records;
 
 namespace EventReview.Core.Tests.Dossier;
 
@@ -13,19 +14,22 @@ public class DossierVerifierTests
         return DossierFiles.From(doc, new Dictionary<string, byte[]> { [s.AttachmentSha256] = SampleCase.AttachmentBytes });
     }
 
-    private static DossierProblem Single(Dictionary<string, byte[]> files)
+    /// <summary>The first problem of an altered dossier (the first thing that does not match), which must be reported invalid.</summary>
+    private static DossierProblem First(Dictionary<string, byte[]> files)
     {
-        var v = DossierVerifier.Verify(files);
-        Assert.False(v.Valid);
-        return Assert.Single(v.Problems);
+        var v = DossierFiles.Verify(files);
+        Assert.Equal((false, DossierVerification.InvalidWord), (v.Valid, v.Status));
+        return v.Problems[0];
     }
 
     [Fact]
     public void An_untouched_dossier_is_valid()
     {
-        var v = DossierVerifier.Verify(Files());
+        var v = DossierFiles.Verify(Files());
 
-        Assert.True(v.Valid, string.Join("\n", v.Problems));
+        Assert.True(v.Valid, string.Join("\n", v.Problems) + " " + v.Signature);
+        Assert.Equal(DossierVerification.ValidWord, v.Status);
+        Assert.Equal(TestSigner.Instance.KeyId, v.SignedBy);
     }
 
     [Fact]
@@ -34,7 +38,7 @@ public class DossierVerifierTests
         var files = Files();
         files["pictures/1.svg"] = Encoding.UTF8.GetBytes("<svg/>");
 
-        var p = Single(files);
+        var p = First(files);
 
         Assert.Equal("pictures/1.svg", p.File);
         Assert.Contains("altered", p.What);
@@ -46,7 +50,7 @@ public class DossierVerifierTests
         var files = Files();
         files.Remove("pictures/2.svg");
 
-        var problems = DossierVerifier.Verify(files).Problems;
+        var problems = DossierFiles.Verify(files).Problems;
 
         Assert.Contains(problems, p => p.File == "pictures/2.svg" && p.What.Contains("missing from the ZIP"));
     }
@@ -57,7 +61,7 @@ public class DossierVerifierTests
         var files = Files();
         files["notes/extra.txt"] = [1, 2, 3];
 
-        var p = Single(files);
+        var p = First(files);
 
         Assert.Equal("notes/extra.txt", p.File);
         Assert.Contains("not listed", p.What);
@@ -69,7 +73,7 @@ public class DossierVerifierTests
         var files = Files();
         DossierFiles.EditDossier(files, n => n["timeline"]![3]!["text"] = "Nothing happened.");
 
-        var p = Single(files);
+        var p = First(files);
 
         Assert.Equal("dossier.json", p.File);
         Assert.StartsWith("timeline entry 4 (", p.Where);
@@ -82,7 +86,7 @@ public class DossierVerifierTests
         var files = Files();
         DossierFiles.EditDossier(files, n => ((JsonArray)n["timeline"]!).RemoveAt(2));
 
-        var p = Single(files);
+        var p = First(files);
 
         Assert.StartsWith("timeline entry 4 (", p.Where);
         Assert.Contains("expected entry 3", p.What);
@@ -94,7 +98,7 @@ public class DossierVerifierTests
         var files = Files();
         DossierFiles.EditDossier(files, n => ((JsonArray)n["timeline"]!).RemoveAt(((JsonArray)n["timeline"]!).Count - 1));
 
-        var p = Single(files);
+        var p = First(files);
 
         Assert.Equal("chainHead", p.Where);
     }
@@ -110,7 +114,7 @@ public class DossierVerifierTests
             n["chainHead"] = timeline[^1]!["hash"]!.GetValue<string>();
         });
 
-        var p = Single(files);
+        var p = First(files);
 
         Assert.Equal("manifest.json", p.File);
         Assert.Equal("chainHead", p.Where);
@@ -122,7 +126,7 @@ public class DossierVerifierTests
         var files = Files();
         DossierFiles.EditDossier(files, n => n["items"]![0]!["evidence"]![0]!["text"] = "Delay is 70 ms.");
 
-        var problems = DossierVerifier.Verify(files).Problems;
+        var problems = DossierFiles.Verify(files).Problems;
 
         Assert.Contains(problems, p => p.Where!.StartsWith("item timing.delay, note") && p.What.Contains("note was altered"));
         Assert.Contains(problems, p => p.Where == "item timing.delay" && p.What.Contains("evidence fingerprint recomputed"));
@@ -135,7 +139,7 @@ public class DossierVerifierTests
         var files = Files();
         DossierFiles.EditDossier(files, n => n["items"]![0]!["computations"]![0]!["resultJson"] = "{\"delaySeconds\":0.002}");
 
-        var problems = DossierVerifier.Verify(files).Problems;
+        var problems = DossierFiles.Verify(files).Problems;
 
         Assert.Contains(problems, p => p.Where!.Contains("computation") && p.What.Contains("altered"));
     }
@@ -146,7 +150,7 @@ public class DossierVerifierTests
         var files = Files();
         DossierFiles.EditDossier(files, n => n["items"]![0]!["signOffs"]![0]!["evidenceFingerprint"] = new string('0', 64));
 
-        var p = Single(files);
+        var p = First(files);
 
         Assert.StartsWith("item timing.delay, sign-off", p.Where);
         Assert.Contains("Cleo Vance", p.Where);
@@ -158,7 +162,7 @@ public class DossierVerifierTests
         var files = Files();
         DossierFiles.EditDossier(files, n => n["items"]![1]!["signOffs"]![0]!["isStale"] = false);
 
-        var p = Single(files);
+        var p = First(files);
 
         Assert.StartsWith("item timing.notes, sign-off", p.Where);
     }
@@ -169,7 +173,7 @@ public class DossierVerifierTests
         var files = Files();
         DossierFiles.EditDossier(files, n => n["configurations"]![0]!["items"]![1]!["value"] = "4.2.2");
 
-        var p = Single(files);
+        var p = First(files);
 
         Assert.StartsWith("configuration", p.Where);
         Assert.Contains("frozen configuration recomputes", p.What);
@@ -185,7 +189,7 @@ public class DossierVerifierTests
         var manifest = JsonNode.Parse(files["manifest.json"])!;
         DossierFiles.Reseal(files, manifest["chainHead"]!.GetValue<string>(), manifest["candidateId"]!.GetValue<string>());
 
-        var problems = DossierVerifier.Verify(files).Problems;
+        var problems = DossierFiles.Verify(files).Problems;
 
         Assert.Contains(problems, p => p.Where!.Contains("attachment") && p.What.Contains("attachment was altered"));
     }
@@ -195,15 +199,15 @@ public class DossierVerifierTests
     {
         var files = Files();
         DossierFiles.EditDossier(files, n => n["schemaVersion"] = "eventreview-dossier/9");
-        Assert.Equal("schemaVersion", Single(files).Where);
+        Assert.Equal("schemaVersion", First(files).Where);
 
         files = Files();
         files["dossier.json"] = Encoding.UTF8.GetBytes("{\"schemaVersion\": ");
         DossierFiles.Reseal(files, "x", "y");
-        Assert.Contains(DossierVerifier.Verify(files).Problems, p => p.File == "dossier.json" && p.What.StartsWith("not a valid dossier"));
+        Assert.Contains(DossierFiles.Verify(files).Problems, p => p.File == "dossier.json" && p.What.StartsWith("not a valid dossier"));
 
         files = Files();
         files.Remove("manifest.json");
-        Assert.Contains(DossierVerifier.Verify(files).Problems, p => p.File == "manifest.json" && p.What.StartsWith("missing"));
+        Assert.Contains(DossierFiles.Verify(files).Problems, p => p.File == "manifest.json" && p.What.StartsWith("missing"));
     }
 }

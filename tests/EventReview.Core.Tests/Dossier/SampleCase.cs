@@ -60,7 +60,8 @@ internal sealed class SampleCase
         ],
     };
 
-    public static SampleCase Build()
+    /// <summary>Builds the case; <paramref name="freezeInTimeline"/> false leaves the freeze out of the timeline (for tests that store the case without its configuration records).</summary>
+    public static SampleCase Build(bool freezeInTimeline = true)
     {
         var t = T0;
         var c = ReviewCase.Open("C31-0314A", GpsTime.FromSeconds(1_615_248_000.25m), "burst-search", "A short loud candidate.",
@@ -99,6 +100,14 @@ internal sealed class SampleCase
             ["seal.rack3"] = "S-00917",
         }, Coordinator, T0.AddMinutes(-30));
         frozen.Freeze(c.Id, T0.AddHours(-1), T0.AddDays(7), "Candidate under review.", Coordinator, T0.AddMinutes(2));
+        if (freezeInTimeline)
+        {
+            // As the app does: the freeze is recorded on the configuration item, and the timeline entry records the frozen record.
+            t = t.AddMinutes(1);
+            c.AddComputation("config.frozen", new ComputationRecord(CheckKind.Configuration, "{\"snapshotId\":0}", frozen.Fingerprint!, "eventreview-core 0.1.0",
+                "{\"site\":\"KX\"}", "frozen", "KX configuration frozen", string.Empty, Coordinator, t), Coordinator, t, frozen);
+        }
+
         var later = ConfigurationSnapshot.Capture("KX", "weekly capture", new Dictionary<string, string>
         {
             ["daq.firmware"] = "4.2.2",

@@ -29,7 +29,7 @@ public sealed class BackupRestoreTests : IAsyncLifetime
     public async Task InitializeAsync()
     {
         _source = DatabaseSettings.ForSqlite(Source);
-        var factory = new AppDbContextFactory(_source);
+        var factory = TestRecords.Factory(_source);
         await DatabaseInitializer.MigrateAsync(factory);
         var store = new AttachmentStore(_source);
         await store.SaveAsync(new MemoryStream(Referenced), 1024);
@@ -46,8 +46,11 @@ public sealed class BackupRestoreTests : IAsyncLifetime
         return Task.CompletedTask;
     }
 
+    /// <summary>The source's record key and witness: a backup never holds the key, so the restore is told where it is.</summary>
+    private Data.Records.RecordSettings SourceRecords => Data.Records.RecordSettings.ForDataDirectory(Source);
+
     private Task<RestoreReport> RestoreAsync(RestoreOptions? options = null) =>
-        BackupRestorer.RestoreAsync(Archive, DatabaseSettings.ForSqlite(Target), options);
+        BackupRestorer.RestoreAsync(Archive, DatabaseSettings.ForSqlite(Target), (options ?? new RestoreOptions()) with { Records = SourceRecords });
 
     private static void RewriteEntry(string zipPath, string name, Func<byte[], byte[]> change)
     {
@@ -74,6 +77,48 @@ public sealed class BackupRestoreTests : IAsyncLifetime
     }
 
     private string[] SiblingsOfTarget() => Directory.EnumerateFileSystemEntries(_root.Path).Select(Path.GetFileName).Order(StringComparer.Ordinal).ToArray()!;
+
+    [Fact]
+    public async Task Entries_witnessed_after_the_backup_are_listed_as_notes_and_entries_witnessed_before_it_must_be_in_it()
+    {
+        await BackupWriter.CreateAsync(_source, Archive);
+
+        // After the backup: one more note on a case. The witness saw it; the backup cannot have it.
+        await using (var db = TestRecords.Factory(_source).CreateDbContext())
+        {
+            var c = await db.CasesWithEverything().FirstAsync(x => x.CandidateId == "TC-BACKUP-ONE");
+            var at = DateTimeOffset.UtcNow;
+            c.AddEvidence("beta.one", EventReview.Core.Evidence.EvidenceItem.Note("After the backup.", SampleCases.ReviewerA, at), SampleCases.ReviewerA, at);
+            await db.SaveChangesAsync();
+        }
+
+        var later = await RestoreAsync();
+        Assert.True(later.Valid, string.Join("; ", later.Problems.Select(p => p.What)));
+        var note = Assert.Single(later.Notes ?? []);
+        Assert.StartsWith("TC-BACKUP-ONE: this backup ends at entry ", note, StringComparison.Ordinal);
+
+        // A head the witness saw before the backup was taken, but which the backup lacks: the backup was truncated.
+        var manifestTime = (await BackupArchiveTime()).AddMinutes(-1);
+        using (var records = Data.Records.RecordKeeping.Open(SourceRecords))
+        using (var witness = new Data.Records.HeadWitness(SourceRecords, records.Keys, new FixedClock(manifestTime)))
+        {
+            witness.Append([new Data.Records.WitnessedHead("case:TC-BACKUP-TWO", 99, new string('9', 64))]);
+            witness.Flush();
+        }
+
+        Directory.Delete(Target, recursive: true);
+        var truncated = await RestoreAsync();
+        Assert.False(truncated.Valid);
+        Assert.Contains(truncated.Problems, p => p.Case == "TC-BACKUP-TWO" && p.What.Contains("the newest entries were removed: the witness saw entry 99", StringComparison.Ordinal));
+    }
+
+    private async Task<DateTimeOffset> BackupArchiveTime()
+    {
+        using var zip = ZipFile.OpenRead(Archive);
+        await using var m = zip.GetEntry("manifest.json")!.Open();
+        using var doc = await System.Text.Json.JsonDocument.ParseAsync(m);
+        return doc.RootElement.GetProperty("createdUtc").GetDateTimeOffset();
+    }
 
     [Fact]
     public async Task A_backup_restores_into_an_empty_place_and_the_copy_verifies_with_the_same_cases_and_files()
@@ -283,7 +328,7 @@ public sealed class BackupRestoreTests : IAsyncLifetime
     [Fact]
     public async Task A_backup_of_a_tampered_database_restores_as_invalid_naming_the_case_and_is_not_placed()
     {
-        await using (var db = new AppDbContextFactory(_source).CreateDbContext())
+        await using (var db = TestRecords.Factory(_source).CreateDbContext())
         {
             await db.Database.ExecuteSqlRawAsync("DROP TRIGGER er_Evidence_no_update;");
             await db.Database.ExecuteSqlRawAsync("UPDATE \"Evidence\" SET \"Text\" = 'Forged.' WHERE \"Text\" = 'Two.' AND \"ChecklistItemId\" IN "
@@ -295,8 +340,8 @@ public sealed class BackupRestoreTests : IAsyncLifetime
 
         Assert.False(report.Valid);
         Assert.False(report.Placed);
-        var p = Assert.Single(report.Problems);
-        Assert.Equal(("TC-BACKUP-TWO", "alpha.two"), (p.Case, p.Item));
+        Assert.NotEmpty(report.Problems);
+        Assert.All(report.Problems, p => Assert.Equal(("TC-BACKUP-TWO", "alpha.two"), (p.Case, p.Item)));
         Assert.False(Directory.Exists(Target));
 
         var kept = await RestoreAsync(new RestoreOptions(AllowInvalid: true));

@@ -22,7 +22,7 @@ public sealed class PostgresBackupTests(PostgresServer server) : IDisposable
     public async Task Dump_plus_attachment_backup_restores_into_an_empty_database_and_verifies()
     {
         var source = new DatabaseSettings(DatabaseProvider.Postgres, await server.DatabaseAsync("BackupSource"), Path.Combine(_root.Path, "data"));
-        var factory = new AppDbContextFactory(source);
+        var factory = TestRecords.Factory(source);
         await DatabaseInitializer.MigrateAsync(factory);
         await new AttachmentStore(source).SaveAsync(new MemoryStream("abc"u8.ToArray()), 1024);
         await using (var db = factory.CreateDbContext())
@@ -31,7 +31,7 @@ public sealed class PostgresBackupTests(PostgresServer server) : IDisposable
             await db.SaveChangesAsync();
         }
 
-        var (sourceCases, _) = await new IntegrityVerifier(factory, new AttachmentStore(source), source).VerifyAsync();
+        var (sourceCases, _) = await new IntegrityVerifier(factory, new AttachmentStore(source), source, factory.Records).VerifyAsync();
         Assert.True(sourceCases.All(c => c.Valid), "SOURCE: " + string.Join("; ", sourceCases.SelectMany(c => c.Problems).Select(p => p.What)));
         var dump = Path.Combine(_root.Path, "db.dump");
         var archive = Path.Combine(_root.Path, "files.zip");
@@ -51,7 +51,8 @@ public sealed class PostgresBackupTests(PostgresServer server) : IDisposable
         var folder = Path.Combine(_root.Path, "restored");
 
         var refused = await Assert.ThrowsAsync<BackupException>(() => BackupRestorer.RestoreAsync(archive, DatabaseSettings.ForSqlite(folder)));
-        var report = await BackupRestorer.RestoreAsync(archive, new DatabaseSettings(DatabaseProvider.Postgres, restoredDb, folder));
+        var report = await BackupRestorer.RestoreAsync(archive, new DatabaseSettings(DatabaseProvider.Postgres, restoredDb, folder),
+            new RestoreOptions(Records: Data.Records.RecordSettings.ForDataDirectory(source.DataDirectory)));
 
         Assert.Contains("restore the database with pg_restore first", refused.Message, StringComparison.Ordinal);
         Assert.True(report.Valid, string.Join("; ", report.Problems.Select(p => p.What)));

@@ -147,7 +147,7 @@ public sealed class CaseApiTests(EventReviewFactory app) : IClassFixture<EventRe
         Assert.Equal(closed["totalItems"]!.GetValue<int>(), closed["signedItems"]!.GetValue<int>());
         var review = demo.Single(c => (string?)c!["candidateId"] == "ER-C-0142")!;
         Assert.Equal("in-review", (string?)review["state"]);
-        Assert.Equal(1, review["signedItems"]!.GetValue<int>());
+        Assert.Equal(2, review["signedItems"]!.GetValue<int>()); // the injection schedule and the frozen configuration record
     }
 
     [Fact]

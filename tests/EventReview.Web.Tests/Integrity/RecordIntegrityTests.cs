@@ -178,7 +178,7 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
         c = await cases.CloseAsync(Coordinator, c.Id, CaseOutcome.Inconclusive, "Not enough to decide.");
 
         Assert.Equal(CaseState.Closed, c.State);
-        Assert.Empty(CaseIntegrity.Verify(await ReloadAsync(c.Id), Get<Data.AttachmentStore>().Verify));
+        Assert.Empty(CaseIntegrity.Verify(await ReloadAsync(c.Id), Get<Data.AttachmentStore>().Verify, Get<EventReview.Core.Records.IRecordKeyRing>()));
     }
 
     private async Task<byte[]> DownloadAsync(int id)
@@ -205,8 +205,9 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
 
         var zip = await DownloadAsync(id);
 
-        var verification = await DossierArchive.VerifyAsync(new MemoryStream(zip));
-        Assert.True(verification.Valid, string.Join("\n", verification.Problems));
+        var verification = await DossierArchive.VerifyAsync(new MemoryStream(zip), Get<Core.Records.IRecordKeyRing>().Keys);
+        Assert.True(verification.Valid, string.Join("\n", verification.Problems) + " " + verification.Signature);
+        Assert.Equal(Core.Dossier.DossierVerification.UnsignedWord, (await DossierArchive.VerifyAsync(new MemoryStream(zip))).Status); // without the server's key: never valid
         Assert.Contains("dossier.json", (await EntriesAsync(zip)).Keys);
     }
 
@@ -223,8 +224,8 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
 
         var zip = await DownloadAsync(c.Id);
 
-        var verification = await DossierArchive.VerifyAsync(new MemoryStream(zip));
-        Assert.True(verification.Valid, string.Join("\n", verification.Problems));
+        var verification = await DossierArchive.VerifyAsync(new MemoryStream(zip), Get<Core.Records.IRecordKeyRing>().Keys);
+        Assert.True(verification.Valid, string.Join("\n", verification.Problems) + " " + verification.Signature);
         var json = System.Text.Encoding.UTF8.GetString((await EntriesAsync(zip))["dossier.json"]);
         Assert.Contains(frozen.Fingerprint!, json, StringComparison.Ordinal);
         Assert.Contains("\"isStale\": true", json.Replace("\"isStale\":true", "\"isStale\": true", StringComparison.Ordinal), StringComparison.Ordinal);
@@ -232,7 +233,7 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
     }
 
     [Fact]
-    public async Task Exporting_an_unchanged_case_twice_gives_identical_dossier_json_and_manifest()
+    public async Task Exporting_an_unchanged_case_twice_gives_identical_files_and_manifest_but_for_the_signature_value()
     {
         var c = await OpenAsync();
         await Get<CaseService>().AddNoteAsync(ReviewerA, c.Id, "triage.timing", "Delay within the light time.");
@@ -245,12 +246,15 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
         var second = await EntriesAsync(await DownloadAsync(c.Id));
 
         Assert.Equal(first["dossier.json"], second["dossier.json"]);
-        Assert.Equal(first["manifest.json"], second["manifest.json"]);
         Assert.Equal(first.Keys.Order(), second.Keys.Order());
+        Assert.All(first.Keys.Where(k => k != "manifest.json"), k => Assert.Equal(first[k], second[k]));
+        var (a, b) = (Core.Dossier.DossierJson.Deserialize<Core.Dossier.DossierManifest>(first["manifest.json"]), Core.Dossier.DossierJson.Deserialize<Core.Dossier.DossierManifest>(second["manifest.json"]));
+        Assert.Equal(a.SignedText(), b.SignedText()); // ECDSA signatures are randomised; what they sign is the same
+        Assert.Equal(Get<Core.Records.IRecordKeyRing>().Current!.KeyId, a.Signature!.KeyFingerprint);
         await using var db = app.Db();
         var exports = await db.DossierExports.AsNoTracking().Where(e => e.ReviewCaseId == c.Id).ToListAsync();
         Assert.Equal(2, exports.Count);
-        Assert.Single(exports.Select(e => e.ManifestSha256).Distinct());
+        Assert.Single(exports.Select(e => e.ChainHead).Distinct());
     }
 
     [Fact]

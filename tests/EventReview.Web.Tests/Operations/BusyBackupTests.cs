@@ -75,7 +75,8 @@ public sealed class BusyBackupTests(EventReviewFactory app) : IClassFixture<Even
             {
                 var folder = Path.Combine(Path.GetTempPath(), $"er-busy-restored-{Guid.NewGuid():N}");
                 restoredFolders.Add(folder);
-                var restored = await BackupRestorer.RestoreAsync(archive, DatabaseSettings.ForSqlite(folder));
+                var restored = await BackupRestorer.RestoreAsync(archive, DatabaseSettings.ForSqlite(folder),
+                    new RestoreOptions(Records: EventReview.Data.Records.RecordSettings.ForDataDirectory(app.DataDirectory)));
 
                 Assert.True(restored.Valid, string.Join("; ", restored.Problems.Select(p => $"{p.Case}: {p.What}")));
                 await AssertConsistentPrefixAsync(live, folder, caseIds);

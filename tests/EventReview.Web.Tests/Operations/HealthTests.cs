@@ -14,9 +14,35 @@ public sealed class HealthTests(EventReviewFactory app) : IClassFixture<EventRev
         Assert.Equal(HttpStatusCode.OK, response.StatusCode);
         var json = await response.JsonAsync();
         Assert.Equal("ok", (string?)json["status"]);
-        Assert.Equal(["database", "migrations", "attachments", "leap-seconds"], json["checks"]!.AsArray().Select(c => (string?)c!["name"]));
+        Assert.Equal(["database", "migrations", "attachments", "leap-seconds", "record-key", "witness"], json["checks"]!.AsArray().Select(c => (string?)c!["name"]));
         Assert.All(json["checks"]!.AsArray(), c => Assert.True(c!["ok"]!.GetValue<bool>()));
         Assert.DoesNotContain(app.DataDirectory, json.ToJsonString(), StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public async Task Healthz_warns_while_the_witness_is_inside_the_data_folder_and_not_once_it_is_moved()
+    {
+        var inside = (await (await app.Anonymous().GetAsync("/healthz")).JsonAsync())["checks"]!.AsArray().Single(c => (string?)c!["name"] == "witness")!;
+        Assert.True(inside["ok"]!.GetValue<bool>());
+        Assert.True(inside["warning"]!.GetValue<bool>());
+        Assert.Contains("inside the data folder", (string?)inside["detail"], StringComparison.Ordinal);
+
+        var elsewhere = Path.Combine(Path.GetTempPath(), "er-witness-" + Guid.NewGuid().ToString("N"));
+        try
+        {
+            await using var moved = app.WithWebHostBuilder(b => b.UseSetting("EventReview:Records:WitnessDirectory", elsewhere));
+            var line = (await (await moved.CreateClient().GetAsync("/healthz")).JsonAsync())["checks"]!.AsArray().Single(c => (string?)c!["name"] == "witness")!;
+            Assert.True(line["ok"]!.GetValue<bool>());
+            Assert.False(line["warning"]!.GetValue<bool>());
+            Assert.DoesNotContain(elsewhere, line.ToJsonString(), StringComparison.Ordinal);
+        }
+        finally
+        {
+            if (Directory.Exists(elsewhere))
+            {
+                Directory.Delete(elsewhere, recursive: true);
+            }
+        }
     }
 
     [Fact]

@@ -149,7 +149,8 @@ public sealed class KillDuringUploadsTests(Xunit.Abstractions.ITestOutputHelper 
         }
 
         var settings = DatabaseSettings.ForSqlite(_dir);
-        var factory = new AppDbContextFactory(settings);
+        using var records = EventReview.Data.Records.RecordKeeping.Open(EventReview.Data.Records.RecordSettings.ForDataDirectory(_dir));
+        var factory = new AppDbContextFactory(settings, records);
         var store = new AttachmentStore(settings);
         await using (var db = factory.CreateDbContext())
         {
@@ -165,7 +166,7 @@ public sealed class KillDuringUploadsTests(Xunit.Abstractions.ITestOutputHelper 
             Assert.Equal("ok", (string?)await check.ExecuteScalarAsync());
         }
 
-        var (cases, database) = await new IntegrityVerifier(factory, store, settings).VerifyAsync();
+        var (cases, database) = await new IntegrityVerifier(factory, store, settings, records).VerifyAsync();
         Assert.Empty(database);
         Assert.All(cases, c => Assert.True(c.Valid, $"{c.CandidateId}: {string.Join("; ", c.Problems.Select(p => p.What))}"));
         Microsoft.Data.Sqlite.SqliteConnection.ClearAllPools();

@@ -48,6 +48,9 @@ namespace EventReview.Data.Migrations.Postgres
                         .HasMaxLength(128)
                         .HasColumnType("character varying(128)");
 
+                    b.Property<string>("Facts")
+                        .HasColumnType("text");
+
                     b.Property<string>("Hash")
                         .IsRequired()
                         .HasMaxLength(64)
@@ -57,8 +60,16 @@ namespace EventReview.Data.Migrations.Postgres
                         .HasMaxLength(64)
                         .HasColumnType("character varying(64)");
 
+                    b.Property<string>("KeyId")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
                     b.Property<string>("Kind")
                         .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("Mac")
                         .HasMaxLength(64)
                         .HasColumnType("character varying(64)");
 
@@ -735,8 +746,15 @@ namespace EventReview.Data.Migrations.Postgres
                         .HasMaxLength(300)
                         .HasColumnType("character varying(300)");
 
+                    b.Property<string>("Facts")
+                        .HasColumnType("text");
+
                     b.Property<string>("Hash")
                         .IsRequired()
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
+
+                    b.Property<string>("KeyId")
                         .HasMaxLength(64)
                         .HasColumnType("character varying(64)");
 
@@ -744,6 +762,10 @@ namespace EventReview.Data.Migrations.Postgres
                         .IsRequired()
                         .HasMaxLength(32)
                         .HasColumnType("character varying(32)");
+
+                    b.Property<string>("Mac")
+                        .HasMaxLength(64)
+                        .HasColumnType("character varying(64)");
 
                     b.Property<string>("PreviousHash")
                         .IsRequired()

@@ -104,8 +104,8 @@ public sealed class ConfigurationService(IDbContextFactory<AppDbContext> dbFacto
             };
             var summary = string.Create(CultureInfo.InvariantCulture,
                 $"{snapshot.SiteCode} configuration '{snapshot.Label}' frozen ({snapshot.Items.Count} items) from {snapshot.FreezeFrom:yyyy-MM-dd HH:mm} to {snapshot.FreezeUntil:yyyy-MM-dd HH:mm} UTC; fingerprint {snapshot.Fingerprint![..16]}…");
-            return new ComputationRecord(CheckKind.Configuration, CheckRecords.Serialize(new { snapshotId, from, until, reason }),
-                snapshot.Fingerprint!, CheckRecords.ToolVersion, CheckRecords.Serialize(result), VerdictWords.Word(Verdict.Frozen), summary, string.Empty, actor, now);
+            return (new ComputationRecord(CheckKind.Configuration, CheckRecords.Serialize(new { snapshotId, from, until, reason }),
+                snapshot.Fingerprint!, CheckRecords.ToolVersion, CheckRecords.Serialize(result), VerdictWords.Word(Verdict.Frozen), summary, string.Empty, actor, now), snapshot);
         }, ct);
     }
 }

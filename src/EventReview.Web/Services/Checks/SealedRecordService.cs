@@ -15,9 +15,11 @@ namespace EventReview.Web.Services.Checks;
 /// that an unopened seal exists, a case cannot be closed as astrophysical while one is unopened or an opened one holds a
 /// blind injection at the candidate (the rule is Core's <see cref="BlindInjectionClosing"/>), and at the end a
 /// coordinator opens it with the record and the salt: on a match the seal is marked opened and a computation record
-/// (kind "injections") with the blind injections overlapping the case goes on the item and its timeline.
+/// (kind "injections") with the blind injections overlapping the case goes on the item and its timeline. Registering
+/// and opening each commit together with a sign-in audit entry whose facts record the seal's state, so that a seal
+/// marked opened (or un-opened, or given another commitment) by hand is caught by verification.
 /// </summary>
-public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactory, CaseService cases, TimeProvider clock)
+public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactory, CaseService cases, TimeProvider clock, Data.Auth.AccountAudit audit)
 {
     /// <summary>The message shown when opening fails; nothing is changed.</summary>
     public const string MismatchMessage = "The record or salt does not match the commitment; nothing was opened.";
@@ -92,8 +94,13 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
                 throw new ArgumentException("This commitment is already registered.", nameof(commitment));
             }
 
+            await using var held = await audit.HoldAsync(ct);
+            await using var tx = await db.Database.BeginTransactionAsync(ct);
             db.SealedInjectionRecords.Add(seal);
             await db.SaveChangesAsync(ct);
+            await audit.RecordInAsync(db, Data.Auth.AccountEventKinds.SealRegistered, actor.UserId, actor.DisplayName, null,
+                $"sealed record {seal.Id} '{seal.Label}'", Data.Auth.AuditFacts.Seal(seal), ct);
+            await tx.CommitAsync(ct);
         }
 
         if (caseId is { } id && itemKey is not null)
@@ -162,7 +169,12 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
         seal.Open(record, saltHex!, caseId, Clip($"{c.CandidateId}: {summary}", 1000), actor, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
         try
         {
+            await using var held = await audit.HoldAsync(ct);
+            await using var tx = await db.Database.BeginTransactionAsync(ct);
             await db.SaveChangesAsync(ct);
+            await audit.RecordInAsync(db, Data.Auth.AccountEventKinds.SealOpened, actor.UserId, actor.DisplayName, null,
+                $"sealed record {seal.Id} '{seal.Label}' opened in {c.CandidateId}", Data.Auth.AuditFacts.Seal(seal), ct);
+            await tx.CommitAsync(ct);
         }
         catch (DbUpdateConcurrencyException)
         {
@@ -215,7 +227,7 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
         return await cases.AddComputationWithAsync(user, Policies.Coordinate, c.Id, itemKey, (_, loaded, now) =>
         {
             loaded.RecordOverride(itemKey, OpeningDecision.Rule, $"sealed record '{seal.Label}' opened before the review was complete. Reason: {overrideReason}", user.ToActor(), now);
-            return Task.FromResult(record(now));
+            return Task.FromResult<(ComputationRecord, EventReview.Core.Configuration.ConfigurationSnapshot?)>((record(now), null));
         }, ct);
     }
 

@@ -1,0 +1,54 @@
+using EventReview.Core.Cases;
+using EventReview.Core.Records;
+using EventReview.Data.Auth;
+
+namespace EventReview.Data.Records;
+
+/// <summary>
+/// The record key ring and the witness of one installation, used by every writer: new timeline and sign-in audit
+/// entries are signed (MAC) before they are stored, and the heads of the chains a committed batch changed go to the
+/// witness. Verification reads both.
+/// </summary>
+public sealed class RecordKeeping(RecordSettings settings, IRecordKeyRing keys, HeadWitness witness) : IDisposable
+{
+    public RecordSettings Settings { get; } = settings;
+
+    public IRecordKeyRing Keys { get; } = keys;
+
+    public HeadWitness Witness { get; } = witness;
+
+    /// <summary>Opens the key folder and the witness named by <paramref name="settings"/> (no key is created here).</summary>
+    public static RecordKeeping Open(RecordSettings settings, TimeProvider? clock = null)
+    {
+        var keys = FileRecordKeyRing.Open(settings.KeyDirectory);
+        return new RecordKeeping(settings, keys, new HeadWitness(settings, keys, clock));
+    }
+
+    /// <summary>Signs a new timeline entry (when a signing key is present) and returns its head for the witness.</summary>
+    public WitnessedHead Sign(ActivityEntry entry)
+    {
+        if (entry.KeyId is null && Keys.Current is { } signer)
+        {
+            entry.Authenticate(signer);
+        }
+
+        return new WitnessedHead(entry.Chain, entry.Sequence, entry.Hash);
+    }
+
+    /// <summary>Signs a new sign-in audit entry and returns its head for the witness.</summary>
+    public WitnessedHead Sign(AccountEvent entry)
+    {
+        if (entry.KeyId is null && Keys.Current is { } signer)
+        {
+            entry.Authenticate(signer);
+        }
+
+        return new WitnessedHead(EntryMac.AuditChain, entry.Sequence, entry.Hash);
+    }
+
+    public void Dispose()
+    {
+        Witness.Dispose();
+        (Keys as IDisposable)?.Dispose();
+    }
+}
