@@ -118,6 +118,11 @@ public sealed class CaseOverviewModel
         {
             var t = r.Timing;
             var pairs = string.Create(Inv, $"{t.Pairs.Count(x => x.Consistent)} of {t.Pairs.Count} pairs within their windows");
+            if (t.DegreesOfFreedom is 0)
+            {
+                return $"no sky-fit χ² test: three sites leave no degree of freedom; {pairs}";
+            }
+
             return t.Chi2 is { } chi2 && t.DegreesOfFreedom is { } dof
                 ? string.Create(Inv, $"sky-fit χ² = {chi2:0.##} with {dof} degree{(dof == 1 ? "" : "s")} of freedom{(t.PValue is { } p ? $", p {(t.PValueIsBound ? "≥" : "=")} {ScientificFormat.Format(p, 2)}" : "")}; {pairs}")
                 : $"no sky-fit χ² (too few sites); {pairs}";
