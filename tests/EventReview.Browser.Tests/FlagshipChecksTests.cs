@@ -6,7 +6,8 @@ namespace EventReview.Browser.Tests;
 /// <summary>
 /// On the flagship demo case every item that runs a built-in check is opened and its check started with the form exactly as
 /// it comes up (the preselected files and the default numbers): none may end in an error. The configuration items have no
-/// run button; they must lead to the capture, freeze and compare flow instead.
+/// run button; they must lead to the capture, freeze and compare flow instead. The sealed record's two items need the holders'
+/// commitment, salt and record (no defaults): they must show their forms and the opening rule.
 /// </summary>
 public sealed partial class FlagshipChecksTests(RunningApp app) : IClassFixture<RunningApp>
 {
@@ -57,6 +58,19 @@ public sealed partial class FlagshipChecksTests(RunningApp app) : IClassFixture<
                 if (kind == "configuration")
                 {
                     Assert.True(await page.Locator($"a[href$='/configuration']").CountAsync() > 0, $"{key}: no way to the configuration flow");
+                    continue;
+                }
+
+                // The sealed record's items take the holders' commitment, salt and record: nothing has a default there.
+                if (key == "injection.blind-seal")
+                {
+                    Assert.True(await page.Locator("#register-seal").CountAsync() > 0, $"{key}: no way to register a seal");
+                    continue;
+                }
+
+                if (key == "injection.blind-open")
+                {
+                    Assert.Contains("sections", await page.Locator("#opening-rule").InnerTextAsync(), StringComparison.Ordinal);
                     continue;
                 }
 
