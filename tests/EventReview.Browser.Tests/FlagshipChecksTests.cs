@@ -89,7 +89,7 @@ public sealed partial class FlagshipChecksTests(RunningApp app) : IClassFixture<
                 while (DateTime.UtcNow < deadline && answers.Count == 0)
                 {
                     await page.WaitForTimeoutAsync(500);
-                    if (!clickedAgain && DateTime.UtcNow > deadline.AddMinutes(-2.5) && await run.IsEnabledAsync())
+                    if (!clickedAgain && DateTime.UtcNow > deadline.AddMinutes(-3.6) && await run.IsEnabledAsync())
                     {
                         // A click that landed while the form was still re-rendering is lost; a second run with the same
                         // inputs stores nothing new, so clicking once more is harmless.
