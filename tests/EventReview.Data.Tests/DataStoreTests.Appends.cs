@@ -26,12 +26,14 @@ public abstract partial class DataStoreTests
     [Theory]
     [InlineData("beta.one")] // has a computation record (its line is part of the fingerprint) and no sign-off
     [InlineData("alpha.two", true)] // fresh case: open item, open case
-    public async Task The_short_append_stores_exactly_what_the_loaded_case_would(string key, bool fresh = false)
+    [InlineData("beta.one", false, "strain:KP")] // a file with a role: the role is stored and sealed (row seal version 2)
+    public async Task The_short_append_stores_exactly_what_the_loaded_case_would(string key, bool fresh = false, string? role = null)
     {
         var id = await SaveNewAsync(fresh ? SampleCases.Open(NewCandidateId()) : SampleCases.Worked(NewCandidateId()));
         var at = SampleCases.T0.AddHours(2).AddTicks(7_654_321);
         var when = EventReview.Core.Time.RecordedTime.Normalize(at);
-        EvidenceItem Make(DateTimeOffset t) => EvidenceItem.Attachment("trace.h5", "application/x-hdf5", 4096, Hashing.Sha256Hex("trace"), "A trace", SampleCases.ReviewerB, t);
+        EvidenceItem Make(DateTimeOffset t) => EvidenceItem.Attachment("trace.h5", "application/x-hdf5", 4096, Hashing.Sha256Hex("trace"), "A trace", SampleCases.ReviewerB, t,
+            role is null ? null : EventReview.Core.Evidence.Roles.FileRole.Parse(role));
 
         // What the aggregate does with the same change at the same time, applied to a copy that is not saved.
         var expected = await LoadAsync(id);
@@ -66,6 +68,7 @@ public abstract partial class DataStoreTests
         Assert.Equal((a.State, a.Fingerprint()), (stored.ItemState, stored.ItemFingerprint));
         var row = Assert.Single(a.Evidence, x => x.Id == stored.EvidenceId);
         Assert.Equal(e.Evidence[^1].Seal(), row.Seal());
+        Assert.Equal(role, row.Role);
         Assert.Null(ActivityChain.FirstProblem(actual.Activity.OrderBy(x => x.Sequence)));
     }
 

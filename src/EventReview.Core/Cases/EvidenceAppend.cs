@@ -63,7 +63,8 @@ public static class EvidenceAppend
         var what = evidence.Kind switch
         {
             EvidenceKind.Note => $"Note added to '{key}' (sha256 {evidence.ContentSha256}).",
-            EvidenceKind.Attachment => $"File '{evidence.FileName}' ({evidence.SizeBytes} bytes, sha256 {evidence.ContentSha256}) attached to '{key}'.",
+            EvidenceKind.Attachment => $"File '{evidence.FileName}' ({evidence.SizeBytes} bytes, sha256 {evidence.ContentSha256}) attached to '{key}'" +
+                (evidence.FileRole is { } role ? $" as {role.Title}." : "."),
             _ => $"Link {evidence.Url} added to '{key}'.",
         };
         return what + $" Seal {evidence.Seal()}.";

@@ -290,6 +290,23 @@ public sealed class ReviewCase
         Record(by, now, "case.state", null, $"Case returned to review: {reason}", [CaseFacts.CaseState(State)]);
     }
 
+    /// <summary>
+    /// Records in the timeline that a coordinator overrode a review rule on an item (for example opening the sealed
+    /// blind-injection record before the review is complete), with the coordinator's written reason.
+    /// </summary>
+    /// <exception cref="ArgumentException">When the rule or reason is empty, or the reason is over the statement limit.</exception>
+    public void RecordOverride(string key, string rule, string reason, Actor by, DateTimeOffset now)
+    {
+        Mutable(key);
+        if (string.IsNullOrWhiteSpace(rule) || string.IsNullOrWhiteSpace(reason))
+        {
+            throw new ArgumentException("reason: an override needs the rule it overrides and a written reason.", nameof(reason));
+        }
+
+        InputGuard.Text(reason.Trim(), InputLimits.MaxStatementLength, nameof(reason));
+        Record(by, now, "override", key, $"Coordinator override of rule '{rule}' on '{key}': {reason.Trim()}", []);
+    }
+
     /// <summary>Closes the case with an outcome; every item must be signed off and no sign-off stale.</summary>
     public void Close(CaseOutcome outcome, string statement, Actor by, DateTimeOffset now)
     {

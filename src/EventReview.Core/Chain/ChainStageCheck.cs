@@ -4,6 +4,7 @@ using EventReview.Core.Signal.Filters;
 using EventReview.Core.Statistics;
 using EventReview.Core.Time;
 using EventReview.Core.Verdicts;
+using EventReview.Core.Formatting;
 
 namespace EventReview.Core.Chain;
 
@@ -151,7 +152,7 @@ internal static class ChainStageCheck
     {
         var excess = string.Create(Inv,
             $"largest on-source excursion {s.MaxExcessSigma:0.00}σ at {s.MaxExcessGps - center.Seconds:+0.000;-0.000} s against the {s.ThresholdSigma:0.00}σ threshold (false-alarm probability {s.FalseAlarmProbability:G3} over {s.SamplesTested:N0} on-source samples)");
-        var fit = string.Create(Inv, $"coherent fraction with the input {s.CoherentFraction:P0} (limit {o.CoherentFractionLimit:P0}), residual power {s.ResidualToOutputPower:0.##e+0} of the output's")
+        var fit = string.Create(Inv, $"coherent fraction with the input {s.CoherentFraction:P0} (limit {o.CoherentFractionLimit:P0}), residual power {ScientificFormat.Format(s.ResidualToOutputPower, 3)} of the output's")
             + (s.NoiseRatio is { } r ? string.Create(Inv, $", off-source residual RMS {r:0.##} × the expected noise (limit {o.NoiseRatioLimit:0.##})") : ", no expected noise stated");
         if (!s.ModelFits)
         {

@@ -71,7 +71,7 @@ public static class DossierBuilder
         var evidence = i.Evidence.OrderBy(e => e.AddedAt).ThenBy(e => e.Id).Select(e => new DossierEvidence(
             e.Id, EvidenceFingerprint.KindName(e.Kind), e.Text, e.FileName, e.ContentType, e.SizeBytes, e.Url, e.ContentSha256,
             e.Kind == EvidenceKind.Attachment ? AttachmentPath(e.ContentSha256) : null,
-            e.AddedBy, e.AddedByName, Utc(e.AddedAt), e.AddedAt.UtcTicks)).ToList();
+            e.AddedBy, e.AddedByName, Utc(e.AddedAt), e.AddedAt.UtcTicks, e.Role)).ToList();
         var computations = new List<DossierComputation>();
         foreach (var r in i.Computations.OrderBy(r => r.RunAt).ThenBy(r => r.Id))
         {

@@ -4,6 +4,7 @@ namespace EventReview.Core.Dossier;
 /// A note, attachment or link. <paramref name="Kind"/> is "note", "attachment" or "link";
 /// <paramref name="ContentSha256"/> hashes the note's UTF-8 text, the file's bytes or the link's URL.
 /// For an attachment, <paramref name="AttachmentPath"/> is where its bytes are in the ZIP (<c>attachments/&lt;sha256&gt;</c>).
+/// <paramref name="Role"/> is an attachment's stored role word ("strain:KP"), null when none was recorded (and in dossiers made before roles).
 /// </summary>
 public sealed record DossierEvidence(
     long Id,
@@ -18,4 +19,5 @@ public sealed record DossierEvidence(
     string AddedBy,
     string AddedByName,
     string AddedAtUtc,
-    long AddedAtUtcTicks);
+    long AddedAtUtcTicks,
+    string? Role = null);

@@ -69,7 +69,7 @@ internal static class DossierRecordCheck
             }
 
             rows.AddRange(i.Evidence.Select(e => new StoredRow("evidence", i.Key,
-                EvidenceItem.ComputeSeal(Member(e.Kind), e.ContentSha256, e.FileName, e.SizeBytes, e.Url, e.AddedBy, e.AddedByName, e.AddedAtUtcTicks),
+                EvidenceItem.ComputeSeal(Member(e.Kind), e.ContentSha256, e.FileName, e.SizeBytes, e.Url, e.AddedBy, e.AddedByName, e.AddedAtUtcTicks, e.Role),
                 EvidenceItem.ComputeDetailSha256(e.Text, e.ContentType), false, null, $"{e.Kind} {e.Id} added by {e.AddedByName} at {e.AddedAtUtc}")));
             rows.AddRange(i.Computations.Select(r => new StoredRow("computation", i.Key,
                 ComputationRecord.ComputeSeal(ComputationRecord.ComputeContentSha256(r.Kind, r.ParametersJson, r.InputFingerprint, r.ToolVersion, r.ResultJson, r.Verdict),

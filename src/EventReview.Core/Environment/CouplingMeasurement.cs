@@ -2,6 +2,7 @@ using System.Globalization;
 using EventReview.Core.Signal;
 using EventReview.Core.Signal.Filters;
 using EventReview.Core.Time;
+using EventReview.Core.Formatting;
 
 namespace EventReview.Core.Environment;
 
@@ -34,7 +35,7 @@ public static class CouplingMeasurement
         }
 
         var text = string.Create(CultureInfo.InvariantCulture,
-            $"peak |h| {peak:0.###e+0} of the strain band-passed to {bandLowHz:0.#}-{high:0.#} Hz within ±{halfWindowSeconds:0.###} s of the arrival (includes detector noise)");
+            $"peak |h| {ScientificFormat.Format(peak, 4)} of the strain band-passed to {bandLowHz:0.#}-{high:0.#} Hz within ±{halfWindowSeconds:0.###} s of the arrival (includes detector noise)");
         return new MeasuredAmplitude(peak, text);
     }
 
@@ -73,7 +74,7 @@ public static class CouplingMeasurement
         }
 
         var text = string.Create(CultureInfo.InvariantCulture,
-            $"RMS {rms:0.###e+0} of the sensor series band-passed to {bandLowHz:0.#}-{high:0.#} Hz, {n / sensor.SampleRateHz:0.#} s outside ±{excludeHalfWindowSeconds:0.###} s of the arrival");
+            $"RMS {ScientificFormat.Format(rms, 4)} of the sensor series band-passed to {bandLowHz:0.#}-{high:0.#} Hz, {n / sensor.SampleRateHz:0.#} s outside ±{excludeHalfWindowSeconds:0.###} s of the arrival");
         return new MeasuredAmplitude(rms, text);
     }
 

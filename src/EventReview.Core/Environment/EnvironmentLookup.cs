@@ -2,6 +2,7 @@ using System.Globalization;
 using EventReview.Core.Statistics;
 using EventReview.Core.Time;
 using EventReview.Core.Verdicts;
+using EventReview.Core.Formatting;
 
 namespace EventReview.Core.Environment;
 
@@ -76,7 +77,7 @@ public static class EnvironmentLookup
                 if (concern)
                 {
                     reasons.Add(string.Create(CultureInfo.InvariantCulture,
-                        $"trigger of {key} ({kind.ToString().ToLowerInvariant()}, SNR {trig.Snr:G4}) at {offset:+0.000;-0.000} s, safety {(safe is null ? "unknown" : "safe")}"));
+                        $"trigger of {key} ({kind.ToString().ToLowerInvariant()}, SNR {ScientificFormat.Format(trig.Snr, 4)}) at {offset:+0.000;-0.000} s, safety {(safe is null ? "unknown" : "safe")}"));
                 }
 
                 if (coupling?.Flagged == true)
@@ -176,9 +177,9 @@ public static class EnvironmentLookup
     private static string CandidateText(CouplingOptions c)
     {
         var measured = c.MeasuredStrainAmplitudes is { Count: > 0 } m
-            ? "read from strain data at " + string.Join(", ", m.Select(kv => string.Create(CultureInfo.InvariantCulture, $"{kv.Key} {kv.Value:G4}")))
+            ? "read from strain data at " + string.Join(", ", m.Select(kv => string.Create(CultureInfo.InvariantCulture, $"{kv.Key} {ScientificFormat.Format(kv.Value, 4)}")))
             : null;
-        var typed = c.CandidateStrainAmplitude is { } h ? string.Create(CultureInfo.InvariantCulture, $"typed {h:G4}") : "none typed";
+        var typed = c.CandidateStrainAmplitude is { } h ? string.Create(CultureInfo.InvariantCulture, $"typed {ScientificFormat.Format(h, 4)}") : "none typed";
         return measured is null ? typed : $"{measured}; elsewhere {typed}";
     }
 

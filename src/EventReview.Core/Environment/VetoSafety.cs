@@ -3,6 +3,7 @@ using EventReview.Core.Injections;
 using EventReview.Core.Statistics;
 using EventReview.Core.Time;
 using EventReview.Core.Verdicts;
+using EventReview.Core.Formatting;
 
 namespace EventReview.Core.Environment;
 
@@ -91,10 +92,10 @@ public static class VetoSafety
         var expected = q.Sum();
         var safe = probability >= threshold;
         var numbers = string.Create(Inv,
-            $"{coincident} of {q.Length} injections coincident, {expected:0.###} expected by chance (q = {q.Average():0.####} per injection, R = {rate:0.####} Hz away from the injections); P(K ≥ {coincident}) = {probability:0.###e+0}");
+            $"{coincident} of {q.Length} injections coincident, {expected:0.###} expected by chance (q = {q.Average():0.####} per injection, R = {rate:0.####} Hz away from the injections); P(K ≥ {coincident}) = {ScientificFormat.Format(probability, 4)}");
         var judgement = safe
-            ? new Judgement(Verdict.VetoSafe, $"{ChannelName.Qualified(site.Code, channel)} safe: {numbers} ≥ {threshold:G3}")
-            : new Judgement(Verdict.VetoUnsafe, $"{ChannelName.Qualified(site.Code, channel)} unsafe, it responds to injections and must not veto: {numbers} < {threshold:G3}");
+            ? new Judgement(Verdict.VetoSafe, $"{ChannelName.Qualified(site.Code, channel)} safe: {numbers} ≥ {ScientificFormat.Format(threshold, 3)}")
+            : new Judgement(Verdict.VetoUnsafe, $"{ChannelName.Qualified(site.Code, channel)} unsafe, it responds to injections and must not veto: {numbers} < {ScientificFormat.Format(threshold, 3)}");
         return new ChannelSafety(site.Code, channel, q.Length, coincident, expected, q.Average(), probability, safe, rate, rateTriggers, site.Exposure,
             deadtime, deadFraction, judgement, sameQ ? null : "injection durations differ: Poisson-binomial over each injection's own q");
     }
@@ -106,11 +107,11 @@ public static class VetoSafety
         if (unsafeOnes.Count > 0)
         {
             return new Judgement(Verdict.VetoUnsafe, string.Create(Inv,
-                $"{unsafeOnes.Count} of {tested} tested channels respond to injections (binomial P < {threshold:G3}) and must not be used to veto: {string.Join(", ", unsafeOnes.Select(c => ChannelName.Qualified(c.Site, c.Channel)))}"));
+                $"{unsafeOnes.Count} of {tested} tested channels respond to injections (binomial P < {ScientificFormat.Format(threshold, 3)}) and must not be used to veto: {string.Join(", ", unsafeOnes.Select(c => ChannelName.Qualified(c.Site, c.Channel)))}"));
         }
 
         return tested > 0
-            ? new Judgement(Verdict.VetoSafe, string.Create(Inv, $"none of {tested} tested channels responds to injections (every binomial P ≥ {threshold:G3})"))
+            ? new Judgement(Verdict.VetoSafe, string.Create(Inv, $"none of {tested} tested channels responds to injections (every binomial P ≥ {ScientificFormat.Format(threshold, 3)})"))
             : new Judgement(Verdict.NotRun, "no channel could be tested (no performed injection, or no rate)");
     }
 

@@ -1,3 +1,4 @@
+using EventReview.Core.Evidence.Roles;
 using EventReview.Core.Inputs;
 
 namespace EventReview.Core.Evidence;
@@ -16,8 +17,10 @@ public sealed class EvidenceItem
         ContentSha256 = string.Empty;
     }
 
-    private EvidenceItem(EvidenceKind kind, string text, string contentSha256, string? fileName, string? contentType, long? sizeBytes, string? url, Cases.Actor by, DateTimeOffset at)
+    private EvidenceItem(EvidenceKind kind, string text, string contentSha256, string? fileName, string? contentType, long? sizeBytes, string? url, Cases.Actor by, DateTimeOffset at,
+        string? role = null)
     {
+        Role = role;
         Kind = kind;
         Text = text;
         ContentSha256 = contentSha256;
@@ -57,6 +60,15 @@ public sealed class EvidenceItem
     /// <summary>Absolute http or https URL of a link; null for notes and attachments.</summary>
     public string? Url { get; private set; }
 
+    /// <summary>
+    /// An attachment's role as stored (<see cref="FileRole.Word"/>: "strain:KP", "dq-segments"), given or confirmed at upload;
+    /// null for notes, links and attachments stored before roles existed. Sealed with the row (seal version 2).
+    /// </summary>
+    public string? Role { get; private set; }
+
+    /// <summary>The role read from <see cref="Role"/>, or null when none was stored.</summary>
+    public FileRole? FileRole => Roles.FileRole.TryParse(Role);
+
     /// <summary>User id of whoever added the evidence.</summary>
     public string AddedBy { get; private set; }
 
@@ -68,16 +80,26 @@ public sealed class EvidenceItem
 
     /// <summary>
     /// SHA-256 over this row's canonical content (version 1: kind, content hash, file name, size, URL, who added it and
-    /// the UTC ticks of when), recorded in the case timeline when the evidence is added, so that a later edit of the row
-    /// is caught by verification.
+    /// the UTC ticks of when; version 2, for a row with a <see cref="Role"/>: the same fields followed by the role),
+    /// recorded in the case timeline when the evidence is added, so that a later edit of the row is caught by
+    /// verification. Rows without a role keep version 1, so rows stored before roles existed still verify.
     /// </summary>
-    public string Seal() => ComputeSeal(Kind.ToString(), ContentSha256, FileName, SizeBytes, Url, AddedBy, AddedByName, AddedAt.UtcTicks);
+    public string Seal() => ComputeSeal(Kind.ToString(), ContentSha256, FileName, SizeBytes, Url, AddedBy, AddedByName, AddedAt.UtcTicks, Role);
 
-    /// <summary>The seal (see <see cref="Seal"/>) from plain values; <paramref name="kind"/> is the member name ("Note", "Attachment", "Link").</summary>
-    public static string ComputeSeal(string kind, string contentSha256, string? fileName, long? sizeBytes, string? url, string addedBy, string addedByName, long addedUtcTicks) =>
-        Hashing.Sha256Hex(string.Join('\n', "eventreview-evidence-row-v1", kind, contentSha256, fileName ?? string.Empty,
+    /// <summary>
+    /// The seal (see <see cref="Seal"/>) from plain values; <paramref name="kind"/> is the member name ("Note", "Attachment", "Link"),
+    /// <paramref name="role"/> the stored role word (null: version 1, without it).
+    /// </summary>
+    public static string ComputeSeal(string kind, string contentSha256, string? fileName, long? sizeBytes, string? url, string addedBy, string addedByName, long addedUtcTicks,
+        string? role = null)
+    {
+        string[] fields = [kind, contentSha256, fileName ?? string.Empty,
             sizeBytes?.ToString(System.Globalization.CultureInfo.InvariantCulture) ?? string.Empty, url ?? string.Empty, addedBy, addedByName,
-            addedUtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture)));
+            addedUtcTicks.ToString(System.Globalization.CultureInfo.InvariantCulture)];
+        return role is null
+            ? Hashing.Sha256Hex(string.Join('\n', ["eventreview-evidence-row-v1", .. fields]))
+            : Hashing.Sha256Hex(string.Join('\n', ["eventreview-evidence-row-v2", .. fields, role]));
+    }
 
     /// <summary>
     /// SHA-256 over what the seal does not cover (version 1: the text, i.e. a link's title or a file's description, and
@@ -108,9 +130,13 @@ public sealed class EvidenceItem
         return new EvidenceItem(EvidenceKind.Note, markdown, Hashing.Sha256Hex(markdown), null, null, null, null, by, at);
     }
 
-    /// <summary>An attachment already stored under its SHA-256; <paramref name="fileName"/> is kept for display only.</summary>
+    /// <summary>
+    /// An attachment already stored under its SHA-256; <paramref name="fileName"/> is kept for display only, <paramref name="role"/>
+    /// says which check input it is (null: none recorded).
+    /// </summary>
     /// <exception cref="ArgumentException">When the hash, size, content type or description is invalid (see <see cref="CheckAttachmentFields"/>).</exception>
-    public static EvidenceItem Attachment(string fileName, string contentType, long sizeBytes, string sha256, string description, Cases.Actor by, DateTimeOffset at)
+    public static EvidenceItem Attachment(string fileName, string contentType, long sizeBytes, string sha256, string description, Cases.Actor by, DateTimeOffset at,
+        FileRole? role = null)
     {
         if (!Hashing.IsSha256Hex(sha256))
         {
@@ -125,7 +151,7 @@ public sealed class EvidenceItem
         CheckAttachmentFields(contentType, description);
         var safeName = SafeFileName.From(fileName);
 
-        return new EvidenceItem(EvidenceKind.Attachment, description ?? string.Empty, sha256, safeName, contentType, sizeBytes, null, by, at);
+        return new EvidenceItem(EvidenceKind.Attachment, description ?? string.Empty, sha256, safeName, contentType, sizeBytes, null, by, at, role?.Word);
     }
 
     /// <summary>

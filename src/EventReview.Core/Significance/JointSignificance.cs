@@ -1,5 +1,6 @@
 using System.Globalization;
 using EventReview.Core.Verdicts;
+using EventReview.Core.Formatting;
 
 namespace EventReview.Core.Significance;
 
@@ -36,11 +37,11 @@ public static class JointSignificance
         var band = SignificanceBand.Of(figures.Sigma, figures.SigmaIsBound);
         var inv = CultureInfo.InvariantCulture;
         var contributions = string.Join("; ", parts.Select(p => string.Create(inv,
-            $"{p.Type.Name} {(p.Figures.FarIsBound ? "< " : string.Empty)}{p.Figures.FarHz:0.##e+0} Hz ({p.Type.Louder:N0} as loud in {p.Type.BackgroundSeconds:0.##e+0} s)")));
+            $"{p.Type.Name} {(p.Figures.FarIsBound ? "< " : string.Empty)}{ScientificFormat.Format(p.Figures.FarHz, 3)} Hz ({p.Type.Louder:N0} as loud in {ScientificFormat.Format(p.Type.BackgroundSeconds, 3)} s)")));
         var judgement = band == Verdict.Concern
             ? new Judgement(Verdict.Concern, $"{what}: nothing as loud in any type, but the sum of their bounds only supports {SignificanceText.FapSigma(figures, types.Max(t => t.ObservingSeconds))}; the backgrounds are too short ({contributions}).")
             : new Judgement(band, string.Create(inv,
-                $"{what}: {VerdictWords.Word(band)}, FAR {(figures.FarIsBound ? "< " : string.Empty)}{far:0.##e+0} Hz summed over the types ({contributions}), FAP {(figures.FapIsBound ? "< " : string.Empty)}{SignificanceText.Probability(figures.Fap)} (expected false alarms {expected:0.##e+0}), {(figures.SigmaIsBound ? "≥ " : string.Empty)}{figures.Sigma:F2}σ. A statement of significance, not a pass or fail."));
+                $"{what}: {VerdictWords.Word(band)}, FAR {(figures.FarIsBound ? "< " : string.Empty)}{ScientificFormat.Format(far, 3)} Hz summed over the types ({contributions}), FAP {(figures.FapIsBound ? "< " : string.Empty)}{SignificanceText.Probability(figures.Fap)} (expected false alarms {ScientificFormat.Format(expected, 3)}), {(figures.SigmaIsBound ? "≥ " : string.Empty)}{figures.Sigma:F2}σ. A statement of significance, not a pass or fail."));
         return new JointSignificanceResult(candidateStatistic, [.. parts.Select(p => new JointTypeContribution(p.Type.Name, p.Type.Louder, p.Type.BackgroundSeconds,
             p.Type.ObservingSeconds, p.Figures.FarHz, p.Figures.FarIsBound))], figures, expected, judgement,
         [

@@ -1,6 +1,7 @@
 using System.Globalization;
 using EventReview.Core.Statistics;
 using EventReview.Core.Verdicts;
+using EventReview.Core.Formatting;
 
 namespace EventReview.Core.Significance;
 
@@ -51,7 +52,7 @@ public static class SignificanceBand
         if (band == Verdict.Concern)
         {
             return new Judgement(Verdict.Concern, string.Create(Inv,
-                $"{what}: nothing in the background is as loud, but the background ({backgroundSeconds:0.##e+0} s, {backgroundSeconds / observingSeconds:0.#} × T_obs) can only show {figures}; 3σ needs at least {BackgroundMultipleFor(3):N0} × T_obs (more slides, a longer span, or a shorter T_obs)."));
+                $"{what}: nothing in the background is as loud, but the background ({ScientificFormat.Format(backgroundSeconds, 3)} s, {backgroundSeconds / observingSeconds:0.#} × T_obs) can only show {figures}; 3σ needs at least {BackgroundMultipleFor(3):N0} × T_obs (more slides, a longer span, or a shorter T_obs)."));
         }
 
         return new Judgement(band, string.Create(Inv,

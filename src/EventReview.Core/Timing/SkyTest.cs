@@ -1,5 +1,6 @@
 using System.Globalization;
 using EventReview.Core.Statistics;
+using EventReview.Core.Formatting;
 
 namespace EventReview.Core.Timing;
 
@@ -17,7 +18,7 @@ internal sealed record SkyTest(SkyFit Fit, int DegreesOfFreedom, double? PValue,
             var p = ChiSquare.UpperTail(chi2, dof);
             var passes = p >= fap;
             var note = string.Create(ci,
-                $"best sky direction over {siteCount} sites: χ² = {chi2:0.##} with {dof} degree{(dof == 1 ? string.Empty : "s")} of freedom, p = {p:G3} {(passes ? "≥" : "<")} {fap:G3}")
+                $"best sky direction over {siteCount} sites: χ² = {chi2:0.##} with {dof} degree{(dof == 1 ? string.Empty : "s")} of freedom, p = {ScientificFormat.Format(p, 3)} {(passes ? "≥" : "<")} {ScientificFormat.Format(fap, 3)}")
                 + (passes ? string.Empty : ": no single direction fits the arrivals within the sites' timing uncertainties") + mirror;
             return new SkyTest(fit, dof, p, false, passes, note);
         }
@@ -31,6 +32,6 @@ internal sealed record SkyTest(SkyFit Fit, int DegreesOfFreedom, double? PValue,
         var bound = ChiSquare.UpperTail(chi2, 1);
         var ok = bound >= fap;
         return new SkyTest(fit, 0, bound, true, ok, string.Create(ci,
-            $"three sites whose rings do not meet: the closest direction leaves χ² = {chi2:0.##} (RMS {fit.MinimalResidualSeconds * 1e3:0.000###} ms); 0 degrees of freedom, so no residual test proper; judged with 1 degree of freedom instead (a conservative p-value), p = {bound:G3} {(ok ? "≥" : "<")} {fap:G3}"));
+            $"three sites whose rings do not meet: the closest direction leaves χ² = {chi2:0.##} (RMS {fit.MinimalResidualSeconds * 1e3:0.000###} ms); 0 degrees of freedom, so no residual test proper; judged with 1 degree of freedom instead (a conservative p-value), p = {ScientificFormat.Format(bound, 3)} {(ok ? "≥" : "<")} {ScientificFormat.Format(fap, 3)}"));
     }
 }

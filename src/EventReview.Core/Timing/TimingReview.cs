@@ -2,6 +2,7 @@ using System.Globalization;
 using EventReview.Core.Antenna;
 using EventReview.Core.Network;
 using EventReview.Core.Verdicts;
+using EventReview.Core.Formatting;
 
 namespace EventReview.Core.Timing;
 
@@ -77,7 +78,7 @@ public static class TimingReview
             $"{timing.Pairs.Count(x => x.Consistent)} of {timing.Pairs.Count} pairs within window; tightest {worst.A}-{worst.B}: observed {worst.ObservedSeconds * 1e3:+0.00;-0.00} ms (allowed ±{worst.AllowedSeconds * 1e3:F2} ms: light-travel {worst.LightTravelSeconds * 1e3:F2} ms + {timing.KSigma:0.#}σ timing).");
         if (timing.DegreesOfFreedom is > 0 && timing.Chi2 is { } chi2 && timing.PValue is { } p)
         {
-            text += string.Create(ci, $" Sky fit χ² = {chi2:0.##}, {timing.DegreesOfFreedom} dof, p = {p:G2}.");
+            text += string.Create(ci, $" Sky fit χ² = {chi2:0.##}, {timing.DegreesOfFreedom} dof, p = {ScientificFormat.Format(p, 2)}.");
         }
         else if (timing.DegreesOfFreedom == 0)
         {

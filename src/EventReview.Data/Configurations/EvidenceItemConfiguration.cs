@@ -17,5 +17,7 @@ public sealed class EvidenceItemConfiguration : IEntityTypeConfiguration<Evidenc
         b.Property(e => e.Url).HasMaxLength(2000);
         b.Property(e => e.AddedBy).HasMaxLength(64);
         b.Property(e => e.AddedByName).HasMaxLength(200);
+        b.Property(e => e.Role).HasMaxLength(EventReview.Core.Evidence.Roles.FileRole.MaxWordLength);
+        b.Ignore(e => e.FileRole);
     }
 }

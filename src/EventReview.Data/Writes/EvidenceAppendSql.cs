@@ -34,8 +34,8 @@ public static class EvidenceAppendSql
     private const string LockCaseSql = """SELECT 1 FROM "Cases" WHERE "Id" = @case FOR UPDATE""";
 
     private const string InsertEvidenceSql = """
-        INSERT INTO "Evidence" ("ChecklistItemId", "Kind", "Text", "ContentSha256", "FileName", "ContentType", "SizeBytes", "Url", "AddedBy", "AddedByName", "AddedAt")
-        VALUES (@item, @kind, @text, @sha, @file, @type, @size, @url, @by, @byName, @at)
+        INSERT INTO "Evidence" ("ChecklistItemId", "Kind", "Text", "ContentSha256", "FileName", "ContentType", "SizeBytes", "Url", "AddedBy", "AddedByName", "AddedAt", "Role")
+        VALUES (@item, @kind, @text, @sha, @file, @type, @size, @url, @by, @byName, @at, @role)
         RETURNING "Id"
         """;
 
@@ -121,7 +121,8 @@ public static class EvidenceAppendSql
             ("@url", evidence.Url),
             ("@by", evidence.AddedBy),
             ("@byName", evidence.AddedByName),
-            ("@at", unit.Time(evidence.AddedAt)));
+            ("@at", unit.Time(evidence.AddedAt)),
+            ("@role", evidence.Role));
         var evidenceId = Convert.ToInt32(await insert.ExecuteScalarAsync(ct), System.Globalization.CultureInfo.InvariantCulture);
 
         var e = outcome.Entry;

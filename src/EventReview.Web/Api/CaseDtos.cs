@@ -39,13 +39,13 @@ public static class CaseDtos
     public sealed record Page<T>(int Total, int Offset, int Limit, IReadOnlyList<T> Items);
 
     public sealed record Evidence(int Id, string Kind, string? Text, string? FileName, string? ContentType, long? SizeBytes, string? Url, string Sha256,
-        string AddedBy, DateTimeOffset AddedAt, string? Download);
+        string AddedBy, DateTimeOffset AddedAt, string? Download, string? Role);
 
     /// <summary>Answer to a new note: its evidence id, SHA-256, the item's state and new evidence fingerprint.</summary>
     public sealed record NoteAdded(int Id, string Sha256, string ItemState, string Fingerprint);
 
     /// <summary>Answer to a new file: its evidence id, SHA-256, size in bytes, cleaned file name and the item's new fingerprint.</summary>
-    public sealed record FileAdded(int Id, string Sha256, long SizeBytes, string FileName, string Fingerprint);
+    public sealed record FileAdded(int Id, string Sha256, long SizeBytes, string FileName, string Fingerprint, string? Role, string? RoleGuessedFrom);
 
     public sealed record TimelineEntry(int Sequence, DateTimeOffset At, string Actor, string Kind, string? ItemKey, string Text, string Hash);
 
@@ -61,7 +61,7 @@ public static class CaseDtos
 
     public static Evidence Of(EventReview.Core.Evidence.EvidenceItem e) => new(e.Id, EventReview.Core.Evidence.EvidenceFingerprint.KindName(e.Kind),
         e.Kind == EventReview.Core.Evidence.EvidenceKind.Note ? e.Text : NullIfEmpty(e.Text), e.FileName, e.ContentType, e.SizeBytes, e.Url, e.ContentSha256, e.AddedByName, e.AddedAt,
-        e.Kind == EventReview.Core.Evidence.EvidenceKind.Attachment ? $"/files/{e.ContentSha256}?name={Uri.EscapeDataString(e.FileName ?? e.ContentSha256)}" : null);
+        e.Kind == EventReview.Core.Evidence.EvidenceKind.Attachment ? $"/files/{e.ContentSha256}?name={Uri.EscapeDataString(e.FileName ?? e.ContentSha256)}" : null, e.Role);
 
     public static TimelineEntry Of(ActivityEntry a) => new(a.Sequence, a.At, a.ActorName, a.Kind, a.ItemKey, a.Text, a.Hash);
 

@@ -128,14 +128,25 @@ public static class CaseEndpoints
                     throw new MalformedRequestException("description", "The form has more than one 'description' field; send one.");
                 }
 
+                if (form["role"].Count > 1)
+                {
+                    throw new MalformedRequestException("role", "The form has more than one 'role' field; send one.");
+                }
+
+                // The role is checked before the bytes are stored, so a refused upload leaves nothing behind.
+                var role = string.IsNullOrWhiteSpace(form["role"].ToString()) ? null : EventReview.Core.Evidence.Roles.FileRole.Parse(form["role"].ToString());
                 await using var stream = file.OpenReadStream();
                 var r = await cases.AppendAttachmentAsync(user, id, key, stream, file.FileName, string.IsNullOrWhiteSpace(file.ContentType) ? "application/octet-stream" : file.ContentType,
-                    form["description"].ToString(), max);
-                return Results.Created(EvidencePath(id, key), new CaseDtos.FileAdded(r.EvidenceId, r.ContentSha256, r.SizeBytes ?? 0, r.FileName ?? string.Empty, r.ItemFingerprint));
+                    form["description"].ToString(), max, role);
+                return Results.Created(EvidencePath(id, key), new CaseDtos.FileAdded(r.EvidenceId, r.ContentSha256, r.SizeBytes ?? 0, r.FileName ?? string.Empty, r.ItemFingerprint, r.Role?.Word, r.RoleGuess));
             })).RequireAuthorization(Policies.AddEvidence).DisableAntiforgery()
-              .WithDescription("Attach a file (multipart field 'file', optional 'description'); stored by SHA-256 (current sign-offs become stale).")
+              .WithDescription("Attach a file (multipart field 'file', optional 'description' and 'role', e.g. strain:KP or dq-segments; without a role it is guessed from the content and the answer says from what); stored by SHA-256 (current sign-offs become stale).")
               .WithMetadata(new ApiDocumentation.MultipartUpload("file", "The file, any type; stored as opaque bytes and served back only as a download.",
-                  new Dictionary<string, string> { ["description"] = "Optional one-line description shown beside the file." }))
+                  new Dictionary<string, string>
+                  {
+                      ["description"] = "Optional one-line description shown beside the file.",
+                      ["role"] = "Optional role of the file: strain:SITE, dq-segments, triggers, and the others listed in docs/formats/csv-inputs.md; guessed from the content when left out.",
+                  }))
               .Produces<CaseDtos.FileAdded>(StatusCodes.Status201Created)
               .Documented("addAttachment", "Attach a file", Tags.Evidence, false, 400, 404, 409, 413, 415, 422);
 

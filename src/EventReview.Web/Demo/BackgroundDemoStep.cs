@@ -1,5 +1,6 @@
 using System.Text;
 using EventReview.Core.Evidence;
+using EventReview.Core.Evidence.Roles;
 using EventReview.Core.Time;
 using EventReview.Web.Services;
 using EventReview.Web.Services.Checks;
@@ -42,9 +43,9 @@ public sealed class BackgroundDemoStep(CaseService cases, BackgroundCheckService
         foreach (var a in c.Arrivals.OrderBy(a => a.SiteCode))
         {
             var files = BackgroundDemoData.Simulate(a.SiteCode, seed++, start, end, a.Arrival, a.Snr);
-            var trigSha = await Attach(user, caseId, $"{a.SiteCode}-triggers.csv", files.TriggersCsv,
+            var trigSha = await Attach(user, caseId, $"{a.SiteCode}-triggers.csv", new FileRole(FileRoleKind.SearchTriggers, a.SiteCode), files.TriggersCsv,
                 $"Simulated {a.SiteCode} trigger list (demo): {files.Triggers:N0} triggers over 3 days, Poisson {BackgroundDemoData.RateHz} Hz, fixed seed.", ct);
-            var segSha = await Attach(user, caseId, $"{a.SiteCode}-segments.csv", files.SegmentsCsv,
+            var segSha = await Attach(user, caseId, $"{a.SiteCode}-segments.csv", new FileRole(FileRoleKind.AnalysedTime, a.SiteCode), files.SegmentsCsv,
                 $"Simulated {a.SiteCode} analysed time (demo): {files.Segments} segments with gaps.", ct);
             picks.Add(new BackgroundSiteFiles(a.SiteCode, trigSha, segSha));
         }
@@ -54,11 +55,11 @@ public sealed class BackgroundDemoStep(CaseService cases, BackgroundCheckService
     }
 
     /// <summary>Attaches the text as a file; returns its SHA-256 (the attachment store's key).</summary>
-    private async Task<string> Attach(System.Security.Claims.ClaimsPrincipal user, int caseId, string name, string text, string description, CancellationToken ct)
+    private async Task<string> Attach(System.Security.Claims.ClaimsPrincipal user, int caseId, string name, FileRole role, string text, string description, CancellationToken ct)
     {
         var bytes = Encoding.UTF8.GetBytes(text);
         using var stream = new MemoryStream(bytes);
-        await cases.AddAttachmentAsync(user, caseId, ItemKey, stream, name, "text/csv", description, long.MaxValue, ct);
+        await cases.AddAttachmentAsync(user, caseId, ItemKey, stream, name, "text/csv", description, long.MaxValue, role, ct);
         return Hashing.Sha256Hex(bytes);
     }
 }

@@ -1,5 +1,6 @@
 using System.Security.Claims;
 using System.Text;
+using EventReview.Core.Evidence.Roles;
 using EventReview.Core.Injections;
 using EventReview.Core.Time;
 using EventReview.Web.Services;
@@ -37,12 +38,12 @@ public sealed class LocalCausesDemoStep(CaseService cases, EnvironmentCheckServi
         var c = await cases.GetAsync(who, id, ct);
         var arrivals = c.Arrivals.ToDictionary(a => a.SiteCode, a => a.Arrival);
         var sites = arrivals.Keys.Order(StringComparer.Ordinal).ToList();
-        var segments = await Attach(who, id, "state.dq-segments", "dq-segments-ER-C-0142.csv", LocalCausesDemoFiles.Segments(c.Gps, sites), "Data-quality segments of the three sites, ±2 h (invented demo data).", ct);
-        var triggers = await Attach(who, id, "env.triggers", "triggers-ER-C-0142.csv", LocalCausesDemoFiles.Triggers(c.Gps, arrivals, "AB", 142), "Auxiliary and environmental triggers, ±1 h (invented demo data).", ct);
-        var inventory = await Attach(who, id, "env.triggers", "sensor-inventory.csv", LocalCausesDemoFiles.Inventory(sites, "AB"), "Sensor inventory of the three sites (invented).", ct);
-        await Attach(who, id, "env.coupling", LocalCausesDemoFiles.CouplingFileName("AB"), LocalCausesDemoFiles.MagneticCoupling(), "Magnetic coupling function of AB's vault magnetometer, strain per tesla (invented).", ct);
-        await Attach(who, id, "env.coupling", LocalCausesDemoFiles.SensorDataFileName("AB"), LocalCausesDemoFiles.MagnetometerSeries(c.Gps, arrivals["AB"], 1421), "AB vault magnetometer, 32 s at 512 Hz around the candidate, tesla (invented demo data).", ct);
-        var log = await Attach(who, id, "injection.system-records", "injection-log-ER-C-0142.csv", LocalCausesDemoFiles.InjectionLog(c.Gps, sites), "Injection log of the three sites, ±2 h (invented demo data).", ct);
+        var segments = await Attach(who, id, "state.dq-segments", "dq-segments-ER-C-0142.csv", FileRoleKind.DataQualitySegments, LocalCausesDemoFiles.Segments(c.Gps, sites), "Data-quality segments of the three sites, ±2 h (invented demo data).", ct);
+        var triggers = await Attach(who, id, "env.triggers", "triggers-ER-C-0142.csv", FileRoleKind.AuxiliaryTriggers, LocalCausesDemoFiles.Triggers(c.Gps, arrivals, "AB", 142), "Auxiliary and environmental triggers, ±1 h (invented demo data).", ct);
+        var inventory = await Attach(who, id, "env.triggers", "sensor-inventory.csv", FileRoleKind.SensorInventory, LocalCausesDemoFiles.Inventory(sites, "AB"), "Sensor inventory of the three sites (invented).", ct);
+        await Attach(who, id, "env.coupling", LocalCausesDemoFiles.CouplingFileName("AB"), FileRoleKind.CouplingFunction, LocalCausesDemoFiles.MagneticCoupling(), "Magnetic coupling function of AB's vault magnetometer, strain per tesla (invented).", ct);
+        await Attach(who, id, "env.coupling", LocalCausesDemoFiles.SensorDataFileName("AB"), FileRoleKind.SensorSeries, LocalCausesDemoFiles.MagnetometerSeries(c.Gps, arrivals["AB"], 1421), "AB vault magnetometer, 32 s at 512 Hz around the candidate, tesla (invented demo data).", ct);
+        var log = await Attach(who, id, "injection.system-records", "injection-log-ER-C-0142.csv", FileRoleKind.InjectionLog, LocalCausesDemoFiles.InjectionLog(c.Gps, sites), "Injection log of the three sites, ±2 h (invented demo data).", ct);
 
         var strain = CaseFiles.List(await cases.GetAsync(who, id, ct)).FirstOrDefault(f => f.FileName == "AB-strain.txt")?.Sha256;
         var p = DemoEnvironmentParameters(segments, triggers, inventory, log) with { StrainShas = strain is null ? null : new Dictionary<string, string> { ["AB"] = strain } };
@@ -54,9 +55,9 @@ public sealed class LocalCausesDemoStep(CaseService cases, EnvironmentCheckServi
         await injections.RunLogAsync(who, id, "injection.system-records", new InjectionCheckParameters(log), ct);
 
         var (input, output) = LocalCausesDemoFiles.ChainStage(c.Gps, 1420);
-        var model = await Attach(who, id, "chain.residual", "chain-stage1-model.json", LocalCausesDemoFiles.StageModelJson(), "Stage model: two-pole low-pass at 100 Hz (invented).", ct);
-        var x = await Attach(who, id, "chain.residual", "chain-stage1-input.txt", input, "Stage 1 recorded input, 32 s at 512 Hz (invented demo data).", ct);
-        var y = await Attach(who, id, "chain.residual", "chain-stage1-output.txt", output, "Stage 1 recorded output (invented demo data).", ct);
+        var model = await Attach(who, id, "chain.residual", "chain-stage1-model.json", FileRoleKind.StageModel, LocalCausesDemoFiles.StageModelJson(), "Stage model: two-pole low-pass at 100 Hz (invented).", ct);
+        var x = await Attach(who, id, "chain.residual", "chain-stage1-input.txt", FileRoleKind.StageInput, input, "Stage 1 recorded input, 32 s at 512 Hz (invented demo data).", ct);
+        var y = await Attach(who, id, "chain.residual", "chain-stage1-output.txt", FileRoleKind.StageOutput, output, "Stage 1 recorded output (invented demo data).", ct);
         await chain.RunAsync(who, id, "chain.residual", new ChainCheckParameters(x, [y], model), null, ct);
 
         var record = LocalCausesDemoFiles.BlindRecord(c.Gps);
@@ -66,7 +67,7 @@ public sealed class LocalCausesDemoStep(CaseService cases, EnvironmentCheckServi
             "**Demo only** — in a real review the record and salt stay with their holders until the end. To try opening the sealed record, pick the attached " +
             "`blind-record-DEMO.csv` (or paste the record below exactly, without a final newline) and enter the salt:\n\n" +
             $"```\n{Encoding.UTF8.GetString(record)}\n```\n\nSalt: `{DemoSalt}`", ct);
-        await Attach(demo.Coordinator, id, "injection.blind-open", "blind-record-DEMO.csv", Encoding.UTF8.GetString(record), "Demo only: the sealed blind-injection record (normally kept by its holders until opening).", ct);
+        await Attach(demo.Coordinator, id, "injection.blind-open", "blind-record-DEMO.csv", FileRoleKind.BlindInjectionRecord, Encoding.UTF8.GetString(record), "Demo only: the sealed blind-injection record (normally kept by its holders until opening).", ct);
     }
 
     private async Task SeedTriageCaseAsync(DemoContext demo, CancellationToken ct)
@@ -76,10 +77,10 @@ public sealed class LocalCausesDemoStep(CaseService cases, EnvironmentCheckServi
         var c = await cases.GetAsync(who, id, ct);
         var arrivals = c.Arrivals.ToDictionary(a => a.SiteCode, a => a.Arrival);
         var sites = arrivals.Keys.Order(StringComparer.Ordinal).ToList();
-        var segments = await Attach(who, id, "triage.state", "dq-segments-ER-C-0157.csv", LocalCausesDemoFiles.Segments(c.Gps, sites), "Data-quality segments, ±2 h (invented demo data).", ct);
-        var triggers = await Attach(who, id, "triage.environment", "triggers-ER-C-0157.csv", LocalCausesDemoFiles.Triggers(c.Gps, arrivals, null, 157), "Auxiliary and environmental triggers, ±1 h (invented demo data).", ct);
-        var inventory = await Attach(who, id, "triage.environment", "sensor-inventory.csv", LocalCausesDemoFiles.Inventory(sites, null), "Sensor inventory (invented).", ct);
-        var log = await Attach(who, id, "triage.injections", "injection-log-ER-C-0157.csv", LocalCausesDemoFiles.InjectionLog(c.Gps, sites), "Injection log, ±2 h (invented demo data).", ct);
+        var segments = await Attach(who, id, "triage.state", "dq-segments-ER-C-0157.csv", FileRoleKind.DataQualitySegments, LocalCausesDemoFiles.Segments(c.Gps, sites), "Data-quality segments, ±2 h (invented demo data).", ct);
+        var triggers = await Attach(who, id, "triage.environment", "triggers-ER-C-0157.csv", FileRoleKind.AuxiliaryTriggers, LocalCausesDemoFiles.Triggers(c.Gps, arrivals, null, 157), "Auxiliary and environmental triggers, ±1 h (invented demo data).", ct);
+        var inventory = await Attach(who, id, "triage.environment", "sensor-inventory.csv", FileRoleKind.SensorInventory, LocalCausesDemoFiles.Inventory(sites, null), "Sensor inventory (invented).", ct);
+        var log = await Attach(who, id, "triage.injections", "injection-log-ER-C-0157.csv", FileRoleKind.InjectionLog, LocalCausesDemoFiles.InjectionLog(c.Gps, sites), "Injection log, ±2 h (invented demo data).", ct);
         var p = DemoEnvironmentParameters(segments, triggers, inventory, log) with { CandidateStrainAmplitude = null, SensorNoiseAmplitude = null };
         await environment.RunAsync(who, id, "triage.environment", p, ct);
         await environment.RunAsync(who, id, "triage.state", p, ct);
@@ -90,12 +91,12 @@ public sealed class LocalCausesDemoStep(CaseService cases, EnvironmentCheckServi
     public static EnvironmentCheckParameters DemoEnvironmentParameters(string segments, string triggers, string? inventory, string? log) =>
         new(segments, triggers, inventory, log, 1.0, new SortedDictionary<string, double> { ["seismic"] = 10, ["weather"] = 10 }, 3600, null, 0.1, 1e-21, 20, 500, 1e-11);
 
-    private async Task<string> Attach(ClaimsPrincipal who, int caseId, string item, string name, string text, string description, CancellationToken ct)
+    private async Task<string> Attach(ClaimsPrincipal who, int caseId, string item, string name, FileRoleKind role, string text, string description, CancellationToken ct)
     {
         var bytes = Encoding.UTF8.GetBytes(text);
         await using var stream = new MemoryStream(bytes);
         var contentType = name.EndsWith(".json", StringComparison.Ordinal) ? "application/json" : name.EndsWith(".csv", StringComparison.Ordinal) ? "text/csv" : "text/plain";
-        await cases.AddAttachmentAsync(who, caseId, item, stream, name, contentType, description, long.MaxValue, ct);
+        await cases.AddAttachmentAsync(who, caseId, item, stream, name, contentType, description, long.MaxValue, new FileRole(role), ct);
         return Core.Evidence.Hashing.Sha256Hex(bytes);
     }
 }

@@ -1,4 +1,5 @@
 using System.Globalization;
+using EventReview.Core.Evidence.Roles;
 using EventReview.Core.Signal.Io;
 using EventReview.Core.Signal.Simulation;
 using EventReview.Web.Services;
@@ -53,7 +54,8 @@ public sealed class OverlapDemoStep(CaseService cases, OverlapCheckService overl
 
             buffer.Position = 0;
             await cases.AddAttachmentAsync(demo.ReviewerA, caseId, ItemKey, buffer, $"{site.Code}-strain.txt", "text/plain",
-                $"Simulated strain at {site.Code}, {DurationSeconds:0} s at {SampleRateHz:0} Hz around the candidate (demo data).", long.MaxValue, ct);
+                $"Simulated strain at {site.Code}, {DurationSeconds:0} s at {SampleRateHz:0} Hz around the candidate (demo data).", long.MaxValue,
+                new FileRole(FileRoleKind.Strain, site.Code), ct);
         }
 
         var c = await cases.GetAsync(demo.ReviewerA, caseId, ct);

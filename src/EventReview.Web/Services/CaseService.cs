@@ -1,6 +1,7 @@
 using System.Security.Claims;
 using EventReview.Core.Cases;
 using EventReview.Core.Evidence;
+using EventReview.Core.Evidence.Roles;
 using EventReview.Core.Time;
 using EventReview.Data;
 using EventReview.Data.Writes;
@@ -195,18 +196,48 @@ public sealed partial class CaseService(IDbContextFactory<AppDbContext> dbFactor
         return AppendAsync(caseId, itemKey, now => EvidenceItem.Note(markdown, actor, now), actor, ct);
     }
 
-    /// <summary>Stores a file content-addressed and attaches it, loading only the one item (see <see cref="AppendNoteAsync"/>).</summary>
+    /// <summary>
+    /// Stores a file content-addressed and attaches it, loading only the one item (see <see cref="AppendNoteAsync"/>). The file
+    /// keeps <paramref name="role"/> when given; otherwise its role is guessed from its first bytes and name
+    /// (<see cref="FileRoleGuesser"/>) and the receipt says so.
+    /// </summary>
     /// <exception cref="AttachmentTooLargeException">When the file exceeds <paramref name="maxBytes"/>.</exception>
     public async Task<EvidenceReceipt> AppendAttachmentAsync(ClaimsPrincipal user, int caseId, string itemKey, Stream content, string fileName, string contentType,
-        string description, long maxBytes, CancellationToken ct = default)
+        string description, long maxBytes, FileRole? role = null, CancellationToken ct = default)
     {
         Permissions.Require(user, Policies.AddEvidence, "add evidence");
         EvidenceItem.CheckAttachmentFields(contentType, description);
         await EnsureItemExistsAsync(caseId, itemKey, ct);
         await EnsureNotClosedAsync(caseId, ct);
         var (sha, length) = await store.SaveAsync(content, maxBytes, ct);
+        var guess = role is null ? await GuessRoleAsync(caseId, fileName, sha, ct) : null;
         var actor = user.ToActor();
-        return await AppendAsync(caseId, itemKey, now => EvidenceItem.Attachment(fileName, contentType, length, sha, description, actor, now), actor, ct);
+        var receipt = await AppendAsync(caseId, itemKey, now => EvidenceItem.Attachment(fileName, contentType, length, sha, description, actor, now, role ?? guess!.Role), actor, ct);
+        return receipt with { Role = role ?? guess!.Role, RoleGuess = guess?.Reason };
+    }
+
+    /// <summary>The role of a stored file guessed from its first bytes and name; the case's sites are read only for per-site roles.</summary>
+    private async Task<FileRoleGuess> GuessRoleAsync(int caseId, string fileName, string sha, CancellationToken ct)
+    {
+        var head = new byte[FileRoleGuesser.HeadBytes];
+        var read = 0;
+        await using (var s = store.Open(sha))
+        {
+            while (s is not null && read < head.Length && await s.ReadAsync(head.AsMemory(read), ct) is var n and > 0)
+            {
+                read += n;
+            }
+        }
+
+        var guess = FileRoleGuesser.Guess(fileName, head.AsSpan(0, read), []);
+        if (!FileRole.IsPerSite(guess.Role.Kind))
+        {
+            return guess;
+        }
+
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        var sites = await db.Cases.AsNoTracking().Where(c => c.Id == caseId).SelectMany(c => c.Arrivals.Select(a => a.SiteCode)).ToListAsync(ct);
+        return FileRoleGuesser.Guess(fileName, head.AsSpan(0, read), sites);
     }
 
     public Task<ReviewCase> AddLinkAsync(ClaimsPrincipal user, int caseId, string itemKey, string url, string title, CancellationToken ct = default)
@@ -219,9 +250,9 @@ public sealed partial class CaseService(IDbContextFactory<AppDbContext> dbFactor
     /// <summary>Stores a file content-addressed, attaches it to the item and returns the whole case afterwards, for the pages.</summary>
     /// <exception cref="AttachmentTooLargeException">When the file exceeds <paramref name="maxBytes"/>.</exception>
     public async Task<ReviewCase> AddAttachmentAsync(ClaimsPrincipal user, int caseId, string itemKey, Stream content, string fileName, string contentType,
-        string description, long maxBytes, CancellationToken ct = default)
+        string description, long maxBytes, FileRole? role = null, CancellationToken ct = default)
     {
-        await AppendAttachmentAsync(user, caseId, itemKey, content, fileName, contentType, description, maxBytes, ct);
+        await AppendAttachmentAsync(user, caseId, itemKey, content, fileName, contentType, description, maxBytes, role, ct);
         return await GetAsync(user, caseId, ct);
     }
 

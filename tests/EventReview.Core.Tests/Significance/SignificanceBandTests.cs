@@ -13,7 +13,7 @@ public class SignificanceBandTests
         Assert.Equal(Verdict.BelowThreeSigma, low.Verdict);
         Assert.Equal(VerdictTone.Neutral, low.Tone);
         Assert.DoesNotContain("consistent", low.Reason, StringComparison.Ordinal);
-        Assert.Contains("FAR 3e-7 Hz", low.Reason, StringComparison.Ordinal);
+        Assert.Contains("FAR 3×10⁻⁷ Hz", low.Reason, StringComparison.Ordinal);
 
         Assert.Equal(Verdict.ThreeToFiveSigma, SignificanceBand.Of(4.2, isLowerBound: false));
         Assert.Equal(Verdict.FiveSigmaOrMore, SignificanceBand.Of(5.0, isLowerBound: false));
@@ -32,9 +32,9 @@ public class SignificanceBandTests
         var f = SignificanceFigures.Compute(500, 0, 1e9, 1e6);
         var j = SignificanceBand.Judge(f, 1e9, 1e6, "AB–KP");
         Assert.Equal(Verdict.Concern, j.Verdict);
-        Assert.Contains("FAR < 2.3e-9 Hz", j.Reason, StringComparison.Ordinal);
+        Assert.Contains("FAR < 2.3×10⁻⁹ Hz", j.Reason, StringComparison.Ordinal);
         Assert.Contains("90 % upper bound", j.Reason, StringComparison.Ordinal);
-        Assert.Contains("FAP < 2.3e-3", j.Reason, StringComparison.Ordinal);
+        Assert.Contains("FAP < 0.0023", j.Reason, StringComparison.Ordinal);
         Assert.Contains("≥ 2.83σ", j.Reason, StringComparison.Ordinal);
         Assert.Equal("background too short", SignificanceBand.Word(f.Sigma, f.SigmaIsBound));
 
@@ -55,8 +55,8 @@ public class SignificanceBandTests
     [Fact]
     public void The_slide_p_value_floor_is_written_with_less_or_equal()
     {
-        Assert.Equal("slide p ≤ 2.5e-4 (floor 1 / (4,000 slides + 1): no slide as loud)", SignificanceText.SlidePValue(1 / 4001.0, 0, 4000));
-        Assert.StartsWith("slide p = 1.25e-3", SignificanceText.SlidePValue(5 / 4001.0, 4, 4000), StringComparison.Ordinal);
+        Assert.Equal("slide p ≤ 2.5×10⁻⁴ (floor 1 / (4,000 slides + 1): no slide as loud)", SignificanceText.SlidePValue(1 / 4001.0, 0, 4000));
+        Assert.StartsWith("slide p = 0.00125", SignificanceText.SlidePValue(5 / 4001.0, 4, 4000), StringComparison.Ordinal);
     }
 
     [Fact]

@@ -116,6 +116,16 @@ public abstract partial class TamperTests
     }
 
     [Fact]
+    public async Task A_file_given_another_role_by_hand_is_caught()
+    {
+        // The role decides which check may read the file, so it is part of the row's seal: a segments list relabelled as
+        // strain would otherwise feed the overlap check unnoticed.
+        await IntrudeAsync($"UPDATE \"Evidence\" SET \"Role\" = 'strain:KX' WHERE \"ChecklistItemId\" = {Item("alpha.one")} AND \"Kind\" = 'Attachment'");
+
+        await CaughtAsync(null, "The file 'plot.png' added by Reviewer Ada", "no signed entry accounts for it");
+    }
+
+    [Fact]
     public async Task A_forged_evidence_row_is_unaccounted_even_when_its_hash_is_right()
     {
         var text = "All checks passed (added later).";

@@ -38,7 +38,7 @@ public sealed class BackgroundResultViewTests(BackgroundAppFactory app) : IClass
             Assert.Contains(p.Plan.Name, text, StringComparison.Ordinal);
             if (p.Result.FarIsBound)
             {
-                Assert.Contains("< " + p.Result.FarHz.ToString("0.##e+0", System.Globalization.CultureInfo.InvariantCulture) + " (90 %)", text, StringComparison.Ordinal);
+                Assert.Contains("< " + EventReview.Core.Formatting.ScientificFormat.Format(p.Result.FarHz) + " (90 %)", text, StringComparison.Ordinal);
                 Assert.Contains("≥ " + p.Result.Sigma.ToString("F2", System.Globalization.CultureInfo.InvariantCulture), text, StringComparison.Ordinal);
             }
             else

@@ -64,15 +64,22 @@ public sealed class InjectionChecksTests(LocalCausesHarness app) : IClassFixture
         Assert.Equal("sealed-record-unopened", refused.Rule);
         await seals.EnsureMayCloseAsync(c, CaseOutcome.Instrumental); // other outcomes are not blocked
 
+        // Nothing of sections 2-6 is signed: opening is refused unless a coordinator writes why (the reason goes into the timeline).
+        var early = await Assert.ThrowsAsync<DomainRuleException>(() => seals.OpenAsync(app.Coordinator, seal.Id, c.Id, "injection.blind-open", record, sealResult.Salt));
+        Assert.Equal("sections-unsigned", early.Rule);
+        Assert.Contains("state.observing-mode", early.Message, StringComparison.Ordinal);
+        Assert.False((await seals.ListAsync()).Single(s => s.Id == seal.Id).IsOpened);
+        const string why = "Test of the opening path: opened before the review is complete, on purpose.";
+
         var wrongSalt = new string(sealResult.Salt.Select(ch => ch == '0' ? '1' : '0').ToArray());
-        var mismatch = await Assert.ThrowsAsync<DomainRuleException>(() => seals.OpenAsync(app.Coordinator, seal.Id, c.Id, "injection.blind-open", record, wrongSalt));
+        var mismatch = await Assert.ThrowsAsync<DomainRuleException>(() => seals.OpenAsync(app.Coordinator, seal.Id, c.Id, "injection.blind-open", record, wrongSalt, overrideReason: why));
         Assert.Equal("commitment-mismatch", mismatch.Rule);
         Assert.Equal(SealedRecordService.MismatchMessage, mismatch.Message);
         Assert.False((await seals.ListAsync()).Single(s => s.Id == seal.Id).IsOpened);
         Assert.Empty((await app.Get<CaseService>().GetAsync(app.Reviewer, c.Id)).Item("injection.blind-open").Computations);
         await Assert.ThrowsAsync<UnauthorizedAccessException>(() => seals.OpenAsync(app.Reviewer, seal.Id, c.Id, "injection.blind-open", record, sealResult.Salt));
 
-        var opened = await seals.OpenAsync(app.Coordinator, seal.Id, c.Id, "injection.blind-open", record, sealResult.Salt);
+        var opened = await seals.OpenAsync(app.Coordinator, seal.Id, c.Id, "injection.blind-open", record, sealResult.Salt, overrideReason: why);
 
         var stored = Assert.Single(opened.Item("injection.blind-open").Computations);
         Assert.Equal("concern", stored.Verdict); // the blind injection at AB spans the AB arrival
@@ -81,6 +88,7 @@ public sealed class InjectionChecksTests(LocalCausesHarness app) : IClassFixture
         Assert.Equal(sealResult.Commitment, result.Seal!.Commitment);
         Assert.Equal("AB", Assert.Single(result.Report.Hits).Site);
         Assert.Contains(opened.Activity, a => a.ItemKey == "injection.blind-open" && a.Kind == "computation.injections");
+        Assert.Contains(opened.Activity, a => a.ItemKey == "injection.blind-open" && a.Kind == "override" && a.Text.Contains(why, StringComparison.Ordinal));
         var after = (await seals.ListAsync()).Single(s => s.Id == seal.Id);
         Assert.True(after.IsOpened);
         Assert.Equal(c.Id, after.OpenedInCaseId);
@@ -92,7 +100,7 @@ public sealed class InjectionChecksTests(LocalCausesHarness app) : IClassFixture
         await seals.EnsureMayCloseAsync(c, CaseOutcome.Injection);
         var far = await app.OpenCaseAsync("T-SEAL-2", 1_400_100_300m, "candidate-review", ("KP", 0.0), ("AB", 0.006));
         Assert.True((await seals.DecideClosingAsync(far, CaseOutcome.Astrophysical)).Allowed); // both rules agree: opened, nothing near
-        var twice = await Assert.ThrowsAsync<DomainRuleException>(() => seals.OpenAsync(app.Coordinator, seal.Id, c.Id, "injection.blind-open", record, sealResult.Salt));
+        var twice = await Assert.ThrowsAsync<DomainRuleException>(() => seals.OpenAsync(app.Coordinator, seal.Id, c.Id, "injection.blind-open", record, sealResult.Salt, overrideReason: why));
         Assert.Equal("seal-already-opened", twice.Rule);
 
         var compared = await seals.CompareWithOpenedAsync(app.Reviewer, seal.Id, c.Id, "injection.blind-seal");

@@ -3,6 +3,7 @@ using EventReview.Core.Plots;
 using EventReview.Core.Plots.Figures;
 using EventReview.Core.Signal.TimeFrequency;
 using EventReview.Core.Verdicts;
+using EventReview.Core.Formatting;
 
 namespace EventReview.Core.Signal.Overlap;
 
@@ -51,7 +52,7 @@ public static class OverlapReview
             within, atEdge, options.OverlapThreshold, options.PValueThreshold, signNote, judgement.Reason, maps.Select(m => m.Summary).ToList(),
             [
                 string.Create(ci, $"overlap threshold {options.OverlapThreshold:0.##}: our default, not a published value; noise limits the overlap of a matched signal to about rho^2/(rho^2 + N) for N independent samples in the window (about 2 x bandwidth x window), so the off-source p-value carries the significance"),
-                string.Create(ci, $"consistent = overlap >= {options.OverlapThreshold:0.##}, lag inside ±{options.AllowedLagSeconds * 1e3:0.00} ms and not within one sample of the search limit, and p <= {options.PValueThreshold:G3} when off-source overlaps were run; concern when only the p-value fails; the lag's uncertainty and the phase are reported, not judged"),
+                string.Create(ci, $"consistent = overlap >= {options.OverlapThreshold:0.##}, lag inside ±{options.AllowedLagSeconds * 1e3:0.00} ms and not within one sample of the search limit, and p <= {ScientificFormat.Format(options.PValueThreshold, 3)} when off-source overlaps were run; concern when only the p-value fails; the lag's uncertainty and the phase are reported, not judged"),
                 "allowed lag: " + options.AllowedLagRule,
                 string.Create(ci, $"time-frequency maps: multi-resolution Q transform (Chatterji et al. 2004) of whitened strain, Q {new QTransformOptions().QMin:0}-{new QTransformOptions().QMax:0}, mismatch {new QTransformOptions().MaxMismatch:0.##}, the same at every site, from {options.MapBeforeSeconds:0.##} s before to {options.MapAfterSeconds:0.##} s after the candidate; colour = power / median, capped at the 99.5th percentile"),
                 "the phase says how B is turned against A; whether the sites' orientations allow the sign it implies is the antenna-response part of the timing check",
@@ -81,7 +82,7 @@ public static class OverlapReview
             : string.Create(ci, $", sign {(o.Sign > 0 ? "+1" : "−1")}");
         var text = string.Create(ci, $"{r.SiteA}–{r.SiteB}: overlap {o.Overlap:0.00} at lag {Ms(o.RefinedLagSeconds)}{sigma} ms (allowed ±{r.AllowedLagSeconds * 1e3:0.00} ms){phase}");
         text += o.PValue is { } p
-            ? string.Create(ci, $"; p = {p:G2} ({o.OffSourceOverlaps.Length} off-source trials)")
+            ? string.Create(ci, $"; p = {ScientificFormat.Format(p, 2)} ({o.OffSourceOverlaps.Length} off-source trials)")
             : "; no off-source trials";
         return text;
     }
@@ -109,7 +110,7 @@ public static class OverlapReview
         if (problems.Count == 0 && !weakP)
         {
             var pText = o.PValue is { } q
-                ? string.Create(ci, $", p = {q:G2} ≤ {p.PValueThreshold:G3}")
+                ? string.Create(ci, $", p = {ScientificFormat.Format(q, 2)} ≤ {ScientificFormat.Format(p.PValueThreshold, 3)}")
                 : ", no off-source p-value asked";
             return new Judgement(Verdict.Consistent, string.Create(ci,
                 $"overlap {o.Overlap:0.00} ≥ {p.OverlapThreshold:0.##}, lag {Ms(o.RefinedLagSeconds)}{sigma} ms inside ±{p.AllowedLagSeconds * 1e3:0.00} ms") + pText);
@@ -118,12 +119,12 @@ public static class OverlapReview
         if (problems.Count == 0)
         {
             return new Judgement(Verdict.Concern, string.Create(ci,
-                $"overlap and lag pass, but off-source noise reaches this overlap too often: p = {o.PValue:G2} > {p.PValueThreshold:G3}"));
+                $"overlap and lag pass, but off-source noise reaches this overlap too often: p = {ScientificFormat.Format(o.PValue ?? double.NaN, 2)} > {ScientificFormat.Format(p.PValueThreshold, 3)}"));
         }
 
         if (weakP)
         {
-            problems.Add(string.Create(ci, $"p = {o.PValue:G2} > {p.PValueThreshold:G3}"));
+            problems.Add(string.Create(ci, $"p = {ScientificFormat.Format(o.PValue ?? double.NaN, 2)} > {ScientificFormat.Format(p.PValueThreshold, 3)}"));
         }
 
         return new Judgement(Verdict.Inconsistent, string.Join("; ", problems));

@@ -511,6 +511,10 @@ namespace EventReview.Data.Migrations.Postgres
                         .HasMaxLength(32)
                         .HasColumnType("character varying(32)");
 
+                    b.Property<string>("Role")
+                        .HasMaxLength(32)
+                        .HasColumnType("character varying(32)");
+
                     b.Property<long?>("SizeBytes")
                         .HasColumnType("bigint");
 

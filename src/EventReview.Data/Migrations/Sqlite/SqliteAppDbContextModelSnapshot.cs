@@ -490,6 +490,10 @@ namespace EventReview.Data.Migrations.Sqlite
                         .HasMaxLength(32)
                         .HasColumnType("TEXT");
 
+                    b.Property<string>("Role")
+                        .HasMaxLength(32)
+                        .HasColumnType("TEXT");
+
                     b.Property<long?>("SizeBytes")
                         .HasColumnType("INTEGER");
 

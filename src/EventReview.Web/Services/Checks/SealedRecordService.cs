@@ -117,15 +117,26 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
     /// record (kind "injections") on the item with the blind injections overlapping the case; the timeline entry is written
     /// with it. On a mismatch nothing changes.
     /// </summary>
-    /// <exception cref="DomainRuleException">"commitment-mismatch" (message <see cref="MismatchMessage"/>) or "seal-already-opened".</exception>
+    /// <remarks>
+    /// The record is opened only when every item of the required sections is signed (<see cref="SealedRecordOpening"/>);
+    /// before that only with <paramref name="overrideReason"/>, a coordinator's written reason that goes into the timeline
+    /// with the comparison.
+    /// </remarks>
+    /// <exception cref="DomainRuleException">"sections-unsigned", "commitment-mismatch" (message <see cref="MismatchMessage"/>) or "seal-already-opened".</exception>
     /// <exception cref="FormatException">The record matches but does not parse (names the line); nothing is stored.</exception>
-    public async Task<ReviewCase> OpenAsync(ClaimsPrincipal user, int sealId, int caseId, string itemKey, byte[] record, string saltHex, double marginSeconds = 10.0, CancellationToken ct = default)
+    public async Task<ReviewCase> OpenAsync(ClaimsPrincipal user, int sealId, int caseId, string itemKey, byte[] record, string saltHex, double marginSeconds = 10.0,
+        string? overrideReason = null, CancellationToken ct = default)
     {
         Permissions.Require(user, Policies.Coordinate, "open sealed records");
         ArgumentNullException.ThrowIfNull(record);
         new InjectionCheckParameters(null, marginSeconds).Validate();
         var c = await cases.GetAsync(user, caseId, ct);
-        c.Item(itemKey);
+        var opening = SealedRecordOpening.Decide(c, itemKey, overrideReason);
+        if (!opening.Allowed)
+        {
+            throw new DomainRuleException(OpeningDecision.Rule, opening.Reason);
+        }
+
         await using var db = await dbFactory.CreateDbContextAsync(ct);
         var seal = await db.SealedInjectionRecords.FirstOrDefaultAsync(s => s.Id == sealId, ct) ?? throw new KeyNotFoundException($"There is no sealed record {sealId}.");
         if (seal.IsOpened)
@@ -170,7 +181,7 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
             throw new ConflictException("Someone else opened this sealed record at the same moment; reload to see their result.");
         }
 
-        return await AddComparisonAsync(user, seal, c, itemKey, report, rows, marginSeconds, ct);
+        return await AddComparisonAsync(user, seal, c, itemKey, report, rows, marginSeconds, opening.Overridden ? overrideReason!.Trim() : null, ct);
     }
 
     /// <summary>Compares a case with an already opened record (its revealed bytes are kept), storing a computation record.</summary>
@@ -188,10 +199,11 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
         }
 
         var report = InjectionOverlap.Find(BlindInjectionRecord.Parse(bytes, null), c.Gps, InjectionCheckService.Arrivals(c), c.Arrivals.Select(a => a.SiteCode), marginSeconds);
-        return await AddComparisonAsync(user, seal, c, itemKey, report, BlindInjectionRecord.Parse(bytes, null).Count, marginSeconds, ct);
+        return await AddComparisonAsync(user, seal, c, itemKey, report, BlindInjectionRecord.Parse(bytes, null).Count, marginSeconds, null, ct);
     }
 
-    private async Task<ReviewCase> AddComparisonAsync(ClaimsPrincipal user, SealedInjectionRecord seal, ReviewCase c, string itemKey, InjectionOverlapReport report, int rows, double margin, CancellationToken ct)
+    private async Task<ReviewCase> AddComparisonAsync(ClaimsPrincipal user, SealedInjectionRecord seal, ReviewCase c, string itemKey, InjectionOverlapReport report, int rows, double margin,
+        string? overrideReason, CancellationToken ct)
     {
         var info = new SealInfo(seal.Id, seal.Label, seal.Commitment, Hashing.Sha256Hex(seal.OpenedRecord!), seal.SealedByName, seal.SealedAt, seal.OpenedByName!, seal.OpenedAt!.Value);
         var result = new InjectionRecordResult(RecordFormat.Current, "sealed-record", report, rows, [], info);
@@ -204,9 +216,19 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
         });
         var summary = $"Sealed record '{seal.Label}' opened and verified against its commitment {seal.Commitment[..12]}…: " +
                       InjectionCheckService.Summarise(report, rows, "record");
-        return await cases.AddComputationAsync(user, c.Id, itemKey,
-            now => new ComputationRecord(CheckKind.Injections, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
-                report.Judgement.Word, Clip(summary, 1000), string.Empty, user.ToActor(), now), ct);
+        var record = (DateTimeOffset now) => new ComputationRecord(CheckKind.Injections, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
+            report.Judgement.Word, Clip(summary, 1000), string.Empty, user.ToActor(), now);
+        if (overrideReason is null)
+        {
+            return await cases.AddComputationAsync(user, c.Id, itemKey, record, ct);
+        }
+
+        // The override and the comparison are stored together: the timeline says why the record was opened early.
+        return await cases.AddComputationWithAsync(user, Policies.Coordinate, c.Id, itemKey, (_, loaded, now) =>
+        {
+            loaded.RecordOverride(itemKey, OpeningDecision.Rule, $"sealed record '{seal.Label}' opened before the review was complete. Reason: {overrideReason}", user.ToActor(), now);
+            return Task.FromResult<(ComputationRecord, EventReview.Core.Configuration.ConfigurationSnapshot?)>((record(now), null));
+        }, ct);
     }
 
     private static string Clip(string s, int max) => s.Length <= max ? s : s[..(max - 1)] + "…";
