@@ -2,6 +2,7 @@ using System.CommandLine;
 using System.Globalization;
 using EventReview.Data;
 using EventReview.Data.Backup;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Cli.Commands;
 
@@ -50,7 +51,7 @@ public static class BackupCommand
             }
             catch (ArgumentException ex)
             {
-                return CliOutput.Fail(ex.Message.Split(" (Parameter", 2)[0]);
+                return CliOutput.Fail(UserMessage.From(ex));
             }
             catch (IOException ex)
             {

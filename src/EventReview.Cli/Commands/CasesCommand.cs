@@ -3,6 +3,7 @@ using EventReview.Core.Checklists;
 using EventReview.Data;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.DependencyInjection;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Cli.Commands;
 
@@ -38,7 +39,7 @@ public static class CasesCommand
             }
             catch (ArgumentException ex)
             {
-                return CliOutput.Fail(ex.Message.Split(" (Parameter", 2)[0]);
+                return CliOutput.Fail(UserMessage.From(ex));
             }
         });
         cases.Subcommands.Add(list);

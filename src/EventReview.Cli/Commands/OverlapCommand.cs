@@ -5,6 +5,7 @@ using EventReview.Core.Network;
 using EventReview.Core.Signal;
 using EventReview.Core.Signal.Overlap;
 using EventReview.Core.Timing;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Cli.Commands;
 
@@ -97,7 +98,7 @@ public static class OverlapCommand
             }
             catch (Exception ex) when (ex is FormatException or ArgumentException or IOException)
             {
-                return CliOutput.Fail(ex.Message.Split(" (Parameter", 2)[0]);
+                return CliOutput.Fail(UserMessage.From(ex));
             }
         });
         return command;

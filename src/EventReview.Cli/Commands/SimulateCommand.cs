@@ -5,6 +5,7 @@ using EventReview.Core.Network;
 using EventReview.Core.Signal.Io;
 using EventReview.Core.Signal.Simulation;
 using EventReview.Core.Time;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Cli.Commands;
 
@@ -62,7 +63,7 @@ public static class SimulateCommand
             }
             catch (Exception ex) when (ex is FormatException or ArgumentException or IOException or UnauthorizedAccessException)
             {
-                return CliOutput.Fail(ex.Message.Split(" (Parameter", 2)[0]);
+                return CliOutput.Fail(UserMessage.From(ex));
             }
         });
         return command;

@@ -1,5 +1,6 @@
 using System.CommandLine;
 using EventReview.Core.Time;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Cli.Commands;
 
@@ -54,7 +55,7 @@ public static class TimeCommand
             }
             catch (ArgumentException ex)
             {
-                return CliOutput.Fail($"--utc '{utcText}': {ex.Message.Split(" (Parameter", 2)[0]}");
+                return CliOutput.Fail($"--utc '{utcText}': {UserMessage.From(ex)}");
             }
         }
 

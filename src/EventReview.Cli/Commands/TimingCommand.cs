@@ -3,6 +3,7 @@ using System.Globalization;
 using EventReview.Core.Network;
 using EventReview.Core.Time;
 using EventReview.Core.Timing;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Cli.Commands;
 
@@ -92,7 +93,7 @@ public static class TimingCommand
         }
         catch (ArgumentException ex)
         {
-            return CliOutput.Fail(ex.Message.Split(" (Parameter", 2)[0]);
+            return CliOutput.Fail(UserMessage.From(ex));
         }
 
         var t = result.Timing;

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using EventReview.Data.Auth;
 using Microsoft.Extensions.DependencyInjection;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Cli.Commands;
 
@@ -62,7 +63,7 @@ public static class TokensCommand
             }
             catch (ArgumentException ex)
             {
-                return CliOutput.Fail(ex.Message.Split(" (Parameter", 2)[0].ReplaceLineEndings(" "));
+                return CliOutput.Fail(UserMessage.From(ex).ReplaceLineEndings(" "));
             }
         });
         return create;

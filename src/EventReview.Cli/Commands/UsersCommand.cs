@@ -1,6 +1,7 @@
 using System.CommandLine;
 using EventReview.Data.Auth;
 using Microsoft.Extensions.DependencyInjection;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Cli.Commands;
 
@@ -60,7 +61,7 @@ public static class UsersCommand
             }
             catch (ArgumentException ex)
             {
-                return CliOutput.Fail(ex.Message.Split(" (Parameter", 2)[0]);
+                return CliOutput.Fail(UserMessage.From(ex));
             }
         });
         return add;
@@ -94,7 +95,7 @@ public static class UsersCommand
             }
             catch (ArgumentException ex)
             {
-                return CliOutput.Fail(ex.Message.Split(" (Parameter", 2)[0]);
+                return CliOutput.Fail(UserMessage.From(ex));
             }
         });
         return list;

@@ -1,6 +1,7 @@
 using System.CommandLine;
 using EventReview.Data;
 using Microsoft.Extensions.DependencyInjection;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Cli.Commands;
 
@@ -86,7 +87,7 @@ public static class VerifyCommand
             }
             catch (ArgumentException ex)
             {
-                return CliOutput.Fail(ex.Message.Split(" (Parameter", 2)[0]);
+                return CliOutput.Fail(UserMessage.From(ex));
             }
         });
         return verify;

@@ -1,5 +1,6 @@
 using System.Numerics;
 using System.Text.Json;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Core.Chain;
 
@@ -55,7 +56,7 @@ public static class ChainModelJson
                 }
                 catch (ArgumentException ex)
                 {
-                    throw new FormatException(ex.Message.Split(" (Parameter")[0]);
+                    throw new FormatException(UserMessage.From(ex));
                 }
 
                 list.Add(model);

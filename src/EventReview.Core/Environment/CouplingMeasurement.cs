@@ -3,6 +3,7 @@ using EventReview.Core.Signal;
 using EventReview.Core.Signal.Filters;
 using EventReview.Core.Time;
 using EventReview.Core.Formatting;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Core.Environment;
 
@@ -107,7 +108,7 @@ public static class CouplingMeasurement
             }
             catch (ArgumentException ex)
             {
-                notes.Add($"coupling at {site}: strain data could not be read ({ex.Message.Split(" (Parameter", 2)[0]}); the typed amplitude is used");
+                notes.Add($"coupling at {site}: strain data could not be read ({UserMessage.From(ex)}); the typed amplitude is used");
             }
         }
 
@@ -122,7 +123,7 @@ public static class CouplingMeasurement
             }
             catch (ArgumentException ex)
             {
-                notes.Add($"coupling of {key}: sensor data could not be read ({ex.Message.Split(" (Parameter", 2)[0]}); the typed noise amplitude is used");
+                notes.Add($"coupling of {key}: sensor data could not be read ({UserMessage.From(ex)}); the typed noise amplitude is used");
             }
         }
 

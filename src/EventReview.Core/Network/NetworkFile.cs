@@ -1,4 +1,5 @@
 using System.Text.Json;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Core.Network;
 
@@ -93,7 +94,7 @@ public static class NetworkFile
         }
         catch (ArgumentOutOfRangeException ex)
         {
-            var message = ex.Message.Split(" (Parameter", 2)[0].Split(System.Environment.NewLine)[0];
+            var message = UserMessage.From(ex).Split(System.Environment.NewLine)[0];
             throw new FormatException($"sites[{index}].{ex.ParamName}: {message}", ex);
         }
     }

@@ -1,6 +1,7 @@
 using System.Diagnostics;
 using System.Globalization;
 using EventReview.Core.Verdicts;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Core.Significance;
 
@@ -50,7 +51,7 @@ public static class BackgroundCheck
             }
             catch (ArgumentException ex)
             {
-                notes.Add($"three-site background not computed: {ex.Message.Split(" (Parameter", 2)[0]}; the pairs are reported on their own");
+                notes.Add($"three-site background not computed: {UserMessage.From(ex)}; the pairs are reported on their own");
             }
         }
 

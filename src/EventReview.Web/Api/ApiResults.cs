@@ -2,6 +2,7 @@ using System.Text.Json;
 using EventReview.Core.Cases;
 using EventReview.Data;
 using EventReview.Web.Services;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Web.Api;
 
@@ -57,7 +58,7 @@ public static class ApiResults
         }
         catch (ArgumentException ex)
         {
-            return Problem(StatusCodes.Status422UnprocessableEntity, "Invalid value", ex.Message.Split(" (Parameter", 2)[0], field: ex.ParamName);
+            return Problem(StatusCodes.Status422UnprocessableEntity, "Invalid value", UserMessage.From(ex), field: ex.ParamName);
         }
     }
 

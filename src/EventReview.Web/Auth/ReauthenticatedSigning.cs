@@ -9,6 +9,7 @@ using EventReview.Web.Services;
 using Microsoft.AspNetCore.Identity;
 using Microsoft.EntityFrameworkCore;
 using Microsoft.Extensions.Options;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Web.Auth;
 
@@ -80,7 +81,7 @@ public sealed class ReauthenticatedSigning(
             }
             catch (Exception ex) when (ex is DomainRuleException or ConflictException or UnauthorizedAccessException or KeyNotFoundException)
             {
-                problem = ex.Message.Split(" (Parameter", 2)[0];
+                problem = UserMessage.From(ex);
             }
         }
 

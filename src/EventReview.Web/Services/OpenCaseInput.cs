@@ -1,6 +1,7 @@
 using EventReview.Core.Cases;
 using EventReview.Core.Network;
 using EventReview.Core.Time;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Web.Services;
 
@@ -47,7 +48,7 @@ public static class OpenCaseInput
             catch (ArgumentException ex)
             {
                 // The arrival names its own field (site, gpsTime, snr); the request calls it arrivals[i].field.
-                throw new ArgumentException($"{field}.{ex.Message.Split(" (Parameter", 2)[0]}", $"{field}.{ex.ParamName}", ex);
+                throw new ArgumentException($"{field}.{UserMessage.From(ex)}", $"{field}.{ex.ParamName}", ex);
             }
         }
 

@@ -4,6 +4,7 @@ using EventReview.Core.Plots.Figures;
 using EventReview.Core.Signal.TimeFrequency;
 using EventReview.Core.Verdicts;
 using EventReview.Core.Formatting;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Core.Signal.Overlap;
 
@@ -158,7 +159,7 @@ public static class OverlapReview
         }
         catch (ArgumentException ex)
         {
-            return (new OverlapSiteMap(site.Code, site.FileName, null, ex.Message.Split(" (Parameter", 2)[0], 0, 0, 0, 0, 0, 0, 0, 0, 0), []);
+            return (new OverlapSiteMap(site.Code, site.FileName, null, UserMessage.From(ex), 0, 0, 0, 0, 0, 0, 0, 0, 0), []);
         }
     }
 

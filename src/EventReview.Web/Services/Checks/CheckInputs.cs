@@ -1,3 +1,4 @@
+using EventReview.Core.Inputs;
 namespace EventReview.Web.Services.Checks;
 
 /// <summary>Reads a check's input files from the case's attachments, with errors that name the file and its role.</summary>
@@ -34,7 +35,7 @@ public static class CheckInputs
         }
         catch (ArgumentException ex)
         {
-            throw new FormatException($"{Capitalise(role)} file '{file.FileName}': {ex.Message.Split(" (Parameter", 2)[0]}", ex);
+            throw new FormatException($"{Capitalise(role)} file '{file.FileName}': {UserMessage.From(ex)}", ex);
         }
     }
 

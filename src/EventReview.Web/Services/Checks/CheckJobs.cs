@@ -1,4 +1,5 @@
 using System.Collections.Concurrent;
+using EventReview.Core.Inputs;
 
 namespace EventReview.Web.Services.Checks;
 
@@ -40,7 +41,7 @@ public sealed class CheckJobs(ILogger<CheckJobs> logger)
             }
             catch (Exception ex) when (ex is ArgumentException or FormatException or InvalidOperationException or KeyNotFoundException or UnauthorizedAccessException or IOException)
             {
-                job.Finish(null, ex.Message.Split(" (Parameter", 2)[0]);
+                job.Finish(null, UserMessage.From(ex));
             }
             catch (Exception ex)
             {
