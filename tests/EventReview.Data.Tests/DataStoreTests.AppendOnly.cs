@@ -7,7 +7,7 @@ using Microsoft.EntityFrameworkCore;
 namespace EventReview.Data.Tests;
 
 /// <summary>
-/// The database itself keeps the record append-only (triggers from <see cref="AppendOnlySql"/>): direct SQL cannot
+/// The database itself keeps the record append-only (triggers written out in the `Initial` migration of each provider): direct SQL cannot
 /// update or delete timeline entries, evidence or computation records, cannot delete sign-offs or change them other
 /// than current to stale, and cannot change or delete a frozen configuration record. Run on every provider.
 /// </summary>

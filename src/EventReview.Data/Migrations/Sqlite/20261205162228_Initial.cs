@@ -12,6 +12,30 @@ namespace EventReview.Data.Migrations.Sqlite
         protected override void Up(MigrationBuilder migrationBuilder)
         {
             migrationBuilder.CreateTable(
+                name: "AccountEvents",
+                columns: table => new
+                {
+                    Id = table.Column<long>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    Sequence = table.Column<long>(type: "INTEGER", nullable: false),
+                    At = table.Column<long>(type: "INTEGER", nullable: false),
+                    Kind = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    UserId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
+                    Account = table.Column<string>(type: "TEXT", maxLength: 120, nullable: false),
+                    Address = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Detail = table.Column<string>(type: "TEXT", maxLength: 300, nullable: false),
+                    PreviousHash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Hash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Facts = table.Column<string>(type: "TEXT", nullable: true),
+                    KeyId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
+                    Mac = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_AccountEvents", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
                 name: "ApiTokens",
                 columns: table => new
                 {
@@ -23,7 +47,9 @@ namespace EventReview.Data.Migrations.Sqlite
                     CreatedBy = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
                     CreatedAt = table.Column<long>(type: "INTEGER", nullable: false),
                     LastUsedAt = table.Column<long>(type: "INTEGER", nullable: true),
-                    RevokedAt = table.Column<long>(type: "INTEGER", nullable: true)
+                    RevokedAt = table.Column<long>(type: "INTEGER", nullable: true),
+                    Scopes = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    ExpiresAt = table.Column<long>(type: "INTEGER", nullable: false)
                 },
                 constraints: table =>
                 {
@@ -97,6 +123,20 @@ namespace EventReview.Data.Migrations.Sqlite
                 });
 
             migrationBuilder.CreateTable(
+                name: "DataProtectionKeys",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    FriendlyName = table.Column<string>(type: "TEXT", nullable: true),
+                    Xml = table.Column<string>(type: "TEXT", nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_DataProtectionKeys", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
                 name: "Networks",
                 columns: table => new
                 {
@@ -107,6 +147,128 @@ namespace EventReview.Data.Migrations.Sqlite
                 constraints: table =>
                 {
                     table.PrimaryKey("PK_Networks", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "NotificationCursors",
+                columns: table => new
+                {
+                    Name = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    Position = table.Column<long>(type: "INTEGER", nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_NotificationCursors", x => x.Name);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "Notifications",
+                columns: table => new
+                {
+                    Id = table.Column<long>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    UserId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Kind = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    CaseId = table.Column<int>(type: "INTEGER", nullable: true),
+                    ItemKey = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
+                    Subject = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    Text = table.Column<string>(type: "TEXT", maxLength: 2000, nullable: false),
+                    Link = table.Column<string>(type: "TEXT", maxLength: 300, nullable: false),
+                    CreatedAt = table.Column<long>(type: "INTEGER", nullable: false),
+                    DedupKey = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    RoutedAt = table.Column<long>(type: "INTEGER", nullable: true),
+                    Route = table.Column<string>(type: "TEXT", maxLength: 32, nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_Notifications", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "NotificationSettings",
+                columns: table => new
+                {
+                    UserId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Events = table.Column<int>(type: "INTEGER", nullable: false),
+                    ByEmail = table.Column<bool>(type: "INTEGER", nullable: false),
+                    WebhookUrl = table.Column<string>(type: "TEXT", maxLength: 500, nullable: true),
+                    WebhookSecret = table.Column<string>(type: "TEXT", maxLength: 100, nullable: true),
+                    Digest = table.Column<bool>(type: "INTEGER", nullable: false),
+                    UpdatedAt = table.Column<long>(type: "INTEGER", nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_NotificationSettings", x => x.UserId);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "OutboxMessages",
+                columns: table => new
+                {
+                    Id = table.Column<long>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    UserId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Channel = table.Column<string>(type: "TEXT", maxLength: 16, nullable: false),
+                    Target = table.Column<string>(type: "TEXT", maxLength: 500, nullable: false),
+                    Kind = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    Subject = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    Body = table.Column<string>(type: "TEXT", nullable: false),
+                    CreatedAt = table.Column<long>(type: "INTEGER", nullable: false),
+                    Attempts = table.Column<int>(type: "INTEGER", nullable: false),
+                    NextAttemptAt = table.Column<long>(type: "INTEGER", nullable: false),
+                    ClaimedUntil = table.Column<long>(type: "INTEGER", nullable: true),
+                    SentAt = table.Column<long>(type: "INTEGER", nullable: true),
+                    GaveUpAt = table.Column<long>(type: "INTEGER", nullable: true),
+                    LastError = table.Column<string>(type: "TEXT", maxLength: 500, nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_OutboxMessages", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "SealedInjectionRecords",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    Commitment = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Label = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    SealedById = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    SealedByName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    SealedAt = table.Column<long>(type: "INTEGER", nullable: false),
+                    OpenedById = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
+                    OpenedByName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: true),
+                    OpenedAt = table.Column<long>(type: "INTEGER", nullable: true),
+                    OpenedInCaseId = table.Column<int>(type: "INTEGER", nullable: true),
+                    OpenedSummary = table.Column<string>(type: "TEXT", maxLength: 1000, nullable: true),
+                    OpenedRecord = table.Column<byte[]>(type: "BLOB", nullable: true),
+                    OpenedSalt = table.Column<string>(type: "TEXT", maxLength: 256, nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_SealedInjectionRecords", x => x.Id);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "SignatureRequests",
+                columns: table => new
+                {
+                    Id = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    UserId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    CaseId = table.Column<int>(type: "INTEGER", nullable: false),
+                    ItemKey = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Meaning = table.Column<string>(type: "TEXT", maxLength: 32, nullable: false),
+                    Statement = table.Column<string>(type: "TEXT", maxLength: 4000, nullable: false),
+                    SeenFingerprint = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    CreatedAt = table.Column<long>(type: "INTEGER", nullable: false),
+                    UsedAt = table.Column<long>(type: "INTEGER", nullable: true),
+                    Signed = table.Column<bool>(type: "INTEGER", nullable: false),
+                    Outcome = table.Column<string>(type: "TEXT", maxLength: 500, nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_SignatureRequests", x => x.Id);
                 });
 
             migrationBuilder.CreateTable(
@@ -231,7 +393,10 @@ namespace EventReview.Data.Migrations.Sqlite
                     ItemKey = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
                     Text = table.Column<string>(type: "TEXT", nullable: false),
                     PreviousHash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
-                    Hash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false)
+                    Hash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Facts = table.Column<string>(type: "TEXT", nullable: true),
+                    KeyId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
+                    Mac = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true)
                 },
                 constraints: table =>
                 {
@@ -294,6 +459,64 @@ namespace EventReview.Data.Migrations.Sqlite
                     table.PrimaryKey("PK_ChecklistItems", x => x.Id);
                     table.ForeignKey(
                         name: "FK_ChecklistItems_Cases_ReviewCaseId",
+                        column: x => x.ReviewCaseId,
+                        principalTable: "Cases",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Restrict);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "ConfigurationSnapshots",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    ReviewCaseId = table.Column<int>(type: "INTEGER", nullable: true),
+                    SiteCode = table.Column<string>(type: "TEXT", maxLength: 8, nullable: false),
+                    Label = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    CapturedBy = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    CapturedByName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    CapturedAt = table.Column<long>(type: "INTEGER", nullable: false),
+                    ItemsJson = table.Column<string>(type: "TEXT", nullable: false),
+                    IsFrozen = table.Column<bool>(type: "INTEGER", nullable: false),
+                    FrozenBy = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
+                    FrozenByName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: true),
+                    FrozenAt = table.Column<long>(type: "INTEGER", nullable: true),
+                    FreezeFrom = table.Column<long>(type: "INTEGER", nullable: true),
+                    FreezeUntil = table.Column<long>(type: "INTEGER", nullable: true),
+                    FreezeReason = table.Column<string>(type: "TEXT", maxLength: 2000, nullable: true),
+                    Fingerprint = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_ConfigurationSnapshots", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_ConfigurationSnapshots_Cases_ReviewCaseId",
+                        column: x => x.ReviewCaseId,
+                        principalTable: "Cases",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Restrict);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "DossierExports",
+                columns: table => new
+                {
+                    Id = table.Column<int>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    ReviewCaseId = table.Column<int>(type: "INTEGER", nullable: false),
+                    ManifestSha256 = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    ChainHead = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    SizeBytes = table.Column<long>(type: "INTEGER", nullable: false),
+                    ExportedBy = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    ExportedByName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    ExportedAt = table.Column<long>(type: "INTEGER", nullable: false)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_DossierExports", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_DossierExports_Cases_ReviewCaseId",
                         column: x => x.ReviewCaseId,
                         principalTable: "Cases",
                         principalColumn: "Id",
@@ -371,6 +594,7 @@ namespace EventReview.Data.Migrations.Sqlite
                     ContentType = table.Column<string>(type: "TEXT", maxLength: 200, nullable: true),
                     SizeBytes = table.Column<long>(type: "INTEGER", nullable: true),
                     Url = table.Column<string>(type: "TEXT", maxLength: 2000, nullable: true),
+                    Role = table.Column<string>(type: "TEXT", maxLength: 32, nullable: true),
                     AddedBy = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
                     AddedByName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
                     AddedAt = table.Column<long>(type: "INTEGER", nullable: false)
@@ -413,6 +637,12 @@ namespace EventReview.Data.Migrations.Sqlite
                         principalColumn: "Id",
                         onDelete: ReferentialAction.Restrict);
                 });
+
+            migrationBuilder.CreateIndex(
+                name: "IX_AccountEvents_Sequence",
+                table: "AccountEvents",
+                column: "Sequence",
+                unique: true);
 
             migrationBuilder.CreateIndex(
                 name: "IX_Activity_ReviewCaseId_Sequence",
@@ -475,6 +705,16 @@ namespace EventReview.Data.Migrations.Sqlite
                 unique: true);
 
             migrationBuilder.CreateIndex(
+                name: "IX_Cases_GpsNanoseconds",
+                table: "Cases",
+                column: "GpsNanoseconds");
+
+            migrationBuilder.CreateIndex(
+                name: "IX_Cases_State",
+                table: "Cases",
+                column: "State");
+
+            migrationBuilder.CreateIndex(
                 name: "IX_ChecklistItems_ReviewCaseId_Key",
                 table: "ChecklistItems",
                 columns: new[] { "ReviewCaseId", "Key" },
@@ -486,9 +726,61 @@ namespace EventReview.Data.Migrations.Sqlite
                 column: "ChecklistItemId");
 
             migrationBuilder.CreateIndex(
+                name: "IX_ConfigurationSnapshots_ReviewCaseId",
+                table: "ConfigurationSnapshots",
+                column: "ReviewCaseId");
+
+            migrationBuilder.CreateIndex(
+                name: "IX_ConfigurationSnapshots_SiteCode_CapturedAt",
+                table: "ConfigurationSnapshots",
+                columns: new[] { "SiteCode", "CapturedAt" });
+
+            migrationBuilder.CreateIndex(
+                name: "IX_DossierExports_ReviewCaseId",
+                table: "DossierExports",
+                column: "ReviewCaseId");
+
+            migrationBuilder.CreateIndex(
                 name: "IX_Evidence_ChecklistItemId",
                 table: "Evidence",
                 column: "ChecklistItemId");
+
+            migrationBuilder.CreateIndex(
+                name: "IX_Notifications_DedupKey",
+                table: "Notifications",
+                column: "DedupKey",
+                unique: true);
+
+            migrationBuilder.CreateIndex(
+                name: "IX_Notifications_RoutedAt",
+                table: "Notifications",
+                column: "RoutedAt");
+
+            migrationBuilder.CreateIndex(
+                name: "IX_Notifications_UserId_CreatedAt",
+                table: "Notifications",
+                columns: new[] { "UserId", "CreatedAt" });
+
+            migrationBuilder.CreateIndex(
+                name: "IX_OutboxMessages_SentAt_GaveUpAt_NextAttemptAt",
+                table: "OutboxMessages",
+                columns: new[] { "SentAt", "GaveUpAt", "NextAttemptAt" });
+
+            migrationBuilder.CreateIndex(
+                name: "IX_OutboxMessages_UserId_CreatedAt",
+                table: "OutboxMessages",
+                columns: new[] { "UserId", "CreatedAt" });
+
+            migrationBuilder.CreateIndex(
+                name: "IX_SealedInjectionRecords_Commitment",
+                table: "SealedInjectionRecords",
+                column: "Commitment",
+                unique: true);
+
+            migrationBuilder.CreateIndex(
+                name: "IX_SignatureRequests_CreatedAt",
+                table: "SignatureRequests",
+                column: "CreatedAt");
 
             migrationBuilder.CreateIndex(
                 name: "IX_SignOffs_ChecklistItemId",
@@ -505,11 +797,64 @@ namespace EventReview.Data.Migrations.Sqlite
                 name: "IX_Sites_NetworkId",
                 table: "Sites",
                 column: "NetworkId");
+
+            // The append-only guards of the record (decision 010: written out here, never built by live code): the timeline, the sign-in audit, evidence and computation records refuse updates and deletes; sign-offs may only be marked stale; a frozen configuration record refuses every change.
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_AccountEvents_no_delete BEFORE DELETE ON "AccountEvents" BEGIN SELECT RAISE(ABORT, 'AccountEvents rows are append-only: they cannot be deleted'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_AccountEvents_no_update BEFORE UPDATE ON "AccountEvents" BEGIN SELECT RAISE(ABORT, 'AccountEvents rows are append-only: they cannot be updated'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_Activity_no_delete BEFORE DELETE ON "Activity" BEGIN SELECT RAISE(ABORT, 'Activity rows are append-only: they cannot be deleted'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_Activity_no_update BEFORE UPDATE ON "Activity" BEGIN SELECT RAISE(ABORT, 'Activity rows are append-only: they cannot be updated'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_Computations_no_delete BEFORE DELETE ON "Computations" BEGIN SELECT RAISE(ABORT, 'Computations rows are append-only: they cannot be deleted'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_Computations_no_update BEFORE UPDATE ON "Computations" BEGIN SELECT RAISE(ABORT, 'Computations rows are append-only: they cannot be updated'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_ConfigurationSnapshots_frozen_delete BEFORE DELETE ON "ConfigurationSnapshots" WHEN OLD."IsFrozen" = 1 BEGIN SELECT RAISE(ABORT, 'A frozen configuration record cannot be deleted'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_ConfigurationSnapshots_frozen_update BEFORE UPDATE ON "ConfigurationSnapshots" WHEN OLD."IsFrozen" = 1 BEGIN SELECT RAISE(ABORT, 'A frozen configuration record cannot be changed'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_Evidence_no_delete BEFORE DELETE ON "Evidence" BEGIN SELECT RAISE(ABORT, 'Evidence rows are append-only: they cannot be deleted'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_Evidence_no_update BEFORE UPDATE ON "Evidence" BEGIN SELECT RAISE(ABORT, 'Evidence rows are append-only: they cannot be updated'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_SignOffs_guard BEFORE UPDATE ON "SignOffs" WHEN OLD."IsStale" = 1 OR NEW."IsStale" = 0 OR NEW."UserId" IS NOT OLD."UserId" OR NEW."SignerName" IS NOT OLD."SignerName" OR NEW."SignedAtUtc" IS NOT OLD."SignedAtUtc" OR NEW."SignedAtGpsNanoseconds" IS NOT OLD."SignedAtGpsNanoseconds" OR NEW."Meaning" IS NOT OLD."Meaning" OR NEW."Statement" IS NOT OLD."Statement" OR NEW."EvidenceFingerprint" IS NOT OLD."EvidenceFingerprint" OR NEW."ChecklistItemId" IS NOT OLD."ChecklistItemId" BEGIN SELECT RAISE(ABORT, 'A sign-off can only be marked stale; nothing else about it can change'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_SignOffs_no_delete BEFORE DELETE ON "SignOffs" BEGIN SELECT RAISE(ABORT, 'Sign-offs cannot be deleted'); END
+                """);
         }
 
         /// <inheritdoc />
         protected override void Down(MigrationBuilder migrationBuilder)
         {
+            migrationBuilder.DropTable(
+                name: "AccountEvents");
+
             migrationBuilder.DropTable(
                 name: "Activity");
 
@@ -538,7 +883,34 @@ namespace EventReview.Data.Migrations.Sqlite
                 name: "Computations");
 
             migrationBuilder.DropTable(
+                name: "ConfigurationSnapshots");
+
+            migrationBuilder.DropTable(
+                name: "DataProtectionKeys");
+
+            migrationBuilder.DropTable(
+                name: "DossierExports");
+
+            migrationBuilder.DropTable(
                 name: "Evidence");
+
+            migrationBuilder.DropTable(
+                name: "NotificationCursors");
+
+            migrationBuilder.DropTable(
+                name: "Notifications");
+
+            migrationBuilder.DropTable(
+                name: "NotificationSettings");
+
+            migrationBuilder.DropTable(
+                name: "OutboxMessages");
+
+            migrationBuilder.DropTable(
+                name: "SealedInjectionRecords");
+
+            migrationBuilder.DropTable(
+                name: "SignatureRequests");
 
             migrationBuilder.DropTable(
                 name: "SignOffs");
