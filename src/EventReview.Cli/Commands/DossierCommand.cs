@@ -26,7 +26,7 @@ public static class DossierCommand
     {
         var file = new Argument<string>("file") { Description = "The dossier ZIP to verify." };
         var json = new Option<bool>("--json") { Description = "Write the result as JSON." };
-        var key = new Option<string>("--key") { Description = "Trusted public key: PEM, or the JSON of /api/signing-key. Default: the public keys of EventReview__Records__KeyDirectory, else keys/ in the data folder." };
+        var key = new Option<string>("--key") { Description = "Trusted public key: PEM, the JSON of /api/signing-key, or a record key folder. Default: the public keys of EventReview__Records__KeyDirectory, else keys/ in the data folder." };
         var command = new Command("verify", "Verify a dossier ZIP offline, without the database, against the server's public key.");
         command.Arguments.Add(file);
         command.Options.Add(json);
@@ -53,6 +53,10 @@ public static class DossierCommand
             catch (InvalidDataException ex)
             {
                 return CliOutput.Fail(ex.Message);
+            }
+            catch (Exception ex) when (ex is UnauthorizedAccessException or FormatException or System.Text.Json.JsonException or System.Security.Cryptography.CryptographicException or ArgumentException)
+            {
+                return CliOutput.Fail($"--key '{parse.GetValue(key)}': not a public key file (PEM, or the JSON of /api/signing-key) nor a record key folder: {EventReview.Core.Inputs.UserMessage.From(ex)}");
             }
 
             if (parse.GetValue(json))
@@ -81,6 +85,13 @@ public static class DossierCommand
     /// <summary>The trusted public keys: the given file, else the configured key folder's list (none when there is none).</summary>
     private static IReadOnlyList<Core.Records.RecordPublicKey> TrustedKeys(string? file)
     {
+        if (file is not null && Directory.Exists(file))
+        {
+            // A record key folder: its list of public keys (the private files are not read).
+            using var folderRing = Data.Records.FileRecordKeyRing.Open(file);
+            return folderRing.Keys;
+        }
+
         if (file is not null)
         {
             return Data.Records.PublicKeyFile.Read(file);

@@ -161,6 +161,25 @@ public sealed class VerifyCommandTests : IAsyncLifetime
     }
 
     [Fact]
+    public void A_dossier_verifies_against_the_record_key_folder_and_an_empty_folder_leaves_it_unsigned()
+    {
+        // --key may name the key folder itself (it once answered with a stack trace): its public list is used.
+        var zip = Path.Combine(_dir, "folder-key.zip");
+        var (exportCode, _, exportError) = CliRunner.Run(DossierCommand.Build(), "dossier", "export", "--data", _dir, "--case", _caseId.ToString(System.Globalization.CultureInfo.InvariantCulture), "--out", zip);
+        Assert.True(exportCode == 0, exportError);
+
+        var (code, output, error) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", zip, "--key", Path.Combine(_dir, "keys"));
+        Assert.True(code == 0, output + error);
+        Assert.StartsWith("valid", output.Trim(), StringComparison.Ordinal);
+
+        var empty = Directory.CreateDirectory(Path.Combine(_dir, "no-keys")).FullName;
+        var (emptyCode, emptyOutput, emptyError) = CliRunner.Run(DossierCommand.Build(), "dossier", "verify", zip, "--key", empty);
+        Assert.Equal(1, emptyCode);
+        Assert.Contains("unsigned", emptyOutput + emptyError, StringComparison.Ordinal);
+        Assert.DoesNotContain("   at ", emptyOutput + emptyError, StringComparison.Ordinal);
+    }
+
+    [Fact]
     public async Task Export_then_verify_is_valid_and_an_altered_byte_in_the_dossier_data_is_named()
     {
         var zip = Path.Combine(_dir, "case.zip");
