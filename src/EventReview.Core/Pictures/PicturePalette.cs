@@ -50,6 +50,9 @@ public static class PicturePalette
     /// <summary>Light ink tint: shading of a window or searched region.</summary>
     public const string Shade = "#e9edf4";
 
+    /// <summary>A deeper ink tint: the bands and regions of the plot-model figures (<c>Plots/PlotPalette.Shade</c>).</summary>
+    public const string ShadeStrong = "#dfe5ef";
+
     /// <summary>Light warm tint: shading of the on-source window or of allowed directions.</summary>
     public const string WarmTint = "#f6e6d6";
 

@@ -108,7 +108,7 @@ public static class PlotLayout
         double textWidth = entries.Max(e => e.Label!.Length) * TickSize * 0.56;
         double w = Math.Min(f.Right - f.Left - 16, textWidth + 40), h = (entries.Count * row) + 8;
         var (x, y) = LegendCorner(figure.LegendRight, f, w, h, marks);
-        marks.Add(new AreaMark([P(x, y), P(x + w, y), P(x + w, y + h), P(x, y + h)], "#ffffff", 0.85));
+        marks.Add(new AreaMark([P(x, y), P(x + w, y), P(x + w, y + h), P(x, y + h)], EventReview.Core.Pictures.PicturePalette.Surface, 0.85));
         marks.Add(new LineMark([P(x, y), P(x + w, y), P(x + w, y + h), P(x, y + h), P(x, y)], PlotPalette.Grey, 0.8, false));
         for (int k = 0; k < entries.Count; k++)
         {

@@ -1,3 +1,5 @@
+using EventReview.Core.Pictures;
+
 namespace EventReview.Core.Plots;
 
 /// <summary>
@@ -12,31 +14,31 @@ public static class PlotPalette
     public const double MinimumTextPx = 12;
 
     /// <summary>Deep ink blue (theme primary): the first series and the strong end of the colour scale.</summary>
-    public const string Ink = "#1f3a68";
+    public const string Ink = PicturePalette.Ink;
 
     /// <summary>Warm accent (theme secondary): the second series and marks that need attention.</summary>
-    public const string Warm = "#a4561c";
+    public const string Warm = PicturePalette.Warm;
 
     /// <summary>Muted green (theme tertiary): a third series, fitted tracks, bands that pass.</summary>
-    public const string Green = "#3d6b5a";
+    public const string Green = PicturePalette.Green;
 
     /// <summary>Steel blue (theme info): a fourth series.</summary>
-    public const string Steel = "#2f5d8a";
+    public const string Steel = PicturePalette.Slate;
 
     /// <summary>Signal red (theme error): limits that fail.</summary>
-    public const string Alarm = "#a32626";
+    public const string Alarm = PicturePalette.Brick;
 
     /// <summary>Paper (theme background): the weak end of the colour scale.</summary>
-    public const string Paper = "#faf8f3";
+    public const string Paper = PicturePalette.Paper;
 
     /// <summary>Light shading of a window, region or band.</summary>
-    public const string Shade = "#dfe5ef";
+    public const string Shade = PicturePalette.ShadeStrong;
 
     /// <summary>Neutral grey: zero lines, graticules, secondary marks.</summary>
-    public const string Grey = "#8a8f99";
+    public const string Grey = PicturePalette.Grey;
 
     /// <summary>Body text (theme text primary).</summary>
-    public const string Text = "#1c2330";
+    public const string Text = PicturePalette.Text;
 
     /// <summary>Series colours in order of use.</summary>
     public static IReadOnlyList<string> Series { get; } = [Ink, Warm, Green, Steel];

@@ -10,7 +10,7 @@ public class FileRoleGuesserTests
     private static FileRoleGuess Guess(string name, string text) => FileRoleGuesser.Guess(name, Encoding.UTF8.GetBytes(text), Sites);
 
     [Theory]
-    [InlineData("site,flag,start_gps,end_gps,comment\nKP,HIGH-WIND,1,2,x\n", FileRoleKind.DataQualitySegments)]
+    [InlineData("site,flag,start_gps,end_gps,comment\nKP,gusty-wind,1,2,x\n", FileRoleKind.DataQualitySegments)]
     [InlineData("site,channel,gps_time,snr,frequency_hz,duration_s\nAB,AB:MAG,1.5,7,60,0.1\n", FileRoleKind.AuxiliaryTriggers)]
     [InlineData("site,channel,kind,location,coupling_file,data_file\nAB,AB:MAG,magnetic,vault,,\n", FileRoleKind.SensorInventory)]
     [InlineData("site,start_gps,end_gps,kind,waveform_ref,status\nKP,1,9,cbc,hw-01,performed\n", FileRoleKind.InjectionLog)]
@@ -39,7 +39,7 @@ public class FileRoleGuesserTests
     public void A_strain_sized_series_is_strain_of_the_site_in_its_name_and_a_larger_one_is_a_sensor_series()
     {
         var strain = Guess("KP-strain.txt", "# simulated\n1000.0 1.2e-21\n1000.00025 -3.4e-21\n1000.0005 2.2e-22\n");
-        var sensor = Guess("data-AB-MAG-VAULT-X.txt", "1000.0 1.2e-11\n1000.002 -3.4e-11\n1000.004 8e-12\n");
+        var sensor = Guess("data-AB-magnetometer-vault-x.txt", "1000.0 1.2e-11\n1000.002 -3.4e-11\n1000.004 8e-12\n");
 
         Assert.Equal(new FileRole(FileRoleKind.Strain, "KP"), strain.Role);
         Assert.Equal(FileRoleKind.SensorSeries, sensor.Role.Kind);

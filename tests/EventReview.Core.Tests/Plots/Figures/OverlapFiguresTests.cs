@@ -16,9 +16,9 @@ public class OverlapFiguresTests
     [Fact]
     public void The_overlay_names_the_alignment_in_our_own_words_with_units()
     {
-        var fig = OverlapFigures.Overlay(Result(), "KX", "M2");
+        var fig = OverlapFigures.Overlay(Result(), "KX", "MV");
         var labels = fig.Elements.Select(e => e.Label).OfType<string>().ToList();
-        Assert.Contains(labels, l => l.StartsWith("M2 aligned: arrival offset ", StringComparison.Ordinal) && l.Contains(" ms", StringComparison.Ordinal));
+        Assert.Contains(labels, l => l.StartsWith("MV aligned: arrival offset ", StringComparison.Ordinal) && l.Contains(" ms", StringComparison.Ordinal));
         Assert.DoesNotContain(labels, l => l.Contains("flipped", StringComparison.OrdinalIgnoreCase) || l.Contains("shifted", StringComparison.OrdinalIgnoreCase));
         Assert.Contains("(ms)", fig.X.Label);
         Assert.Contains("(dimensionless)", fig.Y.Label);
