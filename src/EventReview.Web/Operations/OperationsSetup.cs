@@ -110,7 +110,8 @@ public static class OperationsSetup
     }
 
     private static bool IsMachinePath(PathString path) =>
-        path.StartsWithSegments("/api") || path.StartsWithSegments("/openapi") || path.StartsWithSegments("/healthz");
+        path.StartsWithSegments("/api") || path.StartsWithSegments("/openapi") || path.StartsWithSegments("/healthz") ||
+        path.StartsWithSegments(TelemetrySetup.MetricsPath);
 
     private static Task HttpsRequiredAsync(HttpContext context)
     {
@@ -124,7 +125,7 @@ public static class OperationsSetup
             cannot work this way. Open the server's https:// address. If you run the server: put it behind the reverse proxy
             of the operations guide (docs/operations.md), which terminates HTTPS and sends <code>X-Forwarded-Proto: https</code>,
             and list the proxy's address in <code>EventReview:Operations:TrustedProxies</code> (also when it runs on this machine: <code>127.0.0.1</code>).</p>
-            <p>The API (<code>/api</code>) and <code>/healthz</code> still answer over HTTP for tools on the server itself.</p>
+            <p>The API (<code>/api</code>), <code>/healthz</code> and <code>/metrics</code> still answer over HTTP for tools on the server itself.</p>
             </body></html>
             """);
     }
