@@ -1,5 +1,4 @@
 using System.Diagnostics;
-using System.Net;
 using Microsoft.AspNetCore.DataProtection;
 using Microsoft.AspNetCore.Diagnostics.HealthChecks;
 using Microsoft.AspNetCore.HttpOverrides;
@@ -64,21 +63,11 @@ public static class OperationsSetup
 
         // With both lists empty the framework would believe every sender: read no forwarded header at all instead.
         o.ForwardedHeaders = ForwardedHeaders.None;
-        foreach (var entry in trusted.Where(t => !string.IsNullOrWhiteSpace(t)).Select(t => t.Trim()))
+        var (addresses, networks) = AddressList.Parse(trusted, "EventReview:Operations:TrustedProxies");
+        addresses.ForEach(o.KnownProxies.Add);
+        networks.ForEach(o.KnownIPNetworks.Add);
+        if (addresses.Count + networks.Count > 0)
         {
-            if (entry.Contains('/') && System.Net.IPNetwork.TryParse(entry, out var network))
-            {
-                o.KnownIPNetworks.Add(network);
-            }
-            else if (IPAddress.TryParse(entry, out var address))
-            {
-                o.KnownProxies.Add(address);
-            }
-            else
-            {
-                throw new ArgumentException($"EventReview:Operations:TrustedProxies entry '{entry}' is neither an IP address nor a network like 10.0.0.0/8.", nameof(trusted));
-            }
-
             o.ForwardedHeaders = ForwardedHeaders.XForwardedFor | ForwardedHeaders.XForwardedProto;
         }
     }

@@ -90,24 +90,7 @@ public static class TelemetrySetup
     /// <summary>Reads the allowed clients; an entry that is neither an address nor a network stops the start with its name.</summary>
     public static MetricsClients ParseClients(IEnumerable<string> entries)
     {
-        var addresses = new List<IPAddress>();
-        var networks = new List<System.Net.IPNetwork>();
-        foreach (var entry in entries.Where(e => !string.IsNullOrWhiteSpace(e)).Select(e => e.Trim()))
-        {
-            if (entry.Contains('/') && System.Net.IPNetwork.TryParse(entry, out var network))
-            {
-                networks.Add(network);
-            }
-            else if (IPAddress.TryParse(entry, out var address))
-            {
-                addresses.Add(address);
-            }
-            else
-            {
-                throw new ArgumentException($"{TelemetryOptions.Section}:MetricsClients entry '{entry}' is neither an IP address nor a network like 10.0.0.0/8.", nameof(entries));
-            }
-        }
-
+        var (addresses, networks) = AddressList.Parse(entries, $"{TelemetryOptions.Section}:MetricsClients");
         if (addresses.Count == 0 && networks.Count == 0)
         {
             addresses.AddRange([IPAddress.Loopback, IPAddress.IPv6Loopback]);
