@@ -25,9 +25,8 @@ public static class DataServiceCollectionExtensions
         services.AddSingleton(factory);
         services.AddSingleton<IDbContextFactory<AppDbContext>>(factory);
         services.AddScoped(sp => sp.GetRequiredService<IDbContextFactory<AppDbContext>>().CreateDbContext());
-        services.AddSingleton<Writes.IWriteGate>(_ => settings.Provider == DatabaseProvider.Sqlite
-            ? new Writes.BatchingWriteGate(factory)
-            : new Writes.DirectWriteGate(factory));
+        // Group commit on both providers: waiting changes share one transaction and one flush (see BatchingWriteGate).
+        services.AddSingleton<Writes.IWriteGate>(_ => new Writes.BatchingWriteGate(factory));
         services.AddSingleton<AttachmentStore>();
         services.AddSingleton(sp => new IntegrityVerifier(factory, sp.GetRequiredService<AttachmentStore>(), settings, records));
         services.AddSingleton<Auth.TokenRevocations>();

@@ -80,7 +80,9 @@ public sealed class IntegrityVerifier(IDbContextFactory<AppDbContext> dbFactory,
         var results = new List<CaseResult>();
         foreach (var id in ids)
         {
-            results.Add(await VerifyCaseAsync(id, witness, ct));
+            var result = await VerifyCaseAsync(id, witness, ct);
+            Telemetry.ReviewMetrics.CaseVerified(result.Valid);
+            results.Add(result);
         }
 
         if (caseId is null && witness is not null)

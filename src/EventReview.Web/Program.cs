@@ -14,6 +14,7 @@ var contentRoot = File.Exists(Path.Combine(Directory.GetCurrentDirectory(), "app
 var builder = WebApplication.CreateBuilder(new WebApplicationOptions { Args = args, ContentRootPath = contentRoot });
 builder.WebHost.UseStaticWebAssets();
 builder.AddEventReviewOperations();
+builder.AddEventReviewTelemetry();
 builder.Services.AddEventReviewWeb(builder.Configuration);
 var seedDemo = builder.Configuration.GetValue<bool?>("EventReview:SeedDemo") ?? builder.Environment.IsDevelopment();
 builder.Services.AddSingleton(new DemoMode(seedDemo));
@@ -34,6 +35,7 @@ if (!generatingDocument)
 // Security headers first, so that every answer carries them (the "HTTPS needed" page and error answers too).
 app.UseEventReviewSecurityHeaders();
 app.UseEventReviewOperations();
+app.UseMetricsAccess();
 if (!app.Environment.IsDevelopment())
 {
     app.UseExceptionHandler("/error", createScopeForErrors: true);
@@ -50,6 +52,7 @@ app.UseAntiforgery();
 
 app.MapStaticAssets().AllowAnonymous();
 app.MapHealth();
+app.MapMetrics();
 app.MapOpenApi().AllowAnonymous().RequireRateLimiting(ApiRateLimitPolicy.Name);
 app.MapApiReference();
 app.MapEventReviewApi();

@@ -10,7 +10,7 @@ namespace EventReview.Data.Tests;
 /// <summary>The short append path (<see cref="EvidenceAppendSql"/>) against the domain's own rules, on both providers.</summary>
 public abstract partial class DataStoreTests
 {
-    private IWriteGate NewGate() => Factory.Settings.Provider == DatabaseProvider.Sqlite ? new BatchingWriteGate(Factory) : new DirectWriteGate(Factory);
+    private IWriteGate NewGate() => new BatchingWriteGate(Factory);
 
     private static async Task DisposeGateAsync(IWriteGate gate)
     {

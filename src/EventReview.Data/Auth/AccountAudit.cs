@@ -16,6 +16,11 @@ public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, Time
     public async Task RecordAsync(string kind, string? userId, string? account, string? address, string? detail = null, CancellationToken ct = default,
         IEnumerable<Fact>? facts = null)
     {
+        if (kind is AccountEventKinds.SignInSucceeded or AccountEventKinds.SignInFailed or AccountEventKinds.LockedOut)
+        {
+            Telemetry.ReviewMetrics.SignIn(kind == AccountEventKinds.SignInSucceeded);
+        }
+
         await Gate.WaitAsync(ct);
         try
         {

@@ -8,15 +8,17 @@ using Microsoft.EntityFrameworkCore.Storage;
 namespace EventReview.Data.Writes;
 
 /// <summary>
-/// The single writer of an embedded (SQLite) database, with group commit. SQLite lets one connection write at a time
-/// and its driver answers a locked database by sleeping and retrying, so writers queue here instead. Callers read and
+/// The single writer of each app instance, with group commit, on both providers. SQLite lets one connection write at a
+/// time and its driver answers a locked database by sleeping and retrying, so writers queue here instead; on PostgreSQL
+/// the same queue makes waiting writes share one transaction and one flush of the log (per-case order across instances
+/// is kept by the row lock <c>FOR UPDATE</c> on the case in <see cref="EvidenceAppendSql"/>). Callers read and
 /// change on their own contexts in parallel; one loop takes every waiting save (up to <see cref="MaxBatch"/>), runs
 /// each on its one connection inside one transaction (each save in its own savepoint, so a failing save is undone
 /// alone and its caller gets the error), and commits once: one flush to disk serves the whole batch. Every caller's
 /// task completes only after the commit, so nothing is acknowledged before it is durable; if the commit fails, every
 /// save of the batch fails with that error and nothing of it is stored. The writer keeps its connection open, and the
 /// statements of hand-written units (<see cref="RunSqlAsync"/>) stay prepared on it; after any failure of a batch the
-/// connection is closed and a fresh one opened for the next. A background task copies committed pages from the
+/// connection is closed and a fresh one opened for the next. On SQLite a background task copies committed pages from the
 /// write-ahead log into the database file every <see cref="CheckpointEvery"/> (see <see cref="CheckpointLoopAsync"/>).
 /// The writer's figures are published as metrics (<see cref="MeterName"/>). After each commit, one witness line with the
 /// newest head of every chain the batch changed goes to the witness (<see cref="Records.HeadWitness"/>): one line per
@@ -26,6 +28,9 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 {
     /// <summary>Most saves committed together.</summary>
     public const int MaxBatch = 64;
+
+    /// <summary>Times a unit runs when PostgreSQL keeps choosing it to break a lock cycle, before its caller gets the error.</summary>
+    public const int MaxAttempts = 5;
 
     /// <summary>How often the background checkpoint runs when something was committed.</summary>
     public static readonly TimeSpan CheckpointEvery = TimeSpan.FromMilliseconds(100);
@@ -53,7 +58,7 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
     {
         _factory = factory;
         _loop = Task.Run(LoopAsync);
-        _checkpoints = Task.Run(CheckpointLoopAsync);
+        _checkpoints = factory.Settings.Provider == DatabaseProvider.Sqlite ? Task.Run(CheckpointLoopAsync) : Task.CompletedTask;
     }
 
     public Task SaveAsync(AppDbContext db, CancellationToken ct = default)
@@ -193,6 +198,7 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
     private async Task RunBatchAsync(List<PendingUnit> batch)
     {
         var saved = new List<PendingUnit>(batch.Count);
+        var retry = new List<PendingUnit>();
         var started = Stopwatch.GetTimestamp();
         try
         {
@@ -206,6 +212,12 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
                     // savepoint of that transaction and rolls back to it if the save fails.
                     await unit.ExecuteAsync(connection, tx);
                     saved.Add(unit);
+                }
+                catch (Exception ex) when (IsLockConflict(ex) && unit.CanRetry && ++unit.Attempts < MaxAttempts)
+                {
+                    // PostgreSQL chose this unit to break a lock cycle with another instance's batch; its savepoint is
+                    // rolled back and it runs again in the next batch, after this one's commit released its locks.
+                    retry.Add(unit);
                 }
                 catch (Exception ex)
                 {
@@ -233,12 +245,34 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
             return;
         }
 
+        foreach (var unit in retry)
+        {
+            if (!_queue.Writer.TryWrite(unit))
+            {
+                unit.Fail(new ObjectDisposedException(nameof(BatchingWriteGate), "The application is shutting down; nothing was stored."));
+            }
+        }
+
         var now = Stopwatch.GetTimestamp();
         foreach (var unit in saved)
         {
             WaitTime.Record(Stopwatch.GetElapsedTime(unit.Queued, now).TotalMilliseconds);
             unit.Complete();
         }
+    }
+
+    /// <summary>A deadlock or serialisation failure reported by PostgreSQL (SQLSTATE 40P01, 40001), possibly wrapped.</summary>
+    private static bool IsLockConflict(Exception? ex)
+    {
+        for (; ex is not null; ex = ex.InnerException)
+        {
+            if (ex is Npgsql.PostgresException { SqlState: "40P01" or "40001" })
+            {
+                return true;
+            }
+        }
+
+        return false;
     }
 
     private static void Enlist(AppDbContext db, DbConnection connection, DbTransaction tx)
@@ -258,6 +292,15 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
         public long Queued { get; } = Stopwatch.GetTimestamp();
 
+        /// <summary>Times the unit was chosen to break a lock cycle (see <see cref="IsLockConflict"/>).</summary>
+        public int Attempts { get; set; }
+
+        /// <summary>
+        /// True when the unit can run again after its savepoint was rolled back: work run on a fresh context or on plain
+        /// SQL can; a caller's own context (<see cref="PendingSave"/>) cannot, as its tracked state is the caller's.
+        /// </summary>
+        public virtual bool CanRetry => true;
+
         /// <summary>Heads of the chain entries the unit wrote (valid once it executed without error).</summary>
         public List<Records.WitnessedHead> Heads { get; } = [];
 
@@ -273,6 +316,8 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
     private sealed class PendingSave(AppDbContext db, CancellationToken cancelled) : PendingUnit(cancelled)
     {
         public TaskCompletionSource Done { get; } = new(TaskCreationOptions.RunContinuationsAsynchronously);
+
+        public override bool CanRetry => false;
 
         public override async Task ExecuteAsync(DbConnection connection, DbTransaction tx)
         {
@@ -303,7 +348,10 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
         public override async Task ExecuteAsync(DbConnection connection, DbTransaction tx)
         {
-            using var unit = new SqlUnit(DatabaseProvider.Sqlite, connection, tx, gate._prepared, gate._factory.Records);
+            // Statements stay prepared on SQLite's one connection; on PostgreSQL the driver prepares on its own.
+            var provider = gate._factory.Settings.Provider;
+            Heads.Clear();
+            using var unit = new SqlUnit(provider, connection, tx, provider == DatabaseProvider.Sqlite ? gate._prepared : null, gate._factory.Records);
             await unit.Command("SAVEPOINT eventreview_sql").ExecuteNonQueryAsync(Cancelled);
             try
             {
@@ -335,6 +383,7 @@ public sealed class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
         public override async Task ExecuteAsync(DbConnection connection, DbTransaction tx)
         {
+            Heads.Clear();
             await using var db = factory.CreateDbContext();
             Enlist(db, connection, tx);
             var savepoint = "eventreview_run";

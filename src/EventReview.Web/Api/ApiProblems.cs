@@ -14,7 +14,7 @@ public static class ApiProblems
     /// <summary>True for the paths whose errors are JSON problems (pages keep their HTML error pages).</summary>
     public static bool IsProblemPath(PathString path) =>
         path.StartsWithSegments("/api") || path.StartsWithSegments("/openapi") || path.StartsWithSegments("/account") ||
-        path.StartsWithSegments("/healthz") || Security.SecurityHeaders.IsDownload(path);
+        path.StartsWithSegments("/healthz") || path.StartsWithSegments("/metrics") || Security.SecurityHeaders.IsDownload(path);
 
     /// <summary>Adds the problem answers for <see cref="IsProblemPath"/>; call before authentication.</summary>
     public static WebApplication UseApiProblems(this WebApplication app)

@@ -1,5 +1,4 @@
 using System.Diagnostics;
-using System.Net;
 using Microsoft.AspNetCore.DataProtection;
 using Microsoft.AspNetCore.Diagnostics.HealthChecks;
 using Microsoft.AspNetCore.HttpOverrides;
@@ -64,21 +63,11 @@ public static class OperationsSetup
 
         // With both lists empty the framework would believe every sender: read no forwarded header at all instead.
         o.ForwardedHeaders = ForwardedHeaders.None;
-        foreach (var entry in trusted.Where(t => !string.IsNullOrWhiteSpace(t)).Select(t => t.Trim()))
+        var (addresses, networks) = AddressList.Parse(trusted, "EventReview:Operations:TrustedProxies");
+        addresses.ForEach(o.KnownProxies.Add);
+        networks.ForEach(o.KnownIPNetworks.Add);
+        if (addresses.Count + networks.Count > 0)
         {
-            if (entry.Contains('/') && System.Net.IPNetwork.TryParse(entry, out var network))
-            {
-                o.KnownIPNetworks.Add(network);
-            }
-            else if (IPAddress.TryParse(entry, out var address))
-            {
-                o.KnownProxies.Add(address);
-            }
-            else
-            {
-                throw new ArgumentException($"EventReview:Operations:TrustedProxies entry '{entry}' is neither an IP address nor a network like 10.0.0.0/8.", nameof(trusted));
-            }
-
             o.ForwardedHeaders = ForwardedHeaders.XForwardedFor | ForwardedHeaders.XForwardedProto;
         }
     }
@@ -110,7 +99,8 @@ public static class OperationsSetup
     }
 
     private static bool IsMachinePath(PathString path) =>
-        path.StartsWithSegments("/api") || path.StartsWithSegments("/openapi") || path.StartsWithSegments("/healthz");
+        path.StartsWithSegments("/api") || path.StartsWithSegments("/openapi") || path.StartsWithSegments("/healthz") ||
+        path.StartsWithSegments(TelemetrySetup.MetricsPath);
 
     private static Task HttpsRequiredAsync(HttpContext context)
     {
@@ -124,7 +114,7 @@ public static class OperationsSetup
             cannot work this way. Open the server's https:// address. If you run the server: put it behind the reverse proxy
             of the operations guide (docs/operations.md), which terminates HTTPS and sends <code>X-Forwarded-Proto: https</code>,
             and list the proxy's address in <code>EventReview:Operations:TrustedProxies</code> (also when it runs on this machine: <code>127.0.0.1</code>).</p>
-            <p>The API (<code>/api</code>) and <code>/healthz</code> still answer over HTTP for tools on the server itself.</p>
+            <p>The API (<code>/api</code>), <code>/healthz</code> and <code>/metrics</code> still answer over HTTP for tools on the server itself.</p>
             </body></html>
             """);
     }

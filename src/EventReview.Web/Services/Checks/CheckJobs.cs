@@ -1,5 +1,6 @@
 using System.Collections.Concurrent;
 using EventReview.Core.Inputs;
+using EventReview.Data.Telemetry;
 
 namespace EventReview.Web.Services.Checks;
 
@@ -28,27 +29,36 @@ public sealed class CheckJobs(ILogger<CheckJobs> logger)
             return existing;
         }
 
+        var kind = KindOf(key);
+        ReviewMetrics.JobStarted(kind);
         _ = Task.Run(async () =>
         {
             try
             {
                 var message = await work(job, job.Cancellation.Token);
                 job.Finish(message, null);
+                ReviewMetrics.JobFinished(kind);
             }
             catch (OperationCanceledException)
             {
                 job.Finish(null, "Cancelled; nothing was stored.");
+                ReviewMetrics.JobFailed(kind, "cancelled");
             }
             catch (Exception ex) when (ex is ArgumentException or FormatException or InvalidOperationException or KeyNotFoundException or UnauthorizedAccessException or IOException)
             {
                 job.Finish(null, UserMessage.From(ex));
+                ReviewMetrics.JobFailed(kind, "refused");
             }
             catch (Exception ex)
             {
                 logger.LogError(ex, "Check job {Key} failed", key);
+                ReviewMetrics.JobFailed(kind, "error");
                 job.Finish(null, "The check failed unexpectedly; nothing was stored. The error was logged for the administrator.");
             }
         });
         return job;
     }
+
+    /// <summary>The kind part of a key made by <see cref="Key"/> (its last segment).</summary>
+    public static string KindOf(string key) => key[(key.LastIndexOf('/') + 1)..];
 }
