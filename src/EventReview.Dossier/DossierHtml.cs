@@ -2,8 +2,6 @@ using System.Globalization;
 using System.Net;
 using System.Text;
 using EventReview.Core.Dossier;
-using Ganss.Xss;
-using Markdig;
 
 namespace EventReview.Dossier;
 
@@ -16,8 +14,6 @@ namespace EventReview.Dossier;
 /// </summary>
 public static class DossierHtml
 {
-    private static readonly MarkdownPipeline Pipeline = new MarkdownPipelineBuilder().UsePipeTables().UseEmphasisExtras().DisableHtml().Build();
-
     private const string Css = """
         body{font-family:"DejaVu Sans",Arial,sans-serif;font-size:10.5pt;margin:2em;color:#111;max-width:60em}
         h1{font-size:18pt;margin-bottom:.2em}h2{font-size:14pt;border-bottom:1px solid #999;margin-top:1.5em}
@@ -37,7 +33,6 @@ public static class DossierHtml
     public static byte[] Render(DossierDocument doc)
     {
         ArgumentNullException.ThrowIfNull(doc);
-        var sanitizer = new HtmlSanitizer();
         var h = new StringBuilder();
         var c = doc.Case;
         h.Append("<!DOCTYPE html>\n<html lang=\"en\">\n<head>\n<meta charset=\"utf-8\">\n<title>Review dossier ")
@@ -57,7 +52,7 @@ public static class DossierHtml
         Row(h, "Items", $"{c.ItemCount} ({c.SignedItemCount} signed off, {c.StaleItemCount} with stale sign-offs)");
         Row(h, "Opened / last change (UTC)", $"{c.CreatedAtUtc} / {c.UpdatedAtUtc}");
         Row(h, "Chain head", doc.ChainHead);
-        h.Append("</table>\n<div>").Append(Markdown(c.Summary, sanitizer)).Append("</div>\n");
+        h.Append("</table>\n<div>").Append(NoteMarkdown.ToHtml(c.Summary)).Append("</div>\n");
         if (c.ClosingStatement is not null)
         {
             h.Append("<p><strong>Decision:</strong> ").Append(E(c.ClosingStatement)).Append("</p>\n");
@@ -75,7 +70,7 @@ public static class DossierHtml
         VerdictTable(h, doc);
         foreach (var item in doc.Items)
         {
-            Item(h, item, doc, sanitizer);
+            Item(h, item, doc);
         }
 
         Configurations(h, doc);
@@ -98,7 +93,7 @@ public static class DossierHtml
         h.Append("</table>\n");
     }
 
-    private static void Item(StringBuilder h, DossierItem i, DossierDocument doc, HtmlSanitizer sanitizer)
+    private static void Item(StringBuilder h, DossierItem i, DossierDocument doc)
     {
         var figures = DossierPdfSections.FigureNumbers(doc);
         h.Append("<div class=\"item\" id=\"item-").Append(E(i.Key)).Append("\">\n<h3>").Append(E(i.Title)).Append(" <span class=\"muted\">(")
@@ -111,7 +106,7 @@ public static class DossierHtml
 
         h.Append("<br>Owner: ").Append(E(i.OwnerName ?? "-")).Append("; sign-offs required: ").Append(i.RequiredSignOffs)
          .Append("<br>Evidence fingerprint: <span class=\"hash\">").Append(E(i.Fingerprint)).Append("</span></p>\n");
-        h.Append("<div class=\"guidance\">").Append(Markdown(i.Guidance, sanitizer)).Append("</div>\n");
+        h.Append("<div class=\"guidance\">").Append(NoteMarkdown.ToHtml(i.Guidance)).Append("</div>\n");
         if (i.Evidence.Count > 0)
         {
             h.Append("<h4>Evidence</h4>\n");
@@ -122,7 +117,7 @@ public static class DossierHtml
                 switch (e.Kind)
                 {
                     case "note":
-                        h.Append(Markdown(e.Text, sanitizer));
+                        h.Append(NoteMarkdown.ToHtml(e.Text));
                         break;
                     case "attachment":
                         h.Append("<p>File <a href=\"").Append(E(e.AttachmentPath ?? string.Empty)).Append("\">").Append(E(e.FileName ?? "attachment"))
@@ -252,7 +247,6 @@ public static class DossierHtml
     private static void Row(StringBuilder h, string label, string value) =>
         h.Append("<tr><th>").Append(E(label)).Append("</th><td>").Append(E(value)).Append("</td></tr>\n");
 
-    private static string Markdown(string text, HtmlSanitizer sanitizer) => sanitizer.Sanitize(Markdig.Markdown.ToHtml(text ?? string.Empty, Pipeline));
 
     private static string E(string text) => WebUtility.HtmlEncode(text);
 }

@@ -1,14 +1,11 @@
-using Ganss.Xss;
-using Markdig;
-
 namespace EventReview.Web.Services;
 
-/// <summary>Markdown to sanitised HTML (no scripts, no event handlers, no raw HTML surprises).</summary>
+/// <summary>
+/// Markdown to sanitised HTML for the pages: the same pipeline as the dossier (<see cref="EventReview.Dossier.NoteMarkdown"/>),
+/// so a note reads the same in the app and in the exported <c>index.html</c>.
+/// </summary>
 public sealed class MarkdownRenderer
 {
-    private readonly MarkdownPipeline _pipeline = new MarkdownPipelineBuilder().UseAdvancedExtensions().Build();
-    private readonly HtmlSanitizer _sanitizer = new();
-
-    public string ToHtml(string? markdown) =>
-        string.IsNullOrWhiteSpace(markdown) ? string.Empty : _sanitizer.Sanitize(Markdown.ToHtml(markdown, _pipeline));
+    /// <summary>Sanitised HTML for <paramref name="markdown"/>; empty for null or blank text.</summary>
+    public string ToHtml(string? markdown) => EventReview.Dossier.NoteMarkdown.ToHtml(markdown);
 }
