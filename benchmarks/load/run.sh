@@ -54,7 +54,7 @@ if [ "$MODE" = "writes-postgres" ]; then
   # Durable settings (fsync and synchronous_commit on, the defaults): the figures are for a real server.
   "${RUNAS[@]}" "$PGBIN/pg_ctl" -D "$PG_PID_DIR/data" -o "-p 55499 -k $PG_PID_DIR -c listen_addresses=127.0.0.1 -c max_connections=200" -l "$PG_PID_DIR/log" -w start >/dev/null
   CONN="Host=127.0.0.1;Port=55499;Username=postgres;Database=postgres;Maximum Pool Size=100"
-  DBARGS=(--provider Postgres --connection "$CONN")
+  DBARGS=(--data "$DATA" --provider Postgres --connection "$CONN") # the record key folder lives in the data folder for the CLI and the server alike
   SERVER_ENV=(Database__Provider=Postgres "ConnectionStrings__Default=$CONN")
 fi
 
