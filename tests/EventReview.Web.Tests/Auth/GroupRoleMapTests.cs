@@ -12,7 +12,7 @@ public sealed class GroupRoleMapTests
         RoleMap = new(StringComparer.OrdinalIgnoreCase)
         {
             ["coordinator"] = "gw-review-coordinators",
-            ["Reviewer"] = "gw-reviewers, gw-detchar",
+            ["Reviewer"] = "gw-reviewers, gw-instrument-checks",
             ["observer"] = "gw-members",
         },
         DefaultRole = defaultRole,
@@ -20,8 +20,8 @@ public sealed class GroupRoleMapTests
 
     [Theory]
     [InlineData(new[] { "gw-members" }, "observer")]
-    [InlineData(new[] { "gw-members", "gw-detchar" }, "reviewer")]
-    [InlineData(new[] { "gw-detchar", "gw-review-coordinators", "gw-members" }, "coordinator")]
+    [InlineData(new[] { "gw-members", "gw-instrument-checks" }, "reviewer")]
+    [InlineData(new[] { "gw-instrument-checks", "gw-review-coordinators", "gw-members" }, "coordinator")]
     [InlineData(new[] { "GW-MEMBERS" }, null)]
     [InlineData(new string[0], null)]
     public void The_highest_role_of_the_groups_wins_and_names_compare_exactly(string[] groups, string? expected) =>
@@ -34,7 +34,7 @@ public sealed class GroupRoleMapTests
 
         Assert.Equal("observer", map.RoleFor(["unrelated"]));
         Assert.Empty(map.GroupsGiving("observer", ["unrelated"]));
-        Assert.Equal(["gw-detchar"], map.GroupsGiving("reviewer", ["unrelated", "gw-detchar"]));
+        Assert.Equal(["gw-instrument-checks"], map.GroupsGiving("reviewer", ["unrelated", "gw-instrument-checks"]));
     }
 
     [Fact]

@@ -88,7 +88,7 @@ public sealed class SingleSignOnTests(SingleSignOnFactory app) : IClassFixture<S
         Assert.Equal(Roles.Observer, await RoleAsync(account));
 
         // Promoted at the provider: the next sign-in makes them a reviewer (the highest role of their groups).
-        app.Provider.People[person.UserName] = person with { Groups = ["gw-members", "gw-detchar"] };
+        app.Provider.People[person.UserName] = person with { Groups = ["gw-members", "gw-instrument-checks"] };
         using (var second = new SsoBrowser(app, app.Provider))
         {
             await second.SignInAsync(person);
@@ -96,7 +96,7 @@ public sealed class SingleSignOnTests(SingleSignOnFactory app) : IClassFixture<S
 
         Assert.Equal(Roles.Reviewer, await RoleAsync(account));
         var change = (await AuditAsync(account.Id)).Single(e => e.Kind == AccountEventKinds.RoleChanged);
-        Assert.Equal("observer -> reviewer: groups [gw-detchar]", change.Detail);
+        Assert.Equal("observer -> reviewer: groups [gw-instrument-checks]", change.Detail);
 
         // The account and its new role are accounted for by the signed sign-in audit: whole-record verification holds.
         var (_, database) = await app.Services.GetRequiredService<EventReview.Data.IntegrityVerifier>().VerifyAsync();

@@ -46,7 +46,7 @@ public class SingleSignOnFactory : EventReviewFactory
         builder.UseSetting("EventReview:SignIn:SingleSignOn:RequireHttps", "false");
         builder.UseSetting("EventReview:SignIn:SingleSignOn:DisplayName", ProviderName);
         builder.UseSetting("EventReview:SignIn:SingleSignOn:RoleMap:coordinator", "gw-review-coordinators");
-        builder.UseSetting("EventReview:SignIn:SingleSignOn:RoleMap:reviewer", "gw-reviewers, gw-detchar");
+        builder.UseSetting("EventReview:SignIn:SingleSignOn:RoleMap:reviewer", "gw-reviewers, gw-instrument-checks");
         builder.UseSetting("EventReview:SignIn:SingleSignOn:RoleMap:observer", "gw-members");
     }
 }
