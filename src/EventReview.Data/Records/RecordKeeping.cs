@@ -17,6 +17,57 @@ public sealed class RecordKeeping(RecordSettings settings, IRecordKeyRing keys, 
 
     public HeadWitness Witness { get; } = witness;
 
+    private readonly Lock _observersLock = new();
+    private Action<IReadOnlyCollection<WitnessedHead>>[] _observers = [];
+
+    /// <summary>
+    /// Every writer calls this once a unit has committed, and only then (never for a save that failed or rolled back),
+    /// with the heads of the chains it wrote: they go to the witness and to the observers (the live case feed), which
+    /// must return at once and are never allowed to fail the write.
+    /// </summary>
+    public void Committed(IReadOnlyCollection<WitnessedHead> heads)
+    {
+        if (heads.Count == 0)
+        {
+            return;
+        }
+
+        Witness.Append(heads);
+        foreach (var observer in Volatile.Read(ref _observers))
+        {
+            try
+            {
+                observer(heads);
+            }
+            catch (Exception)
+            {
+                // An observer's failure must not touch a write that is already committed.
+            }
+        }
+    }
+
+    /// <summary>Adds an observer of committed heads (see <see cref="Committed"/>); dispose the result to remove it.</summary>
+    public IDisposable ObserveCommits(Action<IReadOnlyCollection<WitnessedHead>> observer)
+    {
+        lock (_observersLock)
+        {
+            _observers = [.. _observers, observer];
+        }
+
+        return new Unobserve(this, observer);
+    }
+
+    private sealed class Unobserve(RecordKeeping owner, Action<IReadOnlyCollection<WitnessedHead>> observer) : IDisposable
+    {
+        public void Dispose()
+        {
+            lock (owner._observersLock)
+            {
+                owner._observers = owner._observers.Where(o => o != observer).ToArray();
+            }
+        }
+    }
+
     /// <summary>Opens the key folder and the witness named by <paramref name="settings"/> (no key is created here).</summary>
     public static RecordKeeping Open(RecordSettings settings, TimeProvider? clock = null)
     {

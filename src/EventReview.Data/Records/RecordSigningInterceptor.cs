@@ -96,7 +96,7 @@ public sealed class RecordSigningInterceptor(RecordKeeping records) : SaveChange
         db.SavingHeads.Clear();
         if (db.Database.CurrentTransaction is null)
         {
-            records.Witness.Append(db.TakeWitnessHeads());
+            records.Committed(db.TakeWitnessHeads());
         }
     }
 
@@ -129,7 +129,7 @@ public sealed class RecordSigningInterceptor(RecordKeeping records) : SaveChange
     {
         if (context is AppDbContext db)
         {
-            records.Witness.Append(db.TakeWitnessHeads());
+            records.Committed(db.TakeWitnessHeads());
         }
     }
 

@@ -227,7 +227,7 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
             var committing = Stopwatch.GetTimestamp();
             await tx.CommitAsync();
-            _factory.Records?.Witness.Append(saved.SelectMany(u => u.Heads).ToList());
+            _factory.Records?.Committed(saved.SelectMany(u => u.Heads).ToList());
             Interlocked.Increment(ref _commits);
             CommitTime.Record(Stopwatch.GetElapsedTime(committing).TotalMilliseconds);
             BatchTime.Record(Stopwatch.GetElapsedTime(started).TotalMilliseconds);

@@ -25,7 +25,7 @@ public sealed class DirectWriteGate(AppDbContextFactory factory) : IWriteGate
         using var unit = new SqlUnit(factory.Settings.Provider, connection, tx, prepared: null, factory.Records);
         var result = await work(unit, ct);
         await tx.CommitAsync(ct);
-        factory.Records?.Witness.Append(unit.Heads);
+        factory.Records?.Committed(unit.Heads);
         return result;
     }
 }
