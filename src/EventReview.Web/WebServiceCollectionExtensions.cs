@@ -55,6 +55,7 @@ public static class WebServiceCollectionExtensions
         services.AddCascadingAuthenticationState();
 
         Notifications.NotificationServiceCollectionExtensions.AddEventReviewNotifications(services, configuration);
+        Services.Live.LiveServiceCollectionExtensions.AddEventReviewLive(services, configuration, settings);
         services.AddSingleton<ApiTokenCache>();
         services.AddSingleton<TemplateCatalog>();
         services.AddSingleton<MarkdownRenderer>();

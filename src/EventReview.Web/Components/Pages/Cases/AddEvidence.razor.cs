@@ -35,6 +35,10 @@ public partial class AddEvidence
     [Parameter, EditorRequired]
     public ChecklistItem Item { get; set; } = default!;
 
+    /// <summary>The page's live session, to tell teammates on the item that a note is being written.</summary>
+    [CascadingParameter]
+    public Services.Live.LiveCaseSession? Live { get; set; }
+
     [Parameter, EditorRequired]
     public System.Security.Claims.ClaimsPrincipal User { get; set; } = default!;
 
@@ -63,8 +67,11 @@ public partial class AddEvidence
         {
             _note = null;
             _noteTab = 0;
+            NoteEdited();
         }
     }
+
+    private void NoteEdited() => Live?.Doing(string.IsNullOrWhiteSpace(_note) ? null : "editing a note");
 
     private async Task AddLink()
     {
