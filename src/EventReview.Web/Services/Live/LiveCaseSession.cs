@@ -73,6 +73,9 @@ public sealed class LiveCaseSession : IDisposable
             .Select(b => new PresentPerson(b.DisplayName, b.ItemKey, b.Doing))
             .OrderBy(p => p.DisplayName, StringComparer.Ordinal).ToList();
 
+    /// <summary>The others who are not on the item this page shows (those are named above the item instead).</summary>
+    public IReadOnlyList<PresentPerson> OthersElsewhere() => _itemKey is null ? Others() : Others().Where(p => p.ItemKey != _itemKey).ToList();
+
     /// <summary>The others on the item this page shows.</summary>
     public IReadOnlyList<PresentPerson> OthersHere() => _itemKey is null ? [] : Others().Where(p => p.ItemKey == _itemKey).ToList();
 
