@@ -54,9 +54,17 @@ public sealed class LiveTeamworkTests(RunningApp app) : IClassFixture<RunningApp
             await Assertions.Expect(a.Locator($"li[data-item='{ItemKey}'] .state")).ToContainTextAsync("signed off");
             await a.ScreenshotAsync(new() { Path = Path.Combine(Screenshots, "live-3-signed-seen.png") });
 
-            // B leaves the case: A's presence line empties (the page withdrew its presence).
-            await b.GotoAsync($"{app.BaseUrl}/cases");
+            // B moves to another item: A sees B elsewhere on the case (under the header), no longer on this item.
+            await b.Locator("li[data-item='timing.arrival'] a").ClickAsync();
+            await Assertions.Expect(b).ToHaveURLAsync(new System.Text.RegularExpressions.Regex("/items/timing.arrival$"));
+            await Assertions.Expect(a.Locator("#live-here")).ToContainTextAsync("Demo Reviewer B on timing.arrival");
             await Assertions.Expect(a.Locator("#presence-line")).ToHaveCountAsync(0);
+            await a.EvaluateAsync("window.scrollTo(0, 0)");
+            await a.ScreenshotAsync(new() { Path = Path.Combine(Screenshots, "live-4-elsewhere.png") });
+
+            // B leaves the case: A's presence lines empty (the page withdrew its presence).
+            await b.GotoAsync($"{app.BaseUrl}/cases");
+            await Assertions.Expect(a.Locator("#live-here")).ToHaveCountAsync(0);
         }
         catch
         {
