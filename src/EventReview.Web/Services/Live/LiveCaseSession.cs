@@ -26,6 +26,7 @@ public sealed class LiveCaseSession : IDisposable
     private string? _itemKey;
     private string? _doing;
     private int _disposed;
+    private IReadOnlyList<PresentPerson> _shown = [];
 
     /// <exception cref="UnauthorizedAccessException">When <paramref name="user"/> may not read cases.</exception>
     public LiveCaseSession(CaseBus bus, TimeProvider clock, string candidateId, ClaimsPrincipal user, Func<Task> reload, Func<Task> redraw)
@@ -105,10 +106,23 @@ public sealed class LiveCaseSession : IDisposable
     {
         Beat();
         // Someone may have gone quiet (expired) without a word: redraw who is here. A page already gone is no matter.
-        _ = Safe(_redraw).ContinueWith(t => _ = t.Exception, TaskContinuationOptions.OnlyOnFaulted);
+        _ = RedrawPresenceAsync().ContinueWith(t => _ = t.Exception, TaskContinuationOptions.OnlyOnFaulted);
     }
 
-    private Task OnSignal(LiveSignal signal) => signal == LiveSignal.CaseChanged ? ReloadAsync() : Safe(_redraw);
+    private Task OnSignal(LiveSignal signal) => signal == LiveSignal.CaseChanged ? ReloadAsync() : RedrawPresenceAsync();
+
+    /// <summary>Redraws only when what this page shows of the others changed (not for its own beats or mere renewals).</summary>
+    private Task RedrawPresenceAsync()
+    {
+        var others = Others();
+        if (others.SequenceEqual(Volatile.Read(ref _shown)))
+        {
+            return Task.CompletedTask;
+        }
+
+        Volatile.Write(ref _shown, others);
+        return Safe(_redraw);
+    }
 
     private Task ReloadAsync()
     {
