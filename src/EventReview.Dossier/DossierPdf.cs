@@ -1,5 +1,6 @@
 using System.Globalization;
 using EventReview.Core.Dossier;
+using EventReview.Core.Plots;
 using PdfSharp.Pdf;
 
 namespace EventReview.Dossier;
@@ -94,7 +95,8 @@ public static class DossierPdf
         w.Space(4);
         double first = 110, each = kinds.Count == 0 ? 0 : (w.Width - first - 36) / kinds.Count;
         var columns = new[] { 0.0 }.Concat(kinds.Select((_, k) => first + (k * each))).Append(w.Width - 36).ToArray();
-        w.Row(columns, true, 7.5, ["Section", .. kinds, "Signed"]);
+        var headers = MatrixHeaders(kinds, kind => w.Fits(kind, 7.5, true, each - 4));
+        w.Row(columns, true, 7.5, ["Section", .. headers, "Signed"]);
         foreach (var section in Sections(doc))
         {
             var cells = kinds.Select(kind =>
@@ -105,6 +107,43 @@ public static class DossierPdf
             var signed = section.Count(i => i.SignOffs.Count(s => !s.IsStale) >= i.RequiredSignOffs && i.RequiredSignOffs > 0);
             w.Row(columns, false, 7.5, [section[0].SectionTitle, .. cells, $"{signed}/{section.Count}"]);
         }
+
+        var abbreviated = kinds.Zip(headers).Where(p => p.First != p.Second).Select(p => $"{p.Second} = {p.First}").ToList();
+        if (abbreviated.Count > 0)
+        {
+            w.Small("Column headings shortened to fit: " + string.Join("; ", abbreviated) + ".");
+        }
+
+        w.Space(6);
+        var progress = DossierProgress.Figure(doc);
+        w.Figure(PlotLayout.Lay(progress), $"Figure 1. {progress.Caption} (from the recorded sign-offs)");
+    }
+
+    /// <summary>
+    /// The verdict matrix's column headings: each check kind as it is when it fits its column (<paramref name="fits"/>),
+    /// otherwise its longest prefix that fits followed by "." (never a word broken across lines), kept distinct.
+    /// </summary>
+    internal static IReadOnlyList<string> MatrixHeaders(IReadOnlyList<string> kinds, Func<string, bool> fits)
+    {
+        var headers = new List<string>();
+        foreach (var kind in kinds)
+        {
+            var header = kind;
+            if (!fits(kind))
+            {
+                int n = kind.Length - 1;
+                while (n > 1 && (!fits(kind[..n] + ".") || headers.Contains(kind[..n] + ".", StringComparer.Ordinal)))
+                {
+                    n--;
+                }
+
+                header = kind[..Math.Max(1, n)] + ".";
+            }
+
+            headers.Add(header);
+        }
+
+        return headers;
     }
 
     internal static List<List<DossierItem>> Sections(DossierDocument doc) =>

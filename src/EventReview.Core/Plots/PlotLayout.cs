@@ -49,7 +49,7 @@ public static class PlotLayout
 
         marks.Add(new LineMark([P(f.Left, f.Top), P(f.Right, f.Top), P(f.Right, f.Bottom), P(f.Left, f.Bottom), P(f.Left, f.Top)], PlotPalette.Text, 1, false));
         var (x0, x1) = f.X.Range();
-        foreach (var t in f.X.Scale == AxisScale.Log ? PlotTicks.Log(x0, x1) : PlotTicks.Linear(x0, x1))
+        foreach (var t in f.X.Scale == AxisScale.Log ? PlotTicks.Log(x0, x1) : f.X.LinearTicks(6))
         {
             double px = f.Px(t);
             marks.Add(new LineMark([P(px, f.Bottom), P(px, f.Bottom + 5)], PlotPalette.Text, 1, false));
@@ -63,7 +63,17 @@ public static class PlotLayout
         }
 
         var (y0, y1) = f.Y.Range();
-        foreach (var t in f.Y.Scale == AxisScale.Log ? PlotTicks.Log(y0, y1) : PlotTicks.Linear(y0, y1, 5))
+        if (f.Y.Categories is { } names)
+        {
+            for (int k = 0; k < names.Count; k++)
+            {
+                double py = f.Py(k);
+                marks.Add(new LineMark([P(f.Left, py), P(f.Right, py)], PlotPalette.Rule, 0.6, false));
+                marks.Add(Text(f.Left - 8, py + 4, names[k], TickSize, "end"));
+            }
+        }
+
+        foreach (var t in f.Y.Categories is not null ? [] : f.Y.Scale == AxisScale.Log ? PlotTicks.Log(y0, y1) : f.Y.LinearTicks(5))
         {
             double py = f.Py(t);
             marks.Add(new LineMark([P(f.Left - 5, py), P(f.Left, py)], PlotPalette.Text, 1, false));
@@ -108,7 +118,7 @@ public static class PlotLayout
         double textWidth = entries.Max(e => e.Label!.Length) * TickSize * 0.56;
         double w = Math.Min(f.Right - f.Left - 16, textWidth + 40), h = (entries.Count * row) + 8;
         var (x, y) = LegendCorner(figure.LegendRight, f, w, h, marks);
-        marks.Add(new AreaMark([P(x, y), P(x + w, y), P(x + w, y + h), P(x, y + h)], EventReview.Core.Pictures.PicturePalette.Surface, 0.85));
+        marks.Add(new AreaMark([P(x, y), P(x + w, y), P(x + w, y + h), P(x, y + h)], PlotPalette.Surface, 0.85));
         marks.Add(new LineMark([P(x, y), P(x + w, y), P(x + w, y + h), P(x, y + h), P(x, y)], PlotPalette.Grey, 0.8, false));
         for (int k = 0; k < entries.Count; k++)
         {

@@ -25,7 +25,7 @@ public static class PlotSvg
         ArgumentNullException.ThrowIfNull(d);
         var sb = new StringBuilder();
         sb.Append(CultureInfo.InvariantCulture, $"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{d.Width}\" height=\"{d.Height}\" viewBox=\"0 0 {d.Width} {d.Height}\" font-family=\"DejaVu Sans, sans-serif\" font-size=\"12\" data-plot=\"{Format}\">");
-        sb.Append(CultureInfo.InvariantCulture, $"<rect width=\"100%\" height=\"100%\" fill=\"{EventReview.Core.Pictures.PicturePalette.Surface}\"/>");
+        sb.Append(CultureInfo.InvariantCulture, $"<rect width=\"100%\" height=\"100%\" fill=\"{PlotPalette.Surface}\"/>");
         foreach (var m in d.Marks)
         {
             switch (m)

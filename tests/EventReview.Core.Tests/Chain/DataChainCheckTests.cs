@@ -181,14 +181,17 @@ public class DataChainCheckTests
     }
 
     [Fact]
-    public void Stage_picture_is_well_formed_svg_with_three_traces_and_the_caption()
+    public void Stage_pictures_are_well_formed_plot_svgs_with_the_residual_its_spectrum_and_the_verdict_in_the_caption()
     {
         var (input, output, _) = Simulate(seed: 11, burstAmplitudeSigma: 12);
         var (report, traces) = DataChainCheck.RunWithTraces(input, [output], [Stage], Start.AddSeconds(10));
-        var svg = DataChainSvg.Render(traces[0], report.Stages[0], report.CenterGps, report.WindowSeconds);
-        var doc = System.Xml.Linq.XDocument.Parse(svg);
-        Assert.Equal(3, doc.Descendants("{http://www.w3.org/2000/svg}polyline").Count());
-        Assert.Contains("excess found", svg);
+        var svg = Plots.PlotSvg.Write(Plots.Figures.ChainResidualFigure.Build(traces[0], report.Stages[0], report.CenterGps, report.WindowSeconds));
+        var drawing = Plots.PlotSvg.Read(svg);
+        Assert.NotNull(drawing);
+        Assert.Contains("excess found", drawing.Caption);
+        var spectrum = Plots.PlotSvg.Read(Plots.PlotSvg.Write(Plots.Figures.ChainSpectrumFigure.Build(traces[0], report.Stages[0])));
+        Assert.NotNull(spectrum);
+        Assert.Contains("spectrum", spectrum.Caption);
         Assert.Equal(N, traces[0].Residual.Length);
     }
 
