@@ -28,7 +28,7 @@ public sealed record PlotFrame(double Left, double Top, double Right, double Bot
             : figure.Y.Categories is { Count: > 0 } names ? Math.Max(84, 36 + (names.Max(n => n.Length) * CharWidth)) : 84;
         double right = figure.Width - 20 - (figure.ColourBar is null ? 0 : 112);
         double top = 14;
-        double bottom = figure.Height - (axes ? 72 : 34);
+        double bottom = figure.Height - (axes ? 72 : 34) - ((PlotLayout.CaptionLines(figure.Caption, figure.Width).Count - 1) * PlotLayout.CaptionLineHeight);
         if (figure.EqualAspect)
         {
             var (x0, x1) = figure.X.Range();

@@ -48,7 +48,13 @@ public static class PlotSvg
             }
         }
 
-        Text(sb, new TextMark(PlotPoint.Of(d.Width / 2.0, d.Height - 10), d.Caption, 12, PlotPalette.Text, "middle", false, true), "caption");
+        var lines = PlotLayout.CaptionLines(d.Caption, d.Width);
+        for (int k = 0; k < lines.Count; k++)
+        {
+            double y = d.Height - 10 - ((lines.Count - 1 - k) * PlotLayout.CaptionLineHeight);
+            Text(sb, new TextMark(PlotPoint.Of(d.Width / 2.0, y), lines[k], 12, PlotPalette.Text, "middle", false, true), "caption");
+        }
+
         sb.Append("</svg>");
         return sb.ToString();
     }
@@ -89,7 +95,7 @@ public static class PlotSvg
                     marks.Add(new DotMark(new PlotPoint(D(A("cx")), D(A("cy"))), D(A("r")), A("fill")));
                     break;
                 case "text" when A("class") == "caption":
-                    caption = e.Value;
+                    caption = caption.Length == 0 ? e.Value : caption + " " + e.Value;
                     break;
                 case "text":
                     marks.Add(new TextMark(new PlotPoint(D(A("x")), D(A("y"))), e.Value, D(A("font-size")), A("fill"), A("text-anchor"),

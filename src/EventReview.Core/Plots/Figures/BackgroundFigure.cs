@@ -7,13 +7,25 @@ namespace EventReview.Core.Plots.Figures;
 
 /// <summary>
 /// The cumulative time-slide background of one pair: rate of background coincidences at or above each ranking statistic
-/// (1/s, log axis) as a step line with its Poisson ±1σ band (±√n / T); the rates that would make the candidate 3σ and 5σ
+/// (1/s, log axis) as a step line with the 1σ Poisson interval of each count (Gehrels 1986) divided by the background time; the rates that would make the candidate 3σ and 5σ
 /// over the observing time (a Poisson false-alarm process: R = −ln(1 − Q(z)) / T_obs with the one-sided Gaussian tail Q);
 /// the candidate's statistic and false-alarm rate, drawn as a bound with its confidence level when nothing in the
 /// background was as loud.
 /// </summary>
 public static class BackgroundFigure
 {
+    /// <summary>
+    /// Upper end of the 1σ (84.13 %) confidence interval of a Poisson mean after <paramref name="n"/> events:
+    /// n + √(n + 3/4) + 1 (Gehrels 1986, ApJ 303, 336, eq. 7 with S = 1).
+    /// </summary>
+    public static double PoissonUpper(double n) => n + Math.Sqrt(n + 0.75) + 1;
+
+    /// <summary>
+    /// Lower end of the 1σ confidence interval of a Poisson mean after <paramref name="n"/> events:
+    /// n (1 − 1/(9n) − 1/(3√n))³, 0 for n = 0 (Gehrels 1986, eq. 11 with S = 1).
+    /// </summary>
+    public static double PoissonLower(double n) => n <= 0 ? 0 : n * Math.Pow(1 - (1 / (9 * n)) - (1 / (3 * Math.Sqrt(n))), 3);
+
     /// <summary>The figure of <paramref name="result"/>.</summary>
     public static PlotFigure Build(BackgroundResult result)
     {
@@ -40,8 +52,8 @@ public static class BackgroundFigure
             {
                 sx.Add(x);
                 sy.Add(rate);
-                lower.Add(Math.Max(yLo, (n - Math.Sqrt(n)) / T));
-                upper.Add((n + Math.Sqrt(n)) / T);
+                lower.Add(Math.Max(yLo, PoissonLower(n) / T));
+                upper.Add(PoissonUpper(n) / T);
             }
         }
 
@@ -49,7 +61,7 @@ public static class BackgroundFigure
         string bound = result.FarIsBound ? string.Create(ci, $" < {far} Hz ({result.FarBoundConfidence ?? 0.9:0%} upper bound: nothing as loud)") : $" {far} Hz";
         var elements = new List<PlotElement>
         {
-            new PlotBand(sx, lower, upper) { Colour = PlotPalette.Shade, Label = "Poisson ±1σ of the count (±√n / T)" },
+            new PlotBand(sx, lower, upper) { Colour = PlotPalette.Shade, Label = "Poisson 1σ interval of the count (Gehrels 1986)" },
             new PlotLine([xLo, xHi], [r3, r3]) { Colour = PlotPalette.Amber, Dashed = true, Width = 1.2, Label = string.Create(ci, $"3σ over the observing time ({ScientificFormat.Format(r3, 3)} Hz)") },
             new PlotLine([xLo, xHi], [r5, r5]) { Colour = PlotPalette.Alarm, Dashed = true, Width = 1.2, Label = string.Create(ci, $"5σ over the observing time ({ScientificFormat.Format(r5, 3)} Hz)") },
             new PlotLine(sx, sy) { Colour = PlotPalette.Ink, Width = 1.8, Label = "background rate at or above the statistic" },
@@ -57,20 +69,20 @@ public static class BackgroundFigure
         };
         if (result.FarIsBound)
         {
-            elements.Add(new PlotLine([result.CandidateStatistic, result.CandidateStatistic], [yLo, result.FarHz]) { Colour = PlotPalette.Warm, Width = 3 });
+            elements.Add(new PlotLine([result.CandidateStatistic, result.CandidateStatistic], [yLo, result.FarHz]) { Colour = PlotPalette.Warm, Width = 2 });
             elements.Add(new PlotPoints([result.CandidateStatistic], [result.FarHz]) { Colour = PlotPalette.Warm, Radius = 6, Label = "candidate: FAR" + bound });
         }
         else
         {
             double n = Math.Max(1, result.Louder);
-            elements.Add(new PlotLine([result.CandidateStatistic, result.CandidateStatistic], [Math.Max(yLo, (n - Math.Sqrt(n)) / T), (n + Math.Sqrt(n)) / T]) { Colour = PlotPalette.Warm, Width = 3 });
-            elements.Add(new PlotPoints([result.CandidateStatistic], [result.FarHz]) { Colour = PlotPalette.Warm, Radius = 6, Label = "candidate: FAR" + bound + " ± 1σ" });
+            elements.Add(new PlotLine([result.CandidateStatistic, result.CandidateStatistic], [Math.Max(yLo, PoissonLower(n) / T), PoissonUpper(n) / T]) { Colour = PlotPalette.Warm, Width = 3 });
+            elements.Add(new PlotPoints([result.CandidateStatistic], [result.FarHz]) { Colour = PlotPalette.Warm, Radius = 6, Label = "candidate: FAR" + bound + " with its 1σ interval" });
         }
 
         string sigma = (result.SigmaIsBound ? "≥ " : string.Empty) + result.Sigma.ToString("0.0", ci) + " σ";
         string caption = string.Create(ci,
             $"Background of {result.SiteA}–{result.SiteB} from {result.Slides} time slides ({ScientificFormat.Format(result.BackgroundSeconds, 4)} s): candidate at {result.CandidateStatistic:0.##}, FAR{bound}, {sigma}. The candidate should sit far right of the curve");
         return new PlotFigure(caption, new PlotAxis("ranking statistic (network SNR, dimensionless)", xLo, xHi),
-            new PlotAxis("background rate at or above (1/s)", yLo, yHi, AxisScale.Log), elements) { LegendRight = true, Width = 900, Height = 460 };
+            new PlotAxis("background rate at or above (1/s)", yLo, yHi, AxisScale.Log), elements) { LegendRight = true, Height = 460 };
     }
 }

@@ -87,7 +87,10 @@ public static class EnvironmentTimelineFigure
         string caption = string.Create(ci,
             $"Environment lookup: {report.Hits.Count} trigger(s), {report.Segments.Count} data-quality segment(s) within the windows (±{windowSeconds:0.###} s shaded); {report.Judgement.Word}. Red dots inside the window need a look");
         return new PlotFigure(caption, new PlotAxis("time from each site's arrival (s)", -span, span),
-            new PlotAxis("channel (one row each)", -0.5, rows.Count - 0.5) { Categories = rows.Select(r => r.Name).Reverse().ToList() }, elements)
-        { Width = 900, Height = Math.Max(240, 130 + (rows.Count * 34)), LegendRight = true };
+            new PlotAxis("channel (one row each)", -0.5, rows.Count + 0.5 + (0.5 * LegendRows(elements))) { Categories = rows.Select(r => r.Name).Reverse().ToList() }, elements)
+        { Height = Math.Max(260, (int)(150 + ((rows.Count + 1 + (0.5 * LegendRows(elements))) * 34))), LegendRight = true };
     }
+
+    /// <summary>Rows the legend takes, so the axes leave room for it above the channels.</summary>
+    internal static int LegendRows(IEnumerable<PlotElement> elements) => elements.Count(e => !string.IsNullOrEmpty(e.Label) && e is not PlotText);
 }

@@ -80,7 +80,7 @@ public static class NetworkMapFigure
         return new PlotFigure(caption,
             new PlotAxis("longitude (degrees east)", -180, 180) { TickStep = 30 },
             new PlotAxis("latitude (degrees north)", -90, 90) { TickStep = 30 }, elements)
-        { EqualAspect = true, Height = 500, Width = 900 };
+        { EqualAspect = true, Height = 440, LegendBottom = true };
     }
 
     /// <summary>

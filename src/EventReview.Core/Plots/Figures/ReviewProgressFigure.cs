@@ -5,8 +5,8 @@ namespace EventReview.Core.Plots.Figures;
 /// <summary>
 /// Review progress over time, from the recorded sign-offs: items fully signed (at least their required number of sign-offs
 /// current at that moment: given, and not yet stale) and sign-offs given so far, as steps from the case's opening to its
-/// last change; the number of items as the goal line. Time in hours from the opening when the review spans under two days,
-/// otherwise in days. The same inputs (the stored sign-offs and the case's two times) give the same picture in the app
+/// last change; the number of items as the goal line. Time from the opening in seconds, minutes, hours or days, the
+/// largest unit that the review spans at least twice. The same inputs (the stored sign-offs and the case's two times) give the same picture in the app
 /// and in the dossier.
 /// </summary>
 public static class ReviewProgressFigure
@@ -27,9 +27,11 @@ public static class ReviewProgressFigure
         long end = Math.Max(untilUtcTicks, openedUtcTicks + TimeSpan.TicksPerMinute);
         var events = items.SelectMany(i => i.SignOffs).SelectMany(s => s.StaleSinceUtcTicks is { } st ? new[] { s.SignedAtUtcTicks, st } : [s.SignedAtUtcTicks])
             .Where(t => t >= openedUtcTicks && t <= end).Append(openedUtcTicks).Append(end).Distinct().Order().ToList();
-        bool hours = end - openedUtcTicks < 2 * TimeSpan.TicksPerDay;
-        double unit = hours ? TimeSpan.TicksPerHour : TimeSpan.TicksPerDay;
-        double X(long t) => (t - openedUtcTicks) / unit;
+        long span = end - openedUtcTicks;
+        var (unit, unitName) = span < 2 * TimeSpan.TicksPerMinute ? (TimeSpan.TicksPerSecond, "seconds")
+            : span < 2 * TimeSpan.TicksPerHour ? (TimeSpan.TicksPerMinute, "minutes")
+            : span < 2 * TimeSpan.TicksPerDay ? (TimeSpan.TicksPerHour, "hours") : (TimeSpan.TicksPerDay, "days");
+        double X(long t) => (t - openedUtcTicks) / (double)unit;
         var xs = new List<double>();
         var signed = new List<double>();
         var given = new List<double>();
@@ -59,7 +61,7 @@ public static class ReviewProgressFigure
         int now = signed.Count == 0 ? 0 : (int)signed[^1];
         string caption = string.Create(ci,
             $"Review progress: {now} of {needing} items fully signed at the last change, {(int)given.DefaultIfEmpty(0).Last()} sign-offs given; a drop means sign-offs went stale when evidence changed");
-        return new PlotFigure(caption, new PlotAxis(hours ? "time since the case was opened (hours)" : "time since the case was opened (days)", 0, X(end)),
-            new PlotAxis("items or sign-offs (count)", 0, top), elements) { Width = 900, Height = 360 };
+        return new PlotFigure(caption, new PlotAxis($"time since the case was opened ({unitName})", 0, X(end)),
+            new PlotAxis("items or sign-offs (count)", 0, top), elements) { Width = 620, Height = 320 };
     }
 }
