@@ -44,6 +44,10 @@ public static class DossierPdf
     /// <summary>UTC to the second, from 100 ns ticks: "2026-03-01 12:00:05 UTC".</summary>
     internal static string Utc(long ticks) => new DateTime(ticks, DateTimeKind.Utc).ToString("yyyy-MM-dd HH:mm:ss 'UTC'", CultureInfo.InvariantCulture);
 
+    /// <summary>UTC to the second with the GPS second beside it: "2026-03-01 12:00:05 UTC (GPS 1456488023 s)" (leap seconds from the bundled table).</summary>
+    internal static string UtcAndGps(long ticks) =>
+        $"{Utc(ticks)} ({Gps(Core.Time.GpsUtc.FromUtc(new DateTime(ticks, DateTimeKind.Utc)).Nanoseconds)})";
+
     /// <summary>GPS seconds, whole: "GPS 1615248600 s".</summary>
     internal static string Gps(long nanoseconds) => string.Create(CultureInfo.InvariantCulture, $"GPS {Math.Floor(nanoseconds / 1e9):0} s");
 
@@ -55,7 +59,7 @@ public static class DossierPdf
         w.NewPage();
         w.Small("REVIEW DOSSIER FOR THE COMMITTEE");
         w.Title(c.CandidateId);
-        w.Line($"Candidate time {Gps(c.GpsNanoseconds)} ({c.Gps} s), search {c.Search}");
+        w.Line($"Candidate time {Gps(c.GpsNanoseconds)} ({c.Gps} s) = {Core.Time.GpsUtc.ToUtc(new Core.Time.GpsTime(c.GpsNanoseconds)).ToString(0).Replace('T', ' ')} UTC, search {c.Search}");
         w.Heading("Decision status");
         w.Bold(c.Outcome is null ? $"Open: the review is {c.State}; no decision has been recorded." : $"Closed: {c.Outcome} (state {c.State}).");
         if (c.ClosingStatement is not null)
@@ -74,10 +78,10 @@ public static class DossierPdf
         w.Line($"Checklist items: {c.ItemCount}; fully signed {c.SignedItemCount}; with stale sign-offs {c.StaleItemCount}; not yet signed {c.ItemCount - c.SignedItemCount}");
         w.Line($"Check runs recorded: {runs.Count}" + (runs.Count == 0 ? string.Empty
             : " (" + string.Join(", ", runs.GroupBy(r => r.Verdict).OrderBy(g => g.Key, StringComparer.Ordinal).Select(g => $"{g.Count()} {g.Key}")) + ")"));
-        w.Line($"Figures: {doc.Items.SelectMany(i => i.Computations).Sum(r => r.Pictures.Count)}; timeline entries: {doc.Timeline.Count}");
+        w.Line($"Figures: {1 + doc.Items.SelectMany(i => i.Computations).Sum(r => r.Pictures.Count)} (the review progress and every check picture); timeline entries: {doc.Timeline.Count}");
         w.Heading("Case");
         w.Line($"Coordinator {c.CoordinatorName}; checklist {c.ChecklistName} version {c.ChecklistVersion}");
-        w.Line($"Opened {Utc(c.CreatedAtUtcTicks)}; last change {Utc(c.UpdatedAtUtcTicks)}");
+        w.Line($"Opened {UtcAndGps(c.CreatedAtUtcTicks)}; last change {UtcAndGps(c.UpdatedAtUtcTicks)}");
         w.Line(c.Summary);
         w.Space(8);
         w.Small("This summary is rendered from dossier.json and checked against it by 'eventreview dossier verify'. The decision rests " +

@@ -59,7 +59,7 @@ internal static class DossierPdfSections
         foreach (var r in i.Computations)
         {
             w.Line($"Check {r.Kind}: {r.Verdict}. {r.Summary}", 12);
-            w.Small($"run by {r.RunByName} at {DossierPdf.Utc(r.RunAtUtcTicks)}; {r.ToolVersion}; record {DossierPdf.Short(r.ContentSha256)}", 24);
+            w.Small($"run by {r.RunByName} at {DossierPdf.UtcAndGps(r.RunAtUtcTicks)}; {r.ToolVersion}; record {DossierPdf.Short(r.ContentSha256)}", 24);
             foreach (var p in r.Pictures)
             {
                 var n = numbers[(r.Id, p)];

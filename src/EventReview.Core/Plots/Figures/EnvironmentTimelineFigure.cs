@@ -4,7 +4,8 @@ using EventReview.Core.Environment;
 namespace EventReview.Core.Plots.Figures;
 
 /// <summary>
-/// The environment and veto lookup as a timeline: one row per channel that fired (named "SITE channel [kind]") and one per
+/// The environment and veto lookup as a timeline: one row per channel that fired (named "SITE/channel [kind]", the site
+/// put in front when the channel name does not start with it) and one per
 /// site for its active data-quality flags, top to bottom in site order; time in seconds from each site's arrival; the
 /// lookup window ±w shaded; each trigger a dot whose size grows with its SNR (labelled), brick red when the channel is not
 /// shown safe and grey when it is; each flag a bar over its active time. A site with nothing in its window gets a row that
@@ -33,7 +34,8 @@ public static class EnvironmentTimelineFigure
             foreach (var channel in channels)
             {
                 var hits = channel.ToList();
-                rows.Add(($"{site.Site} {channel.Key} [{hits[0].Kind}]", (y, list) =>
+                string name = channel.Key.StartsWith(site.Site + "/", StringComparison.OrdinalIgnoreCase) ? channel.Key : $"{site.Site} {channel.Key}";
+                rows.Add(($"{name} [{hits[0].Kind}]", (y, list) =>
                 {
                     foreach (var h in hits)
                     {

@@ -65,7 +65,7 @@ public static class InjectionTimelineFigure
         string caption = string.Create(ci,
             $"Injection log within ±{span:0} s of the candidate: {shown.Count} of {relevant.Count} entries for these sites, {report.Hits.Count} overlapping (margin ±{report.MarginSeconds:0.###} s); {nearest}. No coloured bar should touch the dots");
         return new PlotFigure(caption, new PlotAxis("time from candidate (s)", -span, span),
-            new PlotAxis("site (one row each)", -0.5, Math.Max(0, sites.Count - 1) + 1.5 + (0.45 * EnvironmentTimelineFigure.LegendRows(elements))) { Categories = sites.AsEnumerable().Reverse().ToList() }, elements)
-        { Height = Math.Max(260, (int)(170 + ((sites.Count + 1 + (0.45 * EnvironmentTimelineFigure.LegendRows(elements))) * 40))), LegendRight = true };
+            new PlotAxis("site (one row each)", -0.5, Math.Max(0, sites.Count - 1) + 0.8 + (0.3 * EnvironmentTimelineFigure.LegendRows(elements))) { Categories = sites.AsEnumerable().Reverse().ToList() }, elements)
+        { Height = Math.Max(260, (int)(170 + ((sites.Count + 0.5 + (0.3 * EnvironmentTimelineFigure.LegendRows(elements))) * 40))), LegendRight = true };
     }
 }

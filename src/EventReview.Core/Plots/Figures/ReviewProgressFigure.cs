@@ -51,7 +51,7 @@ public static class ReviewProgressFigure
         }
 
         int total = items.Count, needing = items.Count(i => i.RequiredSignOffs > 0);
-        double top = Math.Max(total, given.DefaultIfEmpty(0).Max()) * 1.1 + 1;
+        double top = (Math.Max(total, given.DefaultIfEmpty(0).Max()) * 1.45) + 2; // room above the goal line for the legend
         var elements = new List<PlotElement>
         {
             new PlotLine([0, X(end)], [needing, needing]) { Colour = PlotPalette.Grey, Dashed = true, Width = 1.2, Label = string.Create(ci, $"items needing sign-off ({needing})") },
