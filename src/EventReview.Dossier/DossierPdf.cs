@@ -59,7 +59,7 @@ public static class DossierPdf
         w.NewPage();
         w.Small("REVIEW DOSSIER FOR THE COMMITTEE");
         w.Title(c.CandidateId);
-        w.Line($"Candidate time {Gps(c.GpsNanoseconds)} ({c.Gps} s) = {Core.Time.GpsUtc.ToUtc(new Core.Time.GpsTime(c.GpsNanoseconds)).ToString(0).Replace('T', ' ')} UTC, search {c.Search}");
+        w.Line($"Candidate time {Gps(c.GpsNanoseconds)} ({c.Gps} s) = {Core.Time.GpsUtc.ToUtc(new Core.Time.GpsTime(c.GpsNanoseconds)).ToString(0).Replace('T', ' ').TrimEnd('Z')} UTC, search {c.Search}");
         w.Heading("Decision status");
         w.Bold(c.Outcome is null ? $"Open: the review is {c.State}; no decision has been recorded." : $"Closed: {c.Outcome} (state {c.State}).");
         if (c.ClosingStatement is not null)

@@ -42,6 +42,9 @@ public class DossierPdfTests
         Assert.Contains("Open: the review is", text);
         Assert.Contains("Network SNR", text);
         Assert.Contains("Check runs recorded: 2", text);
+        Assert.Matches(@"= \d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2} UTC, search", Flat(text)); // the candidate time in UTC to the second beside GPS
+        Assert.Matches(@"Opened \d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2} UTC \(GPS \d+ s\)", Flat(text));
+        Assert.Contains("Figures: 3 (the review progress and every check picture)", text);
     }
 
     [Fact]
