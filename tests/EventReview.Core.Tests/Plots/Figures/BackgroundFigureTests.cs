@@ -29,11 +29,23 @@ public class BackgroundFigureTests
         Assert.Equal(-Math.Log(1 - GaussianTail.Q(3)) / r.ObservingTimeSeconds, fig.Elements.OfType<PlotLine>().Single(l => l.Label?.StartsWith("3σ", StringComparison.Ordinal) == true).Ys[0], 1e-15);
         var candidate = fig.Elements.OfType<PlotPoints>().Single();
         Assert.Equal(r.FarHz, candidate.Ys[0]);
-        Assert.EndsWith("± 1σ", candidate.Label);
+        Assert.EndsWith("with its 1σ interval", candidate.Label);
         Assert.Equal(AxisScale.Log, fig.Y.Scale);
         Assert.Contains("(1/s)", fig.Y.Label);
         Assert.True(fig.Y.Min <= fig.Elements.OfType<PlotLine>().Where(l => l.Ys.Count > 2).SelectMany(l => l.Ys).Min());
         FigureBackEndTests.AssertDrawable(fig);
+    }
+
+    [Fact]
+    public void Poisson_intervals_match_the_published_table()
+    {
+        // Gehrels 1986, ApJ 303, 336, tables 1 and 2 (S = 1, 84.13 %), from memory: n = 1 gives 0.173 to 3.300, n = 10 gives
+        // 6.891 to 14.27; the closed forms used for the band agree to about 1 %.
+        Assert.Equal(3.300, BackgroundFigure.PoissonUpper(1), 0.03);
+        Assert.Equal(0.173, BackgroundFigure.PoissonLower(1), 0.002);
+        Assert.Equal(14.27, BackgroundFigure.PoissonUpper(10), 0.02);
+        Assert.Equal(6.891, BackgroundFigure.PoissonLower(10), 0.01);
+        Assert.Equal(0, BackgroundFigure.PoissonLower(0));
     }
 
     [Fact]
