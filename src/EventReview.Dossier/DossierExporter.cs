@@ -9,7 +9,7 @@ namespace EventReview.Dossier;
 /// <summary>
 /// Writes a case's dossier ZIP (format in <c>docs/formats/dossier.md</c>). Entries are written in a fixed order
 /// (<c>dossier.json</c>, <c>index.html</c>, <c>summary.pdf</c>, <c>pictures/&lt;n&gt;.svg</c> by n,
-/// <c>attachments/&lt;sha256&gt;</c> by hash, <c>manifest.json</c> last), all dated 1980-01-01 00:00, with no
+/// <c>attachments/&lt;sha256 prefix&gt;-&lt;safe name&gt;.&lt;ext&gt;</c> by path (<see cref="AttachmentNames"/>), <c>manifest.json</c> last), all dated 1980-01-01 00:00, with no
 /// directory entries and no extra fields, so exporting an unchanged case twice gives the same files and manifest
 /// (only the value of the manifest's signature differs: ECDSA signatures are randomised). With a signer, the manifest
 /// carries the server's signature (<see cref="DossierSignature"/>) over its listed files and the head it saw.
@@ -46,10 +46,11 @@ public static class DossierExporter
             }
 
             var attachments = doc.Items.SelectMany(i => i.Evidence).Where(e => e.Kind == "attachment")
-                .Select(e => e.ContentSha256).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal);
-            foreach (var sha in attachments)
+                .Select(e => (Path: DossierDocument.AttachmentPath(doc.SchemaVersion, e.ContentSha256, e.FileName), Sha: e.ContentSha256))
+                .DistinctBy(a => a.Path, StringComparer.Ordinal).OrderBy(a => a.Path, StringComparer.Ordinal);
+            foreach (var (path, sha) in attachments)
             {
-                await AddAttachmentAsync(zip, sha, openAttachment, listed, ct);
+                await AddAttachmentAsync(zip, path, sha, openAttachment, listed, ct);
             }
 
             var manifest = new DossierManifest(DossierDocument.CurrentSchemaVersion, doc.Case.CandidateId, doc.ChainHead,
@@ -80,9 +81,8 @@ public static class DossierExporter
         listed?.Add(new DossierManifestFile(name, Hashing.Sha256Hex(bytes), bytes.LongLength));
     }
 
-    private static async Task AddAttachmentAsync(ZipArchive zip, string sha, Func<string, Stream?> open, List<DossierManifestFile> listed, CancellationToken ct)
+    private static async Task AddAttachmentAsync(ZipArchive zip, string name, string sha, Func<string, Stream?> open, List<DossierManifestFile> listed, CancellationToken ct)
     {
-        var name = DossierBuilder.AttachmentPath(sha);
         await using var source = open(sha) ?? throw new FileNotFoundException($"Attachment {sha} is missing from the attachment store; the dossier cannot be exported.", name);
         using var hash = IncrementalHash.CreateHash(HashAlgorithmName.SHA256);
         long length = 0;

@@ -68,6 +68,10 @@ public static class DossierHtml
 
         h.Append("</table>\n");
         VerdictTable(h, doc);
+        var progress = Core.Plots.PlotSvg.Write(DossierProgress.Figure(doc));
+        h.Append("<figure id=\"figure-1\"><img class=\"picture\" alt=\"").Append(E(DossierProgress.Figure(doc).Caption)).Append("\" src=\"data:image/svg+xml;base64,")
+         .Append(Convert.ToBase64String(Encoding.UTF8.GetBytes(progress))).Append("\">\n<figcaption>Figure 1. ").Append(E(DossierProgress.Figure(doc).Caption))
+         .Append(" <span class=\"muted\">(from the recorded sign-offs)</span></figcaption></figure>\n");
         foreach (var item in doc.Items)
         {
             Item(h, item, doc);

@@ -1,5 +1,6 @@
 using System.Globalization;
 using EventReview.Core.Dossier;
+using EventReview.Core.Plots;
 using PdfSharp.Pdf;
 
 namespace EventReview.Dossier;
@@ -43,6 +44,10 @@ public static class DossierPdf
     /// <summary>UTC to the second, from 100 ns ticks: "2026-03-01 12:00:05 UTC".</summary>
     internal static string Utc(long ticks) => new DateTime(ticks, DateTimeKind.Utc).ToString("yyyy-MM-dd HH:mm:ss 'UTC'", CultureInfo.InvariantCulture);
 
+    /// <summary>UTC to the second with the GPS second beside it: "2026-03-01 12:00:05 UTC (GPS 1456488023 s)" (leap seconds from the bundled table).</summary>
+    internal static string UtcAndGps(long ticks) =>
+        $"{Utc(ticks)} ({Gps(Core.Time.GpsUtc.FromUtc(new DateTime(ticks, DateTimeKind.Utc)).Nanoseconds)})";
+
     /// <summary>GPS seconds, whole: "GPS 1615248600 s".</summary>
     internal static string Gps(long nanoseconds) => string.Create(CultureInfo.InvariantCulture, $"GPS {Math.Floor(nanoseconds / 1e9):0} s");
 
@@ -54,7 +59,7 @@ public static class DossierPdf
         w.NewPage();
         w.Small("REVIEW DOSSIER FOR THE COMMITTEE");
         w.Title(c.CandidateId);
-        w.Line($"Candidate time {Gps(c.GpsNanoseconds)} ({c.Gps} s), search {c.Search}");
+        w.Line($"Candidate time {Gps(c.GpsNanoseconds)} ({c.Gps} s) = {Core.Time.GpsUtc.ToUtc(new Core.Time.GpsTime(c.GpsNanoseconds)).ToString(0).Replace('T', ' ').TrimEnd('Z')} UTC, search {c.Search}");
         w.Heading("Decision status");
         w.Bold(c.Outcome is null ? $"Open: the review is {c.State}; no decision has been recorded." : $"Closed: {c.Outcome} (state {c.State}).");
         if (c.ClosingStatement is not null)
@@ -73,10 +78,10 @@ public static class DossierPdf
         w.Line($"Checklist items: {c.ItemCount}; fully signed {c.SignedItemCount}; with stale sign-offs {c.StaleItemCount}; not yet signed {c.ItemCount - c.SignedItemCount}");
         w.Line($"Check runs recorded: {runs.Count}" + (runs.Count == 0 ? string.Empty
             : " (" + string.Join(", ", runs.GroupBy(r => r.Verdict).OrderBy(g => g.Key, StringComparer.Ordinal).Select(g => $"{g.Count()} {g.Key}")) + ")"));
-        w.Line($"Figures: {doc.Items.SelectMany(i => i.Computations).Sum(r => r.Pictures.Count)}; timeline entries: {doc.Timeline.Count}");
+        w.Line($"Figures: {1 + doc.Items.SelectMany(i => i.Computations).Sum(r => r.Pictures.Count)} (the review progress and every check picture); timeline entries: {doc.Timeline.Count}");
         w.Heading("Case");
         w.Line($"Coordinator {c.CoordinatorName}; checklist {c.ChecklistName} version {c.ChecklistVersion}");
-        w.Line($"Opened {Utc(c.CreatedAtUtcTicks)}; last change {Utc(c.UpdatedAtUtcTicks)}");
+        w.Line($"Opened {UtcAndGps(c.CreatedAtUtcTicks)}; last change {UtcAndGps(c.UpdatedAtUtcTicks)}");
         w.Line(c.Summary);
         w.Space(8);
         w.Small("This summary is rendered from dossier.json and checked against it by 'eventreview dossier verify'. The decision rests " +
@@ -94,7 +99,8 @@ public static class DossierPdf
         w.Space(4);
         double first = 110, each = kinds.Count == 0 ? 0 : (w.Width - first - 36) / kinds.Count;
         var columns = new[] { 0.0 }.Concat(kinds.Select((_, k) => first + (k * each))).Append(w.Width - 36).ToArray();
-        w.Row(columns, true, 7.5, ["Section", .. kinds, "Signed"]);
+        var headers = MatrixHeaders(kinds, kind => w.Fits(kind, 7.5, true, each - 4));
+        w.Row(columns, true, 7.5, ["Section", .. headers, "Signed"]);
         foreach (var section in Sections(doc))
         {
             var cells = kinds.Select(kind =>
@@ -105,6 +111,43 @@ public static class DossierPdf
             var signed = section.Count(i => i.SignOffs.Count(s => !s.IsStale) >= i.RequiredSignOffs && i.RequiredSignOffs > 0);
             w.Row(columns, false, 7.5, [section[0].SectionTitle, .. cells, $"{signed}/{section.Count}"]);
         }
+
+        var abbreviated = kinds.Zip(headers).Where(p => p.First != p.Second).Select(p => $"{p.Second} = {p.First}").ToList();
+        if (abbreviated.Count > 0)
+        {
+            w.Small("Column headings shortened to fit: " + string.Join("; ", abbreviated) + ".");
+        }
+
+        w.Space(6);
+        var progress = DossierProgress.Figure(doc);
+        w.Figure(PlotLayout.Lay(progress), $"Figure 1. {progress.Caption} (from the recorded sign-offs)");
+    }
+
+    /// <summary>
+    /// The verdict matrix's column headings: each check kind as it is when it fits its column (<paramref name="fits"/>),
+    /// otherwise its longest prefix that fits followed by "." (never a word broken across lines), kept distinct.
+    /// </summary>
+    internal static IReadOnlyList<string> MatrixHeaders(IReadOnlyList<string> kinds, Func<string, bool> fits)
+    {
+        var headers = new List<string>();
+        foreach (var kind in kinds)
+        {
+            var header = kind;
+            if (!fits(kind))
+            {
+                int n = kind.Length - 1;
+                while (n > 1 && (!fits(kind[..n] + ".") || headers.Contains(kind[..n] + ".", StringComparer.Ordinal)))
+                {
+                    n--;
+                }
+
+                header = kind[..Math.Max(1, n)] + ".";
+            }
+
+            headers.Add(header);
+        }
+
+        return headers;
     }
 
     internal static List<List<DossierItem>> Sections(DossierDocument doc) =>

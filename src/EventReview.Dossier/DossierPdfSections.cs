@@ -27,7 +27,10 @@ internal static class DossierPdfSections
         }
     }
 
-    /// <summary>Figure numbers of every picture named by a computation, 1, 2, ... in item then run then picture order.</summary>
+    /// <summary>
+    /// Figure numbers of every picture named by a computation, 2, 3, ... in item then run then picture order (figure 1 is
+    /// the review-progress chart under the verdict matrix).
+    /// </summary>
     public static IReadOnlyDictionary<(long Computation, string Picture), int> FigureNumbers(DossierDocument doc)
     {
         var numbers = new Dictionary<(long, string), int>();
@@ -35,7 +38,7 @@ internal static class DossierPdfSections
         {
             foreach (var p in r.Pictures)
             {
-                numbers.TryAdd((r.Id, p), numbers.Count + 1);
+                numbers.TryAdd((r.Id, p), numbers.Count + 2);
             }
         }
 
@@ -56,7 +59,7 @@ internal static class DossierPdfSections
         foreach (var r in i.Computations)
         {
             w.Line($"Check {r.Kind}: {r.Verdict}. {r.Summary}", 12);
-            w.Small($"run by {r.RunByName} at {DossierPdf.Utc(r.RunAtUtcTicks)}; {r.ToolVersion}; record {DossierPdf.Short(r.ContentSha256)}", 24);
+            w.Small($"run by {r.RunByName} at {DossierPdf.UtcAndGps(r.RunAtUtcTicks)}; {r.ToolVersion}; record {DossierPdf.Short(r.ContentSha256)}", 24);
             foreach (var p in r.Pictures)
             {
                 var n = numbers[(r.Id, p)];

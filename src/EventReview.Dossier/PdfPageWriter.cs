@@ -89,6 +89,13 @@ internal sealed class PdfPageWriter(PdfDocument pdf, string footer)
         _gfx!.DrawLine(new XPen(PlotPdf.Colour(PlotPalette.Grey, 0.5), 0.4), Margin, _y - 1.5, Margin + Width, _y - 1.5);
     }
 
+    /// <summary>Whether <paramref name="text"/> at <paramref name="size"/> pt (bold when asked) fits on one line of <paramref name="width"/> pt.</summary>
+    public bool Fits(string text, double size, bool bold, double width)
+    {
+        Ensure(0);
+        return Measure(text, new XFont(DejaVuFontResolver.FamilyName, size, bold ? XFontStyleEx.Bold : XFontStyleEx.Regular)) <= width;
+    }
+
     /// <summary>Draws a figure full width with "Figure N. caption" under it, on a new page if it does not fit.</summary>
     public void Figure(PlotDrawing drawing, string caption)
     {

@@ -52,7 +52,7 @@ public class DossierExporterTests
         var s = SampleCase.Build();
         using var archive = new ZipArchive(new MemoryStream(await ExportAsync(s)), ZipArchiveMode.Read);
 
-        Assert.Equal(["dossier.json", "index.html", "summary.pdf", "pictures/1.svg", "pictures/2.svg", "attachments/" + s.AttachmentSha256, "manifest.json"],
+        Assert.Equal(["dossier.json", "index.html", "summary.pdf", "pictures/1.svg", "pictures/2.svg", s.AttachmentPath, "manifest.json"],
             archive.Entries.Select(e => e.FullName).ToArray());
         Assert.All(archive.Entries, e => Assert.Equal(new DateTime(1980, 1, 1), e.LastWriteTime.DateTime));
     }
@@ -67,7 +67,7 @@ public class DossierExporterTests
 
         Assert.Equal(files.Keys.Where(k => k != "manifest.json").Order(StringComparer.Ordinal), manifest.Files.Select(f => f.Path));
         Assert.Equal(s.Case.Activity[^1].Hash, manifest.ChainHead);
-        Assert.Equal(SampleCase.AttachmentBytes, files["attachments/" + s.AttachmentSha256]);
+        Assert.Equal(SampleCase.AttachmentBytes, files[s.AttachmentPath]);
     }
 
     [Fact]

@@ -42,6 +42,9 @@ public class DossierPdfTests
         Assert.Contains("Open: the review is", text);
         Assert.Contains("Network SNR", text);
         Assert.Contains("Check runs recorded: 2", text);
+        Assert.Matches(@"= \d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2} UTC, search", Flat(text)); // the candidate time in UTC to the second beside GPS
+        Assert.Matches(@"Opened \d{4}-\d{2}-\d{2} \d{2}:\d{2}:\d{2} UTC \(GPS \d+ s\)", Flat(text));
+        Assert.Contains("Figures: 3 (the review progress and every check picture)", text);
     }
 
     [Fact]
@@ -64,10 +67,51 @@ public class DossierPdfTests
     public async Task Figures_are_numbered_with_captions_and_drawn_with_their_axis_text()
     {
         var text = await SummaryTextAsync(SampleCase.Build());
-        Assert.Contains("Figure 1. Delay between the sites against the light travel time", text);
+        Assert.Contains("Figure 1. Review progress:", text);
+        Assert.Contains("Figure 2. Delay between the sites against the light travel time", text);
         Assert.Contains("delay (ms)", text);
         Assert.Contains("measured delay ± 1σ", text);
-        Assert.Contains("Figure 2. pictures/2.svg (drawn before the plot model", text); // a picture the model did not write is named, not redrawn
+        Assert.Contains("Figure 3. pictures/2.svg (drawn before the plot model", text); // a picture the model did not write is named, not redrawn
+    }
+
+    [Fact]
+    public async Task Every_figure_number_and_its_caption_are_in_the_text_once_and_in_order()
+    {
+        var s = SampleCase.Build();
+        var doc = DossierBuilder.Build(s.Case, s.Sites, s.Snapshots);
+        var text = Flat(await SummaryTextAsync(s));
+        var expected = new List<string> { "Figure 1. " + Flat(DossierProgress.Figure(doc).Caption) };
+        foreach (var (key, n) in DossierPdfSections.FigureNumbers(doc).OrderBy(kv => kv.Value))
+        {
+            var caption = PlotSvg.Read(doc.PictureSvgs[key.Picture])?.Caption;
+            expected.Add($"Figure {n}. " + Flat(caption ?? key.Picture));
+        }
+
+        int at = 0;
+        for (int k = 0; k < expected.Count; k++)
+        {
+            int found = text.IndexOf(expected[k], at, StringComparison.Ordinal);
+            Assert.True(found >= 0, $"'{expected[k]}' not found after position {at}");
+            Assert.Equal(-1, text.IndexOf($"Figure {k + 1}. ", found + 1, StringComparison.Ordinal));
+            at = found + 1;
+        }
+
+        Assert.DoesNotContain($"Figure {expected.Count + 1}. ", text);
+    }
+
+    /// <summary>Text with every run of white space as one space (pdftotext breaks wrapped captions into lines).</summary>
+    private static string Flat(string text) => System.Text.RegularExpressions.Regex.Replace(text, @"\s+", " ");
+
+    [Fact]
+    public void Matrix_headings_never_break_inside_a_word()
+    {
+        string[] kinds = ["background", "chain", "configuration", "environment", "injections", "overlap", "timing"];
+        // A column 40 units wide that fits 7 characters: the long words are shortened with a dot, each heading stays distinct.
+        var headers = DossierPdf.MatrixHeaders(kinds, h => h.Length <= 7);
+        Assert.Equal(["backgr.", "chain", "config.", "enviro.", "inject.", "overlap", "timing"], headers);
+        Assert.Equal(headers.Count, headers.Distinct().Count());
+        var clash = DossierPdf.MatrixHeaders(["environmentA", "environmentB"], h => h.Length <= 5);
+        Assert.Equal(2, clash.Distinct().Count());
     }
 
     [Fact]
@@ -122,8 +166,9 @@ public class DossierPdfTests
     public async Task Index_html_numbers_the_same_figures_with_the_same_captions()
     {
         var html = Encoding.UTF8.GetString(DossierExporterTests.Entries(await DossierExporterTests.ExportAsync(SampleCase.Build()))["index.html"]);
-        Assert.Contains("<figcaption>Figure 1. Delay between the sites against the light travel time", html);
-        Assert.Contains("<figcaption>Figure 2. pictures/2.svg", html);
+        Assert.Contains("<figcaption>Figure 1. Review progress:", html);
+        Assert.Contains("<figcaption>Figure 2. Delay between the sites against the light travel time", html);
+        Assert.Contains("<figcaption>Figure 3. pictures/2.svg", html);
         Assert.Contains("@media print", html);
     }
 }

@@ -70,7 +70,7 @@ public static class DossierBuilder
     {
         var evidence = i.Evidence.OrderBy(e => e.AddedAt).ThenBy(e => e.Id).Select(e => new DossierEvidence(
             e.Id, EvidenceFingerprint.KindName(e.Kind), e.Text, e.FileName, e.ContentType, e.SizeBytes, e.Url, e.ContentSha256,
-            e.Kind == EvidenceKind.Attachment ? AttachmentPath(e.ContentSha256) : null,
+            e.Kind == EvidenceKind.Attachment ? AttachmentNames.PathOf(e.ContentSha256, e.FileName) : null,
             e.AddedBy, e.AddedByName, Utc(e.AddedAt), e.AddedAt.UtcTicks, e.Role)).ToList();
         var computations = new List<DossierComputation>();
         foreach (var r in i.Computations.OrderBy(r => r.RunAt).ThenBy(r => r.Id))
@@ -126,9 +126,6 @@ public static class DossierBuilder
 
         return result;
     }
-
-    /// <summary>Path of an attachment's bytes inside the ZIP: <c>attachments/&lt;sha256&gt;</c>.</summary>
-    public static string AttachmentPath(string sha256) => "attachments/" + sha256;
 
     /// <summary>ISO 8601 UTC with 7 fractional digits and 'Z' (the form every dossier time uses).</summary>
     public static string Utc(DateTimeOffset at) => ActivityEntry.FormatUtc(at);

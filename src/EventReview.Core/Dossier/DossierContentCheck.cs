@@ -11,7 +11,7 @@ namespace EventReview.Core.Dossier;
 /// </summary>
 internal static class DossierContentCheck
 {
-    public static void CheckItem(DossierItem item, IReadOnlyDictionary<string, byte[]> files, List<DossierProblem> problems)
+    public static void CheckItem(string schemaVersion, DossierItem item, IReadOnlyDictionary<string, byte[]> files, List<DossierProblem> problems)
     {
         const string d = DossierManifest.DossierFileName;
         var where = $"item {item.Key}";
@@ -23,7 +23,7 @@ internal static class DossierContentCheck
             {
                 "note" => Hashing.Sha256Hex(e.Text),
                 "link" => Hashing.Sha256Hex(e.Url ?? string.Empty),
-                "attachment" => CheckAttachment(e, ewhere, files, problems),
+                "attachment" => CheckAttachment(schemaVersion, e, ewhere, files, problems),
                 _ => null,
             };
             if (sha is null)
@@ -74,9 +74,9 @@ internal static class DossierContentCheck
         }
     }
 
-    private static string? CheckAttachment(DossierEvidence e, string where, IReadOnlyDictionary<string, byte[]> files, List<DossierProblem> problems)
+    private static string? CheckAttachment(string schemaVersion, DossierEvidence e, string where, IReadOnlyDictionary<string, byte[]> files, List<DossierProblem> problems)
     {
-        var path = DossierBuilder.AttachmentPath(e.ContentSha256);
+        var path = DossierDocument.AttachmentPath(schemaVersion, e.ContentSha256, e.FileName);
         if (!string.Equals(e.AttachmentPath, path, StringComparison.Ordinal))
         {
             problems.Add(new DossierProblem(DossierManifest.DossierFileName, where, $"attachment path is '{e.AttachmentPath}'; expected '{path}'."));

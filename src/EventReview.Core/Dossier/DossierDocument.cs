@@ -29,11 +29,21 @@ public sealed record DossierDocument(
     IReadOnlyList<DossierTimelineEntry> Timeline,
     string ChainHead)
 {
-    /// <summary>The schema version this code writes and reads.</summary>
-    public const string CurrentSchemaVersion = "eventreview-dossier/2";
+    /// <summary>The schema version this code writes and reads (3: attachments keep a safe form of their name, <see cref="AttachmentNames"/>).</summary>
+    public const string CurrentSchemaVersion = "eventreview-dossier/3";
+
+    /// <summary>The second schema version (attachments named by their SHA-256 alone): still read and verified.</summary>
+    public const string Version2SchemaVersion = "eventreview-dossier/2";
 
     /// <summary>The first schema version (no facts, unsigned manifest): still read, always reported unsigned.</summary>
     public const string LegacySchemaVersion = "eventreview-dossier/1";
+
+    /// <summary>Whether this code reads <paramref name="schemaVersion"/> (3, 2 or the legacy 1).</summary>
+    public static bool Reads(string? schemaVersion) => schemaVersion is CurrentSchemaVersion or Version2SchemaVersion or LegacySchemaVersion;
+
+    /// <summary>The ZIP path of an attachment in a dossier of <paramref name="schemaVersion"/>: hash and safe name from 3 on, the hash alone before.</summary>
+    public static string AttachmentPath(string schemaVersion, string sha256, string? fileName) =>
+        schemaVersion == CurrentSchemaVersion ? AttachmentNames.PathOf(sha256, fileName) : "attachments/" + sha256;
 
     /// <summary>
     /// The SVG pictures named in <see cref="DossierComputation.Pictures"/>, keyed by file name ("pictures/1.svg").

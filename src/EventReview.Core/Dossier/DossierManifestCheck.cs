@@ -29,7 +29,7 @@ internal static class DossierManifestCheck
             return null;
         }
 
-        if (manifest.SchemaVersion is not (DossierDocument.CurrentSchemaVersion or DossierDocument.LegacySchemaVersion))
+        if (!DossierDocument.Reads(manifest.SchemaVersion))
         {
             problems.Add(new DossierProblem(m, "schemaVersion", $"is '{manifest.SchemaVersion}'; expected '{DossierDocument.CurrentSchemaVersion}'."));
         }

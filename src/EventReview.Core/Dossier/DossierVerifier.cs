@@ -41,7 +41,7 @@ public static class DossierVerifier
             DossierTimelineCheck.Check(doc, manifest, problems);
             foreach (var item in doc.Items)
             {
-                DossierContentCheck.CheckItem(item, files, problems);
+                DossierContentCheck.CheckItem(doc.SchemaVersion, item, files, problems);
             }
 
             DossierContentCheck.CheckConfigurations(doc, problems);
@@ -77,10 +77,10 @@ public static class DossierVerifier
             return null;
         }
 
-        if (doc.SchemaVersion is not (DossierDocument.CurrentSchemaVersion or DossierDocument.LegacySchemaVersion))
+        if (!DossierDocument.Reads(doc.SchemaVersion))
         {
             problems.Add(new DossierProblem(DossierManifest.DossierFileName, "schemaVersion",
-                $"is '{doc.SchemaVersion}'; this verifier reads '{DossierDocument.CurrentSchemaVersion}' (and '{DossierDocument.LegacySchemaVersion}')."));
+                $"is '{doc.SchemaVersion}'; this verifier reads '{DossierDocument.CurrentSchemaVersion}' (and '{DossierDocument.Version2SchemaVersion}', '{DossierDocument.LegacySchemaVersion}')."));
             return null;
         }
 

@@ -10,6 +10,33 @@ namespace EventReview.Core.Plots;
 /// <param name="Scale">Linear, log or hidden.</param>
 public sealed record PlotAxis(string Label, double Min, double Max, AxisScale Scale = AxisScale.Linear)
 {
+    /// <summary>
+    /// Names of rows 0, 1, 2, ... for a vertical axis of categories (channels, sites): ticks at the whole numbers with these
+    /// names instead of numbers; the axis room grows with the longest name. Null for a numeric axis.
+    /// </summary>
+    public IReadOnlyList<string>? Categories { get; init; }
+
+    /// <summary>Fixed tick step in data units (30 for degrees on a map), or null for the automatic 1-2-5 steps.</summary>
+    public double? TickStep { get; init; }
+
+    /// <summary>The ticks of this (linear) axis: multiples of <see cref="TickStep"/> when set, otherwise <see cref="PlotTicks.Linear"/>.</summary>
+    public IReadOnlyList<double> LinearTicks(int target)
+    {
+        var (lo, hi) = Range();
+        if (TickStep is not { } step || !(step > 0))
+        {
+            return PlotTicks.Linear(lo, hi, target);
+        }
+
+        var ticks = new List<double>();
+        for (long k = (long)Math.Ceiling((lo / step) - 1e-9); k * step <= hi + (step * 1e-9) && ticks.Count < 200; k++)
+        {
+            ticks.Add(k * step);
+        }
+
+        return ticks;
+    }
+
     /// <summary>The range actually drawn: ordered, widened when empty, positive for a log axis.</summary>
     public (double Lo, double Hi) Range()
     {

@@ -26,4 +26,7 @@ public sealed record PlotFigure(string Caption, PlotAxis X, PlotAxis Y, IReadOnl
 
     /// <summary>Where the legend goes: true for the top right corner of the axes, false for top left.</summary>
     public bool LegendRight { get; init; }
+
+    /// <summary>Prefer the bottom corners for the legend (maps whose top holds most of what matters).</summary>
+    public bool LegendBottom { get; init; }
 }

@@ -6,6 +6,9 @@ namespace EventReview.Core.Plots;
 /// </summary>
 public sealed record PlotFrame(double Left, double Top, double Right, double Bottom, PlotAxis X, PlotAxis Y)
 {
+    /// <summary>Width allowed per character of 12 px DejaVu Sans text (px), generous so that wide letters still fit.</summary>
+    public const double CharWidth = 7.4;
+
     /// <summary>Pixel x of data value <paramref name="x"/>.</summary>
     public double Px(double x) => Left + (X.Fraction(x) * (Right - Left));
 
@@ -21,10 +24,11 @@ public sealed record PlotFrame(double Left, double Top, double Right, double Bot
     {
         ArgumentNullException.ThrowIfNull(figure);
         bool axes = figure.X.Scale != AxisScale.Hidden;
-        double left = figure.Y.Scale == AxisScale.Hidden ? 16 : 84;
+        double left = figure.Y.Scale == AxisScale.Hidden ? 16
+            : figure.Y.Categories is { Count: > 0 } names ? Math.Max(84, 36 + (names.Max(n => n.Length) * CharWidth)) : 84;
         double right = figure.Width - 20 - (figure.ColourBar is null ? 0 : 112);
         double top = 14;
-        double bottom = figure.Height - (axes ? 72 : 34);
+        double bottom = figure.Height - (axes ? 72 : 34) - ((PlotLayout.CaptionLines(figure.Caption, figure.Width).Count - 1) * PlotLayout.CaptionLineHeight);
         if (figure.EqualAspect)
         {
             var (x0, x1) = figure.X.Range();

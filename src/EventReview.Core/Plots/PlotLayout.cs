@@ -49,7 +49,7 @@ public static class PlotLayout
 
         marks.Add(new LineMark([P(f.Left, f.Top), P(f.Right, f.Top), P(f.Right, f.Bottom), P(f.Left, f.Bottom), P(f.Left, f.Top)], PlotPalette.Text, 1, false));
         var (x0, x1) = f.X.Range();
-        foreach (var t in f.X.Scale == AxisScale.Log ? PlotTicks.Log(x0, x1) : PlotTicks.Linear(x0, x1))
+        foreach (var t in f.X.Scale == AxisScale.Log ? PlotTicks.Log(x0, x1) : f.X.LinearTicks(6))
         {
             double px = f.Px(t);
             marks.Add(new LineMark([P(px, f.Bottom), P(px, f.Bottom + 5)], PlotPalette.Text, 1, false));
@@ -63,7 +63,17 @@ public static class PlotLayout
         }
 
         var (y0, y1) = f.Y.Range();
-        foreach (var t in f.Y.Scale == AxisScale.Log ? PlotTicks.Log(y0, y1) : PlotTicks.Linear(y0, y1, 5))
+        if (f.Y.Categories is { } names)
+        {
+            for (int k = 0; k < names.Count; k++)
+            {
+                double py = f.Py(k);
+                marks.Add(new LineMark([P(f.Left, py), P(f.Right, py)], PlotPalette.Rule, 0.6, false));
+                marks.Add(Text(f.Left - 8, py + 4, names[k], TickSize, "end"));
+            }
+        }
+
+        foreach (var t in f.Y.Categories is not null ? [] : f.Y.Scale == AxisScale.Log ? PlotTicks.Log(y0, y1) : f.Y.LinearTicks(5))
         {
             double py = f.Py(t);
             marks.Add(new LineMark([P(f.Left - 5, py), P(f.Left, py)], PlotPalette.Text, 1, false));
@@ -107,8 +117,8 @@ public static class PlotLayout
         const double row = 18;
         double textWidth = entries.Max(e => e.Label!.Length) * TickSize * 0.56;
         double w = Math.Min(f.Right - f.Left - 16, textWidth + 40), h = (entries.Count * row) + 8;
-        var (x, y) = LegendCorner(figure.LegendRight, f, w, h, marks);
-        marks.Add(new AreaMark([P(x, y), P(x + w, y), P(x + w, y + h), P(x, y + h)], EventReview.Core.Pictures.PicturePalette.Surface, 0.85));
+        var (x, y) = LegendCorner(figure.LegendRight, figure.LegendBottom, f, w, h, marks);
+        marks.Add(new AreaMark([P(x, y), P(x + w, y), P(x + w, y + h), P(x, y + h)], PlotPalette.Surface, 0.85));
         marks.Add(new LineMark([P(x, y), P(x + w, y), P(x + w, y + h), P(x, y + h), P(x, y)], PlotPalette.Grey, 0.8, false));
         for (int k = 0; k < entries.Count; k++)
         {
@@ -140,14 +150,15 @@ public static class PlotLayout
     /// <summary>
     /// The corner of the axes where the legend hides the fewest drawn points (lines and dots); the preferred corner wins ties.
     /// </summary>
-    private static (double X, double Y) LegendCorner(bool right, PlotFrame f, double w, double h, List<PlotMark> marks)
+    private static (double X, double Y) LegendCorner(bool right, bool bottom, PlotFrame f, double w, double h, List<PlotMark> marks)
     {
+        double first = bottom ? f.Bottom - 8 - h : f.Top + 8, second = bottom ? f.Top + 8 : f.Bottom - 8 - h;
         (double X, double Y)[] corners =
         [
-            (right ? f.Right - 8 - w : f.Left + 8, f.Top + 8),
-            (right ? f.Left + 8 : f.Right - 8 - w, f.Top + 8),
-            (right ? f.Right - 8 - w : f.Left + 8, f.Bottom - 8 - h),
-            (right ? f.Left + 8 : f.Right - 8 - w, f.Bottom - 8 - h),
+            (right ? f.Right - 8 - w : f.Left + 8, first),
+            (right ? f.Left + 8 : f.Right - 8 - w, first),
+            (right ? f.Right - 8 - w : f.Left + 8, second),
+            (right ? f.Left + 8 : f.Right - 8 - w, second),
         ];
         var points = marks.SelectMany(m => m switch
         {
@@ -186,6 +197,36 @@ public static class PlotLayout
                 }
             }
         }
+    }
+
+    /// <summary>Height of one caption line (px).</summary>
+    public const double CaptionLineHeight = 15;
+
+    /// <summary>
+    /// The caption broken at spaces into lines that fit <paramref name="width"/> px of 12 px italic text (at most 6.9 px a
+    /// character, our estimate for DejaVu Sans; a word longer than a line keeps its own line).
+    /// </summary>
+    public static IReadOnlyList<string> CaptionLines(string caption, int width)
+    {
+        ArgumentNullException.ThrowIfNull(caption);
+        int perLine = Math.Max(20, (int)((width - 24) / 6.9));
+        var lines = new List<string>();
+        var line = string.Empty;
+        foreach (var word in caption.Split(' ', StringSplitOptions.RemoveEmptyEntries))
+        {
+            if (line.Length > 0 && line.Length + 1 + word.Length > perLine)
+            {
+                lines.Add(line);
+                line = word;
+            }
+            else
+            {
+                line = line.Length == 0 ? word : line + " " + word;
+            }
+        }
+
+        lines.Add(line);
+        return lines;
     }
 
     internal static PlotPoint P(double x, double y) => PlotPoint.Of(x, y);

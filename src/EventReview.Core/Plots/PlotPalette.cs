@@ -1,12 +1,12 @@
-using EventReview.Core.Pictures;
-
 namespace EventReview.Core.Plots;
 
 /// <summary>
-/// The plot style's colours, in one place: the same values as the app's MudBlazor theme (<c>ReviewTheme</c> in the web
-/// project, which reads them from here). Series colours are chosen to stay apart for the common colour-vision
-/// deficiencies (ink blue against warm brown, green as the third) and every series also differs by dash or mark, so no
-/// meaning rests on colour alone. Text is at least <see cref="MinimumTextPx"/> px.
+/// Every colour the pictures use (SVG in the app, the dossier and the command line; the dossier's native PDF drawing),
+/// defined once and taken from the app's own theme: the web theme (<c>ReviewTheme</c> in the web project) reads its
+/// palette from these constants, so the pictures and the pages always match. Series colours are chosen to stay apart for
+/// the common colour-vision deficiencies (ink blue against warm brown, green as the third) and every series also differs
+/// by dash or mark, so no meaning rests on colour alone. Text is at least <see cref="MinimumTextPx"/> px. No picture
+/// spells a colour of its own; add a constant here instead.
 /// </summary>
 public static class PlotPalette
 {
@@ -14,31 +14,49 @@ public static class PlotPalette
     public const double MinimumTextPx = 12;
 
     /// <summary>Deep ink blue (theme primary): the first series and the strong end of the colour scale.</summary>
-    public const string Ink = PicturePalette.Ink;
+    public const string Ink = "#1f3a68";
 
-    /// <summary>Warm accent (theme secondary): the second series and marks that need attention.</summary>
-    public const string Warm = PicturePalette.Warm;
+    /// <summary>Warm accent (theme secondary): the second series, the candidate, marks that need attention.</summary>
+    public const string Warm = "#a4561c";
 
     /// <summary>Muted green (theme tertiary): a third series, fitted tracks, bands that pass.</summary>
-    public const string Green = PicturePalette.Green;
+    public const string Green = "#3d6b5a";
 
-    /// <summary>Steel blue (theme info): a fourth series.</summary>
-    public const string Steel = PicturePalette.Slate;
+    /// <summary>Slate blue (theme info): a fourth series, data-quality segments.</summary>
+    public const string Steel = "#2f5d8a";
 
-    /// <summary>Signal red (theme error): limits that fail.</summary>
-    public const string Alarm = PicturePalette.Brick;
+    /// <summary>Brick red (theme error): limits that fail, an excursion above its threshold.</summary>
+    public const string Alarm = "#a32626";
+
+    /// <summary>Amber (theme warning): thresholds to compare against.</summary>
+    public const string Amber = "#b86a12";
 
     /// <summary>Paper (theme background): the weak end of the colour scale.</summary>
-    public const string Paper = PicturePalette.Paper;
+    public const string Paper = "#faf8f3";
+
+    /// <summary>White (theme surface): the picture's background.</summary>
+    public const string Surface = "#ffffff";
 
     /// <summary>Light shading of a window, region or band.</summary>
-    public const string Shade = PicturePalette.ShadeStrong;
+    public const string Shade = "#dfe5ef";
 
-    /// <summary>Neutral grey: zero lines, graticules, secondary marks.</summary>
-    public const string Grey = PicturePalette.Grey;
+    /// <summary>Land on a map of the Earth.</summary>
+    public const string Land = "#e8e3d6";
 
-    /// <summary>Body text (theme text primary).</summary>
-    public const string Text = PicturePalette.Text;
+    /// <summary>Neutral grey: zero lines, graticules, secondary marks, what does not count (a channel shown safe).</summary>
+    public const string Grey = "#8a8f99";
+
+    /// <summary>Light rule (theme table lines): grid lines.</summary>
+    public const string Rule = "#e6e1d6";
+
+    /// <summary>Stronger rule (theme lines): frames of secondary panels.</summary>
+    public const string RuleStrong = "#ddd8cc";
+
+    /// <summary>Body text (theme text primary): labels, axes, frames.</summary>
+    public const string Text = "#1c2330";
+
+    /// <summary>Secondary text (theme text secondary).</summary>
+    public const string TextSoft = "#4b5566";
 
     /// <summary>Series colours in order of use.</summary>
     public static IReadOnlyList<string> Series { get; } = [Ink, Warm, Green, Steel];

@@ -25,7 +25,7 @@ public static class PlotSvg
         ArgumentNullException.ThrowIfNull(d);
         var sb = new StringBuilder();
         sb.Append(CultureInfo.InvariantCulture, $"<svg xmlns=\"http://www.w3.org/2000/svg\" width=\"{d.Width}\" height=\"{d.Height}\" viewBox=\"0 0 {d.Width} {d.Height}\" font-family=\"DejaVu Sans, sans-serif\" font-size=\"12\" data-plot=\"{Format}\">");
-        sb.Append(CultureInfo.InvariantCulture, $"<rect width=\"100%\" height=\"100%\" fill=\"{EventReview.Core.Pictures.PicturePalette.Surface}\"/>");
+        sb.Append(CultureInfo.InvariantCulture, $"<rect width=\"100%\" height=\"100%\" fill=\"{PlotPalette.Surface}\"/>");
         foreach (var m in d.Marks)
         {
             switch (m)
@@ -48,7 +48,13 @@ public static class PlotSvg
             }
         }
 
-        Text(sb, new TextMark(PlotPoint.Of(d.Width / 2.0, d.Height - 10), d.Caption, 12, PlotPalette.Text, "middle", false, true), "caption");
+        var lines = PlotLayout.CaptionLines(d.Caption, d.Width);
+        for (int k = 0; k < lines.Count; k++)
+        {
+            double y = d.Height - 10 - ((lines.Count - 1 - k) * PlotLayout.CaptionLineHeight);
+            Text(sb, new TextMark(PlotPoint.Of(d.Width / 2.0, y), lines[k], 12, PlotPalette.Text, "middle", false, true), "caption");
+        }
+
         sb.Append("</svg>");
         return sb.ToString();
     }
@@ -89,7 +95,7 @@ public static class PlotSvg
                     marks.Add(new DotMark(new PlotPoint(D(A("cx")), D(A("cy"))), D(A("r")), A("fill")));
                     break;
                 case "text" when A("class") == "caption":
-                    caption = e.Value;
+                    caption = caption.Length == 0 ? e.Value : caption + " " + e.Value;
                     break;
                 case "text":
                     marks.Add(new TextMark(new PlotPoint(D(A("x")), D(A("y"))), e.Value, D(A("font-size")), A("fill"), A("text-anchor"),

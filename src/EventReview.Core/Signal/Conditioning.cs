@@ -22,13 +22,7 @@ public static class Conditioning
             throw new ArgumentException($"Band {options.LowHz}-{options.HighHz} Hz must satisfy 0 < low < high < Nyquist ({fs / 2} Hz).", nameof(options));
         }
 
-        int seg = (int)Math.Round(options.PsdSegmentSeconds * fs);
-        if (seg > series.Length)
-        {
-            seg = RealFft.NextPowerOfTwo(series.Length + 1) / 2;
-        }
-
-        var psd = Welch.Estimate(series.Samples, fs, new WelchOptions(seg, Average: options.PsdAverage));
+        var psd = EstimatePsd(series, options);
         int taper = (int)Math.Round(options.TaperSeconds * fs);
         var white = Whitening.Whiten(series.Samples, fs, psd, taper);
         var filtered = FiltFilt.Apply(Sections(options, fs), white);
@@ -39,6 +33,23 @@ public static class Conditioning
         }
 
         return new ConditionedSeries(series.WithSamples(filtered), psd, margin, series.Length - margin);
+    }
+
+    /// <summary>
+    /// The Welch PSD that <see cref="Condition"/> whitens with (periodic Hann, 50 % overlap, segment = PsdSegmentSeconds or the
+    /// largest power of two that fits, segments combined as <see cref="ConditioningOptions.PsdAverage"/> says), in strain²/Hz.
+    /// </summary>
+    public static Psd EstimatePsd(TimeSeries series, ConditioningOptions options)
+    {
+        ArgumentNullException.ThrowIfNull(series);
+        ArgumentNullException.ThrowIfNull(options);
+        int seg = (int)Math.Round(options.PsdSegmentSeconds * series.SampleRateHz);
+        if (seg > series.Length)
+        {
+            seg = RealFft.NextPowerOfTwo(series.Length + 1) / 2;
+        }
+
+        return Welch.Estimate(series.Samples, series.SampleRateHz, new WelchOptions(seg, Average: options.PsdAverage));
     }
 
     /// <summary>Second-order sections of the band-pass followed by the notches, for sample rate fs (Hz).</summary>

@@ -42,7 +42,8 @@ public static class TimingReview
         return new TimingReviewResult(timing, antenna, judgement)
         {
             Summary = Summarise(timing, antenna),
-            PictureSvg = Plots.PlotSvg.Write(Plots.Figures.SkyMapFigure.Build(used, timing, cells)),
+            PictureSvg = Plots.PlotSvg.Write(Plots.Figures.SkyMapFigure.Build(used, timing, cells)) + Evidence.CheckRecords.PictureSeparator
+                + Plots.PlotSvg.Write(Plots.Figures.NetworkMapFigure.Build(used)),
         };
     }
 

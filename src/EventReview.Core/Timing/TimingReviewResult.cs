@@ -18,7 +18,7 @@ public sealed record TimingReviewResult(TimingCheckResult Timing, AntennaConsist
     [JsonIgnore]
     public string Summary { get; init; } = string.Empty;
 
-    /// <summary>The all-sky map (SVG) with rings, directions and the antenna-allowed cells.</summary>
+    /// <summary>The pictures (SVG, separated by <c>CheckRecords.PictureSeparator</c>): the all-sky map with rings, directions and the antenna-allowed cells, then the network map of the sites used.</summary>
     [JsonIgnore]
     public string PictureSvg { get; init; } = string.Empty;
 }

@@ -22,7 +22,7 @@ public static class PlotPdf
         ArgumentNullException.ThrowIfNull(d);
         double s = width / Math.Max(1, d.Width);
         XPoint P(PlotPoint p) => new(left + (p.X * s), top + (p.Y * s));
-        double height = (d.Height - 26) * s;
+        double height = (d.Height - 26 - ((PlotLayout.CaptionLines(d.Caption, d.Width).Count - 1) * PlotLayout.CaptionLineHeight)) * s;
         gfx.DrawRectangle(XBrushes.White, left, top, width, height);
         foreach (var m in d.Marks)
         {

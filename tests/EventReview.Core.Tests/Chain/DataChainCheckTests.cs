@@ -1,5 +1,7 @@
 using System.Numerics;
 using EventReview.Core.Chain;
+using EventReview.Core.Plots;
+using EventReview.Core.Plots.Figures;
 using EventReview.Core.Signal;
 using EventReview.Core.Signal.Filters;
 using EventReview.Core.Time;
@@ -181,14 +183,17 @@ public class DataChainCheckTests
     }
 
     [Fact]
-    public void Stage_picture_is_well_formed_svg_with_three_traces_and_the_caption()
+    public void Stage_pictures_are_well_formed_plot_svgs_with_the_residual_its_spectrum_and_the_verdict_in_the_caption()
     {
         var (input, output, _) = Simulate(seed: 11, burstAmplitudeSigma: 12);
         var (report, traces) = DataChainCheck.RunWithTraces(input, [output], [Stage], Start.AddSeconds(10));
-        var svg = DataChainSvg.Render(traces[0], report.Stages[0], report.CenterGps, report.WindowSeconds);
-        var doc = System.Xml.Linq.XDocument.Parse(svg);
-        Assert.Equal(3, doc.Descendants("{http://www.w3.org/2000/svg}polyline").Count());
-        Assert.Contains("excess found", svg);
+        var svg = PlotSvg.Write(ChainResidualFigure.Build(traces[0], report.Stages[0], report.CenterGps, report.WindowSeconds));
+        var drawing = PlotSvg.Read(svg);
+        Assert.NotNull(drawing);
+        Assert.Contains("excess found", drawing.Caption);
+        var spectrum = PlotSvg.Read(PlotSvg.Write(ChainSpectrumFigure.Build(traces[0], report.Stages[0])));
+        Assert.NotNull(spectrum);
+        Assert.Contains("spectrum", spectrum.Caption);
         Assert.Equal(N, traces[0].Residual.Length);
     }
 
@@ -198,14 +203,14 @@ public class DataChainCheckTests
         var (input, output, _) = Simulate(seed: 11, burstAmplitudeSigma: 12);
         var (report, traces) = DataChainCheck.RunWithTraces(input, [output], [Stage], Start.AddSeconds(10));
         var stage = report.Stages[0];
-        var fig = Core.Plots.Figures.ChainResidualFigure.Build(traces[0], stage, report.CenterGps, report.WindowSeconds);
+        var fig = ChainResidualFigure.Build(traces[0], stage, report.CenterGps, report.WindowSeconds);
 
-        var band = fig.Elements.OfType<Core.Plots.PlotBand>().Single(b => b.Label!.Contains("threshold", StringComparison.Ordinal));
+        var band = fig.Elements.OfType<PlotBand>().Single(b => b.Label!.Contains("threshold", StringComparison.Ordinal));
         Assert.Equal(-stage.ThresholdSigma, band.Lower[0], 12);
         Assert.Equal(stage.ThresholdSigma, band.Upper[0], 12);
         Assert.InRange(fig.X.Min, -4 * report.WindowSeconds - 0.01, 0);
         Assert.InRange(fig.X.Max, 0, 4 * report.WindowSeconds + 0.01);
-        var residual = fig.Elements.OfType<Core.Plots.PlotLine>().Single(l => l.Label!.StartsWith("residual", StringComparison.Ordinal));
+        var residual = fig.Elements.OfType<PlotLine>().Single(l => l.Label!.StartsWith("residual", StringComparison.Ordinal));
         Assert.True(residual.Ys.Max(Math.Abs) > stage.ThresholdSigma, "a 12 sigma burst must leave the band on the picture");
         Assert.Contains("σ", fig.Y.Label);
         Assert.True(fig.Y.Max >= stage.ThresholdSigma, "the band must be inside the drawn range");
@@ -217,7 +222,7 @@ public class DataChainCheckTests
         // Adversarial: scaled to its own noise, a quiet residual fills the panel and looks as alarming as a loud one.
         var (input, output, _) = Simulate(seed: 3, burstAmplitudeSigma: 0);
         var (report, traces) = DataChainCheck.RunWithTraces(input, [output], [Stage], Start.AddSeconds(10));
-        var fig = Core.Plots.Figures.ChainResidualFigure.Build(traces[0], report.Stages[0], report.CenterGps, report.WindowSeconds);
+        var fig = ChainResidualFigure.Build(traces[0], report.Stages[0], report.CenterGps, report.WindowSeconds);
         Assert.True(fig.Y.Max >= 1.25 * report.Stages[0].ThresholdSigma);
     }
 
@@ -283,6 +288,36 @@ public class DataChainCheckTests
             Assert.Equal(Math.Sin(2 * Math.PI * 0.05 * (i - 2.3)), y[i], 1e-4); // identity: y[n] = x(n - d)
         }
     }
+
+    [Fact]
+    public void Residual_spectrum_lies_on_the_expected_white_noise_and_shows_a_weak_line_the_rms_ratio_hides()
+    {
+        var (input, output, _) = Simulate(seed: 5, burstAmplitudeSigma: 0);
+        var stated = Stage with { ExpectedNoiseRms = NoiseSigma };
+        var (report, traces) = DataChainCheck.RunWithTraces(input, [output], [stated], Start.AddSeconds(10));
+        var fig = ChainSpectrumFigure.Build(traces[0], report.Stages[0]);
+        // One-sided density of white noise of RMS σ: σ·√(2/fs) (Parseval; Heinzel, Rüdiger and Schilling 2002, eq. 24).
+        double level = NoiseSigma * Math.Sqrt(2 / Fs);
+        var expected = fig.Elements.OfType<PlotLine>().Single(l => l.Label!.StartsWith("expected", StringComparison.Ordinal));
+        Assert.Equal(level, expected.Ys[0], level * 1e-12);
+        var residual = fig.Elements.OfType<PlotLine>().Single(l => l.Label!.StartsWith("residual", StringComparison.Ordinal));
+        var sorted = residual.Ys.Order().ToArray();
+        Assert.InRange(sorted[sorted.Length / 2] / level, 0.8, 1.2);
+        Assert.Equal(Fs / 2, fig.X.Max);
+        Assert.Contains("(output units/√Hz)", fig.Y.Label);
+
+        // A sine of 0.3 σ at 100 Hz added to the output raises the residual RMS by only √(1 + 0.045) ≈ 2 %, a reassuring ratio;
+        // its spectrum rises well above the expected line at 100 Hz.
+        var withLine = new TimeSeries(Start, Fs, output.Samples.Select((v, i) => v + (0.3 * NoiseSigma * Math.Sqrt(2) * Math.Sin(2 * Math.PI * 100 * i / Fs))).ToArray());
+        var (r2, t2) = DataChainCheck.RunWithTraces(input, [withLine], [stated], Start.AddSeconds(10));
+        Assert.InRange(r2.Stages[0].NoiseRatio!.Value, 0.95, 1.1);
+        var line = ChainSpectrumFigure.Build(t2[0], r2.Stages[0]).Elements.OfType<PlotLine>().Single(l => l.Label!.StartsWith("residual", StringComparison.Ordinal));
+        double peak = Enumerable.Range(0, line.Xs.Count).Where(k => Math.Abs(line.Xs[k] - 100) < 2).Max(k => line.Ys[k]);
+        Assert.True(peak > 3 * level, $"peak {peak:G3} against the expected {level:G3}");
+        FigureChecks(fig);
+    }
+
+    private static void FigureChecks(PlotFigure fig) => EventReview.Core.Tests.Plots.Figures.FigureBackEndTests.AssertDrawable(fig);
 
     private const double NoiseSigma = 1e-3;
 

@@ -24,14 +24,14 @@ public class DossierBuilderTests
 
         var doc = DossierBuilder.Build(s.Case, s.Sites, s.Snapshots);
 
-        Assert.Equal("eventreview-dossier/2", doc.SchemaVersion);
+        Assert.Equal("eventreview-dossier/3", doc.SchemaVersion);
         Assert.Equal(["KX", "MV"], doc.Sites.Select(x => x.Code).ToArray());
         Assert.Equal(["timing.delay", "timing.notes", "config.frozen"], doc.Items.Select(i => i.Key).ToArray());
         Assert.Equal(s.Case.Activity[^1].Hash, doc.ChainHead);
         Assert.Equal(s.Case.Activity.Count, doc.Timeline.Count);
         var delay = doc.Items[0];
         Assert.Equal(["note", "attachment", "link"], delay.Evidence.Select(e => e.Kind).ToArray());
-        Assert.Equal("attachments/" + s.AttachmentSha256, delay.Evidence[1].AttachmentPath);
+        Assert.Equal(s.AttachmentPath, delay.Evidence[1].AttachmentPath);
         Assert.Equal("delays.csv", delay.Evidence[1].FileName);
         Assert.Equal(["pictures/1.svg", "pictures/2.svg"], delay.Computations[0].Pictures);
         Assert.StartsWith("<svg", doc.PictureSvgs["pictures/2.svg"]);
@@ -70,7 +70,7 @@ public class DossierBuilderTests
 
         var text = System.Text.Encoding.UTF8.GetString(DossierJson.Serialize(DossierBuilder.Build(s.Case, s.Sites, s.Snapshots)));
 
-        Assert.StartsWith("{\n  \"schemaVersion\": \"eventreview-dossier/2\",", text);
+        Assert.StartsWith("{\n  \"schemaVersion\": \"eventreview-dossier/3\",", text);
         Assert.Contains("\"chainHead\":", text);
         Assert.DoesNotContain("pictureSvgs", text);
         Assert.DoesNotContain("\r", text);

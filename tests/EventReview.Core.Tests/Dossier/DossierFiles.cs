@@ -29,7 +29,7 @@ internal static class DossierFiles
             files[e.AttachmentPath!] = attachmentsBySha[e.ContentSha256];
         }
 
-        Reseal(files, doc.ChainHead, doc.Case.CandidateId, doc.Timeline.Count == 0 ? 0 : doc.Timeline[^1].Sequence, TestSigner.Instance);
+        Reseal(files, doc.ChainHead, doc.Case.CandidateId, doc.Timeline.Count == 0 ? 0 : doc.Timeline[^1].Sequence, TestSigner.Instance, doc.SchemaVersion);
         return files;
     }
 
@@ -43,7 +43,8 @@ internal static class DossierFiles
     /// Rewrites the manifest over the current files (what someone altering the dossier would also do), signed by
     /// <paramref name="signer"/>: by default none (a forger does not hold the key), or a key of the forger's own.
     /// </summary>
-    public static void Reseal(Dictionary<string, byte[]> files, string chainHead, string candidateId, int? headSequence = null, IRecordSigner? signer = null)
+    public static void Reseal(Dictionary<string, byte[]> files, string chainHead, string candidateId, int? headSequence = null, IRecordSigner? signer = null,
+        string schemaVersion = DossierDocument.CurrentSchemaVersion)
     {
         if (headSequence is null && files.TryGetValue(DossierManifest.FileName, out var old))
         {
@@ -53,7 +54,7 @@ internal static class DossierFiles
         files.Remove(DossierManifest.FileName);
         var list = files.OrderBy(f => f.Key, StringComparer.Ordinal)
             .Select(f => new DossierManifestFile(f.Key, Hashing.Sha256Hex(f.Value), f.Value.LongLength)).ToList();
-        var manifest = new DossierManifest(DossierDocument.CurrentSchemaVersion, candidateId, chainHead, list, headSequence);
+        var manifest = new DossierManifest(schemaVersion, candidateId, chainHead, list, headSequence);
         if (signer is not null)
         {
             manifest = manifest with

@@ -184,7 +184,7 @@ public class DossierVerifierTests
     {
         var s = SampleCase.Build();
         var files = Files();
-        var path = "attachments/" + s.AttachmentSha256;
+        var path = s.AttachmentPath;
         files[path] = Encoding.UTF8.GetBytes("gps_time,value\n1.0,9.0\n");
         var manifest = JsonNode.Parse(files["manifest.json"])!;
         DossierFiles.Reseal(files, manifest["chainHead"]!.GetValue<string>(), manifest["candidateId"]!.GetValue<string>());

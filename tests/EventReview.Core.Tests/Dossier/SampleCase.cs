@@ -34,6 +34,9 @@ internal sealed class SampleCase
 
     public string AttachmentSha256 => Hashing.Sha256Hex(AttachmentBytes);
 
+    /// <summary>Where the attachment goes in the ZIP (schema 3): hash prefix and the safe name.</summary>
+    public string AttachmentPath => "attachments/" + AttachmentSha256[..16] + "-delays.csv";
+
     public static ChecklistTemplate Template() => new()
     {
         Name = "mini-review",

@@ -79,11 +79,11 @@ public class OriginalityScanTests
         var colour = new Regex(@"#[0-9a-fA-F]{6}\b|#[0-9a-fA-F]{3}\b|(?:fill|stroke)=\\?""(?!none\\?"")[a-z]+\\?""", Plain);
         Assert.Matches(colour, "stroke=\\\"bl" + "ack\\\"");
         var hits = TrackedFiles.Read("src/EventReview.Core")
-            .Where(f => f.Path.EndsWith(".cs", StringComparison.Ordinal) && !f.Path.EndsWith("/Pictures/PicturePalette.cs", StringComparison.Ordinal))
+            .Where(f => f.Path.EndsWith(".cs", StringComparison.Ordinal) && !f.Path.EndsWith("/Plots/PlotPalette.cs", StringComparison.Ordinal))
             .SelectMany(f => colour.Matches(f.Text).Select(m => $"{f.Path}:{Line(f.Text, m.Index)}: {m.Value}"))
             .ToList();
 
-        Assert.True(hits.Count == 0, "colours outside PicturePalette:\n" + string.Join("\n", hits));
+        Assert.True(hits.Count == 0, "colours outside PlotPalette:\n" + string.Join("\n", hits));
     }
 
     private static int Line(string text, int index) => 1 + text.AsSpan(0, index).Count('\n');

@@ -68,6 +68,8 @@ public static class OverlapReview
             PlotSvg.Write(OverlapFigures.OffSourceHistogram(overlap)),
         };
         pictures.AddRange(maps.SelectMany(m => m.Svg));
+        var cond = options.Conditioning;
+        pictures.Add(PlotSvg.Write(AsdFigure.Build([(a.Code, Conditioning.EstimatePsd(a.Strain, cond)), (b.Code, Conditioning.EstimatePsd(b.Strain, cond))], cond.LowHz, cond.HighHz)));
         return result with { Summary = Summarise(result), PicturesSvg = pictures };
     }
 

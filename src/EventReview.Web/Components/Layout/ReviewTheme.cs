@@ -1,11 +1,11 @@
-using EventReview.Core.Pictures;
+using EventReview.Core.Plots;
 using MudBlazor;
 
 namespace EventReview.Web.Components.Layout;
 
 /// <summary>
 /// Our palette: paper-tinted page, deep ink-blue primary, warm accent for "needs attention". The light palette's colours come from
-/// Core's <see cref="PicturePalette"/> (one place for the pictures and the pages); <c>wwwroot/app.css</c> uses the same values.
+/// Core's <see cref="PlotPalette"/> (one place for the pictures and the pages); <c>wwwroot/app.css</c> uses the same values.
 /// </summary>
 public static class ReviewTheme
 {
@@ -13,21 +13,21 @@ public static class ReviewTheme
     {
         PaletteLight = new PaletteLight
         {
-            Primary = PicturePalette.Ink,
-            Secondary = PicturePalette.Warm,
-            Tertiary = PicturePalette.Green,
-            Warning = PicturePalette.Amber,
-            Error = PicturePalette.Brick,
+            Primary = PlotPalette.Ink,
+            Secondary = PlotPalette.Warm,
+            Tertiary = PlotPalette.Green,
+            Warning = PlotPalette.Amber,
+            Error = PlotPalette.Alarm,
             Success = "#2e6b3a",
-            Info = PicturePalette.Slate,
-            Background = PicturePalette.Paper,
-            Surface = PicturePalette.Surface,
-            AppbarBackground = PicturePalette.Ink,
+            Info = PlotPalette.Steel,
+            Background = PlotPalette.Paper,
+            Surface = PlotPalette.Surface,
+            AppbarBackground = PlotPalette.Ink,
             DrawerBackground = "#f3f0e8",
-            TextPrimary = PicturePalette.Text,
-            TextSecondary = PicturePalette.TextSoft,
-            LinesDefault = PicturePalette.RuleStrong,
-            TableLines = PicturePalette.Rule,
+            TextPrimary = PlotPalette.Text,
+            TextSecondary = PlotPalette.TextSoft,
+            LinesDefault = PlotPalette.RuleStrong,
+            TableLines = PlotPalette.Rule,
         },
         PaletteDark = new PaletteDark
         {

@@ -112,7 +112,7 @@ public sealed class BackgroundCheckService(CaseService cases, NetworkService net
             CurvePoints = CurvePointsKept,
         };
         var check = await Task.Run(() => BackgroundCheck.Run(sites, plans, settings, progress, ct), ct);
-        var svgs = check.Pairs.Select(p => BackgroundPlotSvg.Render(p.Result, width: 960, height: 460)).ToList();
+        var svgs = check.Pairs.Select(p => Core.Plots.PlotSvg.Write(Core.Plots.Figures.BackgroundFigure.Build(p.Result))).ToList();
         var record = new BackgroundRecordResult(RecordFormat.Current, siteInputs, check);
         var summary = SignificanceText.Summary(check, parameters.StepSeconds);
         var updated = await cases.AddComputationAsync(user, caseId, itemKey,

@@ -63,7 +63,11 @@ public sealed class ChainCheckService(CaseService cases, CaseFiles files)
         ct.ThrowIfCancellationRequested();
         progress((steps - 1) / steps, $"predicting and testing {models.Count} stage(s), {input.Length:N0} input samples");
         var (report, traces) = DataChainCheck.RunWithTraces(input, outputs, models, c.Gps, new DataChainOptions(parameters.WindowSeconds, parameters.FalseAlarmProbability));
-        var pictures = string.Join(CheckRecords.PictureSeparator, traces.Select((t, i) => Core.Plots.PlotSvg.Write(Core.Plots.Figures.ChainResidualFigure.Build(t, report.Stages[i], report.CenterGps, report.WindowSeconds))));
+        var pictures = string.Join(CheckRecords.PictureSeparator, traces.SelectMany((t, i) => new[]
+        {
+            Core.Plots.PlotSvg.Write(Core.Plots.Figures.ChainResidualFigure.Build(t, report.Stages[i], report.CenterGps, report.WindowSeconds)),
+            Core.Plots.PlotSvg.Write(Core.Plots.Figures.ChainSpectrumFigure.Build(t, report.Stages[i])),
+        }));
         var result = new ChainRecordResult(RecordFormat.Current, report, refs);
         var summary = Summarise(report);
         ct.ThrowIfCancellationRequested();

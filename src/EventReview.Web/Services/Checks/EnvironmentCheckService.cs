@@ -126,7 +126,7 @@ public sealed class EnvironmentCheckService(CaseService cases, NetworkService ne
         var options = new EnvironmentLookupOptions(parameters.WindowSeconds, parameters.KindWindows(), parameters.RateWindowSeconds, lightTravel, couplingOptions);
         var report = EnvironmentLookup.Run(input, options);
         var result = new EnvironmentRecordResult(RecordFormat.Current, report, safety, lightTravel, lightSource, notes, refs);
-        var svg = EnvironmentTimelineSvg.Render(report, parameters.WindowSeconds);
+        var svg = Core.Plots.PlotSvg.Write(Core.Plots.Figures.EnvironmentTimelineFigure.Build(report, parameters.WindowSeconds));
         var summary = Summarise(report, parameters);
         var updated = await cases.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(Core.Checklists.CheckKind.Environment, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),

@@ -45,7 +45,7 @@ public sealed class InjectionCheckService(CaseService cases, NetworkService netw
         var summary = Summarise(report, log.Count, $"log '{file.FileName}'");
         var updated = await cases.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(CheckKind.Injections, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
-                report.Judgement.Word, summary, string.Empty, user.ToActor(), now), ct);
+                report.Judgement.Word, summary, Core.Plots.PlotSvg.Write(Core.Plots.Figures.InjectionTimelineFigure.Build(log, report, c.Gps.Seconds)), user.ToActor(), now), ct);
         return (updated, true);
     }
 

@@ -32,7 +32,16 @@ public sealed class CaseOverviewModel
         Stale = [.. items.Where(i => i.HasStaleSignOffs)];
         Headlines = [Significance(items), Overlap(items), Timing(items)];
         Blockers = BlockersOf(c, items);
+        ProgressSvg = Core.Plots.PlotSvg.Write(Core.Plots.Figures.ReviewProgressFigure.Build(ProgressOf(items), c.CreatedAt.UtcTicks, c.UpdatedAt.UtcTicks));
     }
+
+    /// <summary>The review-progress chart (SVG): items fully signed and sign-offs given from the case's opening to its last change.</summary>
+    public string ProgressSvg { get; }
+
+    /// <summary>The items as the review-progress chart reads them (the dossier builds the same from its sign-offs).</summary>
+    public static IReadOnlyList<Core.Plots.Figures.ReviewProgressItem> ProgressOf(IEnumerable<ChecklistItem> items) =>
+        [.. items.Select(i => new Core.Plots.Figures.ReviewProgressItem(i.RequiredSignOffs,
+            [.. i.SignOffs.Select(s => new Core.Plots.Figures.ReviewProgressSignOff(s.SignedAtUtc.UtcTicks, s.IsStale ? s.StaleSince?.UtcTicks ?? s.SignedAtUtc.UtcTicks : null))]))];
 
     /// <summary>The built-in checks the checklist runs, in <see cref="CheckKind.All"/> order: the matrix's columns.</summary>
     public IReadOnlyList<string> Kinds { get; }
