@@ -15,6 +15,7 @@ ROOT="$(pwd)"
 MODE="${1:-writes}"
 SECONDS_ARG="${2:-60}"
 PORT="${EVENTREVIEW_LOAD_PORT:-5300}"
+PG_PORT="${EVENTREVIEW_LOAD_PG_PORT:-55499}"
 URL="http://127.0.0.1:$PORT"
 OUT="$ROOT/benchmarks/load/results"
 mkdir -p "$OUT"
@@ -52,8 +53,8 @@ if [ "$MODE" = "writes-postgres" ]; then
   if [ "$(id -u)" -eq 0 ]; then chown -R postgres "$PG_PID_DIR"; RUNAS=(runuser -u postgres --); fi
   "${RUNAS[@]}" "$PGBIN/initdb" -D "$PG_PID_DIR/data" -A trust -U postgres >/dev/null
   # Durable settings (fsync and synchronous_commit on, the defaults): the figures are for a real server.
-  "${RUNAS[@]}" "$PGBIN/pg_ctl" -D "$PG_PID_DIR/data" -o "-p 55499 -k $PG_PID_DIR -c listen_addresses=127.0.0.1 -c max_connections=200" -l "$PG_PID_DIR/log" -w start >/dev/null
-  CONN="Host=127.0.0.1;Port=55499;Username=postgres;Database=postgres;Maximum Pool Size=100"
+  "${RUNAS[@]}" "$PGBIN/pg_ctl" -D "$PG_PID_DIR/data" -o "-p $PG_PORT -k $PG_PID_DIR -c listen_addresses=127.0.0.1 -c max_connections=200" -l "$PG_PID_DIR/log" -w start >/dev/null
+  CONN="Host=127.0.0.1;Port=$PG_PORT;Username=postgres;Database=postgres;Maximum Pool Size=100"
   DBARGS=(--data "$DATA" --provider Postgres --connection "$CONN") # the record key folder lives in the data folder for the CLI and the server alike
   SERVER_ENV=(Database__Provider=Postgres "ConnectionStrings__Default=$CONN")
 fi

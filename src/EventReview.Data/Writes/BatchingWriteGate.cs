@@ -22,7 +22,8 @@ namespace EventReview.Data.Writes;
 /// write-ahead log into the database file every <see cref="CheckpointEvery"/> (see <see cref="CheckpointLoopAsync"/>).
 /// The writer's figures are published as metrics (<see cref="MeterName"/>). After each commit, one witness line with the
 /// newest head of every chain the batch changed goes to the witness (<see cref="Records.HeadWitness"/>): one line per
-/// batch, not per write.
+/// batch, not per write. On PostgreSQL the writer remembers the chain heads it wrote (<see cref="ChainHeadCache"/>), so an
+/// append to a case it wrote last needs one round trip and no read (<see cref="EvidenceAppendPostgres"/>).
 /// </summary>
 public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
 {
@@ -51,26 +52,28 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
     private readonly CancellationTokenSource _stop = new();
     private long _commits;
     private readonly Dictionary<string, DbCommand> _prepared = new(StringComparer.Ordinal);
+    private readonly ChainHeadCache? _heads;
     private AppDbContext? _owner;
     private DbConnection? _connection;
 
     public BatchingWriteGate(AppDbContextFactory factory)
     {
         _factory = factory;
+        _heads = factory.Settings.Provider == DatabaseProvider.Postgres ? new ChainHeadCache() : null;
         _loop = Task.Run(LoopAsync);
         _checkpoints = factory.Settings.Provider == DatabaseProvider.Sqlite ? Task.Run(CheckpointLoopAsync) : Task.CompletedTask;
     }
 
     public Task SaveAsync(AppDbContext db, CancellationToken ct = default)
     {
-        var save = new PendingSave(db, ct);
+        var save = new PendingSave(db, _heads, ct);
         Enqueue(save, ct);
         return save.Done.Task;
     }
 
     public Task<T> RunAsync<T>(Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken ct = default)
     {
-        var run = new PendingRun<T>(_factory, work, ct);
+        var run = new PendingRun<T>(_factory, _heads, work, ct);
         Enqueue(run, ct);
         return run.Result.Task;
     }
@@ -110,9 +113,31 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
         await CloseWriterAsync();
         _owner = _factory.CreateDbContext();
+        if (_factory.Settings.Provider == DatabaseProvider.Postgres)
+        {
+            _owner.Database.SetConnectionString(WriterConnectionString(_owner.Database.GetConnectionString()!));
+        }
+
         await _owner.Database.OpenConnectionAsync();
         _connection = _owner.Database.GetDbConnection();
         return _connection;
+    }
+
+    /// <summary>
+    /// The PostgreSQL writer's connection string: the configured one, with the driver preparing the writer's statements
+    /// after their second use (<c>Max Auto Prepare</c>) unless the configuration says otherwise; the writer runs the
+    /// same few statements all day on one connection, so the server parses and plans each once.
+    /// </summary>
+    internal static string WriterConnectionString(string configured)
+    {
+        var builder = new Npgsql.NpgsqlConnectionStringBuilder(configured);
+        if (!configured.Contains("Auto Prepare", StringComparison.OrdinalIgnoreCase) && !configured.Contains("AutoPrepare", StringComparison.OrdinalIgnoreCase))
+        {
+            builder.MaxAutoPrepare = 32;
+            builder.AutoPrepareMinUsages = 2;
+        }
+
+        return builder.ConnectionString;
     }
 
     /// <summary>
@@ -213,6 +238,10 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
                     await unit.ExecuteAsync(connection, tx);
                     saved.Add(unit);
                 }
+                catch (BatchAbortException)
+                {
+                    throw;
+                }
                 catch (Exception ex) when (IsLockConflict(ex) && unit.CanRetry && ++unit.Attempts < MaxAttempts)
                 {
                     // PostgreSQL chose this unit to break a lock cycle with another instance's batch; its savepoint is
@@ -235,7 +264,9 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
         }
         catch (Exception ex)
         {
-            // The transaction (or opening it) failed: nothing of this batch is stored. Start the next on a fresh connection.
+            // The transaction (or opening it) failed: nothing of this batch is stored. Start the next on a fresh connection,
+            // remembering no chain head (some were of appends now undone).
+            _heads?.Clear();
             await CloseWriterAsync();
             foreach (var unit in batch)
             {
