@@ -64,6 +64,12 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
         _checkpoints = factory.Settings.Provider == DatabaseProvider.Sqlite ? Task.Run(CheckpointLoopAsync) : Task.CompletedTask;
     }
 
+    /// <summary>Appends stored from the writer's remembered chain head, without reading the case (PostgreSQL only; read after the writer is idle).</summary>
+    public long AppendsFromRememberedHead => _heads?.Hits ?? 0;
+
+    /// <summary>Remembered chain heads the database found out of date, so that the case was read again (PostgreSQL only).</summary>
+    public long StaleRememberedHeads => _heads?.Stale ?? 0;
+
     public Task SaveAsync(AppDbContext db, CancellationToken ct = default)
     {
         var save = new PendingSave(db, _heads, ct);

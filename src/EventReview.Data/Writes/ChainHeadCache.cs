@@ -70,6 +70,16 @@ internal sealed class ChainHeadCache
         public string Fingerprint() => EvidenceFingerprint.Compute(Evidence.Select(e => e.Line), Computations);
     }
 
+    /// <summary>Appends stored from a remembered head, without reading the case.</summary>
+    public long Hits { get; private set; }
+
+    /// <summary>Remembered heads found out of date by the database (the case was read again).</summary>
+    public long Stale { get; private set; }
+
+    public void CountHit() => Hits++;
+
+    public void CountStale() => Stale++;
+
     /// <summary>Number of cases remembered.</summary>
     public int Count => _cases.Count;
 

@@ -50,13 +50,16 @@ internal static class EvidenceAppendPostgres
         {
             try
             {
-                return await WriteAsync(unit, known, itemKey, item, make, actor, now, ct);
+                var stored = await WriteAsync(unit, known, itemKey, item, make, actor, now, ct);
+                cache!.CountHit();
+                return stored;
             }
             catch (PostgresException ex) when (ex is { SqlState: PostgresErrorCodes.UniqueViolation, ConstraintName: SequenceIndex } &&
                 unit.Savepoint == SqlUnit.SavepointState.Open)
             {
                 // Something else added to the case since this writer's last append: undo, forget, read it again.
                 cache!.Forget(caseId);
+                cache.CountStale();
                 await unit.Command($"ROLLBACK TO {SqlUnit.SavepointName}").ExecuteNonQueryAsync(ct);
             }
         }
@@ -122,6 +125,15 @@ internal static class EvidenceAppendPostgres
         }
 
         var read = new ChainHeadCache.ItemHead(i.Id, i.State, i.Version, i.SignOffs, evidence, computations);
+        if (unit.HeadCache?.Find(caseId) is { } known && known.Version == head.Version && known.LastSequence == head.LastSequence)
+        {
+            // Nothing changed the case since the writer last stored it: what it remembers of the other items still holds.
+            foreach (var (key, other) in known.Items)
+            {
+                head.Items[key] = other;
+            }
+        }
+
         head.Items[itemKey] = read;
         return (head, read);
     }
