@@ -105,7 +105,7 @@ public sealed partial class BatchingWriteGate
         /// </summary>
         private async Task ExecuteOnServerAsync(DbConnection connection, DbTransaction tx)
         {
-            using var unit = new SqlUnit(DatabaseProvider.Postgres, connection, tx, null, gate._factory.Records, gate._heads, deferSavepoint: true);
+            using var unit = new SqlUnit(DatabaseProvider.Postgres, connection, tx, null, gate._factory.Records, gate._heads, deferSavepoint: true) { Pipe = gate._pipe };
             try
             {
                 _value = await work(unit, Cancelled);

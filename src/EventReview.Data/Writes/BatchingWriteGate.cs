@@ -53,6 +53,7 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
     private long _commits;
     private readonly Dictionary<string, DbCommand> _prepared = new(StringComparer.Ordinal);
     private readonly ChainHeadCache? _heads;
+    private readonly RoundTripPipe? _pipe;
     private AppDbContext? _owner;
     private DbConnection? _connection;
 
@@ -60,6 +61,7 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
     {
         _factory = factory;
         _heads = factory.Settings.Provider == DatabaseProvider.Postgres ? new ChainHeadCache() : null;
+        _pipe = factory.Settings.Provider == DatabaseProvider.Postgres ? new RoundTripPipe() : null;
         _loop = Task.Run(LoopAsync);
         _checkpoints = factory.Settings.Provider == DatabaseProvider.Sqlite ? Task.Run(CheckpointLoopAsync) : Task.CompletedTask;
     }
@@ -235,29 +237,18 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
         {
             var connection = await WriterConnectionAsync();
             await using var tx = await connection.BeginTransactionAsync();
-            foreach (var unit in batch)
+            if (_pipe is null)
             {
-                try
+                foreach (var unit in batch)
                 {
                     // Each unit saves through the writer's connection and transaction; EF Core wraps the save in a
                     // savepoint of that transaction and rolls back to it if the save fails.
-                    await unit.ExecuteAsync(connection, tx);
-                    saved.Add(unit);
+                    await Settle(unit, unit.ExecuteAsync(connection, tx), saved, retry);
                 }
-                catch (BatchAbortException)
-                {
-                    throw;
-                }
-                catch (Exception ex) when (IsLockConflict(ex) && unit.CanRetry && ++unit.Attempts < MaxAttempts)
-                {
-                    // PostgreSQL chose this unit to break a lock cycle with another instance's batch; its savepoint is
-                    // rolled back and it runs again in the next batch, after this one's commit released its locks.
-                    retry.Add(unit);
-                }
-                catch (Exception ex)
-                {
-                    unit.Fail(ex);
-                }
+            }
+            else
+            {
+                await RunSharingRoundTripsAsync(batch, connection, tx, saved, retry);
             }
 
             var committing = Stopwatch.GetTimestamp();
@@ -273,6 +264,7 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
             // The transaction (or opening it) failed: nothing of this batch is stored. Start the next on a fresh connection,
             // remembering no chain head (some were of appends now undone).
             _heads?.Clear();
+            _pipe?.Reset();
             await CloseWriterAsync();
             foreach (var unit in batch)
             {
@@ -295,6 +287,81 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
         {
             WaitTime.Record(Stopwatch.GetElapsedTime(unit.Queued, now).TotalMilliseconds);
             unit.Complete();
+        }
+    }
+
+    /// <summary>
+    /// Runs the units of a PostgreSQL batch sharing round trips (<see cref="RoundTripPipe"/>): each unit in order until it
+    /// waits for the round trip or ends; then one round trip for all; then each waiting unit continues, in order, and so
+    /// on until every unit has ended.
+    /// </summary>
+    private async Task RunSharingRoundTripsAsync(List<PendingUnit> batch, DbConnection connection, DbTransaction tx, List<PendingUnit> saved, List<PendingUnit> retry)
+    {
+        var pipe = _pipe!;
+        pipe.BeginBatch();
+        var waiting = new List<(PendingUnit Unit, Task Run)>();
+        foreach (var unit in batch)
+        {
+            pipe.Arm();
+            var run = unit.ExecuteAsync(connection, tx);
+            if (await pipe.WaitAsync(run))
+            {
+                waiting.Add((unit, run));
+            }
+            else
+            {
+                await Settle(unit, run, saved, retry);
+            }
+        }
+
+        while (waiting.Count > 0)
+        {
+            var entries = await pipe.FlushAsync(connection, tx);
+            if (entries.Count != waiting.Count)
+            {
+                throw new InvalidOperationException($"{waiting.Count} units wait for the round trip but {entries.Count} sent statements.");
+            }
+
+            var next = new List<(PendingUnit Unit, Task Run)>();
+            for (var i = 0; i < waiting.Count; i++)
+            {
+                pipe.Arm();
+                RoundTripPipe.Release(entries[i]);
+                if (await pipe.WaitAsync(waiting[i].Run))
+                {
+                    next.Add(waiting[i]);
+                }
+                else
+                {
+                    await Settle(waiting[i].Unit, waiting[i].Run, saved, retry);
+                }
+            }
+
+            waiting = next;
+        }
+    }
+
+    /// <summary>Waits for a unit's run to end and sorts it: saved, to run again in the next batch, or failed.</summary>
+    private static async Task Settle(PendingUnit unit, Task run, List<PendingUnit> saved, List<PendingUnit> retry)
+    {
+        try
+        {
+            await run;
+            saved.Add(unit);
+        }
+        catch (BatchAbortException)
+        {
+            throw;
+        }
+        catch (Exception ex) when (IsLockConflict(ex) && unit.CanRetry && ++unit.Attempts < MaxAttempts)
+        {
+            // PostgreSQL chose this unit to break a lock cycle with another instance's batch; its savepoint is
+            // rolled back and it runs again in the next batch, after this one's commit released its locks.
+            retry.Add(unit);
+        }
+        catch (Exception ex)
+        {
+            unit.Fail(ex);
         }
     }
 

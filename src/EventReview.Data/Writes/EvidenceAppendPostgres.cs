@@ -45,6 +45,7 @@ internal static class EvidenceAppendPostgres
         Actor actor, DateTimeOffset now, CancellationToken ct)
     {
         var cache = unit.HeadCache;
+        await unit.WaitForCaseAsync(caseId); // plan from what the units before this one stored
         var known = cache?.Find(caseId);
         if (known is not null && known.Items.TryGetValue(itemKey, out var item) && EvidenceAppend.Covers(Head(known, itemKey, item)))
         {
@@ -54,16 +55,16 @@ internal static class EvidenceAppendPostgres
                 cache!.CountHit();
                 return stored;
             }
-            catch (PostgresException ex) when (ex is { SqlState: PostgresErrorCodes.UniqueViolation, ConstraintName: SequenceIndex } &&
-                unit.Savepoint == SqlUnit.SavepointState.Open)
+            catch (PostgresException ex) when (ex is { SqlState: PostgresErrorCodes.UniqueViolation, ConstraintName: SequenceIndex })
             {
-                // Something else added to the case since this writer's last append: undo, forget, read it again.
+                // Something else added to the case since this writer's last append (the round trip was undone, nothing
+                // of it stored): forget the case and read it again.
                 cache!.Forget(caseId);
                 cache.CountStale();
-                await unit.Command($"ROLLBACK TO {SqlUnit.SavepointName}").ExecuteNonQueryAsync(ct);
             }
         }
 
+        await unit.WaitForCaseAsync(caseId);
         var (head, read) = await ReadAsync(unit, caseId, itemKey, ct);
         if (!EvidenceAppend.Covers(Head(head, itemKey, read)) && head.State != CaseState.Closed)
         {
@@ -95,6 +96,7 @@ internal static class EvidenceAppendPostgres
                         item = r.IsDBNull(4) ? null : (r.GetInt32(4), Enum.Parse<ItemState>(r.GetString(5)), r.GetInt32(6), Convert.ToInt32(r.GetValue(7), System.Globalization.CultureInfo.InvariantCulture));
                         break;
                     case 2:
+                        evidence.Clear(); // a round trip undone and sent again is read afresh
                         while (await r.ReadAsync(token))
                         {
                             var ticks = unit.ReadTime(r, 2).UtcTicks;
@@ -103,6 +105,7 @@ internal static class EvidenceAppendPostgres
 
                         break;
                     case 3:
+                        computations.Clear();
                         while (await r.ReadAsync(token))
                         {
                             var sha = ComputationRecord.ComputeContentSha256(r.GetString(0), r.GetString(1), r.GetString(2), r.GetString(3), r.GetString(4), r.GetString(5));
@@ -113,7 +116,7 @@ internal static class EvidenceAppendPostgres
                     default:
                         break;
                 }
-            }, ct);
+            }, ct, caseId);
         if (head is null)
         {
             throw new KeyNotFoundException($"There is no case with id {caseId}.");
@@ -159,7 +162,7 @@ internal static class EvidenceAppendPostgres
             {
                 evidenceId = r.GetInt32(0);
             }
-        }, ct);
+        }, ct, head.Id);
         if (affected[0] != 1 || affected[1] != 1 || evidenceId == 0)
         {
             unit.HeadCache?.Forget(head.Id);

@@ -121,37 +121,92 @@ public sealed class SqlUnit : IDisposable
     }
 
     /// <summary>
-    /// Runs <paramref name="statements"/> in one round trip (PostgreSQL), preceded by the unit's savepoint while it is
-    /// still to be sent, and followed by its release when <paramref name="release"/>; returns the rows each statement
+    /// Runs <paramref name="statements"/> in one round trip (PostgreSQL); when <paramref name="release"/> (statements that
+    /// write), inside the unit's savepoint while it is still to be sent, released at their end. With the writer's shared
+    /// round trips (<see cref="Pipe"/>) the statements wait for the next one, and a failure there leaves nothing of them
+    /// behind (the round trip is undone). Returns the rows each statement
     /// affected. <paramref name="read"/> reads the results: it is called once per statement that returns rows, with their
     /// count so far (0 for the first such statement).
-    /// A failing statement stops the batch there and its error is thrown; the unit's savepoint is then open.
+    /// A failing statement's error is thrown.
     /// </summary>
     internal async Task<int[]> BatchAsync(IReadOnlyList<(string Sql, (string Name, object? Value)[] Values)> statements, bool release,
-        Func<int, DbDataReader, CancellationToken, Task>? read, CancellationToken ct)
+        Func<int, DbDataReader, CancellationToken, Task>? read, CancellationToken ct, int? caseId = null)
     {
-        await using var batch = Connection.CreateBatch();
-        batch.Transaction = Transaction;
-        var first = 0;
-        if (Savepoint == SavepointState.Deferred)
+        var all = new List<(string Sql, (string Name, object? Value)[] Values)>(statements.Count + 2);
+        var first = Savepoint == SavepointState.Deferred && release ? 1 : 0; // reads change nothing: no savepoint to undo them
+        if (first == 1)
         {
-            Add(batch, $"SAVEPOINT {SavepointName}", []);
-            first = 1;
+            all.Add(($"SAVEPOINT {SavepointName}", []));
         }
 
-        foreach (var (sql, values) in statements)
+        all.AddRange(statements);
+        if (release)
         {
-            Add(batch, sql, values);
+            all.Add(($"RELEASE {SavepointName}", []));
+        }
+
+        int[] affected;
+        if (Pipe is null)
+        {
+            if (first == 1)
+            {
+                Savepoint = SavepointState.Open;
+            }
+
+            affected = await RunNowAsync(all, read, ct);
+        }
+        else
+        {
+            while (true)
+            {
+                var waiting = Pipe.Add(all, read, caseId);
+                try
+                {
+                    affected = await waiting.Done.Task;
+                    break;
+                }
+                catch (RoundTripPipe.NotSentException)
+                {
+                    // The shared round trip failed and was undone, with nothing of these statements left: send them again.
+                }
+            }
+
+            if (first == 1)
+            {
+                Savepoint = SavepointState.Open;
+            }
         }
 
         if (release)
         {
-            Add(batch, $"RELEASE {SavepointName}", []);
+            Savepoint = SavepointState.Released;
         }
 
-        if (first == 1)
+        return affected.Skip(first).Take(statements.Count).ToArray();
+    }
+
+    /// <summary>
+    /// Waits, while other units' statements waiting for the writer's next round trip write case <paramref name="caseId"/>,
+    /// until they are stored (see <see cref="RoundTripPipe.HoldsCase"/>).
+    /// </summary>
+    internal async Task WaitForCaseAsync(int caseId)
+    {
+        while (Pipe?.HoldsCase(caseId) == true)
         {
-            Savepoint = SavepointState.Open;
+            await Pipe.Add([], null, null).Done.Task;
+        }
+    }
+
+    /// <summary>The writer's shared round trips (PostgreSQL's single writer only).</summary>
+    internal RoundTripPipe? Pipe { get; init; }
+
+    private async Task<int[]> RunNowAsync(List<(string Sql, (string Name, object? Value)[] Values)> all, Func<int, DbDataReader, CancellationToken, Task>? read, CancellationToken ct)
+    {
+        await using var batch = Connection.CreateBatch();
+        batch.Transaction = Transaction;
+        foreach (var (sql, values) in all)
+        {
+            batch.BatchCommands.Add(NewBatchCommand(batch, sql, values));
         }
 
         await using (var reader = await batch.ExecuteReaderAsync(ct))
@@ -167,21 +222,11 @@ public sealed class SqlUnit : IDisposable
             while (await reader.NextResultAsync(ct));
         }
 
-        if (release)
-        {
-            Savepoint = SavepointState.Released;
-        }
-
-        var affected = new int[statements.Count];
-        for (var i = 0; i < affected.Length; i++)
-        {
-            affected[i] = batch.BatchCommands[first + i].RecordsAffected;
-        }
-
-        return affected;
+        return batch.BatchCommands.Select(c => c.RecordsAffected).ToArray();
     }
 
-    private static void Add(DbBatch batch, string sql, (string Name, object? Value)[] values)
+    /// <summary>A command of <paramref name="batch"/> for <paramref name="sql"/> with its parameters' values (null becomes <see cref="DBNull.Value"/>).</summary>
+    internal static DbBatchCommand NewBatchCommand(DbBatch batch, string sql, (string Name, object? Value)[] values)
     {
         var command = batch.CreateBatchCommand();
         command.CommandText = sql;
@@ -193,7 +238,7 @@ public sealed class SqlUnit : IDisposable
             command.Parameters.Add(p);
         }
 
-        batch.BatchCommands.Add(command);
+        return command;
     }
 
     /// <summary>A time as the database stores it: exact UTC ticks in SQLite, <c>timestamp with time zone</c> in PostgreSQL.</summary>
