@@ -6,22 +6,22 @@ using Npgsql;
 namespace EventReview.Data.Writes;
 
 /// <summary>
-/// The short append (<see cref="EvidenceAppendSql"/>) on PostgreSQL, in as few round trips as the rules allow. Each
-/// statement sent alone waits for the server's answer before the next, and PostgreSQL's single writer runs one unit after
-/// another, so round trips, not the statements' work, set how many appends a second one writer stores. Here:
+/// The short append (<see cref="EvidenceAppendSql"/>) on PostgreSQL, in as few round trips as the rules allow
+/// (docs/decisions/011). PostgreSQL's single writer runs one unit after another, so round trips, not the statements'
+/// work, set how many appends a second it stores. Here:
 /// <list type="bullet">
-/// <item>read: the unit's savepoint, the row lock on the case, the head (<see cref="EvidenceAppendSql"/>'s query) and the
-/// item's fingerprint lines, in one round trip;</item>
-/// <item>write: the case and item updates (version-checked), the evidence row and the signed timeline entry, and the
-/// release of the savepoint, in one round trip.</item>
+/// <item>read: the row lock on the case, the head (<see cref="EvidenceAppendSql"/>'s query) and the item's fingerprint
+/// lines, in one round trip;</item>
+/// <item>write: the case and item updates (version-checked), the evidence row and the signed timeline entry, in one
+/// round trip.</item>
 /// </list>
-/// With the writer's <see cref="ChainHeadCache"/>, an append to an item the writer appended to last skips the read:
-/// the write alone, one round trip. The entry goes to the next sequence of the remembered head; if anything else added an
-/// entry to the case since (another instance, or another path), the unique index on (case, sequence) refuses it, the
-/// unit rolls back to its savepoint, forgets the case and takes the read as above. The version checks of the updates
-/// must then hold; if they do not, the unit's work is already released into the batch, so the unit throws
-/// <see cref="BatchAbortException"/> and the writer fails the whole batch (nothing of it is stored, nobody is answered
-/// yes).
+/// With the writer's <see cref="ChainHeadCache"/>, an append to an item the writer appended to before skips the read;
+/// with its <see cref="RoundTripPipe"/>, the round trips of a batch's units are shared. The entry goes to the next
+/// sequence of the remembered head; if anything else added an entry to the case since (another instance, or another
+/// path), the unique index on (case, sequence) refuses it, the round trip is undone, and the unit forgets the case and
+/// reads it again. The version checks of the updates must then hold; if they do not, the unit's changes are already the
+/// transaction's, so it throws <see cref="BatchAbortException"/> and the writer fails the whole batch (nothing of it is
+/// stored, nobody is answered yes).
 /// </summary>
 internal static class EvidenceAppendPostgres
 {
@@ -85,7 +85,7 @@ internal static class EvidenceAppendPostgres
         var evidence = new List<(long, int, EvidenceLine)>();
         var computations = new List<ComputationLine>();
         (string, object?)[] keys = [("@case", caseId), ("@key", itemKey)];
-        await unit.BatchAsync([(LockCaseSql, [("@case", caseId)]), (EvidenceAppendSql.HeadSql, keys), (ItemLinesSql, keys), (ItemComputationsSql, keys)], release: false,
+        await unit.BatchAsync([(LockCaseSql, [("@case", caseId)]), (EvidenceAppendSql.HeadSql, keys), (ItemLinesSql, keys), (ItemComputationsSql, keys)], writes: false,
             async (result, r, token) =>
             {
                 switch (result)
@@ -156,7 +156,7 @@ internal static class EvidenceAppendPostgres
             (EvidenceAppendSql.UpdateItemSql, [("@state", outcome.ItemState.ToString()), ("@item", item.Id), ("@version", item.Version)]),
             (EvidenceAppendSql.InsertEvidenceSql, EvidenceAppendSql.EvidenceValues(unit, item.Id, evidence)),
             (EvidenceAppendSql.InsertActivitySql, EvidenceAppendSql.ActivityValues(unit, head.Id, e)),
-        ], release: true, async (_, r, token) =>
+        ], writes: true, async (_, r, token) =>
         {
             if (await r.ReadAsync(token))
             {

@@ -121,63 +121,58 @@ public sealed class SqlUnit : IDisposable
     }
 
     /// <summary>
-    /// Runs <paramref name="statements"/> in one round trip (PostgreSQL); when <paramref name="release"/> (statements that
-    /// write), inside the unit's savepoint while it is still to be sent, released at their end. With the writer's shared
-    /// round trips (<see cref="Pipe"/>) the statements wait for the next one, and a failure there leaves nothing of them
-    /// behind (the round trip is undone). Returns the rows each statement
-    /// affected. <paramref name="read"/> reads the results: it is called once per statement that returns rows, with their
+    /// Runs <paramref name="statements"/> in one round trip (PostgreSQL); statements that change something
+    /// (<paramref name="writes"/>) run inside the unit's savepoint, sent with them and released at their end. With the
+    /// writer's shared round trips (<see cref="Pipe"/>) the statements wait for the next one instead, whose own savepoint
+    /// leaves nothing of them behind when it fails. Returns the rows each statement affected. <paramref name="read"/> reads the results: it is called once per statement that returns rows, with their
     /// count so far (0 for the first such statement).
     /// A failing statement's error is thrown.
     /// </summary>
-    internal async Task<int[]> BatchAsync(IReadOnlyList<(string Sql, (string Name, object? Value)[] Values)> statements, bool release,
+    internal async Task<int[]> BatchAsync(IReadOnlyList<(string Sql, (string Name, object? Value)[] Values)> statements, bool writes,
         Func<int, DbDataReader, CancellationToken, Task>? read, CancellationToken ct, int? caseId = null)
     {
-        var all = new List<(string Sql, (string Name, object? Value)[] Values)>(statements.Count + 2);
-        var first = Savepoint == SavepointState.Deferred && release ? 1 : 0; // reads change nothing: no savepoint to undo them
-        if (first == 1)
+        if (Pipe is not null)
         {
-            all.Add(($"SAVEPOINT {SavepointName}", []));
-        }
-
-        all.AddRange(statements);
-        if (release)
-        {
-            all.Add(($"RELEASE {SavepointName}", []));
-        }
-
-        int[] affected;
-        if (Pipe is null)
-        {
-            if (first == 1)
-            {
-                Savepoint = SavepointState.Open;
-            }
-
-            affected = await RunNowAsync(all, read, ct);
-        }
-        else
-        {
+            // The writer's shared round trip has a savepoint of its own, which undoes it when a statement fails: the
+            // unit needs none. Once they ran, its changes are the transaction's and cannot be undone alone.
             while (true)
             {
-                var waiting = Pipe.Add(all, read, caseId);
+                var waiting = Pipe.Add(statements, read, caseId);
                 try
                 {
-                    affected = await waiting.Done.Task;
-                    break;
+                    var done = await waiting.Done.Task;
+                    if (writes && Savepoint == SavepointState.Deferred)
+                    {
+                        Savepoint = SavepointState.Released;
+                    }
+
+                    return done;
                 }
                 catch (RoundTripPipe.NotSentException)
                 {
                     // The shared round trip failed and was undone, with nothing of these statements left: send them again.
                 }
             }
-
-            if (first == 1)
-            {
-                Savepoint = SavepointState.Open;
-            }
         }
 
-        if (release)
+        // Reads change nothing: no savepoint to undo them.
+        var all = new List<(string Sql, (string Name, object? Value)[] Values)>(statements.Count + 2);
+        var first = writes && Savepoint == SavepointState.Deferred ? 1 : 0;
+        if (first == 1)
+        {
+            all.Add(($"SAVEPOINT {SavepointName}", []));
+            Savepoint = SavepointState.Open;
+        }
+
+        all.AddRange(statements);
+        var releasing = writes && Savepoint == SavepointState.Open;
+        if (releasing)
+        {
+            all.Add(($"RELEASE {SavepointName}", []));
+        }
+
+        var affected = await RunNowAsync(all, read, ct);
+        if (releasing)
         {
             Savepoint = SavepointState.Released;
         }
