@@ -7,8 +7,11 @@
 #   benchmarks/load/run.sh soak                      the write load for 10 minutes, sampling the server's memory
 #
 # Each run starts the Release build of the app in Production on a fresh data folder under /tmp, creates its
-# accounts and tokens with the command-line tool, drives it with benchmarks/EventReview.Load and stops it.
+# accounts and tokens with the command-line tool, drives it with benchmarks/EventReview.Load and stops it. The write
+# modes then drive the same server with wrk (Debian package; benchmarks/load/notes.lua) on 32 fresh cases, check that
+# the timelines hold every acknowledged note, stop the server and run `eventreview verify` over every case.
 # Results are printed and written to benchmarks/load/results/. Run it on a quiet machine.
+# EVENTREVIEW_LOAD_PORT (5300) and EVENTREVIEW_LOAD_PG_PORT (55499) choose the app's and PostgreSQL's ports.
 set -euo pipefail
 cd "$(dirname "$0")/../.."
 ROOT="$(pwd)"
