@@ -7,13 +7,13 @@ namespace EventReview.Data.Writes;
 /// Shares PostgreSQL round trips between the units of one batch of the writer (<see cref="BatchingWriteGate"/>). A
 /// unit's statements (<see cref="SqlUnit.BatchAsync"/>) are not sent at once: the unit waits here while the writer
 /// starts the next unit of the batch, and when every unit waits or is done, all their statements go to the server in
-/// one round trip, in the order of the batch; then each unit continues, one after the other in that order. A batch of
-/// appends thus costs one or two round trips, not one or two per append. A statement that fails stops the round trip
-/// there (the server skips the rest): the units before it are done, its own unit gets the error with its savepoint
-/// open, and the units after it send theirs again in the next round trip, unchanged, as nothing of them ran. A unit
-/// that would write a case another unit's waiting statements write waits for their round trip first
-/// (<see cref="HoldsCase"/>), so that it plans from what they stored. Used by the writer's loop only: units run one at
-/// a time, each until it waits here or is done.
+/// one round trip, in the order of the batch, inside a savepoint of the round trip; then each unit continues, one after
+/// the other in that order. A batch of appends thus costs one or two round trips, not one or two per append. When a
+/// statement fails, the round trip is rolled back to its savepoint, so nothing of it remains: alone in it, the unit gets
+/// the error; with others, every unit sends its statements again, and for the rest of the batch each unit has a round
+/// trip of its own, so that an error is its own unit's. A unit that would write a case another unit's waiting
+/// statements write waits for their round trip first (<see cref="HoldsCase"/>), so that it plans from what they stored.
+/// Used by the writer's loop only: units run one at a time, each until it waits here or is done.
 /// </summary>
 internal sealed class RoundTripPipe
 {
