@@ -37,7 +37,7 @@ public sealed partial class BatchingWriteGate
         public abstract void Cancel();
     }
 
-    private sealed class PendingSave(AppDbContext db, CancellationToken cancelled) : PendingUnit(cancelled)
+    private sealed class PendingSave(AppDbContext db, ChainHeadCache? heads, CancellationToken cancelled) : PendingUnit(cancelled)
     {
         public TaskCompletionSource Done { get; } = new(TaskCreationOptions.RunContinuationsAsynchronously);
 
@@ -50,6 +50,7 @@ public sealed partial class BatchingWriteGate
                 Enlist(db, connection, tx);
                 await db.SaveChangesAsync(Cancelled);
                 Heads.AddRange(db.TakeWitnessHeads());
+                heads?.ForgetChains(Heads);
             }
             finally
             {
@@ -75,7 +76,13 @@ public sealed partial class BatchingWriteGate
             // Statements stay prepared on SQLite's one connection; on PostgreSQL the driver prepares on its own.
             var provider = gate._factory.Settings.Provider;
             Heads.Clear();
-            using var unit = new SqlUnit(provider, connection, tx, provider == DatabaseProvider.Sqlite ? gate._prepared : null, gate._factory.Records);
+            if (provider == DatabaseProvider.Postgres)
+            {
+                await ExecuteOnServerAsync(connection, tx);
+                return;
+            }
+
+            using var unit = new SqlUnit(provider, connection, tx, gate._prepared, gate._factory.Records);
             await unit.Command("SAVEPOINT eventreview_sql").ExecuteNonQueryAsync(Cancelled);
             try
             {
@@ -92,6 +99,40 @@ public sealed partial class BatchingWriteGate
             }
         }
 
+        /// <summary>
+        /// On PostgreSQL the unit's savepoint goes with its first statements and its release with its last (see
+        /// <see cref="SqlUnit.BatchAsync"/>), saving two round trips; what is still open is released or undone here.
+        /// </summary>
+        private async Task ExecuteOnServerAsync(DbConnection connection, DbTransaction tx)
+        {
+            using var unit = new SqlUnit(DatabaseProvider.Postgres, connection, tx, null, gate._factory.Records, gate._heads, deferSavepoint: true) { Pipe = gate._pipe };
+            try
+            {
+                _value = await work(unit, Cancelled);
+                if (unit.Savepoint == SqlUnit.SavepointState.Open)
+                {
+                    await unit.Command($"RELEASE {SqlUnit.SavepointName}").ExecuteNonQueryAsync(Cancelled);
+                }
+
+                Heads.AddRange(unit.Heads);
+            }
+            catch (Exception ex) when (ex is not BatchAbortException)
+            {
+                switch (unit.Savepoint)
+                {
+                    case SqlUnit.SavepointState.Open:
+                        // Undo whatever the work stored before it failed, keeping the rest of the batch.
+                        await unit.Command($"ROLLBACK TO {SqlUnit.SavepointName}; RELEASE {SqlUnit.SavepointName}").ExecuteNonQueryAsync(CancellationToken.None);
+                        throw;
+                    case SqlUnit.SavepointState.Released:
+                        // The work is part of the transaction and cannot be taken out alone.
+                        throw new BatchAbortException($"A write failed after its changes joined the batch ({ex.Message}); the whole batch is undone.");
+                    default:
+                        throw;
+                }
+            }
+        }
+
         public override void Complete() => Result.TrySetResult(_value!);
 
         public override void Fail(Exception ex) => Result.TrySetException(ex);
@@ -99,7 +140,7 @@ public sealed partial class BatchingWriteGate
         public override void Cancel() => Result.TrySetCanceled(Cancelled);
     }
 
-    private sealed class PendingRun<T>(AppDbContextFactory factory, Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken cancelled) : PendingUnit(cancelled)
+    private sealed class PendingRun<T>(AppDbContextFactory factory, ChainHeadCache? heads, Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken cancelled) : PendingUnit(cancelled)
     {
         private T? _value;
 
@@ -117,6 +158,7 @@ public sealed partial class BatchingWriteGate
                 _value = await work(db, Cancelled);
                 await tx.ReleaseAsync(savepoint, Cancelled);
                 Heads.AddRange(db.TakeWitnessHeads());
+                heads?.ForgetChains(Heads);
             }
             catch
             {

@@ -22,7 +22,8 @@ namespace EventReview.Data.Writes;
 /// write-ahead log into the database file every <see cref="CheckpointEvery"/> (see <see cref="CheckpointLoopAsync"/>).
 /// The writer's figures are published as metrics (<see cref="MeterName"/>). After each commit, one witness line with the
 /// newest head of every chain the batch changed goes to the witness (<see cref="Records.HeadWitness"/>): one line per
-/// batch, not per write.
+/// batch, not per write. On PostgreSQL the writer remembers the chain heads it wrote (<see cref="ChainHeadCache"/>), so an
+/// append to a case it wrote last needs one round trip and no read (<see cref="EvidenceAppendPostgres"/>).
 /// </summary>
 public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
 {
@@ -42,6 +43,7 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
     private static readonly Histogram<int> BatchSize = Meter.CreateHistogram<int>("eventreview.writes.batch_size", "{unit}", "Saves committed together in one transaction.");
     private static readonly Histogram<double> BatchTime = Meter.CreateHistogram<double>("eventreview.writes.batch_duration", "ms", "Time from the start of a batch to its commit.");
     private static readonly Histogram<double> CommitTime = Meter.CreateHistogram<double>("eventreview.writes.commit_duration", "ms", "Time of the commit alone (the flush to disk).");
+    private static readonly Histogram<long> RoundTrips = Meter.CreateHistogram<long>("eventreview.writes.round_trips", "{round_trip}", "Shared round trips to PostgreSQL in one batch, besides the commit (PostgreSQL only).");
     private static readonly Histogram<double> WaitTime = Meter.CreateHistogram<double>("eventreview.writes.wait_duration", "ms", "Time from handing a save to the writer until it is committed.");
 
     private readonly AppDbContextFactory _factory;
@@ -51,26 +53,36 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
     private readonly CancellationTokenSource _stop = new();
     private long _commits;
     private readonly Dictionary<string, DbCommand> _prepared = new(StringComparer.Ordinal);
+    private readonly ChainHeadCache? _heads;
+    private readonly RoundTripPipe? _pipe;
     private AppDbContext? _owner;
     private DbConnection? _connection;
 
     public BatchingWriteGate(AppDbContextFactory factory)
     {
         _factory = factory;
+        _heads = factory.Settings.Provider == DatabaseProvider.Postgres ? new ChainHeadCache() : null;
+        _pipe = factory.Settings.Provider == DatabaseProvider.Postgres ? new RoundTripPipe() : null;
         _loop = Task.Run(LoopAsync);
         _checkpoints = factory.Settings.Provider == DatabaseProvider.Sqlite ? Task.Run(CheckpointLoopAsync) : Task.CompletedTask;
     }
 
+    /// <summary>Appends stored from the writer's remembered chain head, without reading the case (PostgreSQL only; read after the writer is idle).</summary>
+    public long AppendsFromRememberedHead => _heads?.Hits ?? 0;
+
+    /// <summary>Remembered chain heads the database found out of date, so that the case was read again (PostgreSQL only).</summary>
+    public long StaleRememberedHeads => _heads?.Stale ?? 0;
+
     public Task SaveAsync(AppDbContext db, CancellationToken ct = default)
     {
-        var save = new PendingSave(db, ct);
+        var save = new PendingSave(db, _heads, ct);
         Enqueue(save, ct);
         return save.Done.Task;
     }
 
     public Task<T> RunAsync<T>(Func<AppDbContext, CancellationToken, Task<T>> work, CancellationToken ct = default)
     {
-        var run = new PendingRun<T>(_factory, work, ct);
+        var run = new PendingRun<T>(_factory, _heads, work, ct);
         Enqueue(run, ct);
         return run.Result.Task;
     }
@@ -110,9 +122,31 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
 
         await CloseWriterAsync();
         _owner = _factory.CreateDbContext();
+        if (_factory.Settings.Provider == DatabaseProvider.Postgres)
+        {
+            _owner.Database.SetConnectionString(WriterConnectionString(_owner.Database.GetConnectionString()!));
+        }
+
         await _owner.Database.OpenConnectionAsync();
         _connection = _owner.Database.GetDbConnection();
         return _connection;
+    }
+
+    /// <summary>
+    /// The PostgreSQL writer's connection string: the configured one, with the driver preparing the writer's statements
+    /// after their second use (<c>Max Auto Prepare</c>) unless the configuration says otherwise; the writer runs the
+    /// same few statements all day on one connection, so the server parses and plans each once.
+    /// </summary>
+    internal static string WriterConnectionString(string configured)
+    {
+        var builder = new Npgsql.NpgsqlConnectionStringBuilder(configured);
+        if (!configured.Contains("Auto Prepare", StringComparison.OrdinalIgnoreCase) && !configured.Contains("AutoPrepare", StringComparison.OrdinalIgnoreCase))
+        {
+            builder.MaxAutoPrepare = 32;
+            builder.AutoPrepareMinUsages = 2;
+        }
+
+        return builder.ConnectionString;
     }
 
     /// <summary>
@@ -200,29 +234,28 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
         var saved = new List<PendingUnit>(batch.Count);
         var retry = new List<PendingUnit>();
         var started = Stopwatch.GetTimestamp();
+        var roundTripsBefore = _pipe?.RoundTrips ?? 0;
         try
         {
             var connection = await WriterConnectionAsync();
             await using var tx = await connection.BeginTransactionAsync();
-            foreach (var unit in batch)
+            if (_pipe is null)
             {
-                try
+                foreach (var unit in batch)
                 {
                     // Each unit saves through the writer's connection and transaction; EF Core wraps the save in a
                     // savepoint of that transaction and rolls back to it if the save fails.
-                    await unit.ExecuteAsync(connection, tx);
-                    saved.Add(unit);
+                    await Settle(unit, unit.ExecuteAsync(connection, tx), saved, retry);
                 }
-                catch (Exception ex) when (IsLockConflict(ex) && unit.CanRetry && ++unit.Attempts < MaxAttempts)
-                {
-                    // PostgreSQL chose this unit to break a lock cycle with another instance's batch; its savepoint is
-                    // rolled back and it runs again in the next batch, after this one's commit released its locks.
-                    retry.Add(unit);
-                }
-                catch (Exception ex)
-                {
-                    unit.Fail(ex);
-                }
+            }
+            else
+            {
+                await RunSharingRoundTripsAsync(batch, connection, tx, saved, retry);
+            }
+
+            if (_pipe is not null)
+            {
+                RoundTrips.Record(_pipe.RoundTrips - roundTripsBefore);
             }
 
             var committing = Stopwatch.GetTimestamp();
@@ -235,7 +268,10 @@ public sealed partial class BatchingWriteGate : IWriteGate, IAsyncDisposable
         }
         catch (Exception ex)
         {
-            // The transaction (or opening it) failed: nothing of this batch is stored. Start the next on a fresh connection.
+            // The transaction (or opening it) failed: nothing of this batch is stored. Start the next on a fresh connection,
+            // remembering no chain head (some were of appends now undone).
+            _heads?.Clear();
+            _pipe?.Reset();
             await CloseWriterAsync();
             foreach (var unit in batch)
             {

@@ -26,7 +26,7 @@ public sealed partial class ShortAppendSqlModelTests
             .ToDictionary(g => g.Key, g => g.SelectMany(e => Columns(e)).ToHashSet(StringComparer.Ordinal), StringComparer.Ordinal);
         var allColumns = tables.Values.SelectMany(c => c).ToHashSet(StringComparer.Ordinal);
         var statements = Statements();
-        Assert.True(statements.Count >= 5, "the short path's statements were not found");
+        Assert.True(statements.Count >= 9, "the short path's statements were not found");
 
         foreach (var (name, sql) in statements)
         {
@@ -76,10 +76,12 @@ public sealed partial class ShortAppendSqlModelTests
         return entity.GetProperties().Select(p => p.GetColumnName(table)).OfType<string>();
     }
 
+    /// <summary>The statements of both routes: the plan's (<see cref="EvidenceAppendSql"/>) and PostgreSQL's reads (<c>EvidenceAppendPostgres</c>).</summary>
     private static List<(string Name, string Sql)> Statements() =>
-        typeof(EvidenceAppendSql).GetFields(BindingFlags.NonPublic | BindingFlags.Public | BindingFlags.Static)
+        new[] { typeof(EvidenceAppendSql), typeof(EvidenceAppendSql).Assembly.GetType("EventReview.Data.Writes.EvidenceAppendPostgres", throwOnError: true)! }
+            .SelectMany(t => t.GetFields(BindingFlags.NonPublic | BindingFlags.Public | BindingFlags.Static))
             .Where(f => f.IsLiteral && f.FieldType == typeof(string) && f.Name.EndsWith("Sql", StringComparison.Ordinal))
-            .Select(f => (f.Name, (string)f.GetRawConstantValue()!))
+            .Select(f => (f.DeclaringType!.Name + "." + f.Name, (string)f.GetRawConstantValue()!))
             .ToList();
 
     private static AppDbContext Context(string provider) => provider == "Sqlite"
