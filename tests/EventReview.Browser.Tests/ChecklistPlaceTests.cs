@@ -5,7 +5,7 @@ namespace EventReview.Browser.Tests;
 /// <summary>
 /// Not getting lost in the checklist at 1440×900: an item opened by its address is highlighted, scrolled into view and
 /// focused with a visible ring; j/k move and keep it in view; ? lists the keys; a click in the list keeps the page where it
-/// is; back and forward restore the scroll position; the item panel stays beside the list while the list scrolls.
+/// is; back and forward restore the scroll position; a filter that keeps nothing offers "Clear filters".
 /// </summary>
 public sealed class ChecklistPlaceTests(RunningApp app) : IClassFixture<RunningApp>
 {
@@ -97,6 +97,16 @@ public sealed class ChecklistPlaceTests(RunningApp app) : IClassFixture<RunningA
             await page.WaitForURLAsync("**/items/timing.arrival");
             await page.WaitForTimeoutAsync(800);
             Assert.InRange(await page.EvaluateAsync<double>("() => window.scrollY"), 198, 202);
+
+            // A filter that keeps nothing (the fresh demo has no stale sign-off) says so and offers to clear it.
+            await page.GotoAsync($"{app.BaseUrl}{caseUrl}/items/env.coupling?show=stale");
+            await page.Locator("#interactive-ready").WaitForAsync(new() { State = WaitForSelectorState.Attached });
+            await Assertions.Expect(page.Locator("#checklist-empty")).ToContainTextAsync("No items are stale sign-offs");
+            await Assertions.Expect(page.Locator("li[data-item]")).ToHaveCountAsync(0);
+            await page.Locator("#clear-checklist-filters").ClickAsync();
+            await page.WaitForURLAsync("**/items/env.coupling");
+            await Assertions.Expect(page.Locator("li[data-item]")).ToHaveCountAsync(36);
+            await Assertions.Expect(page.Locator("#checklist-filter a.on")).ToHaveAttributeAsync("data-show", "all");
         }
         catch
         {

@@ -31,7 +31,8 @@ public sealed class LayoutSweepTests(RunningApp app) : IClassFixture<RunningApp>
         })();
         """;
 
-    // Every table and every scroll container holding one, and every clipped cell; the page's own sideways scroll.
+    // Every table and every scroll container holding one, every clipped cell and every verdict or state chip whose word does
+    // not fit its outline; the page's own sideways scroll.
     private const string LayoutProbe = """
         () => {
           const out = [];
@@ -64,6 +65,11 @@ public sealed class LayoutSweepTests(RunningApp app) : IClassFixture<RunningApp>
               const cs = getComputedStyle(c);
               if (cs.overflow !== 'visible' && c.scrollWidth > c.clientWidth + 1) {
                 out.push('cell "' + c.innerText.trim().slice(0, 30) + '" of table ' + label(t) + ' is clipped by ' + (c.scrollWidth - c.clientWidth) + ' px');
+              }
+              for (const chip of c.querySelectorAll('.verdict, .state')) {
+                if (chip.scrollWidth > chip.clientWidth + 1) {
+                  out.push('chip "' + chip.innerText.trim().slice(0, 30) + '" in table ' + label(t) + ' is ' + (chip.scrollWidth - chip.clientWidth) + ' px narrower than its word');
+                }
               }
               for (const child of c.children) {
                 const ks = getComputedStyle(child);
