@@ -36,9 +36,8 @@ public sealed class ReviewerSignOffTests(RunningApp app) : IClassFixture<Running
             var note = $"Timing uncertainty of each site taken from its calibration report (checked {DateTime.UtcNow:HH:mm:ss} UTC).";
             await page.Locator("textarea#note-text").FillAsync(note);
             await Assertions.Expect(page.Locator("textarea#note-text")).ToHaveValueAsync(note);
-            // One click: the page is live (its controls are inert until then) and the button says "Adding the note…" while a
-            // slow save on a loaded machine runs, so there is nothing to click twice.
             await page.Locator("#add-note").ClickAsync();
+            await LostClick.RetryAsync(page, app, "reviewer-note", note, "Timing uncertainty of each site");
             await Assertions.Expect(page.Locator("ul.evidence")).ToContainTextAsync("Timing uncertainty of each site", new() { Timeout = 60_000 });
             await Assertions.Expect(page.Locator("textarea#note-text")).ToHaveValueAsync(string.Empty);
 
