@@ -37,24 +37,9 @@ public sealed class ReviewerSignOffTests(RunningApp app) : IClassFixture<Running
             await page.Locator("textarea#note-text").FillAsync(note);
             await Assertions.Expect(page.Locator("textarea#note-text")).ToHaveValueAsync(note);
             await page.Locator("#add-note").ClickAsync();
-            var added = false;
-            try
-            {
-                await Assertions.Expect(page.Locator("ul.evidence")).ToContainTextAsync("Timing uncertainty of each site", new() { Timeout = 8_000 });
-                added = true;
-            }
-            catch (PlaywrightException)
-            {
-            }
-
-            if (!added && await page.Locator("textarea#note-text").InputValueAsync() == note)
-            {
-                // On a loaded test machine the first click on a freshly connected page is sometimes not delivered (the
-                // note is still in the field and nothing was added): click once more; a delivered click clears the field.
-                await page.Locator("#add-note").ClickAsync();
-            }
-
-            await Assertions.Expect(page.Locator("ul.evidence")).ToContainTextAsync("Timing uncertainty of each site");
+            await LostClick.RetryAsync(page, app, "reviewer-note", note, "Timing uncertainty of each site");
+            await Assertions.Expect(page.Locator("ul.evidence")).ToContainTextAsync("Timing uncertainty of each site", new() { Timeout = 60_000 });
+            await Assertions.Expect(page.Locator("textarea#note-text")).ToHaveValueAsync(string.Empty);
 
             await page.Locator("#mark-ready").ClickAsync();
             await Assertions.Expect(page.Locator(".item-panel .state").First).ToContainTextAsync("ready for sign-off");

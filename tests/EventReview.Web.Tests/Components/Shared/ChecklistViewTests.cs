@@ -64,6 +64,7 @@ public sealed class ChecklistViewTests : MudTestContext
         var cut = RenderView(selected: "beta.one");
 
         Assert.Equal(["beta.one"], cut.FindAll("li.selected").Select(li => li.GetAttribute("data-item")));
+        Assert.Equal(["/cases/42/items/beta.one"], cut.FindAll("a[aria-current='true']").Select(a => a.GetAttribute("href")));
     }
 
     [Fact]

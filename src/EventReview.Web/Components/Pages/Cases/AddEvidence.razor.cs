@@ -60,14 +60,30 @@ public partial class AddEvidence
 
     private FileRole ChosenRole => new(_roleKind, FileRole.IsPerSite(_roleKind) && _roleSite != NoSite ? _roleSite : null);
 
+    // True while a note is being stored: the button shows it and takes no second click (a slow save is not a lost click).
+    private bool _addingNote;
+
     private async Task AddNote()
     {
-        var text = _note;
-        if (await Run(() => Cases.AddNoteAsync(User, Case.Id, Item.Key, text ?? string.Empty), "Note added."))
+        if (_addingNote)
         {
-            _note = null;
-            _noteTab = 0;
-            NoteEdited();
+            return;
+        }
+
+        _addingNote = true;
+        try
+        {
+            var text = _note;
+            if (await Run(() => Cases.AddNoteAsync(User, Case.Id, Item.Key, text ?? string.Empty), "Note added."))
+            {
+                _note = null;
+                _noteTab = 0;
+                NoteEdited();
+            }
+        }
+        finally
+        {
+            _addingNote = false;
         }
     }
 

@@ -1,6 +1,7 @@
 using System.Globalization;
 using Bunit;
 using EventReview.Core.Cases;
+using EventReview.Core.Checklists;
 using EventReview.Core.Geodesy;
 using EventReview.Core.Network;
 using EventReview.Core.Time;
@@ -96,5 +97,36 @@ public sealed class CaseOverviewTests : MudTestContext
 
         Assert.Equal("inconsistent", cut.Find("a.matrix-chip .verdict").TextContent.Trim());
         Assert.Contains("the stored result could not be read", cut.Find("#overview-headlines").TextContent, StringComparison.Ordinal);
+    }
+
+    [Fact]
+    public void A_long_check_name_may_break_at_a_soft_hyphen_and_keeps_its_full_name_as_title()
+    {
+        var template = new ChecklistTemplate
+        {
+            Name = "header-test",
+            Title = "Header test",
+            Sections =
+            [
+                new TemplateSection
+                {
+                    Key = "alpha", Title = "Alpha checks",
+                    Items =
+                    [
+                        new TemplateItem { Key = "alpha.one", Title = "Frozen", Guidance = "g", Check = CheckKind.Configuration },
+                        new TemplateItem { Key = "alpha.two", Title = "Timed", Guidance = "g", Check = CheckKind.Timing },
+                    ],
+                },
+            ],
+        };
+        ChecklistTemplateLoader.Validate(template);
+        var c = ReviewCase.Open("TC-UI-2", GpsTime.FromSeconds(1_400_000_000m), "s", "", [], template, ComponentCases.Coordinator, ComponentCases.Opened);
+
+        var cut = RenderOverview(c);
+
+        var configuration = cut.Find("#overview-matrix thead th[data-kind='configuration']");
+        Assert.Equal("configuration", configuration.GetAttribute("title"));
+        Assert.Equal("configu\u00ADration", configuration.TextContent.Trim());
+        Assert.Equal("timing", cut.Find("#overview-matrix thead th[data-kind='timing']").TextContent.Trim());
     }
 }
