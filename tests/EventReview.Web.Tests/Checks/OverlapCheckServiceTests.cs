@@ -138,7 +138,8 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         Assert.Equal(travel + (3 * Math.Sqrt(2) * 1e-4), result.AllowedLagSeconds, 1e-12);
         Assert.Contains("±", summary);
         Assert.Contains("200 off-source trials", summary);
-        Assert.Equal(7, record.PicturesSvg.Split(CheckRecords.PictureSeparator).Length); // overlay, curve, histogram, two Q maps and their zooms
+        Assert.Equal(8, record.PicturesSvg.Split(CheckRecords.PictureSeparator).Length); // overlay, curve, histogram, two Q maps and their zooms, the spectral densities
+        Assert.Contains("Amplitude spectral density of KX and MV", record.PicturesSvg, StringComparison.Ordinal);
         Assert.Equal(record.Verdict, result.Judgement!.Word);
         Assert.Contains("light-travel KX–MV", result.AllowedLagRule);
         Assert.All(result.Maps, m => Assert.True(m.Fit is { ChirpLike: true }, m.Fit?.Reason ?? m.Error));
