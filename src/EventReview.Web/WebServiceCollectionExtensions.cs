@@ -59,7 +59,11 @@ public static class WebServiceCollectionExtensions
         services.AddSingleton<TemplateCatalog>();
         services.AddSingleton<MarkdownRenderer>();
         services.AddSingleton<KnownItems>();
-        services.AddScoped<CaseService>();
+        services.AddScoped<CaseWriter>();
+        services.AddScoped<CaseQueries>();
+        services.AddScoped<EvidenceAppender>();
+        services.AddScoped<SignerCheck>();
+        services.AddScoped<CaseWorkflow>();
         services.AddScoped<NetworkService>();
         services.AddScoped<Services.Checks.TimingCheckService>();
         services.AddSingleton<Services.Checks.CheckJobs>();

@@ -27,7 +27,7 @@ public abstract partial class DataStoreTests
                 // Each writer waits for each answer before its next append, so its own notes must appear in its order.
                 for (var n = 0; n < Each; n++)
                 {
-                    // Normalised as the app does before an append (CaseService), so the case's last-change time is the entry's.
+                    // Normalised as the app does before an append (EvidenceAppender), so the case's last-change time is the entry's.
                     var at = EventReview.Core.Time.RecordedTime.Normalize(start.AddMilliseconds((w * Each) + n));
                     Assert.NotNull(await AppendAsync(gates[w % 2], ids[w % Cases], n % 2 == 0 ? "alpha.one" : "beta.one",
                         t => EvidenceItem.Note($"w{w:D2} n{n:D2}", SampleCases.ReviewerA, t), SampleCases.ReviewerA, at));

@@ -241,10 +241,12 @@ public sealed class CaseApiTests(EventReviewFactory app) : IClassFixture<EventRe
         var id = (await (await (await app.As(Who.Coordinator)).OpenCaseAsync(ApiCalls.OpenCaseBody(ApiCalls.NewCandidateId()))).JsonAsync())["id"]!.GetValue<int>();
         using (var scope = app.Services.CreateScope())
         {
-            var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
-            await cases.AddNoteAsync(Principals.Reviewer("u-a", "Reviewer Ada"), id, "triage.timing", "Evidence.");
-            var c = await cases.TransitionAsync(Principals.Reviewer("u-a", "Reviewer Ada"), id, "triage.timing", "ready", null);
-            await cases.SignAsync(Principals.Reviewer("u-b", "Reviewer Bo"), id, "triage.timing", SignOffMeaning.Reviewed, "ok", c.Item("triage.timing").Fingerprint());
+            var appender = scope.ServiceProvider.GetRequiredService<EvidenceAppender>();
+            var workflow = scope.ServiceProvider.GetRequiredService<CaseWorkflow>();
+            await appender.AddNoteAsync(Principals.Reviewer("u-a", "Reviewer Ada"), id, "triage.timing", "Evidence.");
+            var c = await workflow.TransitionAsync(Principals.Reviewer("u-a", "Reviewer Ada"), id, "triage.timing", "ready", null);
+            var reviewerB = Principals.Reviewer("u-b", "Reviewer Bo");
+            await workflow.SignAsync(reviewerB, id, "triage.timing", SignOffMeaning.Reviewed, "ok", c.Item("triage.timing").Fingerprint(), await Signers.ProofAsync(scope.ServiceProvider, reviewerB));
         }
 
         Assert.Equal("signed-off", (string?)(await client.ItemAsync(id, "triage.timing"))["state"]);
