@@ -49,9 +49,9 @@ public abstract partial class DataStoreTests
 
             // Nothing lost: every acknowledged note is stored, once, and the timeline has one entry per append.
             Assert.Equal(writers.Count * Each, notes.Count);
-            Assert.Equal(1 + (writers.Count * Each), c.Activity.Count);
-            Assert.Equal(Enumerable.Range(1, 1 + (writers.Count * Each)), c.Activity.Select(a => a.Sequence).Order());
-            Assert.Null(ActivityChain.FirstProblem(c.Activity.OrderBy(a => a.Sequence)));
+            Assert.Equal(1 + (writers.Count * Each), c.Timeline.Count);
+            Assert.Equal(Enumerable.Range(1, 1 + (writers.Count * Each)), c.Timeline.Select(a => a.Sequence).Order());
+            Assert.Null(TimelineChain.FirstProblem(c.Timeline.OrderBy(a => a.Sequence)));
 
             // Nothing reordered: each writer's notes come in the order it was answered.
             foreach (var w in writers)

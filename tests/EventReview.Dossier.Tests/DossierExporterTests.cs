@@ -66,7 +66,7 @@ public class DossierExporterTests
         var manifest = DossierJson.Deserialize<DossierManifest>(files["manifest.json"]);
 
         Assert.Equal(files.Keys.Where(k => k != "manifest.json").Order(StringComparer.Ordinal), manifest.Files.Select(f => f.Path));
-        Assert.Equal(s.Case.Activity[^1].Hash, manifest.ChainHead);
+        Assert.Equal(s.Case.Timeline[^1].Hash, manifest.ChainHead);
         Assert.Equal(SampleCase.AttachmentBytes, files["attachments/" + s.AttachmentSha256]);
     }
 

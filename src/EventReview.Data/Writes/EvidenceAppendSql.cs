@@ -26,8 +26,8 @@ public static class EvidenceAppendSql
                a."Sequence", a."Hash"
         FROM "Cases" c
         LEFT JOIN "ChecklistItems" i ON i."ReviewCaseId" = c."Id" AND i."Key" = @key
-        LEFT JOIN "Activity" a ON a."ReviewCaseId" = c."Id"
-             AND a."Sequence" = (SELECT MAX(x."Sequence") FROM "Activity" x WHERE x."ReviewCaseId" = c."Id")
+        LEFT JOIN "Timeline" a ON a."ReviewCaseId" = c."Id"
+             AND a."Sequence" = (SELECT MAX(x."Sequence") FROM "Timeline" x WHERE x."ReviewCaseId" = c."Id")
         WHERE c."Id" = @case
         """;
 
@@ -40,7 +40,7 @@ public static class EvidenceAppendSql
         """;
 
     private const string InsertActivitySql = """
-        INSERT INTO "Activity" ("ReviewCaseId", "CandidateId", "Sequence", "At", "ActorId", "ActorName", "Kind", "ItemKey", "Text", "PreviousHash", "Hash", "Facts", "KeyId", "Mac")
+        INSERT INTO "Timeline" ("ReviewCaseId", "CandidateId", "Sequence", "At", "ActorId", "ActorName", "Kind", "ItemKey", "Text", "PreviousHash", "Hash", "Facts", "KeyId", "Mac")
         VALUES (@case, @candidate, @sequence, @at, @actor, @actorName, @kind, @key, @text, @previous, @hash, @facts, @keyId, @mac)
         """;
 
@@ -99,7 +99,7 @@ public static class EvidenceAppendSql
             itemId = r.GetInt32(4);
             itemVersion = r.GetInt32(6);
             state = new EvidenceAppend.Head(candidate, Enum.Parse<CaseState>(r.GetString(2)), itemKey, Enum.Parse<ItemState>(r.GetString(5)),
-                r.IsDBNull(8) ? 0 : r.GetInt32(8), r.IsDBNull(9) ? ActivityEntry.GenesisHash : r.GetString(9), Convert.ToInt32(r.GetValue(7), System.Globalization.CultureInfo.InvariantCulture));
+                r.IsDBNull(8) ? 0 : r.GetInt32(8), r.IsDBNull(9) ? TimelineEntry.GenesisHash : r.GetString(9), Convert.ToInt32(r.GetValue(7), System.Globalization.CultureInfo.InvariantCulture));
         }
 
         if (!EvidenceAppend.Covers(state) && state.CaseState != CaseState.Closed)

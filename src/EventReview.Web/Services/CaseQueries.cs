@@ -99,7 +99,7 @@ public sealed class CaseQueries(IDbContextFactory<AppDbContext> dbFactory)
             throw new KeyNotFoundException($"There is no case with id {caseId}.");
         }
 
-        var q = db.Activity.AsNoTracking().Where(a => a.ReviewCaseId == caseId);
+        var q = db.Timeline.AsNoTracking().Where(a => a.ReviewCaseId == caseId);
         var total = await q.CountAsync(ct);
         var page = await q.OrderByDescending(a => a.Sequence).Skip(o).Take(l).ToListAsync(ct);
         return new TimelinePage(total, o, l, page);

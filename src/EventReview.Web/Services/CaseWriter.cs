@@ -87,7 +87,7 @@ public sealed class CaseWriter(IDbContextFactory<AppDbContext> dbFactory, IWrite
             var item = c.Item(itemKey);
             if (expectedItemVersion is not null && item.Version != expectedItemVersion)
             {
-                var last = c.Activity.Where(a => a.ItemKey == itemKey).MaxBy(a => a.Sequence);
+                var last = c.Timeline.Where(a => a.ItemKey == itemKey).MaxBy(a => a.Sequence);
                 throw new ConflictException($"Item '{itemKey}' was changed by {last?.ActorName ?? "someone else"} while you were editing it ({last?.Text}). Your change was not applied; the item has been reloaded — check it and apply your change again.");
             }
         }

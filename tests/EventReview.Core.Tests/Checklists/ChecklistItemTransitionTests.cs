@@ -17,8 +17,8 @@ public class ChecklistItemTransitionTests
 
         Assert.Equal(ItemState.InProgress, _case.Item("alpha.one").State);
         Assert.Equal(CaseState.InReview, _case.State);
-        Assert.Equal("item.state", _case.Activity[^1].Kind);
-        Assert.Equal("alpha.one", _case.Activity[^1].ItemKey);
+        Assert.Equal("item.state", _case.Timeline[^1].Kind);
+        Assert.Equal("alpha.one", _case.Timeline[^1].ItemKey);
     }
 
     [Fact]
@@ -39,7 +39,7 @@ public class ChecklistItemTransitionTests
 
         Assert.Equal(ItemState.InProgress, _case.Item("alpha.one").State);
         Assert.Equal(CaseState.InReview, _case.State);
-        Assert.Equal("evidence.note", _case.Activity[^1].Kind);
+        Assert.Equal("evidence.note", _case.Timeline[^1].Kind);
     }
 
     [Fact]
@@ -71,7 +71,7 @@ public class ChecklistItemTransitionTests
         _case.MarkItemReady("beta.one", People.ReviewerA, Clock.At(2));
 
         Assert.Equal(ItemState.ReadyForSignOff, _case.Item("beta.one").State);
-        Assert.Equal("computation.timing", _case.Activity[^2].Kind);
+        Assert.Equal("computation.timing", _case.Timeline[^2].Kind);
     }
 
     [Fact]
@@ -151,8 +151,8 @@ public class ChecklistItemTransitionTests
         Assert.Equal(fingerprint, s.EvidenceFingerprint);
         Assert.False(s.IsStale);
         Assert.Equal(ItemState.SignedOff, _case.Item("alpha.one").State);
-        Assert.Equal("signoff", _case.Activity[^1].Kind);
-        Assert.Contains("Item signed off.", _case.Activity[^1].Text, StringComparison.Ordinal);
+        Assert.Equal("signoff", _case.Timeline[^1].Kind);
+        Assert.Contains("Item signed off.", _case.Timeline[^1].Text, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -189,7 +189,7 @@ public class ChecklistItemTransitionTests
         var item = _case.Item("alpha.two");
         Assert.Equal(ItemState.ReadyForSignOff, item.State);
         Assert.Single(item.CurrentSignOffs);
-        Assert.Contains("(1 of 2)", _case.Activity[^1].Text, StringComparison.Ordinal);
+        Assert.Contains("(1 of 2)", _case.Timeline[^1].Text, StringComparison.Ordinal);
 
         _case.SignNow("alpha.two", People.ReviewerC, Clock.At(3));
 
@@ -240,8 +240,8 @@ public class ChecklistItemTransitionTests
         Assert.Empty(item.CurrentSignOffs);
         Assert.Equal(1, _case.StaleItemCount);
         Assert.Equal(0, _case.SignedItemCount);
-        Assert.Equal("signoff.stale", _case.Activity[^1].Kind);
-        Assert.Equal("alpha.one", _case.Activity[^1].ItemKey);
+        Assert.Equal("signoff.stale", _case.Timeline[^1].Kind);
+        Assert.Equal("alpha.one", _case.Timeline[^1].ItemKey);
     }
 
     [Fact]
@@ -299,7 +299,7 @@ public class ChecklistItemTransitionTests
         _case.AddNote("alpha.one", "More.", People.ReviewerA, Clock.At(2));
 
         Assert.Equal(ItemState.ReadyForSignOff, _case.Item("alpha.one").State);
-        Assert.DoesNotContain(_case.Activity, a => a.Kind == "signoff.stale");
+        Assert.DoesNotContain(_case.Timeline, a => a.Kind == "signoff.stale");
     }
 
     [Fact]
@@ -320,7 +320,7 @@ public class ChecklistItemTransitionTests
     {
         _case.AssignItem("alpha.one", People.ReviewerA.UserId, People.ReviewerA.DisplayName, People.Coordinator, Clock.At(1));
         Assert.Equal(People.ReviewerA.DisplayName, _case.Item("alpha.one").OwnerName);
-        Assert.Equal("item.assigned", _case.Activity[^1].Kind);
+        Assert.Equal("item.assigned", _case.Timeline[^1].Kind);
 
         _case.AssignItem("alpha.one", " ", "ignored", People.Coordinator, Clock.At(2));
 
@@ -333,12 +333,12 @@ public class ChecklistItemTransitionTests
     {
         _case.SetItemDue("alpha.one", new DateOnly(2026, 3, 9), People.Coordinator, Clock.At(1));
         Assert.Equal(new DateOnly(2026, 3, 9), _case.Item("alpha.one").DueDate);
-        Assert.Contains("2026-03-09", _case.Activity[^1].Text, StringComparison.Ordinal);
+        Assert.Contains("2026-03-09", _case.Timeline[^1].Text, StringComparison.Ordinal);
 
         _case.SetItemDue("alpha.one", null, People.Coordinator, Clock.At(2));
 
         Assert.Null(_case.Item("alpha.one").DueDate);
-        Assert.Equal("item.due", _case.Activity[^1].Kind);
+        Assert.Equal("item.due", _case.Timeline[^1].Kind);
     }
 
     [Fact]

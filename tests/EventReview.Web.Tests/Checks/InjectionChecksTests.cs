@@ -87,8 +87,8 @@ public sealed class InjectionChecksTests(LocalCausesHarness app) : IClassFixture
         Assert.Equal("sealed-record", result.Source);
         Assert.Equal(sealResult.Commitment, result.Seal!.Commitment);
         Assert.Equal("AB", Assert.Single(result.Report.Hits).Site);
-        Assert.Contains(opened.Activity, a => a.ItemKey == "injection.blind-open" && a.Kind == "computation.injections");
-        Assert.Contains(opened.Activity, a => a.ItemKey == "injection.blind-open" && a.Kind == "override" && a.Text.Contains(why, StringComparison.Ordinal));
+        Assert.Contains(opened.Timeline, a => a.ItemKey == "injection.blind-open" && a.Kind == "computation.injections");
+        Assert.Contains(opened.Timeline, a => a.ItemKey == "injection.blind-open" && a.Kind == "override" && a.Text.Contains(why, StringComparison.Ordinal));
         var after = (await seals.ListAsync()).Single(s => s.Id == seal.Id);
         Assert.True(after.IsOpened);
         Assert.Equal(c.Id, after.OpenedInCaseId);

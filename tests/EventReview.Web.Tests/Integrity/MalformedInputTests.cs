@@ -32,7 +32,7 @@ public sealed class MalformedInputTests(EventReviewFactory app) : IClassFixture<
             .Where(f => !f.StartsWith(DatabaseFilePrefix, StringComparison.Ordinal))
             .Order(StringComparer.Ordinal);
         return string.Join('\n', [
-            $"cases {cases.Count}", $"activity {cases.Sum(c => c.Activity.Count)}", $"snapshots {await db.ConfigurationSnapshots.CountAsync()}",
+            $"cases {cases.Count}", $"activity {cases.Sum(c => c.Timeline.Count)}", $"snapshots {await db.ConfigurationSnapshots.CountAsync()}",
             .. fingerprints, .. files]);
     }
 

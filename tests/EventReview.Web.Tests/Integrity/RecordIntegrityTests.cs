@@ -82,7 +82,7 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
         Assert.Contains("freeze configuration records", ex.Message, StringComparison.Ordinal);
         var after = await ReloadAsync(c.Id);
         Assert.False((await config.ListAsync(Coordinator, after)).Single(s => s.Id == snapshot.Id).IsFrozen);
-        Assert.Equal(c.Activity.Count, after.Activity.Count);
+        Assert.Equal(c.Timeline.Count, after.Timeline.Count);
         Assert.Empty(after.Items.SelectMany(i => i.Computations));
     }
 

@@ -60,7 +60,7 @@ public sealed class CaseWorkflowSigningTests(EventReviewFactory app) : IClassFix
         Assert.Contains("Nothing was signed", ex.Message, StringComparison.OrdinalIgnoreCase);
         var after = await Get<CaseQueries>().GetAsync(Coordinator, c.Id);
         Assert.Empty(after.Item("triage.timing").SignOffs);
-        Assert.Equal(before.Activity.Count, after.Activity.Count);
+        Assert.Equal(before.Timeline.Count, after.Timeline.Count);
         Assert.Equal(before.Item("triage.timing").Version, after.Item("triage.timing").Version);
     }
 

@@ -25,7 +25,7 @@ namespace EventReview.Data.Migrations.Postgres
 
             NpgsqlModelBuilderExtensions.UseIdentityByDefaultColumns(modelBuilder);
 
-            modelBuilder.Entity("EventReview.Core.Cases.ActivityEntry", b =>
+            modelBuilder.Entity("EventReview.Core.Cases.TimelineEntry", b =>
                 {
                     b.Property<long>("Id")
                         .ValueGeneratedOnAdd()
@@ -1299,7 +1299,7 @@ namespace EventReview.Data.Migrations.Postgres
                     b.ToTable("AspNetUserTokens", (string)null);
                 });
 
-            modelBuilder.Entity("EventReview.Core.Cases.ActivityEntry", b =>
+            modelBuilder.Entity("EventReview.Core.Cases.TimelineEntry", b =>
                 {
                     b.HasOne("EventReview.Core.Cases.ReviewCase", null)
                         .WithMany("Activity")

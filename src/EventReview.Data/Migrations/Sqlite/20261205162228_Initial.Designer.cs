@@ -20,7 +20,7 @@ namespace EventReview.Data.Migrations.Sqlite
 #pragma warning disable 612, 618
             modelBuilder.HasAnnotation("ProductVersion", "10.0.15");
 
-            modelBuilder.Entity("EventReview.Core.Cases.ActivityEntry", b =>
+            modelBuilder.Entity("EventReview.Core.Cases.TimelineEntry", b =>
                 {
                     b.Property<long>("Id")
                         .ValueGeneratedOnAdd()
@@ -1256,7 +1256,7 @@ namespace EventReview.Data.Migrations.Sqlite
                     b.ToTable("AspNetUserTokens", (string)null);
                 });
 
-            modelBuilder.Entity("EventReview.Core.Cases.ActivityEntry", b =>
+            modelBuilder.Entity("EventReview.Core.Cases.TimelineEntry", b =>
                 {
                     b.HasOne("EventReview.Core.Cases.ReviewCase", null)
                         .WithMany("Activity")

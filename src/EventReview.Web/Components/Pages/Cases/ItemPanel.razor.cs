@@ -72,7 +72,7 @@ public partial class ItemPanel
 
     private IReadOnlyList<ComputationRecord> Computations => Item.Computations.OrderByDescending(c => c.RunAt).ThenByDescending(c => c.Id).ToList();
 
-    private IEnumerable<ActivityEntry> History => Case.Activity.Where(a => a.ItemKey == Item.Key).OrderByDescending(a => a.Sequence);
+    private IEnumerable<TimelineEntry> ItemTimeline => Case.Timeline.Where(a => a.ItemKey == Item.Key).OrderByDescending(a => a.Sequence);
 
     /// <inheritdoc />
     protected override async Task OnInitializedAsync()

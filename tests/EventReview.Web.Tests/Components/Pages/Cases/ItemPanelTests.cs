@@ -106,8 +106,10 @@ public sealed class ItemPanelTests(EventReviewFactory app) : AppBackedContext(ap
 
         var panel = RenderPanel(c, Owner);
 
-        var entries = panel.FindAll("ul.history li").Select(li => li.TextContent).ToList();
-        Assert.Equal(c.Activity.Count(a => a.ItemKey == Key), entries.Count);
+        var entries = panel.FindAll("ul.item-timeline li").Select(li => li.TextContent).ToList();
+        Assert.Equal(c.Timeline.Count(a => a.ItemKey == Key), entries.Count);
         Assert.Contains("ready", entries[0], StringComparison.OrdinalIgnoreCase);
+        Assert.Contains("<h3>Timeline</h3>", panel.Markup, StringComparison.Ordinal); // one word for the record: API, dossier and panel
+        Assert.DoesNotContain("History", panel.Markup, StringComparison.Ordinal);
     }
 }
