@@ -11,8 +11,8 @@ using Microsoft.EntityFrameworkCore.Storage.ValueConversion;
 namespace EventReview.Data.Migrations.Sqlite
 {
     [DbContext(typeof(SqliteAppDbContext))]
-    [Migration("20261205180331_TimelineWord")]
-    partial class TimelineWord
+    [Migration("20261205181410_Initial")]
+    partial class Initial
     {
         /// <inheritdoc />
         protected override void BuildTargetModel(ModelBuilder modelBuilder)
