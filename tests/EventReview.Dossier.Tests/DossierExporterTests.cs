@@ -2,7 +2,6 @@ using System.Diagnostics;
 using System.IO.Compression;
 using System.Text;
 using EventReview.Core.Dossier;
-using EventReview.Core.Tests.Dossier;
 
 namespace EventReview.Dossier.Tests;
 
@@ -12,7 +11,7 @@ public class DossierExporterTests
     {
         var doc = DossierBuilder.Build(s.Case, s.Sites, s.Snapshots);
         using var ms = new MemoryStream();
-        await DossierExporter.ExportAsync(doc, sha => sha == s.AttachmentSha256 ? new MemoryStream(SampleCase.AttachmentBytes) : null, ms, Core.Tests.Records.TestSigner.Instance);
+        await DossierExporter.ExportAsync(doc, sha => sha == s.AttachmentSha256 ? new MemoryStream(SampleCase.AttachmentBytes) : null, ms, TestSigner.Instance);
         return ms.ToArray();
     }
 

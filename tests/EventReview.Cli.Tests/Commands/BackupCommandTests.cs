@@ -1,6 +1,5 @@
 using System.Text.Json;
 using EventReview.Cli.Commands;
-using EventReview.Core.Tests.Dossier;
 using EventReview.Data;
 using Microsoft.Data.Sqlite;
 

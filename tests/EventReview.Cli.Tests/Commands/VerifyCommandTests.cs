@@ -1,7 +1,6 @@
 using System.IO.Compression;
 using System.Text.Json;
 using EventReview.Cli.Commands;
-using EventReview.Core.Tests.Dossier;
 using EventReview.Data;
 using Microsoft.EntityFrameworkCore;
 
