@@ -50,7 +50,7 @@ public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext
 
     public DbSet<SignOff> SignOffs => Set<SignOff>();
 
-    public DbSet<ActivityEntry> Activity => Set<ActivityEntry>();
+    public DbSet<TimelineEntry> Timeline => Set<TimelineEntry>();
 
     public DbSet<DetectorNetwork> Networks => Set<DetectorNetwork>();
 
@@ -84,7 +84,7 @@ public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext
     /// <summary>Loads a whole case aggregate (arrivals, items with evidence, computations, sign-offs, timeline).</summary>
     public IQueryable<ReviewCase> CasesWithEverything() => Cases
         .Include(c => c.Arrivals)
-        .Include(c => c.Activity)
+        .Include(c => c.Timeline)
         .Include(c => c.Items).ThenInclude(i => i.Evidence)
         .Include(c => c.Items).ThenInclude(i => i.Computations)
         .Include(c => c.Items).ThenInclude(i => i.SignOffs)
@@ -107,7 +107,7 @@ public abstract class AppDbContext(DbContextOptions options) : IdentityDbContext
         await Items.Where(i => i.ReviewCaseId == caseId && i.Key == itemKey)
             .Include(i => i.Evidence).Include(i => i.Computations).Include(i => i.SignOffs)
             .AsSplitQuery().LoadAsync(ct);
-        await Activity.Where(a => a.ReviewCaseId == caseId).OrderByDescending(a => a.Sequence).Take(1).LoadAsync(ct);
+        await Timeline.Where(a => a.ReviewCaseId == caseId).OrderByDescending(a => a.Sequence).Take(1).LoadAsync(ct);
         return c;
     }
 

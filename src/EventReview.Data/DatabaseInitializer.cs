@@ -30,7 +30,7 @@ public static class DatabaseInitializer
             return;
         }
 
-        var end = await db.Activity.MaxAsync(a => (long?)a.Id, ct) ?? 0;
+        var end = await db.Timeline.MaxAsync(a => (long?)a.Id, ct) ?? 0;
         db.NotificationCursors.Add(Notifications.NotificationCursor.Start(Notifications.NotificationCursor.Timeline, end));
         try
         {

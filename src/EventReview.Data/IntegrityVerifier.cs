@@ -65,7 +65,7 @@ public sealed class IntegrityVerifier(IDbContextFactory<AppDbContext> dbFactory,
             {
                 database.Add(new IntegrityProblem("(witness)", null, null, "No key folder or witness is configured: signatures and truncation cannot be checked."));
             }
-            else if (witness is { Exists: false } && (await db.Activity.AnyAsync(ct) || await db.AccountEvents.AnyAsync(ct)))
+            else if (witness is { Exists: false } && (await db.Timeline.AnyAsync(ct) || await db.AccountEvents.AnyAsync(ct)))
             {
                 database.Add(new IntegrityProblem("(witness)", null, null, $"The witness file {witness.Path} does not exist: the newest entries of each case cannot be checked against it."));
             }
@@ -126,8 +126,8 @@ public sealed class IntegrityVerifier(IDbContextFactory<AppDbContext> dbFactory,
 
         if (witness?.Newest.TryGetValue(EntryMac.CaseChain(c.CandidateId), out var seen) == true)
         {
-            var entries = c.Activity.ToDictionary(a => (long)a.Sequence, a => a.Hash);
-            var last = c.Activity.Count == 0 ? 0 : c.Activity.Max(a => a.Sequence);
+            var entries = c.Timeline.ToDictionary(a => (long)a.Sequence, a => a.Hash);
+            var last = c.Timeline.Count == 0 ? 0 : c.Timeline.Max(a => a.Sequence);
             // The witness speaks about the timeline itself: its finding goes right after the chain's own, before the
             // field comparisons (which removed entries usually explain).
             var at = problems.TakeWhile(p => p.What.StartsWith("Timeline:", StringComparison.Ordinal)).Count();
@@ -143,7 +143,7 @@ public sealed class IntegrityVerifier(IDbContextFactory<AppDbContext> dbFactory,
             }
         }
 
-        return new CaseResult(c.Id, c.CandidateId, c.Activity.Count, c.Activity.MaxBy(a => a.Sequence)?.Hash, problems);
+        return new CaseResult(c.Id, c.CandidateId, c.Timeline.Count, c.Timeline.MaxBy(a => a.Sequence)?.Hash, problems);
     }
 
     private async Task<IReadOnlyList<IntegrityProblem>> AuditAsync(AppDbContext db, WitnessReading? witness, CancellationToken ct)

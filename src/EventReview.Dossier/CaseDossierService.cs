@@ -39,7 +39,7 @@ public sealed class CaseDossierService(IDbContextFactory<AppDbContext> dbFactory
 
         buffer.Position = 0;
         await buffer.CopyToAsync(output, ct);
-        var record = new DossierExportRecord(caseId, manifestSha, c.Activity.MaxBy(a => a.Sequence)?.Hash ?? ActivityEntry.GenesisHash, buffer.Length, by,
+        var record = new DossierExportRecord(caseId, manifestSha, c.Timeline.MaxBy(a => a.Sequence)?.Hash ?? TimelineEntry.GenesisHash, buffer.Length, by,
             EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()));
         db.DossierExports.Add(record);
         await db.SaveChangesAsync(ct);

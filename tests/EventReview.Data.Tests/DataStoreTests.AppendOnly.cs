@@ -31,8 +31,8 @@ public abstract partial class DataStoreTests
     }
 
     [Theory]
-    [InlineData("Activity", "UPDATE \"Activity\" SET \"Text\" = 'forged' WHERE \"ReviewCaseId\" = {0}", "updated")]
-    [InlineData("Activity", "DELETE FROM \"Activity\" WHERE \"ReviewCaseId\" = {0}", "deleted")]
+    [InlineData("Timeline", "UPDATE \"Timeline\" SET \"Text\" = 'forged' WHERE \"ReviewCaseId\" = {0}", "updated")]
+    [InlineData("Timeline", "DELETE FROM \"Timeline\" WHERE \"ReviewCaseId\" = {0}", "deleted")]
     [InlineData("Evidence", "UPDATE \"Evidence\" SET \"Text\" = 'forged' WHERE " + ItemsOfCase, "updated")]
     [InlineData("Evidence", "DELETE FROM \"Evidence\" WHERE " + ItemsOfCase, "deleted")]
     [InlineData("Computations", "UPDATE \"Computations\" SET \"Summary\" = 'forged' WHERE " + ItemsOfCase, "updated")]
@@ -46,10 +46,10 @@ public abstract partial class DataStoreTests
 
         Assert.Contains($"{table} rows are append-only: they cannot be {verb}", ex.Message, StringComparison.Ordinal);
         var loaded = await LoadAsync(id);
-        Assert.Equal(original.Activity.Select(a => (a.Sequence, a.Text)), loaded.Activity.OrderBy(a => a.Sequence).Select(a => (a.Sequence, a.Text)));
+        Assert.Equal(original.Timeline.Select(a => (a.Sequence, a.Text)), loaded.Timeline.OrderBy(a => a.Sequence).Select(a => (a.Sequence, a.Text)));
         Assert.Equal(original.Items.SelectMany(i => i.Evidence).Select(e => e.Text).Order(), loaded.Items.SelectMany(i => i.Evidence).Select(e => e.Text).Order());
         Assert.Equal(original.Items.SelectMany(i => i.Computations).Select(r => r.Summary), loaded.Items.SelectMany(i => i.Computations).Select(r => r.Summary));
-        Assert.Null(ActivityChain.FirstProblem(loaded.Activity));
+        Assert.Null(TimelineChain.FirstProblem(loaded.Timeline));
     }
 
     [Fact]
@@ -80,7 +80,7 @@ public abstract partial class DataStoreTests
         var signOff = loaded.Item("alpha.two").SignOffs.Single();
         Assert.True(signOff.IsStale);
         Assert.Equal(EventReview.Core.Time.RecordedTime.Normalize(at), signOff.StaleSince!.Value); // stale marks are kept to the millisecond
-        Assert.Null(ActivityChain.FirstProblem(loaded.Activity));
+        Assert.Null(TimelineChain.FirstProblem(loaded.Timeline));
     }
 
     [Fact]

@@ -54,13 +54,13 @@ public abstract partial class DataStoreTests
         var actual = await LoadAsync(id);
 
         // The aggregate's new entry, signed as a save would sign it: facts, hash, key and MAC must all be the same.
-        foreach (var entry in expected.Activity.Where(x => x.KeyId is null))
+        foreach (var entry in expected.Timeline.Where(x => x.KeyId is null))
         {
             Factory.Records!.Sign(entry);
         }
 
-        Assert.Equal(expected.Activity.Select(a => (a.Sequence, a.Kind, a.ItemKey, a.Text, a.At, a.PreviousHash, a.Hash, a.Facts, a.KeyId, a.Mac)),
-            actual.Activity.OrderBy(a => a.Sequence).Select(a => (a.Sequence, a.Kind, a.ItemKey, a.Text, a.At, a.PreviousHash, a.Hash, a.Facts, a.KeyId, a.Mac)));
+        Assert.Equal(expected.Timeline.Select(a => (a.Sequence, a.Kind, a.ItemKey, a.Text, a.At, a.PreviousHash, a.Hash, a.Facts, a.KeyId, a.Mac)),
+            actual.Timeline.OrderBy(a => a.Sequence).Select(a => (a.Sequence, a.Kind, a.ItemKey, a.Text, a.At, a.PreviousHash, a.Hash, a.Facts, a.KeyId, a.Mac)));
         Assert.Empty(CaseIntegrity.Verify(actual, _ => true, Factory.Records!.Keys));
         Assert.Equal((expected.State, expected.Version, expected.UpdatedAt), (actual.State, actual.Version, actual.UpdatedAt));
         var (e, a) = (expected.Item(key), actual.Item(key));
@@ -69,7 +69,7 @@ public abstract partial class DataStoreTests
         var row = Assert.Single(a.Evidence, x => x.Id == stored.EvidenceId);
         Assert.Equal(e.Evidence[^1].Seal(), row.Seal());
         Assert.Equal(role, row.Role);
-        Assert.Null(ActivityChain.FirstProblem(actual.Activity.OrderBy(x => x.Sequence)));
+        Assert.Null(TimelineChain.FirstProblem(actual.Timeline.OrderBy(x => x.Sequence)));
     }
 
     [Fact]
@@ -88,7 +88,7 @@ public abstract partial class DataStoreTests
         }
 
         var after = await LoadAsync(id);
-        Assert.Equal((before.Version, before.Activity.Count, before.Item("alpha.two").Evidence.Count), (after.Version, after.Activity.Count, after.Item("alpha.two").Evidence.Count));
+        Assert.Equal((before.Version, before.Timeline.Count, before.Item("alpha.two").Evidence.Count), (after.Version, after.Timeline.Count, after.Item("alpha.two").Evidence.Count));
     }
 
     [Fact]
@@ -116,7 +116,7 @@ public abstract partial class DataStoreTests
         }
 
         var loaded = await LoadAsync(id);
-        Assert.Equal(2, loaded.Activity.Count);
+        Assert.Equal(2, loaded.Timeline.Count);
         Assert.Single(loaded.Items.SelectMany(i => i.Evidence));
 
         // Close the case through the aggregate (every item signed), then try to append.
@@ -161,9 +161,9 @@ public abstract partial class DataStoreTests
         }
 
         var c = await LoadAsync(id);
-        Assert.Equal(1 + (Writers * Each), c.Activity.Count);
-        Assert.Equal(Enumerable.Range(1, 1 + (Writers * Each)), c.Activity.Select(a => a.Sequence).Order());
-        Assert.Null(ActivityChain.FirstProblem(c.Activity.OrderBy(a => a.Sequence)));
+        Assert.Equal(1 + (Writers * Each), c.Timeline.Count);
+        Assert.Equal(Enumerable.Range(1, 1 + (Writers * Each)), c.Timeline.Select(a => a.Sequence).Order());
+        Assert.Null(TimelineChain.FirstProblem(c.Timeline.OrderBy(a => a.Sequence)));
         Assert.Equal(Writers * Each, c.Items.Sum(i => i.Evidence.Count));
         Assert.Equal(1 + (Writers * Each), c.Version);
     }

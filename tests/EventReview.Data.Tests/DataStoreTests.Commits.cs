@@ -29,7 +29,7 @@ public abstract partial class DataStoreTests
 
         // A plain save outside the gate (the interceptor's path): the opening entry, sequence 1.
         var id = await SaveNewAsync(SampleCases.Open(candidate));
-        Assert.Contains(new WitnessedHead(chain, 1, (await LoadAsync(id)).Activity.Single().Hash), heard);
+        Assert.Contains(new WitnessedHead(chain, 1, (await LoadAsync(id)).Timeline.Single().Hash), heard);
 
         var gate = NewGate();
         try
@@ -59,9 +59,9 @@ public abstract partial class DataStoreTests
         }
 
         var stored = await LoadAsync(id);
-        Assert.Equal([1, 2, 3], stored.Activity.Select(a => a.Sequence).Order());
+        Assert.Equal([1, 2, 3], stored.Timeline.Select(a => a.Sequence).Order());
         var ofCase = heard.Where(h => h.Chain == chain).ToList();
         Assert.Equal([1, 2, 3], ofCase.Select(h => h.Sequence));
-        Assert.Equal(stored.Activity.OrderBy(a => a.Sequence).Select(a => a.Hash), ofCase.Select(h => h.Hash));
+        Assert.Equal(stored.Timeline.OrderBy(a => a.Sequence).Select(a => a.Hash), ofCase.Select(h => h.Hash));
     }
 }

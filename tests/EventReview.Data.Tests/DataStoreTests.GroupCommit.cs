@@ -27,7 +27,7 @@ public abstract partial class DataStoreTests
                 // Each writer waits for each answer before its next append, so its own notes must appear in its order.
                 for (var n = 0; n < Each; n++)
                 {
-                    // Normalised as the app does before an append (CaseService), so the case's last-change time is the entry's.
+                    // Normalised as the app does before an append (EvidenceAppender), so the case's last-change time is the entry's.
                     var at = EventReview.Core.Time.RecordedTime.Normalize(start.AddMilliseconds((w * Each) + n));
                     Assert.NotNull(await AppendAsync(gates[w % 2], ids[w % Cases], n % 2 == 0 ? "alpha.one" : "beta.one",
                         t => EvidenceItem.Note($"w{w:D2} n{n:D2}", SampleCases.ReviewerA, t), SampleCases.ReviewerA, at));
@@ -49,9 +49,9 @@ public abstract partial class DataStoreTests
 
             // Nothing lost: every acknowledged note is stored, once, and the timeline has one entry per append.
             Assert.Equal(writers.Count * Each, notes.Count);
-            Assert.Equal(1 + (writers.Count * Each), c.Activity.Count);
-            Assert.Equal(Enumerable.Range(1, 1 + (writers.Count * Each)), c.Activity.Select(a => a.Sequence).Order());
-            Assert.Null(ActivityChain.FirstProblem(c.Activity.OrderBy(a => a.Sequence)));
+            Assert.Equal(1 + (writers.Count * Each), c.Timeline.Count);
+            Assert.Equal(Enumerable.Range(1, 1 + (writers.Count * Each)), c.Timeline.Select(a => a.Sequence).Order());
+            Assert.Null(TimelineChain.FirstProblem(c.Timeline.OrderBy(a => a.Sequence)));
 
             // Nothing reordered: each writer's notes come in the order it was answered.
             foreach (var w in writers)

@@ -70,14 +70,14 @@ public abstract partial class DataStoreTests
         }
 
         var actual = await LoadAsync(id);
-        foreach (var entry in expected.Activity.Where(x => x.KeyId is null))
+        foreach (var entry in expected.Timeline.Where(x => x.KeyId is null))
         {
             Factory.Records!.Sign(entry);
         }
 
         // Same rows: every timeline entry (facts, hashes, key, MAC), case and item states, versions and fingerprints.
-        Assert.Equal(expected.Activity.Select(x => (x.Sequence, x.Kind, x.ItemKey, x.Text, x.At, x.PreviousHash, x.Hash, x.Facts, x.KeyId, x.Mac)),
-            actual.Activity.OrderBy(x => x.Sequence).Select(x => (x.Sequence, x.Kind, x.ItemKey, x.Text, x.At, x.PreviousHash, x.Hash, x.Facts, x.KeyId, x.Mac)));
+        Assert.Equal(expected.Timeline.Select(x => (x.Sequence, x.Kind, x.ItemKey, x.Text, x.At, x.PreviousHash, x.Hash, x.Facts, x.KeyId, x.Mac)),
+            actual.Timeline.OrderBy(x => x.Sequence).Select(x => (x.Sequence, x.Kind, x.ItemKey, x.Text, x.At, x.PreviousHash, x.Hash, x.Facts, x.KeyId, x.Mac)));
         Assert.Equal((expected.State, expected.Version, expected.UpdatedAt), (actual.State, actual.Version, actual.UpdatedAt));
         Assert.Equal(expected.Items.Select(i => (i.Key, i.State, i.Version, i.OwnerId, i.Fingerprint())), actual.Items.Select(i => (i.Key, i.State, i.Version, i.OwnerId, i.Fingerprint())));
         Assert.Equal(expected.Items.SelectMany(i => i.Evidence).Select(e => e.Seal()).Order(), actual.Items.SelectMany(i => i.Evidence).Select(e => e.Seal()).Order());
@@ -131,11 +131,11 @@ public abstract partial class DataStoreTests
             // Nothing lost: every answered append is stored once, with one timeline entry each, in one unbroken chain.
             var evidence = c.Items.SelectMany(i => i.Evidence).ToList();
             Assert.Equal(mine.Select(x => x.Text).Order(), evidence.Select(e => e.Text).Order());
-            Assert.Equal(Enumerable.Range(1, 1 + mine.Count), c.Activity.Select(x => x.Sequence).Order());
-            Assert.Null(ActivityChain.FirstProblem(c.Activity.OrderBy(x => x.Sequence)));
+            Assert.Equal(Enumerable.Range(1, 1 + mine.Count), c.Timeline.Select(x => x.Sequence).Order());
+            Assert.Null(TimelineChain.FirstProblem(c.Timeline.OrderBy(x => x.Sequence)));
 
             // Nothing reordered: an append answered before another was handed over comes first in the timeline.
-            var sequenceOf = evidence.ToDictionary(e => e.Text, e => c.Activity.Single(x => x.Text.Contains(e.ContentSha256, StringComparison.Ordinal)).Sequence);
+            var sequenceOf = evidence.ToDictionary(e => e.Text, e => c.Timeline.Single(x => x.Text.Contains(e.ContentSha256, StringComparison.Ordinal)).Sequence);
             foreach (var first in mine)
             {
                 foreach (var later in mine.Where(x => x.Sent > first.Answered))

@@ -101,8 +101,8 @@ public abstract partial class DataStoreTests : IAsyncLifetime
             Assert.Equal(before.Computations.Select(r => r.ContentSha256), after.Computations.Select(r => r.ContentSha256));
         }
 
-        Assert.Equal(original.Activity.Select(a => (a.Sequence, a.Kind, a.ItemKey, a.Hash, a.PreviousHash)),
-            loaded.Activity.OrderBy(a => a.Sequence).Select(a => (a.Sequence, a.Kind, a.ItemKey, a.Hash, a.PreviousHash)));
+        Assert.Equal(original.Timeline.Select(a => (a.Sequence, a.Kind, a.ItemKey, a.Hash, a.PreviousHash)),
+            loaded.Timeline.OrderBy(a => a.Sequence).Select(a => (a.Sequence, a.Kind, a.ItemKey, a.Hash, a.PreviousHash)));
     }
 
     [Fact]
@@ -113,7 +113,7 @@ public abstract partial class DataStoreTests : IAsyncLifetime
 
         var loaded = await LoadAsync(id);
 
-        Assert.Null(ActivityChain.FirstProblem(loaded.Activity));
+        Assert.Null(TimelineChain.FirstProblem(loaded.Timeline));
         var signed = loaded.Item("alpha.one");
         Assert.Equal(ItemState.SignedOff, signed.State);
         Assert.Equal(signed.Fingerprint(), signed.CurrentSignOffs.Single().EvidenceFingerprint);
@@ -135,7 +135,7 @@ public abstract partial class DataStoreTests : IAsyncLifetime
         var loaded = await LoadAsync(id);
         Assert.Equal(ItemState.SignedOff, loaded.Item("alpha.two").State);
         Assert.Equal(2, loaded.Item("alpha.two").CurrentSignOffs.Count());
-        Assert.Null(ActivityChain.FirstProblem(loaded.Activity));
+        Assert.Null(TimelineChain.FirstProblem(loaded.Timeline));
     }
 
     [Fact]
@@ -161,7 +161,7 @@ public abstract partial class DataStoreTests : IAsyncLifetime
         var loaded = await LoadAsync(id);
 
         Assert.Equal((CaseState.Closed, (CaseOutcome?)CaseOutcome.Inconclusive, "Not enough to decide."), (loaded.State, loaded.Outcome, loaded.ClosingStatement));
-        Assert.Null(ActivityChain.FirstProblem(loaded.Activity));
+        Assert.Null(TimelineChain.FirstProblem(loaded.Timeline));
     }
 
     [Fact]
@@ -182,7 +182,7 @@ public abstract partial class DataStoreTests : IAsyncLifetime
 
         var loaded = await LoadAsync(id);
         Assert.Null(loaded.Item("alpha.one").DueDate);
-        Assert.Single(loaded.Activity);
+        Assert.Single(loaded.Timeline);
         Assert.Equal(2, loaded.Version);
     }
 
@@ -206,8 +206,8 @@ public abstract partial class DataStoreTests : IAsyncLifetime
 
         var loaded = await LoadAsync(id);
         Assert.Equal(SampleCases.ReviewerA.UserId, loaded.Item("alpha.one").OwnerId);
-        Assert.Equal(2, loaded.Activity.Count);
-        Assert.Null(ActivityChain.FirstProblem(loaded.Activity));
+        Assert.Equal(2, loaded.Timeline.Count);
+        Assert.Null(TimelineChain.FirstProblem(loaded.Timeline));
     }
 
     [Fact]
@@ -230,7 +230,7 @@ public abstract partial class DataStoreTests : IAsyncLifetime
         var loaded = await LoadAsync(id);
         Assert.Single(loaded.Item("alpha.one").Evidence);
         Assert.Empty(loaded.Item("beta.one").Evidence);
-        Assert.Null(ActivityChain.FirstProblem(loaded.Activity));
+        Assert.Null(TimelineChain.FirstProblem(loaded.Timeline));
     }
 
     [Fact]

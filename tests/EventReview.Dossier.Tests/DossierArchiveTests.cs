@@ -1,6 +1,5 @@
 using System.IO.Compression;
 using System.Text;
-using EventReview.Core.Tests.Dossier;
 
 namespace EventReview.Dossier.Tests;
 

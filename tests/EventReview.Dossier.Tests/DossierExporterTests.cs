@@ -2,7 +2,6 @@ using System.Diagnostics;
 using System.IO.Compression;
 using System.Text;
 using EventReview.Core.Dossier;
-using EventReview.Core.Tests.Dossier;
 
 namespace EventReview.Dossier.Tests;
 
@@ -12,7 +11,7 @@ public class DossierExporterTests
     {
         var doc = DossierBuilder.Build(s.Case, s.Sites, s.Snapshots);
         using var ms = new MemoryStream();
-        await DossierExporter.ExportAsync(doc, sha => sha == s.AttachmentSha256 ? new MemoryStream(SampleCase.AttachmentBytes) : null, ms, Core.Tests.Records.TestSigner.Instance);
+        await DossierExporter.ExportAsync(doc, sha => sha == s.AttachmentSha256 ? new MemoryStream(SampleCase.AttachmentBytes) : null, ms, TestSigner.Instance);
         return ms.ToArray();
     }
 
@@ -66,7 +65,7 @@ public class DossierExporterTests
         var manifest = DossierJson.Deserialize<DossierManifest>(files["manifest.json"]);
 
         Assert.Equal(files.Keys.Where(k => k != "manifest.json").Order(StringComparer.Ordinal), manifest.Files.Select(f => f.Path));
-        Assert.Equal(s.Case.Activity[^1].Hash, manifest.ChainHead);
+        Assert.Equal(s.Case.Timeline[^1].Hash, manifest.ChainHead);
         Assert.Equal(SampleCase.AttachmentBytes, files[s.AttachmentPath]);
     }
 

@@ -2,7 +2,6 @@ using System.Diagnostics;
 using System.Text;
 using EventReview.Core.Dossier;
 using EventReview.Core.Plots;
-using EventReview.Core.Tests.Dossier;
 using EventReview.Dossier.Plots;
 using PdfSharp.Pdf;
 

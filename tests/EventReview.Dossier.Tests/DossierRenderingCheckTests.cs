@@ -1,8 +1,6 @@
 using System.IO.Compression;
 using System.Text;
 using EventReview.Core.Dossier;
-using EventReview.Core.Tests.Dossier;
-using EventReview.Core.Tests.Records;
 
 namespace EventReview.Dossier.Tests;
 

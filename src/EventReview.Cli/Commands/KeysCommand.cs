@@ -62,7 +62,7 @@ public static class KeysCommand
                 return CliOutput.Fail($"there is no record key in {ring.Folder} to rotate (the app makes the first one on its first start).");
             }
 
-            var fingerprint = ring.Rotate(DateTimeOffset.UtcNow);
+            var fingerprint = ring.Rotate(TimeProvider.System.GetUtcNow());
             Console.WriteLine($"new record key {fingerprint}; restart the app so that it signs with it. Keep a copy of {ring.Folder} elsewhere.");
             return CliOutput.Success;
         }));

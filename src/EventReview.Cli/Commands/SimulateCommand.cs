@@ -166,7 +166,7 @@ public static class SimulateCommand
             string.Create(CultureInfo.InvariantCulture, $"inclination {inclinationDeg:G} deg, phase 0 at coalescence; unless edge-on (90 deg), sites with different F+/Fx ratios see waveforms that differ by a phase (phaseOffsetRad), not just a sign, which moves the best-overlap lag by up to a quarter cycle"),
         ]).ToList();
         var truth = new Truth(net.Name, seed, tc.ToString(), raDeg, decDeg, psi * 180 / Math.PI, inclinationDeg, gmst, sim.Truth.ChirpMassMsun, sim.Truth.NetworkSnr,
-            rate, duration, sites, assumptions, LeapSecondWarnings.For(LeapSecondTable.Bundled, utc.DateTimeUtc, DateTime.UtcNow));
+            rate, duration, sites, assumptions, LeapSecondWarnings.For(LeapSecondTable.Bundled, utc.DateTimeUtc, TimeProvider.System.GetUtcNow().UtcDateTime));
         File.WriteAllText(Path.Combine(outDir, "truth.json"), JsonSerializer.Serialize(truth, CliOutput.Json));
         return truth;
     }

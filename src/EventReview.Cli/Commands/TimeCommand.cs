@@ -60,9 +60,9 @@ public static class TimeCommand
         }
 
         var offset = table.EntryAtUtc(utc.DateTimeUtc).GpsMinusUtcSeconds;
-        var stale = table.IsStale(DateTime.UtcNow);
+        var stale = table.IsStale(TimeProvider.System.GetUtcNow().UtcDateTime);
         var beyond = !table.Covers(utc.DateTimeUtc);
-        var warnings = LeapSecondWarnings.For(table, utc.DateTimeUtc, DateTime.UtcNow);
+        var warnings = LeapSecondWarnings.For(table, utc.DateTimeUtc, TimeProvider.System.GetUtcNow().UtcDateTime);
         if (json)
         {
             CliOutput.WriteJson(new

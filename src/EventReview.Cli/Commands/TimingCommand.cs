@@ -97,7 +97,7 @@ public static class TimingCommand
         }
 
         var t = result.Timing;
-        var warnings = t.Warnings.Concat(LeapSecondWarnings.For(LeapSecondTable.Bundled, null, DateTime.UtcNow)).ToList();
+        var warnings = t.Warnings.Concat(LeapSecondWarnings.For(LeapSecondTable.Bundled, null, TimeProvider.System.GetUtcNow().UtcDateTime)).ToList();
         if (json)
         {
             CliOutput.WriteJson(new

@@ -25,7 +25,7 @@ public static class CaseIntegrity
         ArgumentNullException.ThrowIfNull(c);
         ArgumentNullException.ThrowIfNull(keys);
         var problems = new List<IntegrityProblem>();
-        var (entry, chain) = ActivityChain.Check(c.Activity);
+        var (entry, chain) = TimelineChain.Check(c.Timeline);
         if (chain is not null)
         {
             problems.Add(new IntegrityProblem(c.CandidateId, entry, null, "Timeline: " + chain));
@@ -36,7 +36,7 @@ public static class CaseIntegrity
             problems.Add(signature);
         }
 
-        var recorded = CaseReplay.Replay(c.Activity.Select(a => new CaseReplay.Entry(a.Sequence, a.Kind, a.ActorName, a.At.UtcTicks, a.Facts)));
+        var recorded = CaseReplay.Replay(c.Timeline.Select(a => new CaseReplay.Entry(a.Sequence, a.Kind, a.ActorName, a.At.UtcTicks, a.Facts)));
         if (recorded.WithoutFacts.Count > 0)
         {
             problems.Add(new IntegrityProblem(c.CandidateId, recorded.WithoutFacts[0], null,
@@ -78,7 +78,7 @@ public static class CaseIntegrity
     {
         IntegrityProblem? first = null;
         var more = 0;
-        foreach (var a in c.Activity.OrderBy(a => a.Sequence))
+        foreach (var a in c.Timeline.OrderBy(a => a.Sequence))
         {
             var ok = a.MacMatches(keys);
             if (ok == true)

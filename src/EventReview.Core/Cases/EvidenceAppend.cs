@@ -18,12 +18,12 @@ public static class EvidenceAppend
     /// <param name="ItemKey">The item's key.</param>
     /// <param name="ItemState">The item's state.</param>
     /// <param name="LastSequence">Sequence of the newest timeline entry (0 when the timeline is empty).</param>
-    /// <param name="LastHash">Hash of the newest timeline entry (<see cref="ActivityEntry.GenesisHash"/> when empty).</param>
+    /// <param name="LastHash">Hash of the newest timeline entry (<see cref="TimelineEntry.GenesisHash"/> when empty).</param>
     /// <param name="CurrentSignOffs">Sign-offs of the item that are not stale.</param>
     public sealed record Head(string CandidateId, CaseState CaseState, string ItemKey, ItemState ItemState, int LastSequence, string LastHash, int CurrentSignOffs);
 
     /// <summary>What an append stores besides the evidence row: one timeline entry and the new states.</summary>
-    public sealed record Outcome(ActivityEntry Entry, ItemState ItemState, CaseState CaseState);
+    public sealed record Outcome(TimelineEntry Entry, ItemState ItemState, CaseState CaseState);
 
     /// <summary>True when <see cref="Plan"/> covers an append to this item (no current sign-off to make stale).</summary>
     public static bool Covers(Head head) => head.CurrentSignOffs == 0;
@@ -45,7 +45,7 @@ public static class EvidenceAppend
 
         var itemState = ChecklistItem.StateAfterEvidence(head.ItemState, madeStale: false);
         var caseState = ReviewCase.StateWhenWorkBegins(head.CaseState);
-        var entry = new ActivityEntry(head.CandidateId, head.LastSequence + 1, now, by, EntryKind(evidence), head.ItemKey, EntryText(head.ItemKey, evidence), head.LastHash,
+        var entry = new TimelineEntry(head.CandidateId, head.LastSequence + 1, now, by, EntryKind(evidence), head.ItemKey, EntryText(head.ItemKey, evidence), head.LastHash,
             EntryFacts(head.ItemKey, evidence, itemState, caseState));
         return new Outcome(entry, itemState, caseState);
     }

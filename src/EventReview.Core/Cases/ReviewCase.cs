@@ -18,7 +18,7 @@ public sealed partial class ReviewCase
 {
     private readonly List<CaseArrival> _arrivals = [];
     private readonly List<ChecklistItem> _items = [];
-    private readonly List<ActivityEntry> _activity = [];
+    private readonly List<TimelineEntry> _timeline = [];
 
     private ReviewCase()
     {
@@ -84,8 +84,8 @@ public sealed partial class ReviewCase
     /// <summary>The checklist items, made from the template's sections and items in their order.</summary>
     public IReadOnlyList<ChecklistItem> Items => _items;
 
-    /// <summary>The case's timeline: entries numbered by <see cref="ActivityEntry.Sequence"/> and chained by their hashes.</summary>
-    public IReadOnlyList<ActivityEntry> Activity => _activity;
+    /// <summary>The case's timeline: entries numbered by <see cref="TimelineEntry.Sequence"/> and chained by their hashes.</summary>
+    public IReadOnlyList<TimelineEntry> Timeline => _timeline;
 
     /// <summary>Network SNR: root sum of squares of the per-site SNRs.</summary>
     public double NetworkSnr => Math.Sqrt(_arrivals.Sum(a => a.Snr * a.Snr));
@@ -307,9 +307,9 @@ public sealed partial class ReviewCase
 
     private void Record(Actor by, DateTimeOffset now, string kind, string? itemKey, string text, IEnumerable<Fact> facts)
     {
-        var last = _activity.Count == 0 ? null : _activity.MaxBy(a => a.Sequence);
-        _activity.Add(new ActivityEntry(CandidateId, (last?.Sequence ?? 0) + 1, now, by, kind, itemKey, text, last?.Hash ?? ActivityEntry.GenesisHash, facts));
-        UpdatedAt = _activity[^1].At;
+        var last = _timeline.Count == 0 ? null : _timeline.MaxBy(a => a.Sequence);
+        _timeline.Add(new TimelineEntry(CandidateId, (last?.Sequence ?? 0) + 1, now, by, kind, itemKey, text, last?.Hash ?? TimelineEntry.GenesisHash, facts));
+        UpdatedAt = _timeline[^1].At;
         Version++;
     }
 }

@@ -39,8 +39,8 @@ public static class DossierBuilder
         var items = c.Items.OrderBy(i => i.SectionOrder).ThenBy(i => i.Order).ThenBy(i => i.Key, StringComparer.Ordinal)
             .Select(i => Item(i, pictures)).ToList();
         var used = c.Arrivals.Select(a => a.SiteCode).Concat(snapshots.Select(s => s.SiteCode)).ToHashSet(StringComparer.Ordinal);
-        var timeline = c.Activity.OrderBy(a => a.Sequence).Select(a => new DossierTimelineEntry(
-            a.Sequence, ActivityEntry.FormatUtc(a.At), a.At.UtcTicks, a.ActorId, a.ActorName, a.Kind, a.ItemKey, a.Text, a.PreviousHash, a.Hash,
+        var timeline = c.Timeline.OrderBy(a => a.Sequence).Select(a => new DossierTimelineEntry(
+            a.Sequence, TimelineEntry.FormatUtc(a.At), a.At.UtcTicks, a.ActorId, a.ActorName, a.Kind, a.ItemKey, a.Text, a.PreviousHash, a.Hash,
             a.Facts, a.KeyId, a.Mac)).ToList();
         return new DossierDocument(
             DossierDocument.CurrentSchemaVersion,
@@ -54,7 +54,7 @@ public static class DossierBuilder
             items,
             Configurations(snapshots, c.Id),
             timeline,
-            timeline.Count == 0 ? ActivityEntry.GenesisHash : timeline[^1].Hash)
+            timeline.Count == 0 ? TimelineEntry.GenesisHash : timeline[^1].Hash)
         {
             PictureSvgs = pictures,
         };
@@ -128,5 +128,5 @@ public static class DossierBuilder
     }
 
     /// <summary>ISO 8601 UTC with 7 fractional digits and 'Z' (the form every dossier time uses).</summary>
-    public static string Utc(DateTimeOffset at) => ActivityEntry.FormatUtc(at);
+    public static string Utc(DateTimeOffset at) => TimelineEntry.FormatUtc(at);
 }

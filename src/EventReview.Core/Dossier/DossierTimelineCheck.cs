@@ -12,7 +12,7 @@ internal static class DossierTimelineCheck
     public static void Check(DossierDocument doc, DossierManifest? manifest, List<DossierProblem> problems)
     {
         const string d = DossierManifest.DossierFileName;
-        var prev = ActivityEntry.GenesisHash;
+        var prev = TimelineEntry.GenesisHash;
         var expected = 1;
         var intact = true;
         foreach (var e in doc.Timeline)
@@ -28,13 +28,13 @@ internal static class DossierTimelineCheck
                 what = $"does not link to the entry before it: previous hash {Short(e.PreviousHash)} should be {Short(prev)}.";
             }
             else if (e.AtUtcTicks is < 0 || e.AtUtcTicks > DateTime.MaxValue.Ticks ||
-                     !string.Equals(e.AtUtc, ActivityEntry.FormatUtc(new DateTimeOffset(e.AtUtcTicks, TimeSpan.Zero)), StringComparison.Ordinal))
+                     !string.Equals(e.AtUtc, TimelineEntry.FormatUtc(new DateTimeOffset(e.AtUtcTicks, TimeSpan.Zero)), StringComparison.Ordinal))
             {
                 what = "its time text and ticks disagree.";
             }
             else
             {
-                var hash = ActivityEntry.ComputeHash(doc.Case.CandidateId, e.Sequence, new DateTimeOffset(e.AtUtcTicks, TimeSpan.Zero),
+                var hash = TimelineEntry.ComputeHash(doc.Case.CandidateId, e.Sequence, new DateTimeOffset(e.AtUtcTicks, TimeSpan.Zero),
                     e.ActorId, e.ActorName, e.Kind, e.ItemKey, e.Text, e.Facts, e.PreviousHash);
                 if (!string.Equals(hash, e.Hash, StringComparison.Ordinal))
                 {

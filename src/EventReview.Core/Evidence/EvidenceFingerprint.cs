@@ -4,7 +4,7 @@ namespace EventReview.Core.Evidence;
 
 /// <summary>
 /// The fingerprint of an item's evidence: SHA-256 over a canonical text listing every note, attachment, link and
-/// computation record in the order they were added (by id, then time), one line each:
+/// computation record in the order they were added (by time, then id: the one canonical order, <see cref="Lines(IEnumerable{EvidenceItem})"/>), one line each:
 /// <c>kind|content-sha256|added-utc-ticks</c>, preceded by the line <c>eventreview-evidence-v1</c>.
 /// Evidence lines come first (ordered by time added), then computation lines <c>computation|content-sha256|run-utc-ticks</c>
 /// (ordered by run time), then, when given, <c>configuration|frozen-configuration-fingerprint</c>; every line ends in '\n'.

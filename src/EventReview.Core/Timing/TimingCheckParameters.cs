@@ -18,6 +18,12 @@ public sealed record TimingCheckParameters(double KSigma = 3.0, string? PairA = 
     /// <summary>True when a pair, a sign and a ratio are all given, so the antenna-response test runs.</summary>
     public bool HasObservation => PairA is not null && PairB is not null && ObservedSign is not null && ObservedAmplitudeRatio is not null;
 
+    /// <summary>
+    /// True when some but not all of the pair, sign and ratio are given: the antenna-response test can then neither run nor be
+    /// left out silently, so forms and the command line refuse it.
+    /// </summary>
+    public bool HasPartialObservation => !HasObservation && (PairA ?? PairB ?? (object?)ObservedSign ?? ObservedAmplitudeRatio) is not null;
+
     /// <exception cref="ArgumentException">When a value is out of range (message names it).</exception>
     public void Validate()
     {

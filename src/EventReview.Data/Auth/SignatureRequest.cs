@@ -80,7 +80,15 @@ public sealed class SignatureRequest
     /// <see cref="ClockSkew"/>), not older than <paramref name="maxAge"/> now, not in the future. Otherwise the reason.
     /// A provider that ignored <c>prompt=login</c>/<c>max_age=0</c> and reused an earlier session answers with an old time.
     /// </summary>
-    public string? ReauthenticationProblem(DateTimeOffset? authTime, DateTimeOffset now, TimeSpan maxAge)
+    public string? ReauthenticationProblem(DateTimeOffset? authTime, DateTimeOffset now, TimeSpan maxAge) =>
+        FreshnessProblem(authTime, CreatedAt, now, maxAge);
+
+    /// <summary>
+    /// The rule of <see cref="ReauthenticationProblem"/> for a request made at <paramref name="requestedAt"/>: null when
+    /// <paramref name="authTime"/> is after the request (less <see cref="ClockSkew"/>), not older than
+    /// <paramref name="maxAge"/> at <paramref name="now"/> and not in the future; otherwise the reason.
+    /// </summary>
+    public static string? FreshnessProblem(DateTimeOffset? authTime, DateTimeOffset requestedAt, DateTimeOffset now, TimeSpan maxAge)
     {
         if (authTime is not { } t)
         {
@@ -92,9 +100,9 @@ public sealed class SignatureRequest
             return $"The identity provider reported a sign-in at {t.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC, in the future by this server's clock. Nothing was signed; the server's administrators should check the clocks.";
         }
 
-        if (t < CreatedAt - ClockSkew || now - t > maxAge)
+        if (t < requestedAt - ClockSkew || now - t > maxAge)
         {
-            return $"The identity provider did not ask for your credentials again: it reported your sign-in at {t.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC, before you asked to sign at {CreatedAt.UtcDateTime:HH:mm:ss} UTC. A signature needs a fresh sign-in, so nothing was signed.";
+            return $"The identity provider did not ask for your credentials again: it reported your sign-in at {t.UtcDateTime:yyyy-MM-dd HH:mm:ss} UTC, before you asked to sign at {requestedAt.UtcDateTime:HH:mm:ss} UTC. A signature needs a fresh sign-in, so nothing was signed.";
         }
 
         return null;

@@ -73,7 +73,7 @@ public static class BackupRestorer
             {
                 CarryOver(records.KeyDirectory, folder, staging);
                 CarryOver(records.WitnessDirectory, folder, staging);
-                movedAside = Swap(staging, folder, nonEmpty);
+                movedAside = Swap(staging, folder, nonEmpty, options.Clock);
             }
 
             var attachments = manifest.Entries.Count(e => e.Path.StartsWith(BackupFormat.AttachmentPrefix, StringComparison.Ordinal));
@@ -168,7 +168,7 @@ public static class BackupRestorer
     }
 
     /// <summary>Moves the verified staging folder to the target; a non-empty target is moved aside first (and back on failure).</summary>
-    private static string? Swap(string staging, string folder, bool nonEmpty)
+    private static string? Swap(string staging, string folder, bool nonEmpty, TimeProvider clock)
     {
         if (!Directory.Exists(folder))
         {
@@ -183,7 +183,7 @@ public static class BackupRestorer
             return null;
         }
 
-        var aside = $"{folder}.before-restore-{DateTime.UtcNow.ToString("yyyyMMdd'T'HHmmss'Z'", CultureInfo.InvariantCulture)}";
+        var aside = $"{folder}.before-restore-{clock.GetUtcNow().UtcDateTime.ToString("yyyyMMdd'T'HHmmss'Z'", CultureInfo.InvariantCulture)}";
         aside = Directory.Exists(aside) ? $"{aside}-{Guid.NewGuid().ToString("N")[..8]}" : aside;
         Directory.Move(folder, aside);
         try

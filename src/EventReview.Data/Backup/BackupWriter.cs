@@ -45,7 +45,7 @@ public static class BackupWriter
         {
             Directory.CreateDirectory(work);
             // The backup's time is taken before the snapshot: every entry witnessed before it is in the snapshot.
-            var created = DateTimeOffset.UtcNow;
+            var created = options.Clock.GetUtcNow();
             string? snapshot = null;
             var factsFrom = settings;
             if (settings.Provider == DatabaseProvider.Sqlite)

@@ -9,4 +9,8 @@ namespace EventReview.Data.Backup;
 /// verified against (null: <c>keys/</c> and <c>witness/</c> in the target folder); backups never hold the private key.
 /// </summary>
 public sealed record RestoreOptions(bool Force = false, bool AllowInvalid = false, long MaxTotalBytes = 256L * 1024 * 1024 * 1024, int MaxEntries = 5_000_000,
-    Records.RecordSettings? Records = null);
+    Records.RecordSettings? Records = null)
+{
+    /// <summary>The clock that names a folder moved aside (tests give their own).</summary>
+    public TimeProvider Clock { get; init; } = TimeProvider.System;
+}

@@ -10,7 +10,7 @@ internal sealed record SnapshotFacts(int Cases, int TimelineEntries, int Evidenc
     {
         await using var db = factory.CreateDbContext();
         var cases = await db.Cases.CountAsync(ct);
-        var entries = await db.Activity.CountAsync(ct);
+        var entries = await db.Timeline.CountAsync(ct);
         var evidence = await db.Evidence.CountAsync(ct);
         var referenced = await db.Evidence.Where(e => e.Kind == EvidenceKind.Attachment).Select(e => e.ContentSha256).Distinct().ToListAsync(ct);
         return new SnapshotFacts(cases, entries, evidence, referenced.ToHashSet(StringComparer.Ordinal));

@@ -28,9 +28,9 @@ public sealed class ReviewCaseConfiguration : IEntityTypeConfiguration<ReviewCas
         b.Ignore(c => c.StaleItemCount);
         b.HasMany(c => c.Arrivals).WithOne().HasForeignKey("ReviewCaseId").OnDelete(DeleteBehavior.Cascade);
         b.HasMany(c => c.Items).WithOne().HasForeignKey(i => i.ReviewCaseId).OnDelete(DeleteBehavior.Restrict);
-        b.HasMany(c => c.Activity).WithOne().HasForeignKey(a => a.ReviewCaseId).OnDelete(DeleteBehavior.Restrict);
+        b.HasMany(c => c.Timeline).WithOne().HasForeignKey(a => a.ReviewCaseId).OnDelete(DeleteBehavior.Restrict);
         b.Navigation(c => c.Arrivals).UsePropertyAccessMode(PropertyAccessMode.Field);
         b.Navigation(c => c.Items).UsePropertyAccessMode(PropertyAccessMode.Field);
-        b.Navigation(c => c.Activity).UsePropertyAccessMode(PropertyAccessMode.Field);
+        b.Navigation(c => c.Timeline).UsePropertyAccessMode(PropertyAccessMode.Field);
     }
 }

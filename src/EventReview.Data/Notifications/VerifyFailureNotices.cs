@@ -23,7 +23,7 @@ public static class VerifyFailureNotices
             return;
         }
 
-        var now = services.GetService<TimeProvider>()?.GetUtcNow() ?? DateTimeOffset.UtcNow;
+        var now = (services.GetService<TimeProvider>() ?? TimeProvider.System).GetUtcNow();
         await services.GetRequiredService<IWriteGate>().RunAsync(async (db, token) =>
         {
             await AddAsync(db, source, problems, now, token);

@@ -34,7 +34,7 @@ public sealed class HeadWitness : IDisposable
         Folder = settings.WitnessDirectory;
         _keys = keys;
         _clock = clock ?? TimeProvider.System;
-        _sender = settings.WitnessUrl is { } url ? new WitnessSender(new Uri(url)) : null;
+        _sender = settings.WitnessUrl is { } url ? new WitnessSender(new Uri(url), clock) : null;
         _loop = Task.Run(LoopAsync);
     }
 

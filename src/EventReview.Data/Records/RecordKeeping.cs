@@ -76,7 +76,7 @@ public sealed class RecordKeeping(RecordSettings settings, IRecordKeyRing keys, 
     }
 
     /// <summary>Signs a new timeline entry (when a signing key is present) and returns its head for the witness.</summary>
-    public WitnessedHead Sign(ActivityEntry entry)
+    public WitnessedHead Sign(TimelineEntry entry)
     {
         if (entry.KeyId is null && Keys.Current is { } signer)
         {

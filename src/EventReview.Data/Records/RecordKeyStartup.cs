@@ -19,7 +19,7 @@ public static class RecordKeyStartup
         }
 
         await using var db = factory.CreateDbContext();
-        var signed = await db.Activity.AnyAsync(a => a.KeyId != null, ct) || await db.AccountEvents.AnyAsync(e => e.KeyId != null, ct);
+        var signed = await db.Timeline.AnyAsync(a => a.KeyId != null, ct) || await db.AccountEvents.AnyAsync(e => e.KeyId != null, ct);
         ring.EnsureSigningKey(Core.Time.RecordedTime.Normalize(clock.GetUtcNow()), signed);
     }
 }

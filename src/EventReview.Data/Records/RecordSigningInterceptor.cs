@@ -60,16 +60,16 @@ public sealed class RecordSigningInterceptor(RecordKeeping records) : SaveChange
         db.ChangeTracker.AutoDetectChangesEnabled = false;
         try
         {
-            var signed = new HashSet<ActivityEntry>(ReferenceEqualityComparer.Instance);
+            var signed = new HashSet<TimelineEntry>(ReferenceEqualityComparer.Instance);
             foreach (var c in db.ChangeTracker.Entries<ReviewCase>())
             {
-                foreach (var a in c.Entity.Activity.Where(a => a.Id == 0 && signed.Add(a)))
+                foreach (var a in c.Entity.Timeline.Where(a => a.Id == 0 && signed.Add(a)))
                 {
                     db.SavingHeads.Add(records.Sign(a));
                 }
             }
 
-            foreach (var e in db.ChangeTracker.Entries<ActivityEntry>().Where(e => e.State == EntityState.Added && signed.Add(e.Entity)))
+            foreach (var e in db.ChangeTracker.Entries<TimelineEntry>().Where(e => e.State == EntityState.Added && signed.Add(e.Entity)))
             {
                 db.SavingHeads.Add(records.Sign(e.Entity));
             }

@@ -20,9 +20,12 @@ public sealed class WitnessSender : IDisposable
     private readonly Task _loop;
     private long _dropped;
 
-    public WitnessSender(Uri endpoint)
+    private readonly TimeProvider _clock;
+
+    public WitnessSender(Uri endpoint, TimeProvider? clock = null)
     {
         Endpoint = endpoint;
+        _clock = clock ?? TimeProvider.System;
         _loop = Task.Run(LoopAsync);
     }
 
@@ -65,7 +68,7 @@ public sealed class WitnessSender : IDisposable
                     content.Headers.ContentType = new MediaTypeHeaderValue("application/x-ndjson");
                     using var answer = await _http.PostAsync(Endpoint, content, _stop.Token);
                     answer.EnsureSuccessStatusCode();
-                    LastSent = DateTimeOffset.UtcNow;
+                    LastSent = _clock.GetUtcNow();
                     LastError = null;
                     batch.Clear();
                     pause = TimeSpan.FromSeconds(1);

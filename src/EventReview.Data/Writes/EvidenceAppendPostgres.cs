@@ -7,7 +7,7 @@ namespace EventReview.Data.Writes;
 
 /// <summary>
 /// The short append (<see cref="EvidenceAppendSql"/>) on PostgreSQL, in as few round trips as the rules allow
-/// (docs/decisions/011). PostgreSQL's single writer runs one unit after another, so round trips, not the statements'
+/// (docs/decisions/014). PostgreSQL's single writer runs one unit after another, so round trips, not the statements'
 /// work, set how many appends a second it stores. Here:
 /// <list type="bullet">
 /// <item>read: the row lock on the case, the head (<see cref="EvidenceAppendSql"/>'s query) and the item's fingerprint
@@ -26,7 +26,7 @@ namespace EventReview.Data.Writes;
 internal static class EvidenceAppendPostgres
 {
     /// <summary>Name of the unique index on the timeline's (case, sequence), as the migrations create it.</summary>
-    public const string SequenceIndex = "IX_Activity_ReviewCaseId_Sequence";
+    public const string SequenceIndex = "IX_Timeline_ReviewCaseId_Sequence";
 
     private const string LockCaseSql = """SELECT 1 FROM "Cases" WHERE "Id" = @case FOR UPDATE""";
 
@@ -92,7 +92,7 @@ internal static class EvidenceAppendPostgres
                 {
                     case 1 when await r.ReadAsync(token):
                         head = new ChainHeadCache.CaseHead(r.GetInt32(0), r.GetString(1), Enum.Parse<CaseState>(r.GetString(2)), r.GetInt32(3),
-                            r.IsDBNull(8) ? 0 : r.GetInt32(8), r.IsDBNull(9) ? ActivityEntry.GenesisHash : r.GetString(9));
+                            r.IsDBNull(8) ? 0 : r.GetInt32(8), r.IsDBNull(9) ? TimelineEntry.GenesisHash : r.GetString(9));
                         item = r.IsDBNull(4) ? null : (r.GetInt32(4), Enum.Parse<ItemState>(r.GetString(5)), r.GetInt32(6), Convert.ToInt32(r.GetValue(7), System.Globalization.CultureInfo.InvariantCulture));
                         break;
                     case 2:
@@ -155,7 +155,7 @@ internal static class EvidenceAppendPostgres
             (EvidenceAppendSql.UpdateCaseSql, [("@state", outcome.CaseState.ToString()), ("@at", unit.Time(now)), ("@case", head.Id), ("@version", head.Version)]),
             (EvidenceAppendSql.UpdateItemSql, [("@state", outcome.ItemState.ToString()), ("@item", item.Id), ("@version", item.Version)]),
             (EvidenceAppendSql.InsertEvidenceSql, EvidenceAppendSql.EvidenceValues(unit, item.Id, evidence)),
-            (EvidenceAppendSql.InsertActivitySql, EvidenceAppendSql.ActivityValues(unit, head.Id, e)),
+            (EvidenceAppendSql.InsertTimelineSql, EvidenceAppendSql.TimelineValues(unit, head.Id, e)),
         ], writes: true, async (_, r, token) =>
         {
             if (await r.ReadAsync(token))

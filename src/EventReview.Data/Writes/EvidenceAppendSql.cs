@@ -27,8 +27,8 @@ public static class EvidenceAppendSql
                a."Sequence", a."Hash"
         FROM "Cases" c
         LEFT JOIN "ChecklistItems" i ON i."ReviewCaseId" = c."Id" AND i."Key" = @key
-        LEFT JOIN "Activity" a ON a."ReviewCaseId" = c."Id"
-             AND a."Sequence" = (SELECT MAX(x."Sequence") FROM "Activity" x WHERE x."ReviewCaseId" = c."Id")
+        LEFT JOIN "Timeline" a ON a."ReviewCaseId" = c."Id"
+             AND a."Sequence" = (SELECT MAX(x."Sequence") FROM "Timeline" x WHERE x."ReviewCaseId" = c."Id")
         WHERE c."Id" = @case
         """;
 
@@ -38,8 +38,8 @@ public static class EvidenceAppendSql
         RETURNING "Id"
         """;
 
-    internal const string InsertActivitySql = """
-        INSERT INTO "Activity" ("ReviewCaseId", "CandidateId", "Sequence", "At", "ActorId", "ActorName", "Kind", "ItemKey", "Text", "PreviousHash", "Hash", "Facts", "KeyId", "Mac")
+    internal const string InsertTimelineSql = """
+        INSERT INTO "Timeline" ("ReviewCaseId", "CandidateId", "Sequence", "At", "ActorId", "ActorName", "Kind", "ItemKey", "Text", "PreviousHash", "Hash", "Facts", "KeyId", "Mac")
         VALUES (@case, @candidate, @sequence, @at, @actor, @actorName, @kind, @key, @text, @previous, @hash, @facts, @keyId, @mac)
         """;
 
@@ -98,7 +98,7 @@ public static class EvidenceAppendSql
             itemId = r.GetInt32(4);
             itemVersion = r.GetInt32(6);
             state = new EvidenceAppend.Head(candidate, Enum.Parse<CaseState>(r.GetString(2)), itemKey, Enum.Parse<ItemState>(r.GetString(5)),
-                r.IsDBNull(8) ? 0 : r.GetInt32(8), r.IsDBNull(9) ? ActivityEntry.GenesisHash : r.GetString(9), Convert.ToInt32(r.GetValue(7), System.Globalization.CultureInfo.InvariantCulture));
+                r.IsDBNull(8) ? 0 : r.GetInt32(8), r.IsDBNull(9) ? TimelineEntry.GenesisHash : r.GetString(9), Convert.ToInt32(r.GetValue(7), System.Globalization.CultureInfo.InvariantCulture));
         }
 
         if (!EvidenceAppend.Covers(state) && state.CaseState != CaseState.Closed)
@@ -114,7 +114,7 @@ public static class EvidenceAppendSql
 
         var e = outcome.Entry;
         unit.Sign(e);
-        var activity = unit.Bound(InsertActivitySql, ActivityValues(unit, caseId, e));
+        var activity = unit.Bound(InsertTimelineSql, TimelineValues(unit, caseId, e));
         await activity.ExecuteNonQueryAsync(ct);
 
         var item = unit.Bound(UpdateItemSql,
@@ -151,8 +151,8 @@ public static class EvidenceAppendSql
         ("@role", evidence.Role),
     ];
 
-    /// <summary>Values of the timeline entry's insert (<see cref="InsertActivitySql"/>).</summary>
-    internal static (string Name, object? Value)[] ActivityValues(SqlUnit unit, int caseId, ActivityEntry e) =>
+    /// <summary>Values of the timeline entry's insert (<see cref="InsertTimelineSql"/>).</summary>
+    internal static (string Name, object? Value)[] TimelineValues(SqlUnit unit, int caseId, TimelineEntry e) =>
     [
         ("@case", caseId),
         ("@candidate", e.CandidateId),

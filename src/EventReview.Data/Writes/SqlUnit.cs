@@ -50,7 +50,7 @@ public sealed class SqlUnit : IDisposable
     public List<Records.WitnessedHead> Heads { get; } = [];
 
     /// <summary>Signs a timeline entry the unit is about to insert (as every save does) and notes its head for the witness.</summary>
-    public void Sign(Core.Cases.ActivityEntry entry)
+    public void Sign(Core.Cases.TimelineEntry entry)
     {
         ArgumentNullException.ThrowIfNull(entry);
         Heads.Add(_records?.Sign(entry) ?? new Records.WitnessedHead(entry.Chain, entry.Sequence, entry.Hash));

@@ -63,7 +63,7 @@ public static class CaseDtos
         e.Kind == EventReview.Core.Evidence.EvidenceKind.Note ? e.Text : NullIfEmpty(e.Text), e.FileName, e.ContentType, e.SizeBytes, e.Url, e.ContentSha256, e.AddedByName, e.AddedAt,
         e.Kind == EventReview.Core.Evidence.EvidenceKind.Attachment ? $"/files/{e.ContentSha256}?name={Uri.EscapeDataString(e.FileName ?? e.ContentSha256)}" : null, e.Role);
 
-    public static TimelineEntry Of(ActivityEntry a) => new(a.Sequence, a.At, a.ActorName, a.Kind, a.ItemKey, a.Text, a.Hash);
+    public static TimelineEntry Of(EventReview.Core.Cases.TimelineEntry a) => new(a.Sequence, a.At, a.ActorName, a.Kind, a.ItemKey, a.Text, a.Hash);
 
     private static string? NullIfEmpty(string s) => string.IsNullOrEmpty(s) ? null : s;
 

@@ -18,7 +18,7 @@ public static class CaseEndpoints
         // cases without being able to read them); all share the API rate limit.
         var api = app.MapGroup("/api").DisableAntiforgery().RequireRateLimiting(Security.ApiRateLimitPolicy.Name);
 
-        api.MapPost("/cases", async (HttpRequest request, ClaimsPrincipal user, CaseService cases) =>
+        api.MapPost("/cases", async (HttpRequest request, ClaimsPrincipal user, CaseQueries cases, EvidenceAppender appender, CaseWorkflow workflow) =>
         {
             var (body, error) = await ApiResults.ReadJson<OpenCaseRequest>(request);
             if ((error ?? ApiResults.NullMember(body!.Arrivals, "arrivals")) is { } refused)
@@ -28,7 +28,7 @@ public static class CaseEndpoints
 
             return await ApiResults.Guard(async () =>
             {
-                var (c, created) = await cases.OpenAsync(user, body!);
+                var (c, created) = await workflow.OpenAsync(user, body!);
                 var dto = CaseDtos.Detail(c);
                 return created ? Results.Created($"/api/cases/{c.Id}", dto) : Results.Ok(dto);
             });
@@ -39,7 +39,7 @@ public static class CaseEndpoints
           .Produces<CaseDtos.CaseDetail>()
           .Documented("openCase", "Open a case", Tags.Cases, false, 400, 409, 413, 415, 422);
 
-        api.MapGet("/cases", (ClaimsPrincipal user, CaseService cases, string? state, string? q, int? offset, int? limit) => ApiResults.Guard(async () =>
+        api.MapGet("/cases", (ClaimsPrincipal user, CaseQueries cases, EvidenceAppender appender, CaseWorkflow workflow, string? state, string? q, int? offset, int? limit) => ApiResults.Guard(async () =>
         {
             CaseState? s = null;
             if (!string.IsNullOrWhiteSpace(state))
@@ -55,20 +55,20 @@ public static class CaseEndpoints
         })).RequireAuthorization(Policies.Read).WithDescription("List cases, newest first, one page at a time (offset, limit 1-500, default 50); filter by state and text.")
           .Produces<CaseDtos.Page<CaseDtos.CaseSummary>>().Documented("listCases", "List cases", Tags.Cases, false, 400, 422);
 
-        api.MapGet("/cases/{id:int}", (int id, ClaimsPrincipal user, CaseService cases) => ApiResults.Guard(async () =>
+        api.MapGet("/cases/{id:int}", (int id, ClaimsPrincipal user, CaseQueries cases, EvidenceAppender appender, CaseWorkflow workflow) => ApiResults.Guard(async () =>
             Results.Ok(CaseDtos.Detail(await cases.GetOverviewAsync(user, id)))))
             .RequireAuthorization(Policies.Read)
             .WithDescription("One case with its arrivals and checklist item states (evidence counts and fingerprints; evidence itself is paged separately).")
             .Produces<CaseDtos.CaseDetail>().Documented("getCase", "Read a case", Tags.Cases, false, 400, 404);
 
-        api.MapGet("/cases/{id:int}/items/{key}/evidence", (int id, string key, ClaimsPrincipal user, CaseService cases, int? offset, int? limit) => ApiResults.Guard(async () =>
+        api.MapGet("/cases/{id:int}/items/{key}/evidence", (int id, string key, ClaimsPrincipal user, CaseQueries cases, EvidenceAppender appender, CaseWorkflow workflow, int? offset, int? limit) => ApiResults.Guard(async () =>
         {
             var page = await cases.EvidencePageAsync(user, id, key, offset, limit);
             return Results.Ok(new CaseDtos.Page<CaseDtos.Evidence>(page.Total, page.Offset, page.Limit, page.Evidence.Select(CaseDtos.Of).ToList()));
         })).RequireAuthorization(Policies.Read).WithDescription("One page of an item's evidence (notes, files, links), oldest first (offset, limit 1-500, default 50).")
           .Produces<CaseDtos.Page<CaseDtos.Evidence>>().Documented("listEvidence", "List an item's evidence", Tags.Evidence, false, 400, 404, 422);
 
-        api.MapGet("/cases/{id:int}/timeline", (int id, ClaimsPrincipal user, CaseService cases, int? offset, int? limit) => ApiResults.Guard(async () =>
+        api.MapGet("/cases/{id:int}/timeline", (int id, ClaimsPrincipal user, CaseQueries cases, EvidenceAppender appender, CaseWorkflow workflow, int? offset, int? limit) => ApiResults.Guard(async () =>
         {
             var page = await cases.TimelinePageAsync(user, id, offset, limit);
             return Results.Ok(new CaseDtos.Page<CaseDtos.TimelineEntry>(page.Total, page.Offset, page.Limit, page.Entries.Select(CaseDtos.Of).ToList()));
@@ -82,7 +82,7 @@ public static class CaseEndpoints
         }).RequireAuthorization(Policies.Read).WithDescription("The network's sites (same fields as the network page and network.json).").Produces<List<CaseDtos.SiteDto>>()
           .Documented("listSites", "List the sites", Tags.Network, false);
 
-        api.MapPost("/cases/{id:int}/items/{key}/notes", async (int id, string key, HttpRequest request, ClaimsPrincipal user, CaseService cases) =>
+        api.MapPost("/cases/{id:int}/items/{key}/notes", async (int id, string key, HttpRequest request, ClaimsPrincipal user, CaseQueries cases, EvidenceAppender appender, CaseWorkflow workflow) =>
         {
             var (body, error) = await ApiResults.ReadJson<NoteRequest>(request);
             if (error is not null)
@@ -97,7 +97,7 @@ public static class CaseEndpoints
                     throw new ArgumentException("text is required (Markdown).", "text");
                 }
 
-                var r = await cases.AppendNoteAsync(user, id, key, body.Text);
+                var r = await appender.AppendNoteAsync(user, id, key, body.Text);
                 return Results.Created(EvidencePath(id, key), new CaseDtos.NoteAdded(r.EvidenceId, r.ContentSha256, CaseDtos.Api(r.ItemState), r.ItemFingerprint));
             });
         }).RequireAuthorization(Policies.AddEvidence).Accepts<NoteRequest>("application/json")
@@ -105,7 +105,7 @@ public static class CaseEndpoints
           .Produces<CaseDtos.NoteAdded>(StatusCodes.Status201Created)
           .Documented("addNote", "Add a note", Tags.Evidence, false, 400, 404, 409, 413, 415, 422);
 
-        api.MapPost("/cases/{id:int}/items/{key}/attachments", (int id, string key, HttpRequest request, ClaimsPrincipal user, CaseService cases, IOptions<EventReviewOptions> options) =>
+        api.MapPost("/cases/{id:int}/items/{key}/attachments", (int id, string key, HttpRequest request, ClaimsPrincipal user, CaseQueries cases, EvidenceAppender appender, CaseWorkflow workflow, IOptions<EventReviewOptions> options) =>
             ApiResults.Guard(async () =>
             {
                 if (!MultipartForms.IsMultipart(request.ContentType))
@@ -136,7 +136,7 @@ public static class CaseEndpoints
                 // The role is checked before the bytes are stored, so a refused upload leaves nothing behind.
                 var role = string.IsNullOrWhiteSpace(form["role"].ToString()) ? null : EventReview.Core.Evidence.Roles.FileRole.Parse(form["role"].ToString());
                 await using var stream = file.OpenReadStream();
-                var r = await cases.AppendAttachmentAsync(user, id, key, stream, file.FileName, string.IsNullOrWhiteSpace(file.ContentType) ? "application/octet-stream" : file.ContentType,
+                var r = await appender.AppendAttachmentAsync(user, id, key, stream, file.FileName, string.IsNullOrWhiteSpace(file.ContentType) ? "application/octet-stream" : file.ContentType,
                     form["description"].ToString(), max, role);
                 return Results.Created(EvidencePath(id, key), new CaseDtos.FileAdded(r.EvidenceId, r.ContentSha256, r.SizeBytes ?? 0, r.FileName ?? string.Empty, r.ItemFingerprint, r.Role?.Word, r.RoleGuess));
             })).RequireAuthorization(Policies.AddEvidence).DisableAntiforgery()
@@ -164,7 +164,7 @@ public static class CaseEndpoints
           .WithDescription("An attachment's bytes by SHA-256 (always a download; ?name= sets the offered file name).")
           .Produces<byte[]>(contentType: "application/octet-stream").Documented("downloadFile", "Download a file", Tags.Downloads, false, 404);
 
-        app.MapGet("/cases/{id:int}/dossier.zip", async (int id, ClaimsPrincipal user, EventReview.Dossier.CaseDossierService dossiers, CaseService cases, HttpContext http) =>
+        app.MapGet("/cases/{id:int}/dossier.zip", async (int id, ClaimsPrincipal user, EventReview.Dossier.CaseDossierService dossiers, CaseQueries cases, EvidenceAppender appender, CaseWorkflow workflow, HttpContext http) =>
         {
             ReviewCase c;
             try

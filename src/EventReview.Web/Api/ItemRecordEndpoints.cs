@@ -9,7 +9,7 @@ public static class ItemRecordEndpoints
 {
     public static void Map(RouteGroupBuilder api)
     {
-        api.MapGet("/cases/{id:int}/items/{key}/computations", (int id, string key, ClaimsPrincipal user, CaseService cases, int? offset, int? limit) => ApiResults.Guard(async () =>
+        api.MapGet("/cases/{id:int}/items/{key}/computations", (int id, string key, ClaimsPrincipal user, CaseQueries cases, int? offset, int? limit) => ApiResults.Guard(async () =>
         {
             var page = await cases.ComputationPageAsync(user, id, key, offset, limit);
             return Results.Ok(new CaseDtos.Page<RecordDtos.Computation>(page.Total, page.Offset, page.Limit,
@@ -18,7 +18,7 @@ public static class ItemRecordEndpoints
           .WithDescription("One page of an item's computation records (verdict, summary with units, parameters, result numbers, pictures as SVG), oldest first; 'current' marks the newest of each kind.")
           .Produces<CaseDtos.Page<RecordDtos.Computation>>().Documented("listComputations", "List an item's computation records", CaseEndpoints.Tags.Records, false, 400, 404, 422);
 
-        api.MapGet("/cases/{id:int}/items/{key}/signoffs", (int id, string key, ClaimsPrincipal user, CaseService cases) => ApiResults.Guard(async () =>
+        api.MapGet("/cases/{id:int}/items/{key}/signoffs", (int id, string key, ClaimsPrincipal user, CaseQueries cases) => ApiResults.Guard(async () =>
         {
             var overview = await cases.GetOverviewAsync(user, id);
             var item = overview.Case.Items.FirstOrDefault(i => i.Key == key)

@@ -18,13 +18,12 @@ namespace EventReview.Web.Auth;
 /// the identity provider at the moment of signing. <see cref="BeginAsync"/> keeps what is being signed (a
 /// <see cref="SignatureRequest"/>); the browser goes to the provider with <c>prompt=login</c> and <c>max_age=0</c>;
 /// <see cref="CompleteAsync"/> signs only if the provider's answer names the same person and its <c>auth_time</c> is
-/// fresh (<see cref="SignatureRequest.ReauthenticationProblem"/>). Both outcomes go into the sign-in audit.
+/// fresh (<see cref="SignerCheck"/>, checked by <see cref="CaseWorkflow.SignAsync"/>). Both outcomes go into the sign-in audit.
 /// </summary>
 public sealed class ReauthenticatedSigning(
     IDbContextFactory<AppDbContext> dbFactory,
     IWriteGate writes,
-    CaseService cases,
-    UserManager<AppUser> users,
+    CaseWorkflow workflow,
     AccountAudit audit,
     TimeProvider clock,
     IOptions<SignInSettings> options)
@@ -70,13 +69,15 @@ public sealed class ReauthenticatedSigning(
         }
 
         var now = clock.GetUtcNow();
-        var problem = failure ?? await ProblemAsync(user, request, reauthenticated, now);
+        var problem = failure ?? Problem(request, reauthenticated, now);
         var signed = false;
         if (problem is null)
         {
             try
             {
-                await cases.SignAsync(user, request.CaseId, request.ItemKey, request.Meaning, request.Statement, request.SeenFingerprint, ct);
+                // The workflow checks that the answer names this signer's account and is fresh (SignerCheck).
+                var proof = new SignatureProof.ProviderSignIn(reauthenticated!.FindFirstValue("sub"), AuthTime(reauthenticated), request.CreatedAt);
+                await workflow.SignAsync(user, request.CaseId, request.ItemKey, request.Meaning, request.Statement, request.SeenFingerprint, proof, ct);
                 signed = true;
             }
             catch (Exception ex) when (ex is DomainRuleException or ConflictException or UnauthorizedAccessException or KeyNotFoundException)
@@ -101,28 +102,15 @@ public sealed class ReauthenticatedSigning(
         }, ct);
     }
 
-    /// <summary>Why the provider's answer does not prove the signer now, or null when it does.</summary>
-    private async Task<string?> ProblemAsync(ClaimsPrincipal user, SignatureRequest request, ClaimsPrincipal? reauthenticated, DateTimeOffset now)
+    /// <summary>Why the request cannot be signed at all (expired, no answer), or null; the answer itself is judged by <see cref="SignerCheck"/>.</summary>
+    private static string? Problem(SignatureRequest request, ClaimsPrincipal? reauthenticated, DateTimeOffset now)
     {
         if (!request.IsOpen(now))
         {
             return $"The request to sign expired ({SignatureRequest.Lifetime.TotalMinutes:0} minutes) before you came back from the identity provider. Nothing was signed; sign again.";
         }
 
-        if (reauthenticated is null)
-        {
-            return "The identity provider gave no answer. Nothing was signed; try again.";
-        }
-
-        var account = await users.FindByIdAsync(request.UserId);
-        var subject = reauthenticated.FindFirstValue("sub");
-        var logins = account is null ? [] : await users.GetLoginsAsync(account);
-        if (subject is null || !logins.Any(l => l.LoginProvider == SingleSignOnAccounts.Provider && l.ProviderKey == subject))
-        {
-            return "The identity provider signed in a different person than the one signing here. Nothing was signed.";
-        }
-
-        return request.ReauthenticationProblem(AuthTime(reauthenticated), now, TimeSpan.FromSeconds(options.Value.SingleSignOn.SignatureMaxAgeSeconds));
+        return reauthenticated is null ? "The identity provider gave no answer. Nothing was signed; try again." : null;
     }
 
     /// <summary>The provider's <c>auth_time</c> claim (Unix seconds), or null.</summary>

@@ -12,7 +12,7 @@ namespace EventReview.Web.Demo;
 /// three days around the candidate, attached to <c>significance.time-slides</c>, and the check run once on them with
 /// K = 5,000 (10,000 slides): enough background for the joint bound over the three pairs and the triple to pass 3 sigma.
 /// </summary>
-public sealed class BackgroundDemoStep(CaseService cases, BackgroundCheckService background, ILogger<BackgroundDemoStep> logger) : IDemoSeedStep
+public sealed class BackgroundDemoStep(CaseQueries cases, EvidenceAppender appender, BackgroundCheckService background, ILogger<BackgroundDemoStep> logger) : IDemoSeedStep
 {
     public const string CandidateId = "ER-C-0142";
 
@@ -59,7 +59,7 @@ public sealed class BackgroundDemoStep(CaseService cases, BackgroundCheckService
     {
         var bytes = Encoding.UTF8.GetBytes(text);
         using var stream = new MemoryStream(bytes);
-        await cases.AddAttachmentAsync(user, caseId, ItemKey, stream, name, "text/csv", description, long.MaxValue, role, ct);
+        await appender.AddAttachmentAsync(user, caseId, ItemKey, stream, name, "text/csv", description, long.MaxValue, role, ct);
         return Hashing.Sha256Hex(bytes);
     }
 }

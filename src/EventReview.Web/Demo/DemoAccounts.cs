@@ -1,4 +1,6 @@
+using System.Security.Claims;
 using EventReview.Data.Auth;
+using EventReview.Web.Auth;
 
 namespace EventReview.Web.Demo;
 
@@ -14,4 +16,11 @@ public static class DemoAccounts
         new("reviewer.b@demo.invalid", "DemoReviewerB1", Roles.Reviewer, "Demo Reviewer B"),
         new("observer@demo.invalid", "DemoObserver1", Roles.Observer, "Demo Observer"),
     ];
+
+    /// <summary>
+    /// The demo seed signs as the demo people with their own passwords, as a person at the sign-off form would: the
+    /// workflow checks every signer's re-authentication, the seed's too.
+    /// </summary>
+    public static SignatureProof Proof(ClaimsPrincipal signer) =>
+        new SignatureProof.Password(All.First(a => a.Email == signer.Identity?.Name).Password);
 }

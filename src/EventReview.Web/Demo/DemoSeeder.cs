@@ -16,7 +16,7 @@ namespace EventReview.Web.Demo;
 /// Fills an empty database with the invented demo: the network, four accounts and three candidate cases at
 /// different stages. Arrival times are made from an invented sky direction with the network's own geometry.
 /// </summary>
-public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, AccountAdmin accounts, UserManager<AppUser> users, CaseService cases, TemplateCatalog templates, TimeProvider clock, IEnumerable<IDemoSeedStep> steps)
+public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, AccountAdmin accounts, UserManager<AppUser> users, EvidenceAppender appender, CaseWorkflow workflow, TemplateCatalog templates, TimeProvider clock, IEnumerable<IDemoSeedStep> steps)
 {
     public async Task SeedIfEmptyAsync(CancellationToken ct = default)
     {
@@ -56,43 +56,43 @@ public sealed class DemoSeeder(IDbContextFactory<AppDbContext> dbFactory, Accoun
         // result) are then the same on every start; the other candidates follow the clock.
         var t1 = new GpsTime(1_479_697_331_201_000_000);
         var d1 = new DemoCandidate("ER-C-0142", t1, 41.0, -23.0, 0.7, ["KP", "AB", "SM"], [17.1, 19.5, 10.6]);
-        var (c1, _) = await cases.OpenAsync(coordinator, Request(d1, sites,
+        var (c1, _) = await workflow.OpenAsync(coordinator, Request(d1, sites,
             "Loud short chirp-like transient seen at all three sites; raised by the demo matched-filter search.", "candidate-review"), ct);
         var rA = users.Users.First(u => u.DisplayName == "Demo Reviewer A");
-        await cases.AssignAsync(coordinator, c1.Id, "timing.arrival", rA.Id, rA.DisplayName, c1.Item("timing.arrival").Version, ct);
+        await workflow.AssignAsync(coordinator, c1.Id, "timing.arrival", rA.Id, rA.DisplayName, c1.Item("timing.arrival").Version, ct);
         var first = templates.Find("candidate-review")!.Items().First().Item.Key;
-        await cases.AddNoteAsync(reviewerA, c1.Id, first,
+        await appender.AddNoteAsync(reviewerA, c1.Id, first,
             "Checked the injection schedule of every site for ±10 s around the candidate: **no injection** scheduled or logged. Screenshots of the three schedules to follow.", ct);
-        var c = await cases.TransitionAsync(reviewerA, c1.Id, first, "ready", null, ct);
-        await cases.SignAsync(reviewerB, c1.Id, first, SignOffMeaning.Reviewed,
-            "Read the three schedules myself; nothing within ±10 s.", c.Item(first).Fingerprint(), ct);
-        await cases.AddNoteAsync(reviewerA, c1.Id, "timing.arrival",
+        var c = await workflow.TransitionAsync(reviewerA, c1.Id, first, "ready", null, ct);
+        await workflow.SignAsync(reviewerB, c1.Id, first, SignOffMeaning.Reviewed,
+            "Read the three schedules myself; nothing within ±10 s.", c.Item(first).Fingerprint(), DemoAccounts.Proof(reviewerB), ct);
+        await appender.AddNoteAsync(reviewerA, c1.Id, "timing.arrival",
             "Arrival times taken from the search's trigger record; the built-in timing check is to be run on this item.", ct);
 
         // Case 2: a fresh two-site candidate from a pipeline, first-hour triage.
         var t2 = new GpsTime(gpsNow.Nanoseconds - (2L * 3600 * GpsTime.NanosecondsPerSecond) + 88_125_000);
         var d2 = new DemoCandidate("ER-C-0157", t2, -12.0, 140.0, 1.9, ["KP", "AB"], [8.4, 7.6]);
-        var (c2, _) = await cases.OpenAsync(coordinator, Request(d2, sites,
+        var (c2, _) = await workflow.OpenAsync(coordinator, Request(d2, sites,
             "Two-site coincidence just above threshold; third site was not observing.", "rapid-triage"), ct);
 
         // Case 3: a rapid triage that ended as instrumental (a glitch at one site).
         var t3 = new GpsTime(gpsNow.Nanoseconds - (20L * 86400 * GpsTime.NanosecondsPerSecond) + 503_000_000);
         var d3 = new DemoCandidate("ER-C-0121", t3, 63.0, 80.0, 0.2, ["KP", "AB", "SM"], [11.0, 6.2, 5.9]);
-        var (c3, _) = await cases.OpenAsync(coordinator, Request(d3, sites,
+        var (c3, _) = await workflow.OpenAsync(coordinator, Request(d3, sites,
             "Loud at one site, marginal elsewhere; suspected short symmetric glitch.", "rapid-triage"), ct);
         var current = c3;
         foreach (var item in c3.Items)
         {
-            await cases.AddNoteAsync(reviewerA, c3.Id, item.Key, $"Triage note for *{item.Title}*: done; see the attached reasoning in the timeline.", ct);
-            current = await cases.TransitionAsync(reviewerA, c3.Id, item.Key, "ready", null, ct);
+            await appender.AddNoteAsync(reviewerA, c3.Id, item.Key, $"Triage note for *{item.Title}*: done; see the attached reasoning in the timeline.", ct);
+            current = await workflow.TransitionAsync(reviewerA, c3.Id, item.Key, "ready", null, ct);
             for (var k = 0; k < current.Item(item.Key).RequiredSignOffs; k++)
             {
                 var signer = k == 0 ? reviewerB : coordinator;
-                current = await cases.SignAsync(signer, c3.Id, item.Key, SignOffMeaning.Approved, "Agreed on the evidence shown.", current.Item(item.Key).Fingerprint(), ct);
+                current = await workflow.SignAsync(signer, c3.Id, item.Key, SignOffMeaning.Approved, "Agreed on the evidence shown.", current.Item(item.Key).Fingerprint(), DemoAccounts.Proof(signer), ct);
             }
         }
 
-        await cases.CloseAsync(coordinator, c3.Id, CaseOutcome.Instrumental,
+        await workflow.CloseAsync(coordinator, c3.Id, CaseOutcome.Instrumental,
             "A short symmetric glitch at one site explains the trigger; no consistent signal at the other sites.", ct);
 
         var demo = new DemoContext(coordinator, reviewerA, reviewerB,

@@ -10,7 +10,7 @@ namespace EventReview.Web.Demo;
 /// sign the freeze item, so that a new user (and the tamper tests) see the protected parts in use: the frozen records, their
 /// fingerprints and the sign-offs bound to them. The configuration items and values are invented.
 /// </summary>
-public sealed class FreezeDemoStep(ConfigurationService configurations, CaseService cases) : IDemoSeedStep
+public sealed class FreezeDemoStep(ConfigurationService configurations, CaseQueries cases, CaseWorkflow workflow) : IDemoSeedStep
 {
     public int Order => 70;
 
@@ -36,10 +36,10 @@ public sealed class FreezeDemoStep(ConfigurationService configurations, CaseServ
             c = await configurations.FreezeAsync(demo.Coordinator, c, snapshot.Id, from, until, "Candidate ER-C-0142 under review: no changes to the instrument until the review closes.", ct);
         }
 
-        c = await cases.TransitionAsync(demo.ReviewerA, id, "freeze.record", "ready", null, ct);
-        c = await cases.SignAsync(demo.ReviewerB, id, "freeze.record", SignOffMeaning.Reviewed,
-            "Compared the three frozen records with the site logs: complete, seals as placed.", c.Item("freeze.record").Fingerprint(), ct);
-        await cases.SignAsync(demo.Coordinator, id, "freeze.record", SignOffMeaning.Approved,
-            "Freeze in force at every site until the review closes.", c.Item("freeze.record").Fingerprint(), ct);
+        c = await workflow.TransitionAsync(demo.ReviewerA, id, "freeze.record", "ready", null, ct);
+        c = await workflow.SignAsync(demo.ReviewerB, id, "freeze.record", SignOffMeaning.Reviewed,
+            "Compared the three frozen records with the site logs: complete, seals as placed.", c.Item("freeze.record").Fingerprint(), DemoAccounts.Proof(demo.ReviewerB), ct);
+        await workflow.SignAsync(demo.Coordinator, id, "freeze.record", SignOffMeaning.Approved,
+            "Freeze in force at every site until the review closes.", c.Item("freeze.record").Fingerprint(), DemoAccounts.Proof(demo.Coordinator), ct);
     }
 }

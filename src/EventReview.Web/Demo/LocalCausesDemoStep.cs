@@ -17,7 +17,7 @@ namespace EventReview.Web.Demo;
 /// are given in a demo-only note on injection.blind-open. ER-C-0157: environment files with nothing near (clear).
 /// Runs after the overlap step so that the strain files it attaches can be read.
 /// </summary>
-public sealed class LocalCausesDemoStep(CaseService cases, EnvironmentCheckService environment, InjectionCheckService injections,
+public sealed class LocalCausesDemoStep(CaseQueries cases, EvidenceAppender appender, EnvironmentCheckService environment, InjectionCheckService injections,
     ChainCheckService chain, SealedRecordService seals) : IDemoSeedStep
 {
     /// <summary>The fixed demo salt (32 bytes, hex). Demo only: a real salt is random and secret until opening.</summary>
@@ -63,7 +63,7 @@ public sealed class LocalCausesDemoStep(CaseService cases, EnvironmentCheckServi
         var record = LocalCausesDemoFiles.BlindRecord(c.Gps);
         var commitment = SealedRecord.Commitment(Convert.FromHexString(DemoSalt), record);
         await seals.RegisterAsync(demo.Coordinator, commitment, "Demo blind injections, current observing period", id, "injection.blind-seal", ct);
-        await cases.AddNoteAsync(demo.Coordinator, id, "injection.blind-open",
+        await appender.AddNoteAsync(demo.Coordinator, id, "injection.blind-open",
             "**Demo only** — in a real review the record and salt stay with their holders until the end. To try opening the sealed record, pick the attached " +
             "`blind-record-DEMO.csv` (or paste the record below exactly, without a final newline) and enter the salt:\n\n" +
             $"```\n{Encoding.UTF8.GetString(record)}\n```\n\nSalt: `{DemoSalt}`", ct);
@@ -96,7 +96,7 @@ public sealed class LocalCausesDemoStep(CaseService cases, EnvironmentCheckServi
         var bytes = Encoding.UTF8.GetBytes(text);
         await using var stream = new MemoryStream(bytes);
         var contentType = name.EndsWith(".json", StringComparison.Ordinal) ? "application/json" : name.EndsWith(".csv", StringComparison.Ordinal) ? "text/csv" : "text/plain";
-        await cases.AddAttachmentAsync(who, caseId, item, stream, name, contentType, description, long.MaxValue, new FileRole(role), ct);
+        await appender.AddAttachmentAsync(who, caseId, item, stream, name, contentType, description, long.MaxValue, new FileRole(role), ct);
         return Core.Evidence.Hashing.Sha256Hex(bytes);
     }
 }

@@ -12,7 +12,7 @@ namespace EventReview.Web.Demo;
 /// Gaussian noise, fixed seed), attached to the overlap item as one text file per site, then the overlap check is run for
 /// the two loudest sites so the case page shows the overlay, the correlation curve, the off-source histogram and the maps.
 /// </summary>
-public sealed class OverlapDemoStep(CaseService cases, OverlapCheckService overlap) : IDemoSeedStep
+public sealed class OverlapDemoStep(CaseQueries cases, EvidenceAppender appender, OverlapCheckService overlap) : IDemoSeedStep
 {
     /// <summary>Candidate that gets simulated strain.</summary>
     public const string CandidateId = "ER-C-0142";
@@ -53,7 +53,7 @@ public sealed class OverlapDemoStep(CaseService cases, OverlapCheckService overl
             }
 
             buffer.Position = 0;
-            await cases.AddAttachmentAsync(demo.ReviewerA, caseId, ItemKey, buffer, $"{site.Code}-strain.txt", "text/plain",
+            await appender.AddAttachmentAsync(demo.ReviewerA, caseId, ItemKey, buffer, $"{site.Code}-strain.txt", "text/plain",
                 $"Simulated strain at {site.Code}, {DurationSeconds:0} s at {SampleRateHz:0} Hz around the candidate (demo data).", long.MaxValue,
                 new FileRole(FileRoleKind.Strain, site.Code), ct);
         }

@@ -12,7 +12,7 @@ namespace EventReview.Web.Demo;
 /// between AB and KP (only when that check could tell the sign) and an amplitude ratio typed in from the two sites' SNRs (the demo's
 /// sites share one noise spectrum, so their SNR ratio stands in for the amplitude ratio).
 /// </summary>
-public sealed class TimingDemoStep(TimingCheckService timing, CaseService cases) : IDemoSeedStep
+public sealed class TimingDemoStep(TimingCheckService timing, CaseQueries cases, EvidenceAppender appender) : IDemoSeedStep
 {
     public int Order => 50;
 
@@ -27,14 +27,14 @@ public sealed class TimingDemoStep(TimingCheckService timing, CaseService cases)
         if (overlap is { SignDetermined: true })
         {
             var sign = overlap.Sign;
-            await cases.AddNoteAsync(demo.ReviewerA, id, "antenna.response",
+            await appender.AddNoteAsync(demo.ReviewerA, id, "antenna.response",
                 $"Observed relation between the sites for the antenna-response test: sign {(sign < 0 ? "−1 (flipped)" : "+1")} from the overlap check (item morphology.overlap); " +
                 $"amplitude ratio |h(KP)|/|h(AB)| ≈ {ratio:0.00}, typed in from the SNR ratio (demo sites share one noise spectrum).", ct);
             await timing.RunAsync(demo.ReviewerA, id, "antenna.response", new TimingCheckParameters(3.0, "AB", "KP", sign, ratio, 0.3), ct);
         }
         else
         {
-            await cases.AddNoteAsync(demo.ReviewerA, id, "antenna.response",
+            await appender.AddNoteAsync(demo.ReviewerA, id, "antenna.response",
                 "The overlap check could not tell the relative sign of AB and KP (phase near ±90° or too uncertain), so the antenna-response test waits for a sign from another source.", ct);
         }
 

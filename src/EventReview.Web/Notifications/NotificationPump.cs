@@ -57,7 +57,7 @@ public sealed class NotificationPump(
             if (cursor is null)
             {
                 // First start: begin at the end of the timeline (nothing from before notifications existed is told).
-                var end = await db.Activity.MaxAsync(a => (long?)a.Id, ct) ?? 0;
+                var end = await db.Timeline.MaxAsync(a => (long?)a.Id, ct) ?? 0;
                 db.NotificationCursors.Add(NotificationCursor.Start(NotificationCursor.Timeline, end));
                 await writes.SaveAsync(db, ct);
                 return total;

@@ -27,7 +27,7 @@ public static class TimelineNotices
     /// </summary>
     public static async Task<(List<Notification> Notices, long Upto, int Scanned)> CollectAsync(AppDbContext db, long from, DateTimeOffset settledBefore, DateTimeOffset now, CancellationToken ct)
     {
-        var ids = await db.Activity.AsNoTracking().Where(a => a.Id > from && a.At <= settledBefore)
+        var ids = await db.Timeline.AsNoTracking().Where(a => a.Id > from && a.At <= settledBefore)
             .OrderBy(a => a.Id).Select(a => a.Id).Take(Batch).ToListAsync(ct);
         if (ids.Count == 0)
         {
@@ -35,7 +35,7 @@ public static class TimelineNotices
         }
 
         var upto = ids[^1];
-        var entries = await db.Activity.AsNoTracking().Where(a => a.Id > from && a.Id <= upto && Kinds.Contains(a.Kind)).OrderBy(a => a.Id).ToListAsync(ct);
+        var entries = await db.Timeline.AsNoTracking().Where(a => a.Id > from && a.Id <= upto && Kinds.Contains(a.Kind)).OrderBy(a => a.Id).ToListAsync(ct);
         var notices = new List<Notification>();
         foreach (var e in entries)
         {
@@ -49,7 +49,7 @@ public static class TimelineNotices
             switch (e.Kind)
             {
                 case "item.assigned" when item?.OwnerId is { } owner && owner != e.ActorId
-                    && !await db.Activity.AnyAsync(a => a.ReviewCaseId == c.Id && a.ItemKey == e.ItemKey && a.Kind == "item.assigned" && a.Id > e.Id, ct):
+                    && !await db.Timeline.AnyAsync(a => a.ReviewCaseId == c.Id && a.ItemKey == e.ItemKey && a.Kind == "item.assigned" && a.Id > e.Id, ct):
                     notices.Add(Notification.Create(owner, NotificationKind.Assigned, c.Id, item.Key,
                         $"{c.CandidateId}: '{item.Title}' assigned to you",
                         $"{e.ActorName} assigned you the checklist item '{item.Title}' ({item.Key}) of case {c.CandidateId}" +
@@ -63,7 +63,7 @@ public static class TimelineNotices
                     notices.AddRange(stale.Where(s => s.UserId != e.ActorId).Select(s => Notification.Create(s.UserId, NotificationKind.StaleSignOff, c.Id, item.Key,
                         $"{c.CandidateId}: your sign-off of '{item.Title}' is stale",
                         $"{e.ActorName} added to the evidence of '{item.Title}' ({item.Key}) of case {c.CandidateId} at {e.At.UtcDateTime:yyyy-MM-dd HH:mm} UTC, after you signed it. " +
-                        "Your sign-off no longer counts: review what changed (the item's history) and sign again.",
+                        "Your sign-off no longer counts: review what changed (the item's timeline) and sign again.",
                         ItemLink(c.Id, item.Key), $"{NotificationKind.StaleSignOff}:{s.UserId}:{s.Id}", now)));
                     break;
                 case "signoff" when c.State is CaseState.Open or CaseState.InReview:
@@ -84,7 +84,7 @@ public static class TimelineNotices
             return [];
         }
 
-        var lastSignOff = await db.Activity.Where(a => a.ReviewCaseId == caseId && a.Kind == "signoff").MaxAsync(a => a.Id, ct);
+        var lastSignOff = await db.Timeline.Where(a => a.ReviewCaseId == caseId && a.Kind == "signoff").MaxAsync(a => a.Id, ct);
         var recipients = await db.Users.AnyAsync(u => u.Id == coordinatorId, ct) ? [coordinatorId] : await NotificationInbox.CoordinatorIdsAsync(db, ct);
         return recipients.Select(r => Notification.Create(r, NotificationKind.ReadyForDecision, caseId, null,
             $"{candidateId}: every item is signed off, ready for decision",

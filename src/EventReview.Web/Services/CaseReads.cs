@@ -19,7 +19,7 @@ public sealed record ItemEvidenceSummary(int EvidenceCount, int ComputationCount
 public sealed record EvidencePage(int Total, int Offset, int Limit, IReadOnlyList<EvidenceItem> Evidence);
 
 /// <summary>One page of a case's timeline, newest first.</summary>
-public sealed record TimelinePage(int Total, int Offset, int Limit, IReadOnlyList<ActivityEntry> Entries);
+public sealed record TimelinePage(int Total, int Offset, int Limit, IReadOnlyList<TimelineEntry> Entries);
 
 /// <summary>Limits of paged reads.</summary>
 public static class Paging

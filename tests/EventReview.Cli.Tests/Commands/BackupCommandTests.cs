@@ -1,6 +1,5 @@
 using System.Text.Json;
 using EventReview.Cli.Commands;
-using EventReview.Core.Tests.Dossier;
 using EventReview.Data;
 using Microsoft.Data.Sqlite;
 
@@ -138,7 +137,7 @@ public sealed class BackupCommandTests : IAsyncLifetime
         {
             connection.Open();
             using var cmd = connection.CreateCommand();
-            cmd.CommandText = "DROP TRIGGER er_Activity_no_update; UPDATE \"Activity\" SET \"ActorName\" = 'Somebody Else' WHERE \"Sequence\" = 2;";
+            cmd.CommandText = "DROP TRIGGER er_Timeline_no_update; UPDATE \"Timeline\" SET \"ActorName\" = 'Somebody Else' WHERE \"Sequence\" = 2;";
             cmd.ExecuteNonQuery();
         }
 

@@ -2,8 +2,6 @@ using System.IO.Compression;
 using System.Text.Json;
 using EventReview.Cli.Commands;
 using EventReview.Core.Dossier;
-using EventReview.Core.Tests.Dossier;
-using EventReview.Core.Tests.Records;
 using EventReview.Dossier;
 
 namespace EventReview.Cli.Tests.Commands;

@@ -1,7 +1,6 @@
 using System.IO.Compression;
 using System.Text.Json;
 using EventReview.Cli.Commands;
-using EventReview.Core.Tests.Dossier;
 using EventReview.Data;
 using Microsoft.EntityFrameworkCore;
 
@@ -102,8 +101,8 @@ public sealed class VerifyCommandTests : IAsyncLifetime
     [Fact]
     public async Task An_altered_timeline_entry_gives_exit_1_and_names_the_entry_in_json_and_text()
     {
-        await IntrudeAsync("DROP TRIGGER er_Activity_no_update;",
-            "UPDATE \"Activity\" SET \"ActorName\" = 'Somebody Else' WHERE \"Sequence\" = 2");
+        await IntrudeAsync("DROP TRIGGER er_Timeline_no_update;",
+            "UPDATE \"Timeline\" SET \"ActorName\" = 'Somebody Else' WHERE \"Sequence\" = 2");
 
         var (code, output, _) = CliRunner.Run(VerifyCommand.Build(), "verify", "--data", _dir, "--json");
         var (textCode, text, _) = CliRunner.Run(VerifyCommand.Build(), "verify", "--data", _dir);

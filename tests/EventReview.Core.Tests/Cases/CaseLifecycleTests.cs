@@ -44,7 +44,7 @@ public class CaseLifecycleTests
         _case.SubmitForDecision(People.Coordinator, Clock.At(2));
 
         Assert.Equal(CaseState.AwaitingDecision, _case.State);
-        Assert.Equal("case.state", _case.Activity[^1].Kind);
+        Assert.Equal("case.state", _case.Timeline[^1].Kind);
         Assert.Equal(3, _case.SignedItemCount);
     }
 
@@ -66,7 +66,7 @@ public class CaseLifecycleTests
         _case.ReturnToReview("The decision board wants a longer background run.", People.Coordinator, Clock.At(3));
 
         Assert.Equal(CaseState.InReview, _case.State);
-        Assert.Contains("longer background run", _case.Activity[^1].Text, StringComparison.Ordinal);
+        Assert.Contains("longer background run", _case.Timeline[^1].Text, StringComparison.Ordinal);
     }
 
     [Fact]
@@ -87,7 +87,7 @@ public class CaseLifecycleTests
         _case.AddNote("alpha.one", "Something new came up.", People.ReviewerA, Clock.At(3));
 
         Assert.Equal(CaseState.InReview, _case.State);
-        Assert.Equal(["signoff.stale", "case.state"], _case.Activity.TakeLast(2).Select(a => a.Kind));
+        Assert.Equal(["signoff.stale", "case.state"], _case.Timeline.TakeLast(2).Select(a => a.Kind));
     }
 
     [Fact]
@@ -131,8 +131,8 @@ public class CaseLifecycleTests
         Assert.Equal(CaseState.Closed, _case.State);
         Assert.Equal(CaseOutcome.Injection, _case.Outcome);
         Assert.Equal("It was a hardware injection.", _case.ClosingStatement);
-        Assert.Equal("case.closed", _case.Activity[^1].Kind);
-        Assert.Contains("injection", _case.Activity[^1].Text, StringComparison.Ordinal);
+        Assert.Equal("case.closed", _case.Timeline[^1].Kind);
+        Assert.Contains("injection", _case.Timeline[^1].Text, StringComparison.Ordinal);
     }
 
     [Fact]

@@ -63,6 +63,6 @@ public class RefusedChangeTests
         Assert.Equal(rule, ex.Rule);
         Assert.False(string.IsNullOrWhiteSpace(ex.Message));
         Assert.Equal(before, CaseSnapshot.Of(c));
-        Assert.Null(ActivityChain.FirstProblem(c.Activity));
+        Assert.Null(TimelineChain.FirstProblem(c.Timeline));
     }
 }

@@ -54,7 +54,7 @@ public class ChecklistFilesTests
 
         Assert.Equal(t.Items().Select(x => x.Item.Key), c.Items.Select(i => i.Key));
         Assert.All(c.Items, i => Assert.Equal(ItemState.Open, i.State));
-        Assert.Null(ActivityChain.FirstProblem(c.Activity));
+        Assert.Null(TimelineChain.FirstProblem(c.Timeline));
     }
 
     [Fact]

@@ -27,8 +27,8 @@ public class DossierBuilderTests
         Assert.Equal("eventreview-dossier/3", doc.SchemaVersion);
         Assert.Equal(["KX", "MV"], doc.Sites.Select(x => x.Code).ToArray());
         Assert.Equal(["timing.delay", "timing.notes", "config.frozen"], doc.Items.Select(i => i.Key).ToArray());
-        Assert.Equal(s.Case.Activity[^1].Hash, doc.ChainHead);
-        Assert.Equal(s.Case.Activity.Count, doc.Timeline.Count);
+        Assert.Equal(s.Case.Timeline[^1].Hash, doc.ChainHead);
+        Assert.Equal(s.Case.Timeline.Count, doc.Timeline.Count);
         var delay = doc.Items[0];
         Assert.Equal(["note", "attachment", "link"], delay.Evidence.Select(e => e.Kind).ToArray());
         Assert.Equal(s.AttachmentPath, delay.Evidence[1].AttachmentPath);
@@ -83,7 +83,7 @@ public class DossierBuilderTests
         var s = SampleCase.Build();
         var doc = DossierBuilder.Build(s.Case, [], []);
 
-        Assert.NotEqual(ActivityEntry.GenesisHash, doc.ChainHead);
+        Assert.NotEqual(TimelineEntry.GenesisHash, doc.ChainHead);
         Assert.Empty(doc.Sites);
         Assert.Empty(doc.Configurations);
     }

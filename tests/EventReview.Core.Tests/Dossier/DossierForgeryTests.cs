@@ -37,7 +37,7 @@ public class DossierForgeryTests
             var s = n["items"]![0]!["signOffs"]![0]!;
             var ticks = s["signedAtUtcTicks"]!.GetValue<long>() - TimeSpan.TicksPerDay;
             s["signedAtUtcTicks"] = ticks;
-            s["signedAtUtc"] = ActivityEntry.FormatUtc(new DateTimeOffset(ticks, TimeSpan.Zero));
+            s["signedAtUtc"] = TimelineEntry.FormatUtc(new DateTimeOffset(ticks, TimeSpan.Zero));
         },
         ["note text with its hash"] = n =>
         {
@@ -103,10 +103,10 @@ public class DossierForgeryTests
             const string Text = "Case closed as astrophysical: Confirmed.";
             const string Facts = "case.state=Closed\ncase.outcome=Astrophysical\ncase.closing=Confirmed.";
             var at = new DateTimeOffset(ticks, TimeSpan.Zero);
-            var hash = ActivityEntry.ComputeHash(n["case"]!["candidateId"]!.GetValue<string>(), seq, at, "u-coord", "Ada Quill", "case.closed", null, Text, Facts, last["hash"]!.GetValue<string>());
+            var hash = TimelineEntry.ComputeHash(n["case"]!["candidateId"]!.GetValue<string>(), seq, at, "u-coord", "Ada Quill", "case.closed", null, Text, Facts, last["hash"]!.GetValue<string>());
             timeline.Add(new JsonObject
             {
-                ["sequence"] = seq, ["atUtc"] = ActivityEntry.FormatUtc(at), ["atUtcTicks"] = ticks, ["actorId"] = "u-coord", ["actorName"] = "Ada Quill",
+                ["sequence"] = seq, ["atUtc"] = TimelineEntry.FormatUtc(at), ["atUtcTicks"] = ticks, ["actorId"] = "u-coord", ["actorName"] = "Ada Quill",
                 ["kind"] = "case.closed", ["itemKey"] = null, ["text"] = Text, ["previousHash"] = last["hash"]!.GetValue<string>(), ["hash"] = hash,
                 ["facts"] = Facts, ["keyId"] = null, ["mac"] = null,
             });
@@ -115,7 +115,7 @@ public class DossierForgeryTests
             n["case"]!["outcome"] = "astrophysical";
             n["case"]!["closingStatement"] = "Confirmed.";
             n["case"]!["updatedAtUtcTicks"] = ticks;
-            n["case"]!["updatedAtUtc"] = ActivityEntry.FormatUtc(at);
+            n["case"]!["updatedAtUtc"] = TimelineEntry.FormatUtc(at);
         });
         var doc = DossierJson.Deserialize<DossierDocument>(files[DossierManifest.DossierFileName]);
         DossierFiles.Reseal(files, doc.ChainHead, doc.Case.CandidateId, doc.Timeline[^1].Sequence);

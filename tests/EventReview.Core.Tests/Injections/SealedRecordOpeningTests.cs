@@ -112,12 +112,12 @@ public class SealedRecordOpeningTests
 
         c.RecordOverride(OpenItem, OpeningDecision.Rule, "Opened early at the committee chair's request.", People.Coordinator, Clock.T0);
 
-        var entry = c.Activity.MaxBy(a => a.Sequence)!;
+        var entry = c.Timeline.MaxBy(a => a.Sequence)!;
         Assert.Equal("override", entry.Kind);
         Assert.Equal(OpenItem, entry.ItemKey);
         Assert.Contains("sections-unsigned", entry.Text, StringComparison.Ordinal);
         Assert.Contains("committee chair's request", entry.Text, StringComparison.Ordinal);
-        Assert.Null(ActivityChain.FirstProblem(c.Activity));
+        Assert.Null(TimelineChain.FirstProblem(c.Timeline));
         Assert.Throws<ArgumentException>(() => c.RecordOverride(OpenItem, OpeningDecision.Rule, " ", People.Coordinator, Clock.T0));
     }
 }

@@ -13,7 +13,7 @@ public class CaseReplayTests
     {
         var c = SampleCase.Build(freezeInTimeline: false).Case;
 
-        var recorded = CaseReplay.Replay(c.Activity.Select(a => new CaseReplay.Entry(a.Sequence, a.Kind, a.ActorName, a.At.UtcTicks, a.Facts)));
+        var recorded = CaseReplay.Replay(c.Timeline.Select(a => new CaseReplay.Entry(a.Sequence, a.Kind, a.ActorName, a.At.UtcTicks, a.Facts)));
 
         Assert.Empty(recorded.Problems);
         Assert.Empty(CaseRecordCheck.Compare(c.CandidateId, recorded, StoredCase.Of(c, null)));
@@ -48,7 +48,7 @@ public class CaseReplayTests
     public void A_case_changed_outside_its_methods_no_longer_matches_its_replay()
     {
         var c = SampleCase.Build(freezeInTimeline: false).Case;
-        var recorded = CaseReplay.Replay(c.Activity.Select(a => new CaseReplay.Entry(a.Sequence, a.Kind, a.ActorName, a.At.UtcTicks, a.Facts)));
+        var recorded = CaseReplay.Replay(c.Timeline.Select(a => new CaseReplay.Entry(a.Sequence, a.Kind, a.ActorName, a.At.UtcTicks, a.Facts)));
         var stored = StoredCase.Of(c, null);
         var fields = new Dictionary<string, string>(stored.Fields) { ["case.state"] = nameof(CaseState.Closed) };
 

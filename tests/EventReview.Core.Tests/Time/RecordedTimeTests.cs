@@ -36,10 +36,10 @@ public class RecordedTimeTests
         var record = new ComputationRecord("timing", "{}", "", "1", "{}", "clear", "", "", People.ReviewerA, clockReading);
 
         var expected = Clock.T0.AddMilliseconds(123);
-        Assert.Equal(expected, c.Activity[0].At);
+        Assert.Equal(expected, c.Timeline[0].At);
         Assert.Equal(expected, note.AddedAt);
         Assert.Equal(expected, record.RunAt);
-        Assert.Contains("2026-03-01T12:00:00.1230000Z", c.Activity[0].CanonicalContent(), StringComparison.Ordinal);
-        Assert.Null(ActivityChain.FirstProblem(c.Activity));
+        Assert.Contains("2026-03-01T12:00:00.1230000Z", c.Timeline[0].CanonicalContent(), StringComparison.Ordinal);
+        Assert.Null(TimelineChain.FirstProblem(c.Timeline));
     }
 }

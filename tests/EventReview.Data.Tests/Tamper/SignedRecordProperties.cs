@@ -21,7 +21,7 @@ public sealed class SignedRecordProperties : IAsyncLifetime
 {
     private static readonly Actor[] People = [SampleCases.ReviewerA, SampleCases.ReviewerB, SampleCases.ReviewerC, SampleCases.Coordinator];
     private static readonly string[] Keys = ["alpha.one", "alpha.two", "beta.one"];
-    private static readonly string[] Tables = ["Cases", "CaseArrivals", "ChecklistItems", "Evidence", "Computations", "SignOffs", "Activity"];
+    private static readonly string[] Tables = ["Cases", "CaseArrivals", "ChecklistItems", "Evidence", "Computations", "SignOffs", "Timeline"];
 
     /// <summary>Columns that carry no review meaning: row ids, links to the parent row, optimistic-concurrency versions.</summary>
     private static readonly HashSet<string> Skipped = ["Id", "ReviewCaseId", "ChecklistItemId", "Version"];
@@ -74,7 +74,7 @@ public sealed class SignedRecordProperties : IAsyncLifetime
         }
 
         var before = await ProblemsAsync(c.Id);
-        Assert.True(before.Count == 0, $"{c.Activity.Count} entries; an unaltered review must verify: " + string.Join("; ", before));
+        Assert.True(before.Count == 0, $"{c.Timeline.Count} entries; an unaltered review must verify: " + string.Join("; ", before));
 
         var alteration = await AlterAsync(c.Id, pick);
         var after = await ProblemsAsync(c.Id);
@@ -155,7 +155,7 @@ public sealed class SignedRecordProperties : IAsyncLifetime
             var owner = table switch
             {
                 "Cases" => $"\"Id\" = {caseId}",
-                "CaseArrivals" or "ChecklistItems" or "Activity" => $"\"ReviewCaseId\" = {caseId}",
+                "CaseArrivals" or "ChecklistItems" or "Timeline" => $"\"ReviewCaseId\" = {caseId}",
                 _ => $"\"ChecklistItemId\" IN (SELECT \"Id\" FROM \"ChecklistItems\" WHERE \"ReviewCaseId\" = {caseId})",
             };
 #pragma warning disable EF1002 // fixed test SQL with numbers only

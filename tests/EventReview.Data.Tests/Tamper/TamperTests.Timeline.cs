@@ -38,7 +38,7 @@ public abstract partial class TamperTests
     [Fact]
     public async Task Altering_the_text_of_an_entry_is_caught_naming_the_entry()
     {
-        await IntrudeAsync("UPDATE \"Activity\" SET \"Text\" = 'Nothing happened.' WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 3");
+        await IntrudeAsync("UPDATE \"Timeline\" SET \"Text\" = 'Nothing happened.' WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 3");
 
         var p = await CaughtAsync(null, "Timeline: Entry 3 (", "was altered: its content no longer matches its hash");
         Assert.Equal(3, p.Entry);
@@ -67,7 +67,7 @@ public abstract partial class TamperTests
     [Fact]
     public async Task Removing_the_signature_of_an_entry_is_caught()
     {
-        await IntrudeAsync("UPDATE \"Activity\" SET \"Mac\" = NULL, \"KeyId\" = NULL WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 4");
+        await IntrudeAsync("UPDATE \"Timeline\" SET \"Mac\" = NULL, \"KeyId\" = NULL WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 4");
 
         await CaughtAsync(null, "entry 4 (", "carries no signature");
     }
@@ -75,7 +75,7 @@ public abstract partial class TamperTests
     [Fact]
     public async Task Copying_the_signature_of_another_entry_is_caught()
     {
-        await IntrudeAsync("UPDATE \"Activity\" SET \"Mac\" = (SELECT a.\"Mac\" FROM \"Activity\" a WHERE a.\"ReviewCaseId\" = @case AND a.\"Sequence\" = 2) WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 5");
+        await IntrudeAsync("UPDATE \"Timeline\" SET \"Mac\" = (SELECT a.\"Mac\" FROM \"Timeline\" a WHERE a.\"ReviewCaseId\" = @case AND a.\"Sequence\" = 2) WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 5");
 
         await CaughtAsync(null, "entry 5 (", "does not match its signature");
     }
@@ -83,7 +83,7 @@ public abstract partial class TamperTests
     [Fact]
     public async Task Deleting_an_entry_in_the_middle_is_caught_naming_the_gap()
     {
-        await IntrudeAsync("DELETE FROM \"Activity\" WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 4");
+        await IntrudeAsync("DELETE FROM \"Timeline\" WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 4");
 
         var p = await CaughtAsync(null, "Entry 4 is missing (entry 5 follows entry 3)");
         Assert.Equal(5, p.Entry);
@@ -93,7 +93,7 @@ public abstract partial class TamperTests
     public async Task Removing_the_newest_entry_is_caught_by_the_witness()
     {
         var last = (await EntriesAsync())[^1].Sequence;
-        await IntrudeAsync($"DELETE FROM \"Activity\" WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = {last}");
+        await IntrudeAsync($"DELETE FROM \"Timeline\" WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = {last}");
 
         var p = await CaughtAsync(null, "the newest entries were removed", $"the witness saw entry {last}", $"the timeline ends at entry {last - 1}");
         Assert.Equal(last, p.Entry);
@@ -104,7 +104,7 @@ public abstract partial class TamperTests
     {
         // The last two entries set a due date and froze the configuration: undo both and delete them.
         var entries = await EntriesAsync();
-        await IntrudeAsync($"DELETE FROM \"Activity\" WHERE \"ReviewCaseId\" = @case AND \"Sequence\" >= {entries[^2].Sequence}");
+        await IntrudeAsync($"DELETE FROM \"Timeline\" WHERE \"ReviewCaseId\" = @case AND \"Sequence\" >= {entries[^2].Sequence}");
         await IntrudeAsync($"DELETE FROM \"Computations\" WHERE \"Verdict\" = 'frozen' AND \"ChecklistItemId\" = {Item("beta.one")}");
         await IntrudeAsync($"UPDATE \"ConfigurationSnapshots\" SET \"IsFrozen\" = {{0}} WHERE \"Id\" = {FrozenId}", false);
 
@@ -114,7 +114,7 @@ public abstract partial class TamperTests
     [Fact]
     public async Task Deleting_a_whole_case_is_caught_by_the_witness()
     {
-        await IntrudeAsync("DELETE FROM \"Activity\" WHERE \"ReviewCaseId\" = @case");
+        await IntrudeAsync("DELETE FROM \"Timeline\" WHERE \"ReviewCaseId\" = @case");
         await IntrudeAsync("DELETE FROM \"SignOffs\" WHERE \"ChecklistItemId\" IN (SELECT \"Id\" FROM \"ChecklistItems\" WHERE \"ReviewCaseId\" = @case)");
         await IntrudeAsync("DELETE FROM \"Evidence\" WHERE \"ChecklistItemId\" IN (SELECT \"Id\" FROM \"ChecklistItems\" WHERE \"ReviewCaseId\" = @case)");
         await IntrudeAsync("DELETE FROM \"Computations\" WHERE \"ChecklistItemId\" IN (SELECT \"Id\" FROM \"ChecklistItems\" WHERE \"ReviewCaseId\" = @case)");
@@ -130,9 +130,9 @@ public abstract partial class TamperTests
     {
         var last = (await EntriesAsync())[^1];
         var at = last.At.AddMinutes(1);
-        var hash = Core.Cases.ActivityEntry.ComputeHash(Candidate, last.Sequence + 1, at, "u-coord", "Coordinator Cole", "case.closed", null, "Case closed as astrophysical.",
+        var hash = Core.Cases.TimelineEntry.ComputeHash(Candidate, last.Sequence + 1, at, "u-coord", "Coordinator Cole", "case.closed", null, "Case closed as astrophysical.",
             "case.state=Closed\ncase.outcome=Astrophysical\ncase.closing=Done.", last.Hash);
-        await IntrudeAsync("INSERT INTO \"Activity\" (\"ReviewCaseId\", \"CandidateId\", \"Sequence\", \"At\", \"ActorId\", \"ActorName\", \"Kind\", \"ItemKey\", \"Text\", \"PreviousHash\", \"Hash\", \"Facts\") " +
+        await IntrudeAsync("INSERT INTO \"Timeline\" (\"ReviewCaseId\", \"CandidateId\", \"Sequence\", \"At\", \"ActorId\", \"ActorName\", \"Kind\", \"ItemKey\", \"Text\", \"PreviousHash\", \"Hash\", \"Facts\") " +
             "VALUES (@case, {0}, {1}, {2}, 'u-coord', 'Coordinator Cole', 'case.closed', NULL, 'Case closed as astrophysical.', {3}, {4}, {5})",
             Candidate, last.Sequence + 1, Stored(at), last.Hash, hash, "case.state=Closed\ncase.outcome=Astrophysical\ncase.closing=Done.");
 
@@ -142,9 +142,9 @@ public abstract partial class TamperTests
     [Fact]
     public async Task Swapping_two_entries_is_caught()
     {
-        await IntrudeAsync("UPDATE \"Activity\" SET \"Sequence\" = 1000 WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 4");
-        await IntrudeAsync("UPDATE \"Activity\" SET \"Sequence\" = 4 WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 5");
-        await IntrudeAsync("UPDATE \"Activity\" SET \"Sequence\" = 5 WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 1000");
+        await IntrudeAsync("UPDATE \"Timeline\" SET \"Sequence\" = 1000 WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 4");
+        await IntrudeAsync("UPDATE \"Timeline\" SET \"Sequence\" = 4 WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 5");
+        await IntrudeAsync("UPDATE \"Timeline\" SET \"Sequence\" = 5 WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 1000");
 
         var p = await CaughtAsync(null, "Entry 4 (", "does not link to entry 3");
         Assert.Equal(4, p.Entry);
@@ -153,7 +153,7 @@ public abstract partial class TamperTests
     [Fact]
     public async Task Moving_an_entry_to_another_case_is_caught_in_both()
     {
-        await IntrudeAsync("UPDATE \"Activity\" SET \"ReviewCaseId\" = (SELECT \"Id\" FROM \"Cases\" WHERE \"CandidateId\" = {0}), \"Sequence\" = 999 WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 3", Other);
+        await IntrudeAsync("UPDATE \"Timeline\" SET \"ReviewCaseId\" = (SELECT \"Id\" FROM \"Cases\" WHERE \"CandidateId\" = {0}), \"Sequence\" = 999 WHERE \"ReviewCaseId\" = @case AND \"Sequence\" = 3", Other);
 
         var (cases, _) = await new IntegrityVerifier(Factory, Store, Settings, Records).VerifyAsync();
         Assert.All(cases, c => Assert.False(c.Valid));

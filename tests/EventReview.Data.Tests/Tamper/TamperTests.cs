@@ -183,26 +183,26 @@ public abstract partial class TamperTests : IAsyncLifetime
     /// Rewrites the tampered case's timeline from <paramref name="from"/> on as someone who knows the format but not the
     /// key would: <paramref name="change"/> edits an entry (text, facts), then every hash and link is recomputed.
     /// </summary>
-    protected async Task RewriteChainAsync(int from, Func<ActivityEntry, (string Text, string? Facts)> change)
+    protected async Task RewriteChainAsync(int from, Func<TimelineEntry, (string Text, string? Facts)> change)
     {
         await using var db = Factory.CreateDbContext();
         await DropGuardsAsync(db);
-        var entries = await db.Activity.AsNoTracking().Where(a => a.ReviewCaseId == CaseId).OrderBy(a => a.Sequence).ToListAsync();
+        var entries = await db.Timeline.AsNoTracking().Where(a => a.ReviewCaseId == CaseId).OrderBy(a => a.Sequence).ToListAsync();
         var previous = entries.First(a => a.Sequence == from).PreviousHash;
         foreach (var e in entries.Where(a => a.Sequence >= from))
         {
             var (text, facts) = e.Sequence == from ? change(e) : (e.Text, e.Facts);
-            var hash = ActivityEntry.ComputeHash(e.CandidateId, e.Sequence, e.At, e.ActorId, e.ActorName, e.Kind, e.ItemKey, text, facts, previous);
-            await db.Database.ExecuteSqlRawAsync("UPDATE \"Activity\" SET \"Text\" = {0}, \"Facts\" = {1}, \"PreviousHash\" = {2}, \"Hash\" = {3} WHERE \"Id\" = {4}",
+            var hash = TimelineEntry.ComputeHash(e.CandidateId, e.Sequence, e.At, e.ActorId, e.ActorName, e.Kind, e.ItemKey, text, facts, previous);
+            await db.Database.ExecuteSqlRawAsync("UPDATE \"Timeline\" SET \"Text\" = {0}, \"Facts\" = {1}, \"PreviousHash\" = {2}, \"Hash\" = {3} WHERE \"Id\" = {4}",
                 text, (object?)facts ?? DBNull.Value, previous, hash, e.Id);
             previous = hash;
         }
     }
 
     /// <summary>The tampered case's timeline entries, oldest first.</summary>
-    protected async Task<List<ActivityEntry>> EntriesAsync()
+    protected async Task<List<TimelineEntry>> EntriesAsync()
     {
         await using var db = Factory.CreateDbContext();
-        return await db.Activity.AsNoTracking().Where(a => a.ReviewCaseId == CaseId).OrderBy(a => a.Sequence).ToListAsync();
+        return await db.Timeline.AsNoTracking().Where(a => a.ReviewCaseId == CaseId).OrderBy(a => a.Sequence).ToListAsync();
     }
 }

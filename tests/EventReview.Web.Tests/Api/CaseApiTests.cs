@@ -7,7 +7,7 @@ using Microsoft.Extensions.DependencyInjection;
 
 namespace EventReview.Web.Tests.Api;
 
-public sealed class CaseApiTests(EventReviewFactory app) : IClassFixture<EventReviewFactory>
+public sealed partial class CaseApiTests(EventReviewFactory app) : IClassFixture<EventReviewFactory>
 {
     [Fact]
     public async Task Opening_a_case_returns_201_with_its_id_location_and_checklist_in_camel_case()
@@ -241,10 +241,12 @@ public sealed class CaseApiTests(EventReviewFactory app) : IClassFixture<EventRe
         var id = (await (await (await app.As(Who.Coordinator)).OpenCaseAsync(ApiCalls.OpenCaseBody(ApiCalls.NewCandidateId()))).JsonAsync())["id"]!.GetValue<int>();
         using (var scope = app.Services.CreateScope())
         {
-            var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
-            await cases.AddNoteAsync(Principals.Reviewer("u-a", "Reviewer Ada"), id, "triage.timing", "Evidence.");
-            var c = await cases.TransitionAsync(Principals.Reviewer("u-a", "Reviewer Ada"), id, "triage.timing", "ready", null);
-            await cases.SignAsync(Principals.Reviewer("u-b", "Reviewer Bo"), id, "triage.timing", SignOffMeaning.Reviewed, "ok", c.Item("triage.timing").Fingerprint());
+            var appender = scope.ServiceProvider.GetRequiredService<EvidenceAppender>();
+            var workflow = scope.ServiceProvider.GetRequiredService<CaseWorkflow>();
+            await appender.AddNoteAsync(Principals.Reviewer("u-a", "Reviewer Ada"), id, "triage.timing", "Evidence.");
+            var c = await workflow.TransitionAsync(Principals.Reviewer("u-a", "Reviewer Ada"), id, "triage.timing", "ready", null);
+            var reviewerB = Principals.Reviewer("u-b", "Reviewer Bo");
+            await workflow.SignAsync(reviewerB, id, "triage.timing", SignOffMeaning.Reviewed, "ok", c.Item("triage.timing").Fingerprint(), await Signers.ProofAsync(scope.ServiceProvider, reviewerB));
         }
 
         Assert.Equal("signed-off", (string?)(await client.ItemAsync(id, "triage.timing"))["state"]);
@@ -300,75 +302,5 @@ public sealed class CaseApiTests(EventReviewFactory app) : IClassFixture<EventRe
         var problem = await response.JsonAsync();
         Assert.Equal("case-closed", (string?)problem["rule"]);
         Assert.Contains("closed", (string?)problem["detail"], StringComparison.Ordinal);
-    }
-
-    [Fact]
-    public async Task An_attachment_is_stored_by_its_sha256_and_can_be_downloaded()
-    {
-        var client = await app.As(Who.Reviewer);
-        var id = await client.CaseIdAsync("ER-C-0142");
-        var bytes = System.Security.Cryptography.RandomNumberGenerator.GetBytes(5000);
-        var sha = Hashing.Sha256Hex(bytes);
-
-        var response = await client.AttachAsync(id, "timing.arrival", bytes, "../../evil/strain plot.bin", "A plot");
-
-        Assert.Equal(HttpStatusCode.Created, response.StatusCode);
-        var json = await response.JsonAsync();
-        Assert.Equal(sha, (string?)json["sha256"]);
-        Assert.Equal(5000, json["sizeBytes"]!.GetValue<long>());
-        Assert.Equal("strain plot.bin", (string?)json["fileName"]);
-        Assert.Equal(bytes, await File.ReadAllBytesAsync(Path.Combine(app.AttachmentDirectory, sha[..2], sha)));
-        Assert.Equal(bytes, await client.GetByteArrayAsync($"/files/{sha}"));
-        Assert.Equal((string?)json["fingerprint"], (string?)(await client.ItemAsync(id, "timing.arrival"))["fingerprint"]);
-    }
-
-    [Fact]
-    public async Task An_attachment_over_the_configured_limit_is_a_413_and_nothing_is_kept()
-    {
-        var client = await app.As(Who.Reviewer);
-        var id = await client.CaseIdAsync("ER-C-0142");
-        var bytes = System.Security.Cryptography.RandomNumberGenerator.GetBytes((int)EventReviewFactory.MaxUploadBytes + 1);
-        var before = await client.ItemAsync(id, "timing.arrival");
-
-        var response = await client.AttachAsync(id, "timing.arrival", bytes);
-
-        Assert.Equal(HttpStatusCode.RequestEntityTooLarge, response.StatusCode);
-        Assert.Equal("File too large", (string?)(await response.JsonAsync())["title"]);
-        var sha = Hashing.Sha256Hex(bytes);
-        Assert.False(File.Exists(Path.Combine(app.AttachmentDirectory, sha[..2], sha)));
-        Assert.Empty(Directory.EnumerateFiles(app.AttachmentDirectory, ".incoming-*", SearchOption.AllDirectories));
-        Assert.Equal((string?)before["fingerprint"], (string?)(await client.ItemAsync(id, "timing.arrival"))["fingerprint"]);
-    }
-
-    [Fact]
-    public async Task An_attachment_request_without_a_file_is_a_422_naming_the_field_and_one_that_is_not_a_form_a_415()
-    {
-        var client = await app.As(Who.Reviewer);
-        var id = await client.CaseIdAsync("ER-C-0142");
-        var form = new MultipartFormDataContent { { new StringContent("only words"), "description" } };
-
-        var response = await client.PostAsync($"/api/cases/{id}/items/timing.arrival/attachments", form);
-        var notMultipart = await client.PostAsJsonAsync($"/api/cases/{id}/items/timing.arrival/attachments", new { file = "x" });
-
-        Assert.Equal(HttpStatusCode.UnprocessableEntity, response.StatusCode);
-        Assert.Equal("file", (string?)(await response.JsonAsync())["field"]);
-        Assert.Equal(HttpStatusCode.UnsupportedMediaType, notMultipart.StatusCode);
-        Assert.Contains("multipart/form-data", (string?)(await notMultipart.JsonAsync())["detail"], StringComparison.Ordinal);
-    }
-
-    [Fact]
-    public async Task The_openapi_document_describes_every_api_endpoint()
-    {
-        var client = await app.As(Who.Observer);
-
-        var doc = await (await client.GetAsync("/openapi/v1.json")).JsonAsync();
-
-        var paths = doc["paths"]!.AsObject().Select(p => p.Key).ToList();
-        Assert.Contains("/api/cases", paths);
-        Assert.Contains("/api/cases/{id}", paths);
-        Assert.Contains("/api/sites", paths);
-        Assert.Contains("/api/cases/{id}/items/{key}/notes", paths);
-        Assert.Contains("/api/cases/{id}/items/{key}/attachments", paths);
-        Assert.NotNull(doc["paths"]!["/api/cases"]!["post"]);
     }
 }

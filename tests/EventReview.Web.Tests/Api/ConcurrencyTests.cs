@@ -30,9 +30,9 @@ public sealed class ConcurrencyTests(EventReviewFactory app) : IClassFixture<Eve
         var stored = await db.CasesWithEverything().AsNoTracking().SingleAsync(c => c.Id == id);
         var notes = stored.Item("triage.timing").Evidence.Where(e => e.Kind == EvidenceKind.Note).Select(e => e.Text).Order(StringComparer.Ordinal);
         Assert.Equal(texts, notes);
-        Assert.Null(ActivityChain.FirstProblem(stored.Activity));
-        Assert.Equal(1 + Writers, stored.Activity.Count);
-        Assert.Equal(Enumerable.Range(1, 1 + Writers), stored.Activity.Select(a => a.Sequence).Order());
+        Assert.Null(TimelineChain.FirstProblem(stored.Timeline));
+        Assert.Equal(1 + Writers, stored.Timeline.Count);
+        Assert.Equal(Enumerable.Range(1, 1 + Writers), stored.Timeline.Select(a => a.Sequence).Order());
     }
 
     [Fact]
@@ -51,7 +51,7 @@ public sealed class ConcurrencyTests(EventReviewFactory app) : IClassFixture<Eve
         Assert.All(json["items"]!.AsArray(), i => Assert.Equal(1, i!["evidenceCount"]!.GetValue<int>()));
         Assert.All(json["items"]!.AsArray(), i => Assert.Equal("in-progress", (string?)i!["state"]));
         await using var db = app.Db();
-        Assert.Null(ActivityChain.FirstProblem((await db.CasesWithEverything().AsNoTracking().SingleAsync(c => c.Id == id)).Activity));
+        Assert.Null(TimelineChain.FirstProblem((await db.CasesWithEverything().AsNoTracking().SingleAsync(c => c.Id == id)).Timeline));
     }
 
     [Fact]

@@ -8,11 +8,11 @@ namespace EventReview.Web.Tests.Api;
 /// <summary>A refused request changes nothing: no case, no evidence, no file, no timeline entry.</summary>
 public sealed class FailedRequestTests(EventReviewFactory app) : IClassFixture<EventReviewFactory>
 {
-    private async Task<(int Cases, int Evidence, int Activity, int Files)> CountsAsync()
+    private async Task<(int Cases, int Evidence, int Timeline, int Files)> CountsAsync()
     {
         await using var db = app.Db();
         var files = Directory.Exists(app.AttachmentDirectory) ? Directory.EnumerateFiles(app.AttachmentDirectory, "*", SearchOption.AllDirectories).Count() : 0;
-        return (await db.Cases.CountAsync(), await db.Evidence.CountAsync(), await db.Activity.CountAsync(), files);
+        return (await db.Cases.CountAsync(), await db.Evidence.CountAsync(), await db.Timeline.CountAsync(), files);
     }
 
     [Fact]
@@ -126,6 +126,6 @@ public sealed class FailedRequestTests(EventReviewFactory app) : IClassFixture<E
         var cases = await db.CasesWithEverything().AsNoTracking().ToListAsync();
 
         Assert.NotEmpty(cases);
-        Assert.All(cases, c => Assert.Null(ActivityChain.FirstProblem(c.Activity)));
+        Assert.All(cases, c => Assert.Null(TimelineChain.FirstProblem(c.Timeline)));
     }
 }

@@ -59,7 +59,7 @@ public sealed class PagedReadTests(EventReviewFactory app) : IClassFixture<Event
 
         var overview = await (await client.GetAsync($"/api/cases/{id}")).JsonAsync();
         using var scope = app.Services.CreateScope();
-        var whole = await scope.ServiceProvider.GetRequiredService<CaseService>().GetAsync(Principals.Coordinator("test-coordinator", "Test Coordinator"), id);
+        var whole = await scope.ServiceProvider.GetRequiredService<CaseQueries>().GetAsync(Principals.Coordinator("test-coordinator", "Test Coordinator"), id);
         foreach (var item in overview["items"]!.AsArray())
         {
             var full = whole.Item((string)item!["key"]!);

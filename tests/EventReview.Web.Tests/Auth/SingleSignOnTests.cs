@@ -159,7 +159,7 @@ public sealed class SingleSignOnTests(SingleSignOnFactory app) : IClassFixture<S
             Assert.Equal($"/cases/{item.CaseId}/items/{item.Key}", browser.Location.AbsolutePath);
             var request = await RequestAsync(id);
             Assert.True(request.Signed, request.Outcome);
-            var c = await Get<CaseService>().GetAsync(Principals.Coordinator("t", "t"), item.CaseId);
+            var c = await Get<CaseQueries>().GetAsync(Principals.Coordinator("t", "t"), item.CaseId);
             var signOff = Assert.Single(c.Item(item.Key).SignOffs);
             Assert.Equal((signer.Account.Id, "Checked at the provider."), (signOff.UserId, signOff.Statement));
             Assert.Contains(await AuditAsync(signer.Account.Id), e => e.Kind == AccountEventKinds.SignatureReauthenticated);
@@ -185,13 +185,13 @@ public sealed class SingleSignOnTests(SingleSignOnFactory app) : IClassFixture<S
                 var request = await RequestAsync(id);
                 Assert.False(request.Signed);
                 Assert.Contains("did not ask for your credentials again", request.Outcome, StringComparison.Ordinal);
-                var c = await Get<CaseService>().GetAsync(Principals.Coordinator("t", "t"), item.CaseId);
+                var c = await Get<CaseQueries>().GetAsync(Principals.Coordinator("t", "t"), item.CaseId);
                 Assert.Empty(c.Item(item.Key).SignOffs);
                 Assert.Contains(await AuditAsync(signer.Account.Id), e => e.Kind == AccountEventKinds.SignatureRefused);
 
                 // The request is used up: coming back to it signs nothing.
                 await browser.GoAsync($"/account/sso/sign/{id}");
-                Assert.Empty((await Get<CaseService>().GetAsync(Principals.Coordinator("t", "t"), item.CaseId)).Item(item.Key).SignOffs);
+                Assert.Empty((await Get<CaseQueries>().GetAsync(Principals.Coordinator("t", "t"), item.CaseId)).Item(item.Key).SignOffs);
             }
             finally
             {
@@ -214,7 +214,7 @@ public sealed class SingleSignOnTests(SingleSignOnFactory app) : IClassFixture<S
             var request = await RequestAsync(id);
             Assert.False(request.Signed);
             Assert.Contains("different person", request.Outcome, StringComparison.Ordinal);
-            Assert.Empty((await Get<CaseService>().GetAsync(Principals.Coordinator("t", "t"), item.CaseId)).Item(item.Key).SignOffs);
+            Assert.Empty((await Get<CaseQueries>().GetAsync(Principals.Coordinator("t", "t"), item.CaseId)).Item(item.Key).SignOffs);
         }
     }
 
@@ -258,12 +258,13 @@ public sealed class SingleSignOnTests(SingleSignOnFactory app) : IClassFixture<S
 
         var coordinator = Principals.Coordinator("u-coord-sso", "Coordinator Sso");
         var owner = Principals.Reviewer("u-owner-sso", "Owner Sso");
-        var cases = Get<CaseService>();
+        var appender = Get<EvidenceAppender>();
+        var workflow = Get<CaseWorkflow>();
         var gps = 1_400_000_000.125m;
-        var opened = (await cases.OpenAsync(coordinator, new OpenCaseRequest(ApiCalls.NewCandidateId(), gps, "test-search", "SSO signing.",
+        var opened = (await workflow.OpenAsync(coordinator, new OpenCaseRequest(ApiCalls.NewCandidateId(), gps, "test-search", "SSO signing.",
             [new ArrivalRequest("KP", gps + 0.004m, 9.5), new ArrivalRequest("AB", gps - 0.002m, 7.0)], "rapid-triage"))).Case;
-        await cases.AddNoteAsync(owner, opened.Id, "triage.timing", "Timing looks consistent.");
-        var c = await cases.TransitionAsync(owner, opened.Id, "triage.timing", "ready", null);
+        await appender.AddNoteAsync(owner, opened.Id, "triage.timing", "Timing looks consistent.");
+        var c = await workflow.TransitionAsync(owner, opened.Id, "triage.timing", "ready", null);
         return (browser, new Signer(person, account), (c.Id, "triage.timing", c.Item("triage.timing").Fingerprint()));
     }
 }

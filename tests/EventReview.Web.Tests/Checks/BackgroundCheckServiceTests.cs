@@ -119,7 +119,8 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
     public async Task A_malformed_trigger_file_is_refused_naming_its_line_and_nothing_is_stored()
     {
         using var scope = app.Services.CreateScope();
-        var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
+        var cases = scope.ServiceProvider.GetRequiredService<CaseQueries>();
+        var appender = scope.ServiceProvider.GetRequiredService<EvidenceAppender>();
         var c = await Case(scope, "ER-C-0142");
         const string item = "significance.far";
         var stored = Read(Latest(c, Item)!);
@@ -129,7 +130,7 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
         var badSha = Hashing.Sha256Hex(Encoding.UTF8.GetBytes(bad));
         using (var stream = new MemoryStream(Encoding.UTF8.GetBytes(bad)))
         {
-            await cases.AddAttachmentAsync(BackgroundAppFactory.Reviewer, c.Id, item, stream, "KP-bad-triggers.csv", "text/csv", "malformed on purpose", long.MaxValue);
+            await appender.AddAttachmentAsync(BackgroundAppFactory.Reviewer, c.Id, item, stream, "KP-bad-triggers.csv", "text/csv", "malformed on purpose", long.MaxValue);
         }
 
         var sites = stored.Sites.Select(s => new BackgroundSiteFiles(s.SiteCode, s.SiteCode == "KP" ? badSha : s.TriggersSha256, s.SegmentsSha256)).ToList();
@@ -144,7 +145,7 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
     public async Task Too_few_slides_for_three_sigma_is_a_concern_that_says_why()
     {
         using var scope = app.Services.CreateScope();
-        var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
+        var appender = scope.ServiceProvider.GetRequiredService<EvidenceAppender>();
         var c = await Case(scope, "ER-C-0157");
         const string item = "triage.significance";
         var start = new GpsTime(c.GpsNanoseconds - (36L * 3600 * GpsTime.NanosecondsPerSecond));
@@ -155,8 +156,8 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
         {
             var f = BackgroundDemoData.Simulate(a.SiteCode, seed++, start, end, a.Arrival, a.Snr);
             picks.Add(new BackgroundSiteFiles(a.SiteCode,
-                await Attach(cases, c.Id, item, $"{a.SiteCode}-triggers.csv", f.TriggersCsv),
-                await Attach(cases, c.Id, item, $"{a.SiteCode}-segments.csv", f.SegmentsCsv)));
+                await Attach(appender, c.Id, item, $"{a.SiteCode}-triggers.csv", f.TriggersCsv),
+                await Attach(appender, c.Id, item, $"{a.SiteCode}-segments.csv", f.SegmentsCsv)));
         }
 
         // K = 2: 4 slides give about 4 x T_obs of background; the bound then cannot pass Q^-1(1 - exp(-1/4)) ~ 0.8 sigma
@@ -179,7 +180,8 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
 
     private static async Task<ReviewCase> Case(IServiceScope scope, string candidateId)
     {
-        var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
+        var cases = scope.ServiceProvider.GetRequiredService<CaseQueries>();
+        var appender = scope.ServiceProvider.GetRequiredService<EvidenceAppender>();
         var id = (await cases.ListAsync(BackgroundAppFactory.Reviewer, search: candidateId)).Cases.Single(x => x.CandidateId == candidateId).Id;
         return await cases.GetAsync(BackgroundAppFactory.Reviewer, id);
     }
@@ -197,11 +199,11 @@ public sealed class BackgroundCheckServiceTests(BackgroundAppFactory app) : ICla
         return SiteTriggers.Create(s.SiteCode, triggers, segments.Segments);
     }
 
-    private static async Task<string> Attach(CaseService cases, int caseId, string item, string name, string text)
+    private static async Task<string> Attach(EvidenceAppender appender, int caseId, string item, string name, string text)
     {
         var bytes = Encoding.UTF8.GetBytes(text);
         using var stream = new MemoryStream(bytes);
-        await cases.AddAttachmentAsync(BackgroundAppFactory.Reviewer, caseId, item, stream, name, "text/csv", "test input", long.MaxValue);
+        await appender.AddAttachmentAsync(BackgroundAppFactory.Reviewer, caseId, item, stream, name, "text/csv", "test input", long.MaxValue);
         return Hashing.Sha256Hex(bytes);
     }
 

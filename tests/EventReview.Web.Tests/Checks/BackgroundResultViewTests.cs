@@ -17,7 +17,7 @@ public sealed class BackgroundResultViewTests(BackgroundAppFactory app) : IClass
         ComputationRecord record;
         using (var scope = app.Services.CreateScope())
         {
-            var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
+            var cases = scope.ServiceProvider.GetRequiredService<CaseQueries>();
             var id = (await cases.ListAsync(BackgroundAppFactory.Reviewer, search: BackgroundDemoStep.CandidateId)).Cases.Single(x => x.CandidateId == BackgroundDemoStep.CandidateId).Id;
             var c = await cases.GetAsync(BackgroundAppFactory.Reviewer, id);
             record = c.Item(BackgroundDemoStep.ItemKey).Computations.First(r => r.Kind == BackgroundCheckService.Kind);

@@ -79,6 +79,6 @@ public sealed class ChainCheckServiceTests(LocalCausesHarness app) : IClassFixtu
         var e2 = await Assert.ThrowsAsync<FormatException>(() => service.RunAsync(app.Reviewer, caseId, "chain.residual", p with { OutputShas = [badSeries] }));
         Assert.Contains("'bad-output.txt'", e2.Message, StringComparison.Ordinal);
         Assert.Contains("line 3", e2.Message, StringComparison.Ordinal);
-        Assert.Empty((await app.Get<CaseService>().GetAsync(app.Reviewer, caseId)).Item("chain.residual").Computations);
+        Assert.Empty((await app.Get<CaseQueries>().GetAsync(app.Reviewer, caseId)).Item("chain.residual").Computations);
     }
 }

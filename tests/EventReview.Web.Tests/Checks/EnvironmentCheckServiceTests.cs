@@ -87,7 +87,7 @@ public sealed class EnvironmentCheckServiceTests(LocalCausesHarness app) : IClas
 
         Assert.Contains("'bad-triggers.csv'", ex.Message, StringComparison.Ordinal);
         Assert.Contains("line 3", ex.Message, StringComparison.Ordinal);
-        var c = await app.Get<CaseService>().GetAsync(app.Reviewer, caseId);
+        var c = await app.Get<CaseQueries>().GetAsync(app.Reviewer, caseId);
         Assert.Empty(c.Item("env.triggers").Computations);
     }
 

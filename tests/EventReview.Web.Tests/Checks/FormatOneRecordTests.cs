@@ -7,6 +7,7 @@ using EventReview.Web.Components.Checks;
 using EventReview.Web.Components.Pages.Cases;
 using EventReview.Web.Services.Checks;
 using Microsoft.AspNetCore.Components;
+using Microsoft.Extensions.DependencyInjection;
 using MudBlazor.Services;
 
 namespace EventReview.Web.Tests.Checks;
@@ -17,6 +18,12 @@ public sealed class FormatOneRecordTests : BunitContext
     public FormatOneRecordTests()
     {
         Services.AddMudServices(o => o.SnackbarConfiguration.ShowTransitionDuration = 0);
+        // The result views as the app registers them (ComputationView finds a record's view through CheckRunners).
+        Services.AddCheckView<ChainRunner, ChainResultView>(Core.Checklists.CheckKind.Chain);
+        Services.AddCheckView<BackgroundRunner, BackgroundResultView>(Core.Checklists.CheckKind.Background);
+        Services.AddCheckView<EnvironmentRunner, EnvironmentResultView>(Core.Checklists.CheckKind.Environment);
+        Services.AddCheckView<InjectionsRunner, InjectionsResultView>(Core.Checklists.CheckKind.Injections);
+        Services.AddSingleton<CheckRunners>();
         JSInterop.Mode = JSRuntimeMode.Loose;
     }
 

@@ -43,7 +43,7 @@ public sealed class InjectionChecksTests(LocalCausesHarness app) : IClassFixture
         var ex = await Assert.ThrowsAsync<FormatException>(() => app.Get<InjectionCheckService>().RunLogAsync(app.Reviewer, c.Id, "triage.injections", new InjectionCheckParameters(bad)));
         Assert.Contains("'log-bad.csv'", ex.Message, StringComparison.Ordinal);
         Assert.Contains("line 3", ex.Message, StringComparison.Ordinal);
-        Assert.Empty((await app.Get<CaseService>().GetAsync(app.Reviewer, c.Id)).Item("triage.injections").Computations);
+        Assert.Empty((await app.Get<CaseQueries>().GetAsync(app.Reviewer, c.Id)).Item("triage.injections").Computations);
     }
 
     [Fact]
@@ -57,7 +57,7 @@ public sealed class InjectionChecksTests(LocalCausesHarness app) : IClassFixture
         await Assert.ThrowsAsync<UnauthorizedAccessException>(() => seals.RegisterAsync(app.Reviewer, sealResult.Commitment, "by a reviewer"));
         var seal = await seals.RegisterAsync(app.Coordinator, sealResult.Commitment, "Test period", c.Id, "injection.blind-seal");
         await Assert.ThrowsAsync<ArgumentException>(() => seals.RegisterAsync(app.Coordinator, sealResult.Commitment, "again"));
-        Assert.Single((await app.Get<CaseService>().GetAsync(app.Reviewer, c.Id)).Item("injection.blind-seal").Evidence);
+        Assert.Single((await app.Get<CaseQueries>().GetAsync(app.Reviewer, c.Id)).Item("injection.blind-seal").Evidence);
 
         Assert.True(await seals.AnyUnopenedAsync());
         var refused = await Assert.ThrowsAsync<DomainRuleException>(() => seals.EnsureMayCloseAsync(c, CaseOutcome.Astrophysical));
@@ -76,7 +76,7 @@ public sealed class InjectionChecksTests(LocalCausesHarness app) : IClassFixture
         Assert.Equal("commitment-mismatch", mismatch.Rule);
         Assert.Equal(SealedRecordService.MismatchMessage, mismatch.Message);
         Assert.False((await seals.ListAsync()).Single(s => s.Id == seal.Id).IsOpened);
-        Assert.Empty((await app.Get<CaseService>().GetAsync(app.Reviewer, c.Id)).Item("injection.blind-open").Computations);
+        Assert.Empty((await app.Get<CaseQueries>().GetAsync(app.Reviewer, c.Id)).Item("injection.blind-open").Computations);
         await Assert.ThrowsAsync<UnauthorizedAccessException>(() => seals.OpenAsync(app.Reviewer, seal.Id, c.Id, "injection.blind-open", record, sealResult.Salt));
 
         var opened = await seals.OpenAsync(app.Coordinator, seal.Id, c.Id, "injection.blind-open", record, sealResult.Salt, overrideReason: why);
@@ -87,8 +87,8 @@ public sealed class InjectionChecksTests(LocalCausesHarness app) : IClassFixture
         Assert.Equal("sealed-record", result.Source);
         Assert.Equal(sealResult.Commitment, result.Seal!.Commitment);
         Assert.Equal("AB", Assert.Single(result.Report.Hits).Site);
-        Assert.Contains(opened.Activity, a => a.ItemKey == "injection.blind-open" && a.Kind == "computation.injections");
-        Assert.Contains(opened.Activity, a => a.ItemKey == "injection.blind-open" && a.Kind == "override" && a.Text.Contains(why, StringComparison.Ordinal));
+        Assert.Contains(opened.Timeline, a => a.ItemKey == "injection.blind-open" && a.Kind == "computation.injections");
+        Assert.Contains(opened.Timeline, a => a.ItemKey == "injection.blind-open" && a.Kind == "override" && a.Text.Contains(why, StringComparison.Ordinal));
         var after = (await seals.ListAsync()).Single(s => s.Id == seal.Id);
         Assert.True(after.IsOpened);
         Assert.Equal(c.Id, after.OpenedInCaseId);

@@ -57,7 +57,7 @@ public sealed class LocalCausesHarness : IAsyncLifetime
     public async Task<Core.Cases.ReviewCase> OpenCaseAsync(string candidateId, decimal gps, string checklist, params (string Site, double DelaySeconds)[] arrivals)
     {
         var request = new OpenCaseRequest(candidateId, gps, "test-search", "test case", arrivals.Select(a => new ArrivalRequest(a.Site, gps + (decimal)a.DelaySeconds, 10)).ToList(), checklist);
-        return (await Get<CaseService>().OpenAsync(Coordinator, request)).Case;
+        return (await Get<CaseWorkflow>().OpenAsync(Coordinator, request)).Case;
     }
 
     /// <summary>Attaches text as a file to an item; returns its SHA-256.</summary>
@@ -65,7 +65,7 @@ public sealed class LocalCausesHarness : IAsyncLifetime
     {
         var bytes = Encoding.UTF8.GetBytes(text);
         await using var s = new MemoryStream(bytes);
-        await Get<CaseService>().AddAttachmentAsync(Reviewer, caseId, itemKey, s, fileName, "text/plain", "test input", long.MaxValue);
+        await Get<EvidenceAppender>().AddAttachmentAsync(Reviewer, caseId, itemKey, s, fileName, "text/plain", "test input", long.MaxValue);
         return Core.Evidence.Hashing.Sha256Hex(bytes);
     }
 

@@ -89,11 +89,13 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
     {
         await _app.EnsureNetworkAsync();
         using var scope = _app.Services.CreateScope();
-        var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
+        var cases = scope.ServiceProvider.GetRequiredService<CaseQueries>();
+        var appender = scope.ServiceProvider.GetRequiredService<EvidenceAppender>();
+        var workflow = scope.ServiceProvider.GetRequiredService<CaseWorkflow>();
         var gmst = Sidereal.GreenwichMeanSiderealDegrees(GpsUtc.ToUtc(T0));
         var projection = NetworkProjection.Project(App.Sites, SkyFrame.ToEcef(270.0, -30.0, gmst), 0.4);
         var arrivals = projection.Select((p, i) => new ArrivalRequest(p.Code, T0.AddSeconds(p.DelaySeconds).Nanoseconds / 1_000_000_000m, i == 0 ? 30.0 : 25.0)).ToList();
-        var (c, _) = await cases.OpenAsync(_app.Coordinator, new OpenCaseRequest(candidateId, T0.Nanoseconds / 1_000_000_000m, "test", "simulated", arrivals, "candidate-review"));
+        var (c, _) = await workflow.OpenAsync(_app.Coordinator, new OpenCaseRequest(candidateId, T0.Nanoseconds / 1_000_000_000m, "test", "simulated", arrivals, "candidate-review"));
         var sim = NetworkSimulator.Simulate(projection.Select(p => new Core.Signal.Simulation.SiteProjection(p.Code, p.DelaySeconds, p.FPlus, p.FCross)).ToList(),
             new SimulationOptions(T0.AddSeconds(-8), 16, 2048, seed, chirp, T0, chirp is null ? null : snr));
         var shas = new List<string>();
@@ -101,7 +103,7 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         {
             var text = new StringWriter();
             StrainTextWriter.Write(text, s.Strain);
-            var updated = await cases.AddAttachmentAsync(_app.Coordinator, c.Id, Item, new MemoryStream(Encoding.UTF8.GetBytes(text.ToString())), $"{s.Code}-strain.txt", "text/plain", "simulated", long.MaxValue);
+            var updated = await appender.AddAttachmentAsync(_app.Coordinator, c.Id, Item, new MemoryStream(Encoding.UTF8.GetBytes(text.ToString())), $"{s.Code}-strain.txt", "text/plain", "simulated", long.MaxValue);
             shas.Add(CaseFiles.List(updated).First(f => f.FileName == $"{s.Code}-strain.txt").Sha256);
         }
 
@@ -168,9 +170,11 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
     {
         var setup = await CaseWithStrainAsync("ER-T-0003", 9, new ChirpParameters(20), 30);
         using var scope = _app.Services.CreateScope();
-        var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
+        var cases = scope.ServiceProvider.GetRequiredService<CaseQueries>();
+        var appender = scope.ServiceProvider.GetRequiredService<EvidenceAppender>();
+        var workflow = scope.ServiceProvider.GetRequiredService<CaseWorkflow>();
         var bad = "# broken file\ngps_time value\n1400000000 1e-21\n1400000000.00048828125 2e-21\n1400000000.0009765625 oops\n";
-        var c = await cases.AddAttachmentAsync(_app.Coordinator, setup.CaseId, Item, new MemoryStream(Encoding.UTF8.GetBytes(bad)), "broken.txt", "text/plain", "bad", long.MaxValue);
+        var c = await appender.AddAttachmentAsync(_app.Coordinator, setup.CaseId, Item, new MemoryStream(Encoding.UTF8.GetBytes(bad)), "broken.txt", "text/plain", "bad", long.MaxValue);
         var badSha = CaseFiles.List(c).First(f => f.FileName == "broken.txt").Sha256;
         var service = scope.ServiceProvider.GetRequiredService<OverlapCheckService>();
 
@@ -190,8 +194,10 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         var path = Path.Combine(Path.GetTempPath(), $"er-web-h5-{Guid.NewGuid():N}.h5");
         new PureHDF.H5File { ["strain"] = new PureHDF.H5Dataset(b.Samples) }.Write(path);
         using var scope = _app.Services.CreateScope();
-        var cases = scope.ServiceProvider.GetRequiredService<CaseService>();
-        var c = await cases.AddAttachmentAsync(_app.Coordinator, setup.CaseId, Item, new MemoryStream(await File.ReadAllBytesAsync(path)), "MV-strain.h5", "application/x-hdf5", "hdf5", long.MaxValue);
+        var cases = scope.ServiceProvider.GetRequiredService<CaseQueries>();
+        var appender = scope.ServiceProvider.GetRequiredService<EvidenceAppender>();
+        var workflow = scope.ServiceProvider.GetRequiredService<CaseWorkflow>();
+        var c = await appender.AddAttachmentAsync(_app.Coordinator, setup.CaseId, Item, new MemoryStream(await File.ReadAllBytesAsync(path)), "MV-strain.h5", "application/x-hdf5", "hdf5", long.MaxValue);
         File.Delete(path);
         var h5 = CaseFiles.List(c).First(f => f.FileName == "MV-strain.h5").Sha256;
         var service = scope.ServiceProvider.GetRequiredService<OverlapCheckService>();
@@ -227,7 +233,7 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         Assert.False(job.IsRunning);
         Assert.True(job.Error is null, job.Error);
         Assert.StartsWith("stored: KX–MV: overlap", job.Result);
-        var c = await scope.ServiceProvider.GetRequiredService<CaseService>().GetAsync(_app.Coordinator, setup.CaseId);
+        var c = await scope.ServiceProvider.GetRequiredService<CaseQueries>().GetAsync(_app.Coordinator, setup.CaseId);
         Assert.Single(c.Item(Item).Computations);
     }
 }

@@ -32,7 +32,7 @@ public sealed class MalformedInputTests(EventReviewFactory app) : IClassFixture<
             .Where(f => !f.StartsWith(DatabaseFilePrefix, StringComparison.Ordinal))
             .Order(StringComparer.Ordinal);
         return string.Join('\n', [
-            $"cases {cases.Count}", $"activity {cases.Sum(c => c.Activity.Count)}", $"snapshots {await db.ConfigurationSnapshots.CountAsync()}",
+            $"cases {cases.Count}", $"activity {cases.Sum(c => c.Timeline.Count)}", $"snapshots {await db.ConfigurationSnapshots.CountAsync()}",
             .. fingerprints, .. files]);
     }
 
@@ -180,7 +180,7 @@ public sealed class MalformedInputTests(EventReviewFactory app) : IClassFixture<
     [InlineData("{\n\"a\": -NaN\n}", "line 2")]
     public async Task A_configuration_with_nan_is_refused_naming_the_line_and_nothing_is_stored(string text, string line)
     {
-        var c = await Get<CaseService>().GetAsync(ReviewerA, await (await app.As(Who.Observer)).CaseIdAsync("ER-C-0142"));
+        var c = await Get<CaseQueries>().GetAsync(ReviewerA, await (await app.As(Who.Observer)).CaseIdAsync("ER-C-0142"));
         var before = await StateAsync();
 
         var ex = await Assert.ThrowsAsync<FormatException>(() => Get<ConfigurationService>().CaptureAsync(ReviewerA, c, "KP", "bad", text, "kp.json"));

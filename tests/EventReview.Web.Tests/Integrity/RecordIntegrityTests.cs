@@ -36,10 +36,10 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
         var gps = 1_400_000_000.125m;
         var request = new OpenCaseRequest(ApiCalls.NewCandidateId(), gps, "test-search", "Opened by a test.",
             [new ArrivalRequest("KP", gps + 0.004m, 9.5), new ArrivalRequest("AB", gps - 0.002m, 7.0)], checklist);
-        return (await Get<CaseService>().OpenAsync(Coordinator, request)).Case;
+        return (await Get<CaseWorkflow>().OpenAsync(Coordinator, request)).Case;
     }
 
-    private Task<ReviewCase> ReloadAsync(int id) => Get<CaseService>().GetAsync(Coordinator, id);
+    private Task<ReviewCase> ReloadAsync(int id) => Get<CaseQueries>().GetAsync(Coordinator, id);
 
     /// <summary>Captures and freezes a KP snapshot over [now + fromHours, now + untilHours].</summary>
     private async Task<(ReviewCase Case, ConfigurationSnapshot Frozen)> FrozenCaseAsync(double fromHours, double untilHours)
@@ -82,7 +82,7 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
         Assert.Contains("freeze configuration records", ex.Message, StringComparison.Ordinal);
         var after = await ReloadAsync(c.Id);
         Assert.False((await config.ListAsync(Coordinator, after)).Single(s => s.Id == snapshot.Id).IsFrozen);
-        Assert.Equal(c.Activity.Count, after.Activity.Count);
+        Assert.Equal(c.Timeline.Count, after.Timeline.Count);
         Assert.Empty(after.Items.SelectMany(i => i.Computations));
     }
 
@@ -141,15 +141,16 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
     private async Task<ReviewCase> FullySignedAsync()
     {
         var c = await OpenAsync();
-        var cases = Get<CaseService>();
+        var appender = Get<EvidenceAppender>();
+        var workflow = Get<CaseWorkflow>();
         foreach (var item in c.Items.ToList())
         {
-            await cases.AddNoteAsync(ReviewerA, c.Id, item.Key, $"Looked at {item.Key}.");
-            c = await cases.TransitionAsync(ReviewerA, c.Id, item.Key, "ready", null);
-            c = await cases.SignAsync(ReviewerB, c.Id, item.Key, SignOffMeaning.Reviewed, "Checked.", c.Item(item.Key).Fingerprint());
+            await appender.AddNoteAsync(ReviewerA, c.Id, item.Key, $"Looked at {item.Key}.");
+            c = await workflow.TransitionAsync(ReviewerA, c.Id, item.Key, "ready", null);
+            c = await workflow.SignAsync(ReviewerB, c.Id, item.Key, SignOffMeaning.Reviewed, "Checked.", c.Item(item.Key).Fingerprint(), await Signers.ProofAsync(app.Services, ReviewerB));
             if (c.Item(item.Key).State != ItemState.SignedOff)
             {
-                c = await cases.SignAsync(ReviewerC, c.Id, item.Key, SignOffMeaning.Approved, "Agreed.", c.Item(item.Key).Fingerprint());
+                c = await workflow.SignAsync(ReviewerC, c.Id, item.Key, SignOffMeaning.Approved, "Agreed.", c.Item(item.Key).Fingerprint(), await Signers.ProofAsync(app.Services, ReviewerC));
             }
         }
 
@@ -161,10 +162,11 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
     public async Task Evidence_added_after_a_sign_off_makes_it_stale_and_blocks_closing_until_signed_again()
     {
         var c = await FullySignedAsync();
-        var cases = Get<CaseService>();
+        var appender = Get<EvidenceAppender>();
+        var workflow = Get<CaseWorkflow>();
 
-        c = await cases.AddNoteAsync(ReviewerA, c.Id, "triage.timing", "A late correction.");
-        var ex = await Assert.ThrowsAsync<DomainRuleException>(() => cases.CloseAsync(Coordinator, c.Id, CaseOutcome.Inconclusive, "Not enough to decide."));
+        c = await appender.AddNoteAsync(ReviewerA, c.Id, "triage.timing", "A late correction.");
+        var ex = await Assert.ThrowsAsync<DomainRuleException>(() => workflow.CloseAsync(Coordinator, c.Id, CaseOutcome.Inconclusive, "Not enough to decide."));
 
         Assert.Equal("stale-signoff", ex.Rule);
         Assert.Contains("triage.timing", ex.Message, StringComparison.Ordinal);
@@ -174,8 +176,8 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
         Assert.NotEqual(item.Fingerprint(), item.SignOffs.Single().EvidenceFingerprint);
         Assert.NotEqual(CaseState.Closed, (await ReloadAsync(c.Id)).State);
 
-        c = await cases.SignAsync(ReviewerB, c.Id, "triage.timing", SignOffMeaning.Reviewed, "Read the correction.", item.Fingerprint());
-        c = await cases.CloseAsync(Coordinator, c.Id, CaseOutcome.Inconclusive, "Not enough to decide.");
+        c = await workflow.SignAsync(ReviewerB, c.Id, "triage.timing", SignOffMeaning.Reviewed, "Read the correction.", item.Fingerprint(), await Signers.ProofAsync(app.Services, ReviewerB));
+        c = await workflow.CloseAsync(Coordinator, c.Id, CaseOutcome.Inconclusive, "Not enough to decide.");
 
         Assert.Equal(CaseState.Closed, c.State);
         Assert.Empty(CaseIntegrity.Verify(await ReloadAsync(c.Id), Get<Data.AttachmentStore>().Verify, Get<EventReview.Core.Records.IRecordKeyRing>()));
@@ -215,11 +217,12 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
     public async Task A_frozen_signed_then_altered_case_exports_a_dossier_that_verifies_and_shows_the_stale_sign_off_and_drift()
     {
         var (c, frozen) = await FrozenCaseAsync(-1, 24);
-        var cases = Get<CaseService>();
-        await cases.AddNoteAsync(ReviewerA, c.Id, "triage.timing", "Delay within the light time.");
-        c = await cases.TransitionAsync(ReviewerA, c.Id, "triage.timing", "ready", null);
-        await cases.SignAsync(ReviewerB, c.Id, "triage.timing", SignOffMeaning.Reviewed, "Checked.", c.Item("triage.timing").Fingerprint());
-        await cases.AddNoteAsync(ReviewerA, c.Id, "triage.timing", "A late correction.");
+        var appender = Get<EvidenceAppender>();
+        var workflow = Get<CaseWorkflow>();
+        await appender.AddNoteAsync(ReviewerA, c.Id, "triage.timing", "Delay within the light time.");
+        c = await workflow.TransitionAsync(ReviewerA, c.Id, "triage.timing", "ready", null);
+        await workflow.SignAsync(ReviewerB, c.Id, "triage.timing", SignOffMeaning.Reviewed, "Checked.", c.Item("triage.timing").Fingerprint(), await Signers.ProofAsync(app.Services, ReviewerB));
+        await appender.AddNoteAsync(ReviewerA, c.Id, "triage.timing", "A late correction.");
         await Get<ConfigurationService>().CaptureAsync(ReviewerA, c, "KP", "weekly capture", LaterText, "kp-later.conf");
 
         var zip = await DownloadAsync(c.Id);
@@ -236,10 +239,10 @@ public sealed class RecordIntegrityTests(EventReviewFactory app) : IClassFixture
     public async Task Exporting_an_unchanged_case_twice_gives_identical_files_and_manifest_but_for_the_signature_value()
     {
         var c = await OpenAsync();
-        await Get<CaseService>().AddNoteAsync(ReviewerA, c.Id, "triage.timing", "Delay within the light time.");
+        await Get<EvidenceAppender>().AddNoteAsync(ReviewerA, c.Id, "triage.timing", "Delay within the light time.");
         await using (var s = new MemoryStream("gps,value\n1,2\n"u8.ToArray()))
         {
-            await Get<CaseService>().AddAttachmentAsync(ReviewerA, c.Id, "triage.timing", s, "delays.csv", "text/csv", "Delay table", 1024);
+            await Get<EvidenceAppender>().AddAttachmentAsync(ReviewerA, c.Id, "triage.timing", s, "delays.csv", "text/csv", "Delay table", 1024);
         }
 
         var first = await EntriesAsync(await DownloadAsync(c.Id));

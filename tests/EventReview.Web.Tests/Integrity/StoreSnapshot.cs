@@ -28,8 +28,8 @@ public static class StoreSnapshot
         }
 
         lines.AddRange(await RowsAsync(connection,
-            "SELECT a.\"ReviewCaseId\", a.\"Sequence\", a.\"Hash\" FROM \"Activity\" a " +
-            "WHERE a.\"Sequence\" = (SELECT MAX(b.\"Sequence\") FROM \"Activity\" b WHERE b.\"ReviewCaseId\" = a.\"ReviewCaseId\") ORDER BY a.\"ReviewCaseId\""));
+            "SELECT a.\"ReviewCaseId\", a.\"Sequence\", a.\"Hash\" FROM \"Timeline\" a " +
+            "WHERE a.\"Sequence\" = (SELECT MAX(b.\"Sequence\") FROM \"Timeline\" b WHERE b.\"ReviewCaseId\" = a.\"ReviewCaseId\") ORDER BY a.\"ReviewCaseId\""));
         if (!except.Contains(AccountEvents))
         {
             lines.AddRange(await RowsAsync(connection, "SELECT \"Sequence\", \"Hash\" FROM \"AccountEvents\" ORDER BY \"Sequence\" DESC LIMIT 1"));

@@ -31,7 +31,7 @@ public sealed class NotificationHarness(NotificationFactory app)
     {
         var (coordinator, _, _) = await PersonAsync(Who.Coordinator);
         var gps = 1_400_000_000.125m;
-        return (await Get<CaseService>().OpenAsync(coordinator, new OpenCaseRequest(ApiCalls.NewCandidateId(), gps, "test-search", "Notifications.",
+        return (await Get<CaseWorkflow>().OpenAsync(coordinator, new OpenCaseRequest(ApiCalls.NewCandidateId(), gps, "test-search", "Notifications.",
             [new ArrivalRequest("KP", gps + 0.004m, 9.5), new ArrivalRequest("AB", gps - 0.002m, 7.0)], "rapid-triage"))).Case;
     }
 
@@ -40,9 +40,10 @@ public sealed class NotificationHarness(NotificationFactory app)
     {
         var (coordinator, _, _) = await PersonAsync(Who.Coordinator);
         var (_, id, _) = await PersonAsync(who);
-        var cases = Get<CaseService>();
+        var cases = Get<CaseQueries>();
+        var workflow = Get<CaseWorkflow>();
         var c = await cases.GetAsync(coordinator, caseId);
-        return await cases.AssignAsync(coordinator, caseId, key, id, EventReviewFactory.AccountFor(who).DisplayName, c.Item(key).Version);
+        return await workflow.AssignAsync(coordinator, caseId, key, id, EventReviewFactory.AccountFor(who).DisplayName, c.Item(key).Version);
     }
 
     /// <summary>Sets the demo person's notification choices.</summary>

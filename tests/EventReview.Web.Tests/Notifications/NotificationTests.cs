@@ -43,7 +43,7 @@ public sealed class NotificationTests(NotificationFactory app) : IClassFixture<N
         var c = await _h.OpenCaseAsync();
         c = await _h.AssignAsync(c.Id, "triage.state", Who.ReviewerB);
         var today = DueRule.UtcDay(app.Clock.GetUtcNow());
-        await _h.Get<CaseService>().SetDueAsync(coordinator, c.Id, "triage.state", today.AddDays(2), c.Item("triage.state").Version);
+        await _h.Get<CaseWorkflow>().SetDueAsync(coordinator, c.Id, "triage.state", today.AddDays(2), c.Item("triage.state").Version);
 
         await app.PumpAsync();
         Assert.Empty(_h.MailsTo(email, c.CandidateId)); // due in two days: nothing yet
@@ -70,14 +70,15 @@ public sealed class NotificationTests(NotificationFactory app) : IClassFixture<N
         var (reviewerB, _, emailB) = await _h.PersonAsync(Who.ReviewerB);
         await _h.ChooseAsync(Who.Reviewer);
         await _h.ChooseAsync(Who.ReviewerB);
-        var cases = _h.Get<CaseService>();
+        var appender = _h.Get<EvidenceAppender>();
+        var workflow = _h.Get<CaseWorkflow>();
         var c = await _h.OpenCaseAsync();
-        await cases.AddNoteAsync(reviewerA, c.Id, "triage.overlap", "Overlap looks right.");
-        c = await cases.TransitionAsync(reviewerA, c.Id, "triage.overlap", "ready", null);
-        c = await cases.SignAsync(reviewerB, c.Id, "triage.overlap", SignOffMeaning.Reviewed, "Checked.", c.Item("triage.overlap").Fingerprint());
+        await appender.AddNoteAsync(reviewerA, c.Id, "triage.overlap", "Overlap looks right.");
+        c = await workflow.TransitionAsync(reviewerA, c.Id, "triage.overlap", "ready", null);
+        c = await workflow.SignAsync(reviewerB, c.Id, "triage.overlap", SignOffMeaning.Reviewed, "Checked.", c.Item("triage.overlap").Fingerprint(), await Signers.ProofAsync(_h.App.Services, reviewerB));
         await app.PumpAsync();
 
-        await cases.AddNoteAsync(reviewerA, c.Id, "triage.overlap", "Correction: the band was wrong.");
+        await appender.AddNoteAsync(reviewerA, c.Id, "triage.overlap", "Correction: the band was wrong.");
         await app.PumpAsync();
 
         var stale = Assert.Single(_h.MailsTo(emailB, $"{c.CandidateId}: your sign-off"));
@@ -93,17 +94,18 @@ public sealed class NotificationTests(NotificationFactory app) : IClassFixture<N
         var (reviewerB, _, _) = await _h.PersonAsync(Who.ReviewerB);
         var (coordinator, _, coordinatorEmail) = await _h.PersonAsync(Who.Coordinator);
         await _h.ChooseAsync(Who.Coordinator);
-        var cases = _h.Get<CaseService>();
+        var appender = _h.Get<EvidenceAppender>();
+        var workflow = _h.Get<CaseWorkflow>();
         var c = await _h.OpenCaseAsync();
         var keys = c.Items.Select(i => i.Key).ToList();
         for (var k = 0; k < keys.Count; k++)
         {
-            await cases.AddNoteAsync(reviewerA, c.Id, keys[k], "Done.");
-            c = await cases.TransitionAsync(reviewerA, c.Id, keys[k], "ready", null);
-            c = await cases.SignAsync(reviewerB, c.Id, keys[k], SignOffMeaning.Reviewed, "Checked.", c.Item(keys[k]).Fingerprint());
+            await appender.AddNoteAsync(reviewerA, c.Id, keys[k], "Done.");
+            c = await workflow.TransitionAsync(reviewerA, c.Id, keys[k], "ready", null);
+            c = await workflow.SignAsync(reviewerB, c.Id, keys[k], SignOffMeaning.Reviewed, "Checked.", c.Item(keys[k]).Fingerprint(), await Signers.ProofAsync(_h.App.Services, reviewerB));
             if (c.Item(keys[k]).State != Core.Checklists.ItemState.SignedOff)
             {
-                c = await cases.SignAsync(coordinator, c.Id, keys[k], SignOffMeaning.Approved, "Agreed.", c.Item(keys[k]).Fingerprint());
+                c = await workflow.SignAsync(coordinator, c.Id, keys[k], SignOffMeaning.Approved, "Agreed.", c.Item(keys[k]).Fingerprint(), await Signers.ProofAsync(_h.App.Services, coordinator));
             }
 
             await app.PumpAsync();
@@ -125,7 +127,7 @@ public sealed class NotificationTests(NotificationFactory app) : IClassFixture<N
         var (_, _, coordinatorEmail) = await _h.PersonAsync(Who.Coordinator);
         await _h.ChooseAsync(Who.Coordinator);
         var c = await _h.OpenCaseAsync();
-        var receipt = await _h.Get<CaseService>().AppendAttachmentAsync(reviewerA, c.Id, "triage.state", new MemoryStream("segment list v1"u8.ToArray()),
+        var receipt = await _h.Get<EvidenceAppender>().AppendAttachmentAsync(reviewerA, c.Id, "triage.state", new MemoryStream("segment list v1"u8.ToArray()),
             "segments.txt", "text/plain", "Segments.", 1024);
 
         // Someone changes the stored file behind the app's back; "Verify this case" finds it and reports it.

@@ -34,7 +34,7 @@ public sealed class PostgresNotificationTests : IAsyncLifetime
         var (coordinator, _, _) = await h.PersonAsync(Who.Coordinator);
         var c = await h.OpenCaseAsync();
         c = await h.AssignAsync(c.Id, "triage.freeze", Who.Reviewer);
-        await h.Get<CaseService>().SetDueAsync(coordinator, c.Id, "triage.freeze", DueRule.UtcDay(_app.Clock.GetUtcNow()).AddDays(1), c.Item("triage.freeze").Version);
+        await h.Get<CaseWorkflow>().SetDueAsync(coordinator, c.Id, "triage.freeze", DueRule.UtcDay(_app.Clock.GetUtcNow()).AddDays(1), c.Item("triage.freeze").Version);
 
         await _app.PumpAsync();
         Assert.DoesNotContain(h.MailsTo(email, c.CandidateId), m => (m.Subject ?? string.Empty).Contains("assigned to you", StringComparison.Ordinal)); // not settled yet

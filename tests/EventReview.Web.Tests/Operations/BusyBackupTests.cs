@@ -100,10 +100,10 @@ public sealed class BusyBackupTests(EventReviewFactory app) : IClassFixture<Even
         Assert.All(writerCases, id => Assert.Contains(restoredCases, c => c.Id == id));
         foreach (var restored in restoredCases)
         {
-            var liveHashes = await live.Activity.Where(a => a.ReviewCaseId == restored.Id).OrderBy(a => a.Sequence).Select(a => a.Hash).ToListAsync();
-            var restoredHashes = restored.Activity.OrderBy(a => a.Sequence).Select(a => a.Hash).ToList();
+            var liveHashes = await live.Timeline.Where(a => a.ReviewCaseId == restored.Id).OrderBy(a => a.Sequence).Select(a => a.Hash).ToListAsync();
+            var restoredHashes = restored.Timeline.OrderBy(a => a.Sequence).Select(a => a.Hash).ToList();
             Assert.Equal(liveHashes.Take(restoredHashes.Count), restoredHashes);
-            Assert.Null(ActivityChain.FirstProblem(restored.Activity));
+            Assert.Null(TimelineChain.FirstProblem(restored.Timeline));
             foreach (var e in restored.Items.SelectMany(i => i.Evidence).Where(e => e.Kind == EvidenceKind.Attachment))
             {
                 Assert.True(store.Verify(e.ContentSha256), $"attachment {e.ContentSha256} of case {restored.CandidateId} is in the restored store");

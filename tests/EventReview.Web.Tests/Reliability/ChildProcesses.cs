@@ -48,21 +48,7 @@ public static class ChildProcesses
             psi.Environment[key] = value;
         }
 
-        using var p = Process.Start(psi) ?? throw new InvalidOperationException("Could not start the CLI.");
-        var stdout = p.StandardOutput.ReadToEndAsync();
-        var stderr = p.StandardError.ReadToEndAsync();
-        using var cts = new CancellationTokenSource(timeout);
-        try
-        {
-            await p.WaitForExitAsync(cts.Token);
-        }
-        catch (OperationCanceledException)
-        {
-            p.Kill(entireProcessTree: true);
-            throw new TimeoutException($"eventreview {string.Join(' ', args)} did not finish within {timeout.TotalSeconds:F0} s.");
-        }
-
-        return (p.ExitCode, await stdout, await stderr);
+        return await ProcessRunner.RunToExitAsync(psi, timeout);
     }
 
     private static string Output(string project, string dll)

@@ -72,6 +72,7 @@ public sealed class KillDuringUploadsTests(Xunit.Abstractions.ITestOutputHelper 
     }
 
     [Fact]
+    [Trait("Speed", "Slow")] // about a minute: skip with --filter "Speed!=Slow" while working; ./test.sh (and so CI) runs it
     public async Task Every_upload_acknowledged_before_a_sigkill_is_in_the_record_after_a_restart_and_everything_verifies()
     {
         var token = await CreateTokenAsync();

@@ -13,7 +13,7 @@ namespace EventReview.Web.Services.Checks;
 /// is Core's <see cref="BackgroundCheck"/>; this service gathers the files and the case's arrivals and stores the record.
 /// Re-running with the same files and parameters adds nothing.
 /// </summary>
-public sealed class BackgroundCheckService(CaseService cases, NetworkService network, CaseFiles files)
+public sealed class BackgroundCheckService(CaseQueries cases, CaseWorkflow workflow, NetworkService network, CaseFiles files)
 {
     /// <summary>Kind of the computation records made here.</summary>
     public const string Kind = Core.Checklists.CheckKind.Background;
@@ -115,7 +115,7 @@ public sealed class BackgroundCheckService(CaseService cases, NetworkService net
         var svgs = check.Pairs.Select(p => Core.Plots.PlotSvg.Write(Core.Plots.Figures.BackgroundFigure.Build(p.Result))).ToList();
         var record = new BackgroundRecordResult(RecordFormat.Current, siteInputs, check);
         var summary = SignificanceText.Summary(check, parameters.StepSeconds);
-        var updated = await cases.AddComputationAsync(user, caseId, itemKey,
+        var updated = await workflow.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(Kind, parametersJson, inputFingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(record), check.Judgement.Word, summary,
                 string.Join(CheckRecords.PictureSeparator, svgs), user.ToActor(), now), ct);
         return (updated, true, summary);

@@ -16,7 +16,7 @@ namespace EventReview.Web.Services.Checks;
 /// stage's output from its input, tests the residual around the case time, and stores the report and one picture per
 /// stage as a computation record. Re-running with the same inputs and parameters adds nothing.
 /// </summary>
-public sealed class ChainCheckService(CaseService cases, CaseFiles files)
+public sealed class ChainCheckService(CaseQueries cases, CaseWorkflow workflow, CaseFiles files)
 {
     /// <summary>Runs the check, reporting progress as (fraction, sentence); returns the updated case and whether a record was added.</summary>
     /// <exception cref="ArgumentException">A missing pick, a parameter out of range, or series that do not fit together (names the stage).</exception>
@@ -71,7 +71,7 @@ public sealed class ChainCheckService(CaseService cases, CaseFiles files)
         var result = new ChainRecordResult(RecordFormat.Current, report, refs);
         var summary = Summarise(report);
         ct.ThrowIfCancellationRequested();
-        var updated = await cases.AddComputationAsync(user, caseId, itemKey,
+        var updated = await workflow.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(CheckKind.Chain, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
                 report.Judgement.Word, summary, pictures, user.ToActor(), now), ct);
         return (updated, true);

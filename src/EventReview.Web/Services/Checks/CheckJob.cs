@@ -1,7 +1,7 @@
 namespace EventReview.Web.Services.Checks;
 
 /// <summary>One running or finished check (see <see cref="CheckJobs"/>). Thread-safe for progress reads.</summary>
-public sealed class CheckJob(string key, string description)
+public sealed class CheckJob(string key, string description, TimeProvider clock)
 {
     private readonly Lock _gate = new();
 
@@ -9,7 +9,7 @@ public sealed class CheckJob(string key, string description)
 
     public string Description { get; } = description;
 
-    public DateTimeOffset StartedAt { get; } = DateTimeOffset.UtcNow;
+    public DateTimeOffset StartedAt { get; } = clock.GetUtcNow();
 
     public CancellationTokenSource Cancellation { get; } = new();
 
@@ -30,7 +30,7 @@ public sealed class CheckJob(string key, string description)
     public DateTimeOffset? FinishedAt { get; private set; }
 
     /// <summary>Running time so far, or the total once finished.</summary>
-    public TimeSpan Elapsed => (FinishedAt ?? DateTimeOffset.UtcNow) - StartedAt;
+    public TimeSpan Elapsed => (FinishedAt ?? clock.GetUtcNow()) - StartedAt;
 
     public void Report(double? fraction, string progress)
     {
@@ -49,7 +49,7 @@ public sealed class CheckJob(string key, string description)
         {
             Result = result;
             Error = error;
-            FinishedAt = DateTimeOffset.UtcNow;
+            FinishedAt = clock.GetUtcNow();
             IsRunning = false;
         }
     }

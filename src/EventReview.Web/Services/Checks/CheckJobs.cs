@@ -9,7 +9,7 @@ namespace EventReview.Web.Services.Checks;
 /// page that is reloaded finds its job again; progress is a fraction and a sentence ("slide 3,200 of 10,000, 41,000
 /// coincidences"); a job can be cancelled. Finished jobs are kept (with their outcome message) until replaced.
 /// </summary>
-public sealed class CheckJobs(ILogger<CheckJobs> logger)
+public sealed class CheckJobs(ILogger<CheckJobs> logger, TimeProvider clock)
 {
     private readonly ConcurrentDictionary<string, CheckJob> _jobs = new(StringComparer.Ordinal);
 
@@ -22,7 +22,7 @@ public sealed class CheckJobs(ILogger<CheckJobs> logger)
     /// <summary>Starts a job unless one is already running under the key (then returns that one).</summary>
     public CheckJob Start(string key, string description, Func<CheckJob, CancellationToken, Task<string>> work)
     {
-        var job = new CheckJob(key, description);
+        var job = new CheckJob(key, description, clock);
         var existing = _jobs.AddOrUpdate(key, job, (_, old) => old.IsRunning ? old : job);
         if (!ReferenceEquals(existing, job))
         {

@@ -1,50 +1,64 @@
 using System.Security.Claims;
 using EventReview.Core.Cases;
 using EventReview.Core.Checklists;
+using EventReview.Core.Evidence;
 using Microsoft.AspNetCore.Components;
 
 namespace EventReview.Web.Services.Checks;
 
-/// <summary>Maps a check kind to the component that shows its run form (parameters with their defaults).</summary>
-public static class CheckRunners
+/// <summary>
+/// Maps a check kind to the components that show its run form (parameters with their defaults) and a record's result,
+/// from the <see cref="CheckView"/>s registered in dependency injection (one per kind; a second one for a kind is an
+/// error at start-up).
+/// </summary>
+public sealed class CheckRunners
 {
-    // Concurrent: test hosts (and any two hosts in one process) register at start-up at the same time.
-    private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, Type> Runners = new(StringComparer.Ordinal);
-    private static readonly System.Collections.Concurrent.ConcurrentDictionary<string, Type> ResultViews = new(StringComparer.Ordinal);
+    private readonly Dictionary<string, CheckView> _views;
 
-    /// <summary>Registers the component that shows a record's result of this kind; it receives a "Record" parameter.</summary>
-    public static void RegisterResultView(string kind, Type component) => ResultViews[kind] = component;
+    /// <summary>Takes the registered views.</summary>
+    /// <exception cref="InvalidOperationException">When two views are registered for one kind.</exception>
+    public CheckRunners(IEnumerable<CheckView> views)
+    {
+        _views = new Dictionary<string, CheckView>(StringComparer.Ordinal);
+        foreach (var v in views)
+        {
+            if (!_views.TryAdd(v.Kind, v))
+            {
+                throw new InvalidOperationException($"Check kind '{v.Kind}' has two views registered ({_views[v.Kind].Runner.Name} and {v.Runner.Name}).");
+            }
+        }
+    }
+
+    /// <summary>The kinds that have views.</summary>
+    public IReadOnlyCollection<string> Kinds => _views.Keys;
 
     /// <summary>The result view for a record, or null when its kind has none.</summary>
-    public static RenderFragment? ResultFor(EventReview.Core.Evidence.ComputationRecord record)
+    public RenderFragment? ResultFor(ComputationRecord record)
     {
-        if (!ResultViews.TryGetValue(record.Kind, out var type))
+        if (!_views.TryGetValue(record.Kind, out var view))
         {
             return null;
         }
 
         return builder =>
         {
-            builder.OpenComponent(0, type);
+            builder.OpenComponent(0, view.ResultView);
             builder.AddAttribute(1, "Record", record);
             builder.CloseComponent();
         };
     }
 
-    /// <summary>Registers a runner component; it receives Case, Item, User and OnChanged parameters.</summary>
-    public static void Register(string kind, Type component) => Runners[kind] = component;
-
-    /// <summary>The run form for an item's kind, or null when the kind has no runner yet.</summary>
-    public static RenderFragment? For(string? kind, ReviewCase c, ChecklistItem item, ClaimsPrincipal user, Action<ReviewCase> changed)
+    /// <summary>The run form for an item's kind, or null when the kind has no runner.</summary>
+    public RenderFragment? For(string? kind, ReviewCase c, ChecklistItem item, ClaimsPrincipal user, Action<ReviewCase> changed)
     {
-        if (kind is null || !Runners.TryGetValue(kind, out var type))
+        if (kind is null || !_views.TryGetValue(kind, out var view))
         {
             return null;
         }
 
         return builder =>
         {
-            builder.OpenComponent(0, type);
+            builder.OpenComponent(0, view.Runner);
             builder.AddAttribute(1, "Case", c);
             builder.AddAttribute(2, "Item", item);
             builder.AddAttribute(3, "User", user);

@@ -17,7 +17,7 @@ namespace EventReview.Web.Services.Checks;
 /// item (so sign-offs bind to the frozen record's fingerprint); a later capture for a site with a frozen record stores a
 /// drift record on the last configuration item, with verdict "no drift", "drift" (outside the freeze period) or "concern".
 /// </summary>
-public sealed class ConfigurationService(IDbContextFactory<AppDbContext> dbFactory, CaseService cases, TimeProvider clock)
+public sealed class ConfigurationService(IDbContextFactory<AppDbContext> dbFactory, CaseWorkflow workflow, TimeProvider clock)
 {
     /// <summary>Snapshots of the case's sites (the case's own and any captured for those sites), newest first.</summary>
     public async Task<IReadOnlyList<ConfigurationSnapshot>> ListAsync(ClaimsPrincipal user, ReviewCase c, CancellationToken ct = default)
@@ -71,7 +71,7 @@ public sealed class ConfigurationService(IDbContextFactory<AppDbContext> dbFacto
                 var report = DriftCheck.Run(f, snapshot);
                 var parameters = CheckRecords.Serialize(new { site = siteCode, frozenId = f.Id, frozenFingerprint = f.Fingerprint, laterId = snapshot.Id });
                 var input = CheckRecords.Fingerprint(new { frozen = f.Fingerprint, later = snapshot.ItemsJson });
-                await cases.AddComputationAsync(user, c.Id, driftItem.Key, now => new ComputationRecord(CheckKind.Configuration, parameters, input, CheckRecords.ToolVersion,
+                await workflow.AddComputationAsync(user, c.Id, driftItem.Key, now => new ComputationRecord(CheckKind.Configuration, parameters, input, CheckRecords.ToolVersion,
                     CheckRecords.Serialize(new DriftRecordResult(RecordFormat.Current, report)), report.Verdict, report.Summary, string.Empty, actor, now), ct);
             }
         }
@@ -86,7 +86,7 @@ public sealed class ConfigurationService(IDbContextFactory<AppDbContext> dbFacto
         var item = c.Items.FirstOrDefault(i => i.CheckKind == CheckKind.Configuration)
             ?? throw new ArgumentException($"Case {c.CandidateId}'s checklist has no configuration item to record the freeze on.", nameof(c));
         var actor = user.ToActor();
-        return await cases.AddComputationWithAsync(user, Policies.Coordinate, c.Id, item.Key, async (db, rc, now) =>
+        return await workflow.AddComputationWithAsync(user, Policies.Coordinate, c.Id, item.Key, async (db, rc, now) =>
         {
             var snapshot = await db.ConfigurationSnapshots.FirstOrDefaultAsync(s => s.Id == snapshotId, ct)
                 ?? throw new KeyNotFoundException($"There is no configuration record with id {snapshotId}.");

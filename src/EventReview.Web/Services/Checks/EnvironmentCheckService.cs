@@ -18,7 +18,7 @@ namespace EventReview.Web.Services.Checks;
 /// computation record on the item. Every file is parsed and checked before anything is stored; re-running with the same
 /// inputs and parameters adds nothing.
 /// </summary>
-public sealed class EnvironmentCheckService(CaseService cases, NetworkService network, CaseFiles files)
+public sealed class EnvironmentCheckService(CaseQueries cases, CaseWorkflow workflow, NetworkService network, CaseFiles files)
 {
     /// <summary>Runs the check; returns the updated case and whether a new record was added.</summary>
     /// <exception cref="ArgumentException">A missing pick or a parameter out of range (message names it).</exception>
@@ -128,7 +128,7 @@ public sealed class EnvironmentCheckService(CaseService cases, NetworkService ne
         var result = new EnvironmentRecordResult(RecordFormat.Current, report, safety, lightTravel, lightSource, notes, refs);
         var svg = Core.Plots.PlotSvg.Write(Core.Plots.Figures.EnvironmentTimelineFigure.Build(report, parameters.WindowSeconds));
         var summary = Summarise(report, parameters);
-        var updated = await cases.AddComputationAsync(user, caseId, itemKey,
+        var updated = await workflow.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(Core.Checklists.CheckKind.Environment, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
                 report.Judgement.Word, summary, svg, user.ToActor(), now), ct);
         return (updated, true);

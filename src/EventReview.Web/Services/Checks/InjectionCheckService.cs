@@ -13,7 +13,7 @@ namespace EventReview.Web.Services.Checks;
 /// Looks up an attached injection log for injections overlapping the candidate at every site (arrival time, or the case
 /// time for a site without one) and stores the result as a computation record. Re-running with the same inputs adds nothing.
 /// </summary>
-public sealed class InjectionCheckService(CaseService cases, NetworkService network, CaseFiles files)
+public sealed class InjectionCheckService(CaseQueries cases, CaseWorkflow workflow, NetworkService network, CaseFiles files)
 {
     /// <summary>Runs the lookup; returns the updated case and whether a new record was added.</summary>
     /// <exception cref="ArgumentException">A missing pick or a margin out of range.</exception>
@@ -43,7 +43,7 @@ public sealed class InjectionCheckService(CaseService cases, NetworkService netw
         var report = InjectionOverlap.Find(log, c.Gps, Arrivals(c), c.Arrivals.Select(a => a.SiteCode), parameters.MarginSeconds);
         var result = new InjectionRecordResult(RecordFormat.Current, "log", report, log.Count, [file], null);
         var summary = Summarise(report, log.Count, $"log '{file.FileName}'");
-        var updated = await cases.AddComputationAsync(user, caseId, itemKey,
+        var updated = await workflow.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(CheckKind.Injections, parametersJson, fingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
                 report.Judgement.Word, summary, Core.Plots.PlotSvg.Write(Core.Plots.Figures.InjectionTimelineFigure.Build(log, report, c.Gps.Seconds)), user.ToActor(), now), ct);
         return (updated, true);

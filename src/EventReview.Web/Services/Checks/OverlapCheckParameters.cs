@@ -1,4 +1,6 @@
+using System.Globalization;
 using EventReview.Core.Signal;
+using EventReview.Core.Time;
 
 namespace EventReview.Web.Services.Checks;
 
@@ -65,6 +67,53 @@ public sealed record OverlapCheckParameters(
         {
             throw new ArgumentException("Sites A and B must differ.", nameof(SiteB));
         }
+    }
+
+    /// <summary>
+    /// Reads the run form's centre field: GPS seconds parsed by <see cref="GpsTime.TryParse"/> to the nanosecond; blank
+    /// gives null (the case's time). On failure <paramref name="problem"/> names the field.
+    /// </summary>
+    public static bool TryParseCentre(string? text, out decimal? centerGps, out string? problem)
+    {
+        centerGps = null;
+        problem = null;
+        if (string.IsNullOrWhiteSpace(text))
+        {
+            return true;
+        }
+
+        if (!GpsTime.TryParse(text, out var t))
+        {
+            problem = $"Centre (GPS s): \"{text.Trim()}\" is not a GPS time in seconds (e.g. 1400000000.25).";
+            return false;
+        }
+
+        centerGps = t.Nanoseconds / (decimal)GpsTime.NanosecondsPerSecond;
+        return true;
+    }
+
+    /// <summary>
+    /// Reads the run form's notches field: frequencies in Hz separated by commas, semicolons or spaces; blank gives none.
+    /// Only the reading is checked here (a positive finite value is <see cref="Validate"/>'s rule). On failure
+    /// <paramref name="problem"/> names the field and the part that is not a number.
+    /// </summary>
+    public static bool TryParseNotches(string? text, out IReadOnlyList<double> notchesHz, out string? problem)
+    {
+        var notches = new List<double>();
+        notchesHz = notches;
+        problem = null;
+        foreach (var part in (text ?? string.Empty).Split([',', ';', ' '], StringSplitOptions.RemoveEmptyEntries))
+        {
+            if (!double.TryParse(part, NumberStyles.Float, CultureInfo.InvariantCulture, out var f))
+            {
+                problem = $"Notches (Hz): \"{part}\" is not a frequency in Hz.";
+                return false;
+            }
+
+            notches.Add(f);
+        }
+
+        return true;
     }
 
     private static void Require(bool ok, string message, string name)

@@ -17,7 +17,7 @@ namespace EventReview.Web.Services.Checks;
 /// <see cref="PairWindow"/>), runs the check kind in Core (<see cref="OverlapReview"/>) and stores its result as a computation record.
 /// Re-running with the same files, parameters and tool version adds nothing (<see cref="CheckRecords.SameRun"/>).
 /// </summary>
-public sealed class OverlapCheckService(CaseService cases, NetworkService network, CaseFiles files, CheckJobs jobs, IServiceScopeFactory scopes)
+public sealed class OverlapCheckService(CaseQueries cases, CaseWorkflow workflow, NetworkService network, CaseFiles files, CheckJobs jobs, IServiceScopeFactory scopes)
 {
     /// <summary>Defaults the run form shows: the two loudest sites and the maximum lag the network allows for them.</summary>
     public sealed record Defaults(string? SiteA, string? SiteB, double? MaxLagSeconds, string Rule);
@@ -122,7 +122,7 @@ public sealed class OverlapCheckService(CaseService cases, NetworkService networ
         var result = await Task.Run(() => OverlapReview.Run(new OverlapReviewSite(defaults.SiteA, nameA, a), new OverlapReviewSite(defaults.SiteB, nameB, b), options, caseLag,
             (v, text) => progress?.Invoke(0.1 + (0.85 * v), text), ct), ct);
         progress?.Invoke(0.97, "storing the record");
-        var updated = await cases.AddComputationAsync(user, caseId, itemKey,
+        var updated = await workflow.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(CheckKind.Overlap, parametersJson, inputFingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
                 result.Judgement!.Word, result.Summary, string.Join(CheckRecords.PictureSeparator, result.PicturesSvg), user.ToActor(), now), CancellationToken.None);
         return (updated, true, result.Summary);

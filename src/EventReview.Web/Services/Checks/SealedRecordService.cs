@@ -19,7 +19,7 @@ namespace EventReview.Web.Services.Checks;
 /// and opening each commit together with a sign-in audit entry whose facts record the seal's state, so that a seal
 /// marked opened (or un-opened, or given another commitment) by hand is caught by verification.
 /// </summary>
-public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactory, CaseService cases, TimeProvider clock, Data.Auth.AccountAudit audit)
+public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactory, CaseQueries cases, EvidenceAppender appender, CaseWorkflow workflow, TimeProvider clock, Data.Auth.AccountAudit audit)
 {
     /// <summary>The message shown when opening fails; nothing is changed.</summary>
     public const string MismatchMessage = "The record or salt does not match the commitment; nothing was opened.";
@@ -56,7 +56,7 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
         await EnsureMayCloseAsync(db, c, outcome, ct);
     }
 
-    /// <summary>Same rule, inside an existing unit of work (used by <see cref="CaseService.CloseAsync"/>).</summary>
+    /// <summary>Same rule, inside an existing unit of work (used by <see cref="CaseWorkflow.CloseAsync"/>).</summary>
     /// <exception cref="DomainRuleException">Rule "sealed-record-unopened" or "blind-injection-overlap".</exception>
     public static async Task EnsureMayCloseAsync(AppDbContext db, ReviewCase c, CaseOutcome outcome, CancellationToken ct = default)
     {
@@ -105,7 +105,7 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
 
         if (caseId is { } id && itemKey is not null)
         {
-            await cases.AddNoteAsync(user, id, itemKey,
+            await appender.AddNoteAsync(user, id, itemKey,
                 $"Sealed blind-injection record registered: **{seal.Label}**, commitment `{seal.Commitment}` (SHA-256 of salt + record), by {seal.SealedByName} at {seal.SealedAt:u}. The tool holds only the commitment until the record is opened.", ct);
         }
 
@@ -220,11 +220,11 @@ public sealed class SealedRecordService(IDbContextFactory<AppDbContext> dbFactor
             report.Judgement.Word, Clip(summary, 1000), string.Empty, user.ToActor(), now);
         if (overrideReason is null)
         {
-            return await cases.AddComputationAsync(user, c.Id, itemKey, record, ct);
+            return await workflow.AddComputationAsync(user, c.Id, itemKey, record, ct);
         }
 
         // The override and the comparison are stored together: the timeline says why the record was opened early.
-        return await cases.AddComputationWithAsync(user, Policies.Coordinate, c.Id, itemKey, (_, loaded, now) =>
+        return await workflow.AddComputationWithAsync(user, Policies.Coordinate, c.Id, itemKey, (_, loaded, now) =>
         {
             loaded.RecordOverride(itemKey, OpeningDecision.Rule, $"sealed record '{seal.Label}' opened before the review was complete. Reason: {overrideReason}", user.ToActor(), now);
             return Task.FromResult<(ComputationRecord, EventReview.Core.Configuration.ConfigurationSnapshot?)>((record(now), null));

@@ -12,7 +12,7 @@ namespace EventReview.Web.Services.Checks;
 /// chi-square and the optional antenna-response test) and stores its result as a computation record on the item. Re-running with
 /// the same inputs, parameters and tool version adds nothing (<see cref="CheckRecords.SameRun"/>).
 /// </summary>
-public sealed class TimingCheckService(CaseService cases, NetworkService network)
+public sealed class TimingCheckService(CaseQueries cases, CaseWorkflow workflow, NetworkService network)
 {
     /// <summary>Runs the check; returns the updated case and whether a new record was added.</summary>
     /// <exception cref="ArgumentException">When inputs are unusable (fewer than two arrivals, unknown site, bad parameter).</exception>
@@ -43,7 +43,7 @@ public sealed class TimingCheckService(CaseService cases, NetworkService network
         }
 
         var result = TimingReview.Run(sites, arrivals, parameters);
-        var updated = await cases.AddComputationAsync(user, caseId, itemKey,
+        var updated = await workflow.AddComputationAsync(user, caseId, itemKey,
             now => new ComputationRecord(CheckKind.Timing, parametersJson, inputFingerprint, CheckRecords.ToolVersion, CheckRecords.Serialize(result),
                 result.Judgement!.Word, result.Summary, result.PictureSvg, user.ToActor(), now), ct);
         return (updated, true);

@@ -13,17 +13,17 @@ public sealed record ChangeLine(int Sequence, string Who, string What, string? I
 
     /// <summary>The lines for the entries of <paramref name="fresh"/> after <paramref name="seenSequence"/> made by someone other than <paramref name="myUserId"/>, newest first.</summary>
     public static IReadOnlyList<ChangeLine> Since(ReviewCase fresh, int seenSequence, string myUserId) =>
-        fresh.Activity.Where(e => e.Sequence > seenSequence && e.ActorId != myUserId).OrderByDescending(e => e.Sequence)
+        fresh.Timeline.Where(e => e.Sequence > seenSequence && e.ActorId != myUserId).OrderByDescending(e => e.Sequence)
             .Select(e => Of(e, e.ItemKey is null ? null : fresh.Items.FirstOrDefault(i => i.Key == e.ItemKey)?.Title)).ToList();
 
     /// <summary>The line for one entry.</summary>
-    public static ChangeLine Of(ActivityEntry entry, string? itemTitle) =>
+    public static ChangeLine Of(TimelineEntry entry, string? itemTitle) =>
         new(entry.Sequence, entry.ActorName, Verb(entry), entry.ItemKey, itemTitle, entry.At);
 
     /// <summary>The newest sequence number of a case's timeline (0 for none).</summary>
-    public static int Newest(ReviewCase c) => c.Activity.Count == 0 ? 0 : c.Activity.Max(e => e.Sequence);
+    public static int Newest(ReviewCase c) => c.Timeline.Count == 0 ? 0 : c.Timeline.Max(e => e.Sequence);
 
-    private static string Verb(ActivityEntry e) => e.Kind switch
+    private static string Verb(TimelineEntry e) => e.Kind switch
     {
         "signoff" => "signed",
         "signoff.stale" => "changed evidence, which made the sign-offs stale on",

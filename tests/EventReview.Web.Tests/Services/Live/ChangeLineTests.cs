@@ -16,7 +16,7 @@ public sealed class ChangeLineTests
         Assert.NotEmpty(others);
         Assert.All(others, l => Assert.NotEqual(ComponentCases.ReviewerA.DisplayName, l.Who));
         Assert.Equal(others.OrderByDescending(l => l.Sequence).Select(l => l.Sequence), others.Select(l => l.Sequence));
-        Assert.Equal(c.Activity.Count(a => a.Sequence > newest - 2 && a.ActorId != "nobody"), ChangeLine.Since(c, newest - 2, "nobody").Count);
+        Assert.Equal(c.Timeline.Count(a => a.Sequence > newest - 2 && a.ActorId != "nobody"), ChangeLine.Since(c, newest - 2, "nobody").Count);
         Assert.Empty(ChangeLine.Since(c, newest, "nobody"));
     }
 
@@ -33,6 +33,6 @@ public sealed class ChangeLineTests
         Assert.Contains(everyone, l => l.What == "changed the state of" && l.ItemKey == "beta.two");
         Assert.Contains(everyone, l => l.What == "changed the owner of" && l.ItemKey == "alpha.two");
         Assert.All(everyone, l => Assert.False(string.IsNullOrWhiteSpace(l.What)));
-        Assert.Equal(c.Activity.Max(a => a.Sequence), ChangeLine.Newest(c));
+        Assert.Equal(c.Timeline.Max(a => a.Sequence), ChangeLine.Newest(c));
     }
 }

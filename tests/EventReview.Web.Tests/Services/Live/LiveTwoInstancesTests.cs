@@ -56,7 +56,7 @@ public sealed class LiveTwoInstancesTests(ITestOutputHelper output)
             var clock = Stopwatch.StartNew();
             using (var scope = first.Services.CreateScope())
             {
-                await scope.ServiceProvider.GetRequiredService<CaseService>().AddNoteAsync(ana, caseId, itemKey, "Seen live on the other instance.");
+                await scope.ServiceProvider.GetRequiredService<EvidenceAppender>().AddNoteAsync(ana, caseId, itemKey, "Seen live on the other instance.");
             }
 
             var acknowledged = clock.Elapsed;
@@ -66,8 +66,8 @@ public sealed class LiveTwoInstancesTests(ITestOutputHelper output)
             // The other instance reads the change itself: the note and who added it.
             using (var scope = second.Services.CreateScope())
             {
-                var fresh = await scope.ServiceProvider.GetRequiredService<CaseService>().GetAsync(Principals.Reviewer("u-other", "Other Reader"), caseId);
-                var newest = fresh.Activity.MaxBy(a => a.Sequence)!;
+                var fresh = await scope.ServiceProvider.GetRequiredService<CaseQueries>().GetAsync(Principals.Reviewer("u-other", "Other Reader"), caseId);
+                var newest = fresh.Timeline.MaxBy(a => a.Sequence)!;
                 Assert.Equal((reviewer.DisplayName, "evidence.note", itemKey), (newest.ActorName, newest.Kind, newest.ItemKey));
                 var line = ChangeLine.Since(fresh, newest.Sequence - 1, "u-other").Single();
                 Assert.Equal($"{reviewer.DisplayName} added a note to", $"{line.Who} {line.What}");
@@ -94,7 +94,7 @@ public sealed class LiveTwoInstancesTests(ITestOutputHelper output)
             Assert.Equal(LiveSignal.CaseChanged, await ReadChangeAsync(heard));
             using (var scope = first.Services.CreateScope())
             {
-                await scope.ServiceProvider.GetRequiredService<CaseService>().AddNoteAsync(ana, caseId, itemKey, "Seen after the reconnect.");
+                await scope.ServiceProvider.GetRequiredService<EvidenceAppender>().AddNoteAsync(ana, caseId, itemKey, "Seen after the reconnect.");
             }
 
             Assert.Equal(LiveSignal.CaseChanged, await ReadChangeAsync(heard));

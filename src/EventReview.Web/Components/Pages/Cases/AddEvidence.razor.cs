@@ -7,7 +7,7 @@ using Microsoft.AspNetCore.Components.Forms;
 
 namespace EventReview.Web.Components.Pages.Cases;
 
-/// <summary>State of the add-evidence forms; every change goes through <see cref="CaseService"/> and is reported to the item panel.</summary>
+/// <summary>State of the add-evidence forms; every change goes through <see cref="EvidenceAppender"/> and is reported to the item panel.</summary>
 public partial class AddEvidence
 {
     private const string NoSite = "";
@@ -24,7 +24,7 @@ public partial class AddEvidence
     private bool _uploading;
 
     [Inject]
-    private CaseService Cases { get; set; } = default!;
+    private EvidenceAppender Appender { get; set; } = default!;
 
     [Inject]
     private MarkdownRenderer Markdown { get; set; } = default!;
@@ -74,7 +74,7 @@ public partial class AddEvidence
         try
         {
             var text = _note;
-            if (await Run(() => Cases.AddNoteAsync(User, Case.Id, Item.Key, text ?? string.Empty), "Note added."))
+            if (await Run(() => Appender.AddNoteAsync(User, Case.Id, Item.Key, text ?? string.Empty), "Note added."))
             {
                 _note = null;
                 _noteTab = 0;
@@ -91,7 +91,7 @@ public partial class AddEvidence
 
     private async Task AddLink()
     {
-        if (await Run(() => Cases.AddLinkAsync(User, Case.Id, Item.Key, _linkUrl ?? string.Empty, _linkTitle ?? string.Empty), "Link added."))
+        if (await Run(() => Appender.AddLinkAsync(User, Case.Id, Item.Key, _linkUrl ?? string.Empty, _linkTitle ?? string.Empty), "Link added."))
         {
             _linkUrl = _linkTitle = null;
         }
@@ -155,7 +155,7 @@ public partial class AddEvidence
         {
             var role = ChosenRole;
             await using var stream = file.OpenReadStream(MaxBytes);
-            if (await Run(() => Cases.AddAttachmentAsync(User, Case.Id, Item.Key, stream, file.Name, file.ContentType, _fileDescription ?? string.Empty, MaxBytes, role),
+            if (await Run(() => Appender.AddAttachmentAsync(User, Case.Id, Item.Key, stream, file.Name, file.ContentType, _fileDescription ?? string.Empty, MaxBytes, role),
                     $"'{file.Name}' attached as {role.Title}."))
             {
                 _file = null;

@@ -6,13 +6,13 @@ using EventReview.Core.Evidence;
 using EventReview.Core.Network;
 using EventReview.Core.Time;
 
-namespace EventReview.Core.Tests.Dossier;
+namespace EventReview.TestSupport;
 
 /// <summary>
 /// A small case built through the domain methods: three items, a note, an attachment, a link, a computation with
 /// two SVG pictures, signed items, one stale sign-off, a frozen configuration and a later snapshot that drifted.
 /// </summary>
-internal sealed class SampleCase
+public sealed class SampleCase
 {
     public static readonly DateTimeOffset T0 = new(2031, 3, 14, 9, 26, 53, TimeSpan.Zero);
 

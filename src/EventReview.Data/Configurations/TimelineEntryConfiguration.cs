@@ -4,11 +4,11 @@ using Microsoft.EntityFrameworkCore.Metadata.Builders;
 
 namespace EventReview.Data.Configurations;
 
-public sealed class ActivityEntryConfiguration : IEntityTypeConfiguration<ActivityEntry>
+public sealed class TimelineEntryConfiguration : IEntityTypeConfiguration<TimelineEntry>
 {
-    public void Configure(EntityTypeBuilder<ActivityEntry> b)
+    public void Configure(EntityTypeBuilder<TimelineEntry> b)
     {
-        b.ToTable("Activity");
+        b.ToTable("Timeline");
         b.HasKey(a => a.Id);
         b.HasIndex(a => new { a.ReviewCaseId, a.Sequence }).IsUnique();
         b.Property(a => a.CandidateId).HasMaxLength(128);

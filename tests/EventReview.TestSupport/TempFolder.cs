@@ -1,4 +1,4 @@
-namespace EventReview.Data.Tests.Fixtures;
+namespace EventReview.TestSupport;
 
 /// <summary>A fresh folder under the system temp folder, deleted on dispose.</summary>
 public sealed class TempFolder : IDisposable

@@ -379,38 +379,6 @@ namespace EventReview.Data.Migrations.Postgres
                 });
 
             migrationBuilder.CreateTable(
-                name: "Activity",
-                columns: table => new
-                {
-                    Id = table.Column<long>(type: "bigint", nullable: false)
-                        .Annotation("Npgsql:ValueGenerationStrategy", NpgsqlValueGenerationStrategy.IdentityByDefaultColumn),
-                    ReviewCaseId = table.Column<int>(type: "integer", nullable: false),
-                    CandidateId = table.Column<string>(type: "character varying(128)", maxLength: 128, nullable: false),
-                    Sequence = table.Column<int>(type: "integer", nullable: false),
-                    At = table.Column<DateTimeOffset>(type: "timestamp with time zone", nullable: false),
-                    ActorId = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: false),
-                    ActorName = table.Column<string>(type: "character varying(200)", maxLength: 200, nullable: false),
-                    Kind = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: false),
-                    ItemKey = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: true),
-                    Text = table.Column<string>(type: "text", nullable: false),
-                    PreviousHash = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: false),
-                    Hash = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: false),
-                    Facts = table.Column<string>(type: "text", nullable: true),
-                    KeyId = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: true),
-                    Mac = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: true)
-                },
-                constraints: table =>
-                {
-                    table.PrimaryKey("PK_Activity", x => x.Id);
-                    table.ForeignKey(
-                        name: "FK_Activity_Cases_ReviewCaseId",
-                        column: x => x.ReviewCaseId,
-                        principalTable: "Cases",
-                        principalColumn: "Id",
-                        onDelete: ReferentialAction.Restrict);
-                });
-
-            migrationBuilder.CreateTable(
                 name: "CaseArrivals",
                 columns: table => new
                 {
@@ -518,6 +486,38 @@ namespace EventReview.Data.Migrations.Postgres
                     table.PrimaryKey("PK_DossierExports", x => x.Id);
                     table.ForeignKey(
                         name: "FK_DossierExports_Cases_ReviewCaseId",
+                        column: x => x.ReviewCaseId,
+                        principalTable: "Cases",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Restrict);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "Timeline",
+                columns: table => new
+                {
+                    Id = table.Column<long>(type: "bigint", nullable: false)
+                        .Annotation("Npgsql:ValueGenerationStrategy", NpgsqlValueGenerationStrategy.IdentityByDefaultColumn),
+                    ReviewCaseId = table.Column<int>(type: "integer", nullable: false),
+                    CandidateId = table.Column<string>(type: "character varying(128)", maxLength: 128, nullable: false),
+                    Sequence = table.Column<int>(type: "integer", nullable: false),
+                    At = table.Column<DateTimeOffset>(type: "timestamp with time zone", nullable: false),
+                    ActorId = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: false),
+                    ActorName = table.Column<string>(type: "character varying(200)", maxLength: 200, nullable: false),
+                    Kind = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: false),
+                    ItemKey = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: true),
+                    Text = table.Column<string>(type: "text", nullable: false),
+                    PreviousHash = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: false),
+                    Hash = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: false),
+                    Facts = table.Column<string>(type: "text", nullable: true),
+                    KeyId = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: true),
+                    Mac = table.Column<string>(type: "character varying(64)", maxLength: 64, nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_Timeline", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_Timeline_Cases_ReviewCaseId",
                         column: x => x.ReviewCaseId,
                         principalTable: "Cases",
                         principalColumn: "Id",
@@ -643,12 +643,6 @@ namespace EventReview.Data.Migrations.Postgres
                 name: "IX_AccountEvents_Sequence",
                 table: "AccountEvents",
                 column: "Sequence",
-                unique: true);
-
-            migrationBuilder.CreateIndex(
-                name: "IX_Activity_ReviewCaseId_Sequence",
-                table: "Activity",
-                columns: new[] { "ReviewCaseId", "Sequence" },
                 unique: true);
 
             migrationBuilder.CreateIndex(
@@ -799,6 +793,12 @@ namespace EventReview.Data.Migrations.Postgres
                 table: "Sites",
                 column: "NetworkId");
 
+            migrationBuilder.CreateIndex(
+                name: "IX_Timeline_ReviewCaseId_Sequence",
+                table: "Timeline",
+                columns: new[] { "ReviewCaseId", "Sequence" },
+                unique: true);
+
             // The append-only guards of the record (decision 010: written out here, never built by live code): the timeline, the sign-in audit, evidence and computation records refuse updates and deletes; sign-offs may only be marked stale; a frozen configuration record refuses every change.
             migrationBuilder.Sql(
                 """
@@ -851,10 +851,6 @@ namespace EventReview.Data.Migrations.Postgres
                 """);
             migrationBuilder.Sql(
                 """
-                CREATE TRIGGER er_activity_append_only BEFORE DELETE OR UPDATE ON public."Activity" FOR EACH ROW EXECUTE FUNCTION er_append_only();
-                """);
-            migrationBuilder.Sql(
-                """
                 CREATE TRIGGER er_computations_append_only BEFORE DELETE OR UPDATE ON public."Computations" FOR EACH ROW EXECUTE FUNCTION er_append_only();
                 """);
             migrationBuilder.Sql(
@@ -869,6 +865,10 @@ namespace EventReview.Data.Migrations.Postgres
                 """
                 CREATE TRIGGER er_signoffs_guard BEFORE DELETE OR UPDATE ON public."SignOffs" FOR EACH ROW EXECUTE FUNCTION er_signoff_guard();
                 """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_timeline_append_only BEFORE DELETE OR UPDATE ON public."Timeline" FOR EACH ROW EXECUTE FUNCTION er_append_only();
+                """);
         }
 
         /// <inheritdoc />
@@ -876,9 +876,6 @@ namespace EventReview.Data.Migrations.Postgres
         {
             migrationBuilder.DropTable(
                 name: "AccountEvents");
-
-            migrationBuilder.DropTable(
-                name: "Activity");
 
             migrationBuilder.DropTable(
                 name: "ApiTokens");
@@ -939,6 +936,9 @@ namespace EventReview.Data.Migrations.Postgres
 
             migrationBuilder.DropTable(
                 name: "Sites");
+
+            migrationBuilder.DropTable(
+                name: "Timeline");
 
             migrationBuilder.DropTable(
                 name: "AspNetRoles");

@@ -2,10 +2,10 @@ using System.Security.Cryptography;
 using System.Text;
 using EventReview.Core.Records;
 
-namespace EventReview.Core.Tests.Records;
+namespace EventReview.TestSupport;
 
 /// <summary>A record key for tests: a P-256 key made once per run, its MAC key derived as the key folder derives it, and a ring holding it.</summary>
-internal sealed class TestSigner : IRecordSigner, IRecordKeyRing
+public sealed class TestSigner : IRecordSigner, IRecordKeyRing
 {
     private readonly ECDsa _key = ECDsa.Create(ECCurve.NamedCurves.nistP256);
     private readonly byte[] _mac;

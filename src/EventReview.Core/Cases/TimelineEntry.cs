@@ -12,12 +12,12 @@ namespace EventReview.Core.Cases;
 /// (<see cref="Facts"/>, replayed by <see cref="CaseReplay"/>) and a MAC under the server's record key
 /// (<see cref="Mac"/>), so that the chain cannot be recomputed by someone without the key. Entries are never updated or deleted.
 /// </summary>
-public sealed class ActivityEntry
+public sealed class TimelineEntry
 {
     /// <summary>Hash that stands before the first entry of every case (64 zeros).</summary>
     public const string GenesisHash = "0000000000000000000000000000000000000000000000000000000000000000";
 
-    private ActivityEntry()
+    private TimelineEntry()
     {
         CandidateId = string.Empty;
         ActorId = string.Empty;
@@ -28,7 +28,7 @@ public sealed class ActivityEntry
         Hash = string.Empty;
     }
 
-    internal ActivityEntry(string candidateId, int sequence, DateTimeOffset at, Actor actor, string kind, string? itemKey, string text, string previousHash,
+    internal TimelineEntry(string candidateId, int sequence, DateTimeOffset at, Actor actor, string kind, string? itemKey, string text, string previousHash,
         IEnumerable<Fact> facts)
     {
         CandidateId = candidateId;
@@ -142,6 +142,8 @@ public sealed class ActivityEntry
             return CanonicalV1(candidateId, sequence, at, actorId, actorName, kind, itemKey, text, previousHash);
         }
 
+        // "activity" is the record's old word, kept on purpose: this tag is inside every stored hash, so changing it would
+        // make every existing entry fail verification (docs/decisions/013-one-word-timeline.md).
         var sb = new StringBuilder("eventreview-activity-v2\n");
         foreach (var field in new[] { candidateId, sequence.ToString(CultureInfo.InvariantCulture), FormatUtc(at), actorId, actorName, kind, itemKey ?? string.Empty, text, facts, previousHash })
         {

@@ -2,7 +2,7 @@ using System.Net;
 using System.Net.Sockets;
 using Npgsql;
 
-namespace EventReview.Data.Tests.Fixtures;
+namespace EventReview.TestSupport;
 
 /// <summary>
 /// A PostgreSQL server for the data tests. Uses the connection string in <c>EVENTREVIEW_TEST_POSTGRES</c> when set

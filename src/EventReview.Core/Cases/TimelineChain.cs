@@ -1,18 +1,18 @@
 namespace EventReview.Core.Cases;
 
 /// <summary>Verifies a case's timeline hash chain.</summary>
-public static class ActivityChain
+public static class TimelineChain
 {
     /// <summary>
     /// Checks sequence numbers (1, 2, 3, ... without gaps), each entry's link to the previous hash and each entry's own hash.
     /// Returns null when the chain is intact, otherwise a sentence naming the first entry that does not match.
     /// </summary>
-    public static string? FirstProblem(IEnumerable<ActivityEntry> entries) => Check(entries).Problem;
+    public static string? FirstProblem(IEnumerable<TimelineEntry> entries) => Check(entries).Problem;
 
     /// <summary>As <see cref="FirstProblem"/>, also giving the sequence number of the first entry that does not verify.</summary>
-    public static (int? Entry, string? Problem) Check(IEnumerable<ActivityEntry> entries)
+    public static (int? Entry, string? Problem) Check(IEnumerable<TimelineEntry> entries)
     {
-        var prev = ActivityEntry.GenesisHash;
+        var prev = TimelineEntry.GenesisHash;
         var expected = 1;
         foreach (var e in entries.OrderBy(e => e.Sequence))
         {

@@ -3,15 +3,14 @@ using System.Text.Json.Nodes;
 using EventReview.Core.Dossier;
 using EventReview.Core.Evidence;
 using EventReview.Core.Records;
-using EventReview.Core.Tests.Records;
 
-namespace EventReview.Core.Tests.Dossier;
+namespace EventReview.TestSupport;
 
 /// <summary>
 /// Makes the files of a dossier in memory (dossier.json, pictures, attachments, a manifest signed by <see cref="TestSigner"/>)
 /// and alters them as a tamperer would: someone without the key can recompute the manifest but not its signature.
 /// </summary>
-internal static class DossierFiles
+public static class DossierFiles
 {
     public static Dictionary<string, byte[]> From(DossierDocument doc, IReadOnlyDictionary<string, byte[]> attachmentsBySha)
     {

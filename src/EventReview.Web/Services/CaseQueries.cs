@@ -1,24 +1,18 @@
 using System.Security.Claims;
 using EventReview.Core.Cases;
 using EventReview.Core.Evidence;
-using EventReview.Core.Evidence.Roles;
-using EventReview.Core.Time;
 using EventReview.Data;
-using EventReview.Data.Writes;
 using EventReview.Web.Auth;
 using Microsoft.EntityFrameworkCore;
 
 namespace EventReview.Web.Services;
 
 /// <summary>
-/// Every read and change of cases, for the UI and the API alike. Roles are checked here on the server.
-/// Changes load the case aggregate, apply one domain method and save; the case's version token serialises
-/// concurrent changes, and append-only changes (evidence, notes) are retried so that nothing is lost.
+/// Every read of cases, for the UI and the API alike: lists, one case, its overview, and pages of evidence, computation
+/// records and timeline. Roles are checked here on the server; nothing here changes anything.
 /// </summary>
-public sealed partial class CaseService(IDbContextFactory<AppDbContext> dbFactory, IWriteGate writes, TemplateCatalog templates, TimeProvider clock, AttachmentStore store, KnownItems known, ILogger<CaseService> log)
+public sealed class CaseQueries(IDbContextFactory<AppDbContext> dbFactory)
 {
-    private const int MaxAttempts = 6;
-
     /// <summary>One page of the cases, newest candidate first, optionally filtered by state and text.</summary>
     /// <exception cref="ArgumentOutOfRangeException">When offset or limit is out of range (see <see cref="Paging"/>).</exception>
     public async Task<CaseListPage> ListAsync(ClaimsPrincipal user, CaseState? state = null, string? search = null, int? offset = null, int? limit = null, CancellationToken ct = default)
@@ -105,7 +99,7 @@ public sealed partial class CaseService(IDbContextFactory<AppDbContext> dbFactor
             throw new KeyNotFoundException($"There is no case with id {caseId}.");
         }
 
-        var q = db.Activity.AsNoTracking().Where(a => a.ReviewCaseId == caseId);
+        var q = db.Timeline.AsNoTracking().Where(a => a.ReviewCaseId == caseId);
         var total = await q.CountAsync(ct);
         var page = await q.OrderByDescending(a => a.Sequence).Skip(o).Take(l).ToListAsync(ct);
         return new TimelinePage(total, o, l, page);
@@ -132,5 +126,25 @@ public sealed partial class CaseService(IDbContextFactory<AppDbContext> dbFactor
         await using var db = await dbFactory.CreateDbContextAsync(ct);
         return await db.CasesWithEverything().AsNoTracking().FirstOrDefaultAsync(c => c.Id == id, ct)
             ?? throw new KeyNotFoundException($"There is no case with id {id}.");
+    }
+
+    /// <summary>
+    /// One page of an item's computation records, oldest first, and the id of the newest record of each kind (the current
+    /// one; older records stay as history).
+    /// </summary>
+    /// <exception cref="KeyNotFoundException">When the case or item does not exist.</exception>
+    /// <exception cref="ArgumentOutOfRangeException">When offset or limit is out of range (see <see cref="Paging"/>).</exception>
+    public async Task<ComputationPage> ComputationPageAsync(ClaimsPrincipal user, int caseId, string itemKey, int? offset, int? limit, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.Read, "read cases");
+        var (o, l) = Paging.Check(offset, limit);
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        var itemId = await ItemIdAsync(db, caseId, itemKey, ct);
+        var q = db.Computations.AsNoTracking().Where(r => r.ChecklistItemId == itemId);
+        var total = await q.CountAsync(ct);
+        var page = await q.OrderBy(r => r.RunAt).ThenBy(r => r.Id).Skip(o).Take(l).ToListAsync(ct);
+        var heads = await q.Select(r => new { r.Id, r.Kind, r.RunAt }).ToListAsync(ct);
+        var current = heads.GroupBy(r => r.Kind).Select(g => g.OrderByDescending(r => r.RunAt).ThenByDescending(r => r.Id).First().Id).ToHashSet();
+        return new ComputationPage(total, o, l, page, current);
     }
 }

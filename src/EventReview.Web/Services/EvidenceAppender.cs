@@ -2,7 +2,6 @@ using System.Security.Claims;
 using EventReview.Core.Cases;
 using EventReview.Core.Evidence;
 using EventReview.Core.Evidence.Roles;
-using EventReview.Core.Time;
 using EventReview.Data;
 using EventReview.Data.Writes;
 using EventReview.Web.Auth;
@@ -10,19 +9,23 @@ using Microsoft.EntityFrameworkCore;
 
 namespace EventReview.Web.Services;
 
-/// <summary> Adding evidence to an item: notes, files (with their role), links and computation records; the short append path first, the whole case when sign-offs go stale. </summary>
-public sealed partial class CaseService
+/// <summary>
+/// Adding evidence to an item: notes, files (with their role) and links, all by one path. It follows the pure plan of
+/// <see cref="EvidenceAppend"/>: the short path (<see cref="EvidenceAppendSql"/>, a few prepared statements, no case
+/// loaded) first, and the loaded item through the aggregate only when the evidence makes current sign-offs stale.
+/// </summary>
+public sealed class EvidenceAppender(IDbContextFactory<AppDbContext> dbFactory, IWriteGate writes, CaseWriter writer, CaseQueries queries, AttachmentStore store, KnownItems known)
 {
     /// <summary>Adds a note (see <see cref="AppendNoteAsync"/>) and returns the whole case as it is afterwards, for the pages.</summary>
     public async Task<ReviewCase> AddNoteAsync(ClaimsPrincipal user, int caseId, string itemKey, string markdown, CancellationToken ct = default)
     {
         await AppendNoteAsync(user, caseId, itemKey, markdown, ct);
-        return await GetAsync(user, caseId, ct);
+        return await queries.GetAsync(user, caseId, ct);
     }
 
     /// <summary>
-    /// Adds a note like <see cref="AddNoteAsync"/> but loads only the one item and the newest timeline entry, and
-    /// returns a receipt instead of the whole case: the write path of the API, whose cost does not grow with the case.
+    /// Adds a note, loading at most the one item and the newest timeline entry, and returns a receipt instead of the
+    /// whole case: the write path of the API, whose cost does not grow with the case.
     /// </summary>
     public Task<EvidenceReceipt> AppendNoteAsync(ClaimsPrincipal user, int caseId, string itemKey, string markdown, CancellationToken ct = default)
     {
@@ -31,9 +34,33 @@ public sealed partial class CaseService
         return AppendAsync(caseId, itemKey, now => EvidenceItem.Note(markdown, actor, now), actor, ct);
     }
 
+    /// <summary>Adds a link (see <see cref="AppendLinkAsync"/>) and returns the whole case as it is afterwards, for the pages.</summary>
+    public async Task<ReviewCase> AddLinkAsync(ClaimsPrincipal user, int caseId, string itemKey, string url, string title, CancellationToken ct = default)
+    {
+        await AppendLinkAsync(user, caseId, itemKey, url, title, ct);
+        return await queries.GetAsync(user, caseId, ct);
+    }
+
+    /// <summary>Adds a link by the same path as a note (see <see cref="AppendNoteAsync"/>).</summary>
+    public Task<EvidenceReceipt> AppendLinkAsync(ClaimsPrincipal user, int caseId, string itemKey, string url, string title, CancellationToken ct = default)
+    {
+        Permissions.Require(user, Policies.AddEvidence, "add evidence");
+        var actor = user.ToActor();
+        return AppendAsync(caseId, itemKey, now => EvidenceItem.Link(url, title, actor, now), actor, ct);
+    }
+
+    /// <summary>Stores a file content-addressed, attaches it to the item and returns the whole case afterwards, for the pages.</summary>
+    /// <exception cref="AttachmentTooLargeException">When the file exceeds <paramref name="maxBytes"/>.</exception>
+    public async Task<ReviewCase> AddAttachmentAsync(ClaimsPrincipal user, int caseId, string itemKey, Stream content, string fileName, string contentType,
+        string description, long maxBytes, FileRole? role = null, CancellationToken ct = default)
+    {
+        await AppendAttachmentAsync(user, caseId, itemKey, content, fileName, contentType, description, maxBytes, role, ct);
+        return await queries.GetAsync(user, caseId, ct);
+    }
+
     /// <summary>
-    /// Stores a file content-addressed and attaches it, loading only the one item (see <see cref="AppendNoteAsync"/>). The file
-    /// keeps <paramref name="role"/> when given; otherwise its role is guessed from its first bytes and name
+    /// Stores a file content-addressed and attaches it by the same path as a note (see <see cref="AppendNoteAsync"/>). The
+    /// file keeps <paramref name="role"/> when given; otherwise its role is guessed from its first bytes and name
     /// (<see cref="FileRoleGuesser"/>) and the receipt says so.
     /// </summary>
     /// <exception cref="AttachmentTooLargeException">When the file exceeds <paramref name="maxBytes"/>.</exception>
@@ -75,51 +102,9 @@ public sealed partial class CaseService
         return FileRoleGuesser.Guess(fileName, head.AsSpan(0, read), sites);
     }
 
-    public Task<ReviewCase> AddLinkAsync(ClaimsPrincipal user, int caseId, string itemKey, string url, string title, CancellationToken ct = default)
-    {
-        Permissions.Require(user, Policies.AddEvidence, "add evidence");
-        var actor = user.ToActor();
-        return MutateAsync(caseId, itemKey, null, (c, now) => c.AddEvidence(itemKey, EvidenceItem.Link(url, title, actor, now), actor, now), ct);
-    }
-
-    /// <summary>Stores a file content-addressed, attaches it to the item and returns the whole case afterwards, for the pages.</summary>
-    /// <exception cref="AttachmentTooLargeException">When the file exceeds <paramref name="maxBytes"/>.</exception>
-    public async Task<ReviewCase> AddAttachmentAsync(ClaimsPrincipal user, int caseId, string itemKey, Stream content, string fileName, string contentType,
-        string description, long maxBytes, FileRole? role = null, CancellationToken ct = default)
-    {
-        await AppendAttachmentAsync(user, caseId, itemKey, content, fileName, contentType, description, maxBytes, role, ct);
-        return await GetAsync(user, caseId, ct);
-    }
-
-    /// <summary>Attaches a computation record made by a built-in check.</summary>
-    public Task<ReviewCase> AddComputationAsync(ClaimsPrincipal user, int caseId, string itemKey, Func<DateTimeOffset, ComputationRecord> record, CancellationToken ct = default)
-    {
-        Permissions.Require(user, Policies.Work, "run checks");
-        var actor = user.ToActor();
-        return MutateAsync(caseId, itemKey, null, (c, now) => c.AddComputation(itemKey, record(now), actor, now), ct);
-    }
-
-    /// <summary>
-    /// Attaches a computation record made inside the same database transaction as other changes (e.g. freezing a
-    /// configuration record): <paramref name="make"/> gets the context and the time, may change other tracked entities,
-    /// and returns the record and, when it froze one, the configuration record (which the timeline entry then records).
-    /// Everything is saved together or not at all.
-    /// </summary>
-    public Task<ReviewCase> AddComputationWithAsync(ClaimsPrincipal user, string policy, int caseId, string itemKey,
-        Func<AppDbContext, ReviewCase, DateTimeOffset, Task<(ComputationRecord Record, Core.Configuration.ConfigurationSnapshot? Frozen)>> make, CancellationToken ct = default)
-    {
-        Permissions.Require(user, policy, "do this");
-        var actor = user.ToActor();
-        return MutateCoreAsync(caseId, itemKey, null, async (db, c, now) =>
-        {
-            var (record, frozen) = await make(db, c, now);
-            c.AddComputation(itemKey, record, actor, now, frozen);
-        }, ct);
-    }
-
     /// <summary>
     /// Adds evidence by the short path (<see cref="EvidenceAppendSql"/>: a few prepared statements, no case loaded);
-    /// when the item has current sign-offs, which the evidence makes stale, through the whole case instead.
+    /// when the item has current sign-offs, which the evidence makes stale, through the loaded item instead.
     /// </summary>
     private async Task<EvidenceReceipt> AppendAsync(int caseId, string itemKey, Func<DateTimeOffset, EvidenceItem> make, Actor actor, CancellationToken ct)
     {
@@ -128,7 +113,7 @@ public sealed partial class CaseService
             try
             {
                 var stored = await writes.RunSqlAsync(
-                    (unit, token) => EvidenceAppendSql.TryAppendAsync(unit, caseId, itemKey, make, actor, EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow()), token), ct);
+                    (unit, token) => EvidenceAppendSql.TryAppendAsync(unit, caseId, itemKey, make, actor, writer.Now(), token), ct);
                 if (stored is null)
                 {
                     break;
@@ -137,17 +122,17 @@ public sealed partial class CaseService
                 var e = stored.Evidence;
                 return new EvidenceReceipt(stored.EvidenceId, e.ContentSha256, e.SizeBytes, e.FileName, stored.ItemState, stored.ItemFingerprint);
             }
-            catch (AppendConflictException) when (attempt < MaxAttempts)
+            catch (AppendConflictException) when (attempt < CaseWriter.MaxAttempts)
             {
                 await Task.Delay(Random.Shared.Next(1, 10) * attempt, ct);
             }
             catch (AppendConflictException)
             {
-                throw new ConflictException("The case is being changed by others right now and your change could not be saved; nothing was applied. Try again.");
+                throw new ConflictException(CaseWriter.BusyMessage);
             }
         }
 
-        return await WriteAsync((db, token) => PrepareAppendAsync(db, caseId, itemKey, make, actor, token), ct);
+        return await writer.WriteAsync((db, token) => PrepareAppendAsync(db, caseId, itemKey, make, actor, token), ct);
     }
 
     private async Task<Func<EvidenceReceipt>> PrepareAppendAsync(AppDbContext db, int caseId, string itemKey, Func<DateTimeOffset, EvidenceItem> make, Actor actor, CancellationToken ct)
@@ -157,7 +142,7 @@ public sealed partial class CaseService
         var c = await db.LoadCaseWithOneItemAsync(caseId, itemKey, ct)
             ?? throw new KeyNotFoundException($"There is no case with id {caseId}.");
         await db.Database.CloseConnectionAsync();
-        var now = EventReview.Core.Time.RecordedTime.Normalize(clock.GetUtcNow());
+        var now = writer.Now();
         var evidence = make(now);
         c.AddEvidence(itemKey, evidence, actor, now);
         return () =>
@@ -165,5 +150,35 @@ public sealed partial class CaseService
             var item = c.Item(itemKey);
             return new EvidenceReceipt(evidence.Id, evidence.ContentSha256, evidence.SizeBytes, evidence.FileName, item.State, item.Fingerprint());
         };
+    }
+
+    // A refused upload must leave no file behind: a closed case refuses before the bytes are stored.
+    private async Task EnsureNotClosedAsync(int caseId, CancellationToken ct)
+    {
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        var c = await db.Cases.AsNoTracking().Where(x => x.Id == caseId && x.State == CaseState.Closed).Select(x => x.CandidateId).FirstOrDefaultAsync(ct);
+        if (c is not null)
+        {
+            throw ReviewCase.ClosedError(c);
+        }
+    }
+
+    private async Task EnsureItemExistsAsync(int caseId, string itemKey, CancellationToken ct)
+    {
+        if (known.Contains(caseId, itemKey))
+        {
+            return;
+        }
+
+        await using var db = await dbFactory.CreateDbContextAsync(ct);
+        if (await db.Items.AnyAsync(i => i.ReviewCaseId == caseId && i.Key == itemKey, ct))
+        {
+            known.Remember(caseId, [itemKey]);
+            return;
+        }
+
+        throw await db.Cases.AnyAsync(c => c.Id == caseId, ct)
+            ? new KeyNotFoundException($"Case {caseId} has no checklist item '{itemKey}'.")
+            : new KeyNotFoundException($"There is no case with id {caseId}.");
     }
 }

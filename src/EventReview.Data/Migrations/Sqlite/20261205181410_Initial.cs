@@ -378,38 +378,6 @@ namespace EventReview.Data.Migrations.Sqlite
                 });
 
             migrationBuilder.CreateTable(
-                name: "Activity",
-                columns: table => new
-                {
-                    Id = table.Column<long>(type: "INTEGER", nullable: false)
-                        .Annotation("Sqlite:Autoincrement", true),
-                    ReviewCaseId = table.Column<int>(type: "INTEGER", nullable: false),
-                    CandidateId = table.Column<string>(type: "TEXT", maxLength: 128, nullable: false),
-                    Sequence = table.Column<int>(type: "INTEGER", nullable: false),
-                    At = table.Column<long>(type: "INTEGER", nullable: false),
-                    ActorId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
-                    ActorName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
-                    Kind = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
-                    ItemKey = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
-                    Text = table.Column<string>(type: "TEXT", nullable: false),
-                    PreviousHash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
-                    Hash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
-                    Facts = table.Column<string>(type: "TEXT", nullable: true),
-                    KeyId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
-                    Mac = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true)
-                },
-                constraints: table =>
-                {
-                    table.PrimaryKey("PK_Activity", x => x.Id);
-                    table.ForeignKey(
-                        name: "FK_Activity_Cases_ReviewCaseId",
-                        column: x => x.ReviewCaseId,
-                        principalTable: "Cases",
-                        principalColumn: "Id",
-                        onDelete: ReferentialAction.Restrict);
-                });
-
-            migrationBuilder.CreateTable(
                 name: "CaseArrivals",
                 columns: table => new
                 {
@@ -517,6 +485,38 @@ namespace EventReview.Data.Migrations.Sqlite
                     table.PrimaryKey("PK_DossierExports", x => x.Id);
                     table.ForeignKey(
                         name: "FK_DossierExports_Cases_ReviewCaseId",
+                        column: x => x.ReviewCaseId,
+                        principalTable: "Cases",
+                        principalColumn: "Id",
+                        onDelete: ReferentialAction.Restrict);
+                });
+
+            migrationBuilder.CreateTable(
+                name: "Timeline",
+                columns: table => new
+                {
+                    Id = table.Column<long>(type: "INTEGER", nullable: false)
+                        .Annotation("Sqlite:Autoincrement", true),
+                    ReviewCaseId = table.Column<int>(type: "INTEGER", nullable: false),
+                    CandidateId = table.Column<string>(type: "TEXT", maxLength: 128, nullable: false),
+                    Sequence = table.Column<int>(type: "INTEGER", nullable: false),
+                    At = table.Column<long>(type: "INTEGER", nullable: false),
+                    ActorId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    ActorName = table.Column<string>(type: "TEXT", maxLength: 200, nullable: false),
+                    Kind = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    ItemKey = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
+                    Text = table.Column<string>(type: "TEXT", nullable: false),
+                    PreviousHash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Hash = table.Column<string>(type: "TEXT", maxLength: 64, nullable: false),
+                    Facts = table.Column<string>(type: "TEXT", nullable: true),
+                    KeyId = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true),
+                    Mac = table.Column<string>(type: "TEXT", maxLength: 64, nullable: true)
+                },
+                constraints: table =>
+                {
+                    table.PrimaryKey("PK_Timeline", x => x.Id);
+                    table.ForeignKey(
+                        name: "FK_Timeline_Cases_ReviewCaseId",
                         column: x => x.ReviewCaseId,
                         principalTable: "Cases",
                         principalColumn: "Id",
@@ -642,12 +642,6 @@ namespace EventReview.Data.Migrations.Sqlite
                 name: "IX_AccountEvents_Sequence",
                 table: "AccountEvents",
                 column: "Sequence",
-                unique: true);
-
-            migrationBuilder.CreateIndex(
-                name: "IX_Activity_ReviewCaseId_Sequence",
-                table: "Activity",
-                columns: new[] { "ReviewCaseId", "Sequence" },
                 unique: true);
 
             migrationBuilder.CreateIndex(
@@ -798,6 +792,12 @@ namespace EventReview.Data.Migrations.Sqlite
                 table: "Sites",
                 column: "NetworkId");
 
+            migrationBuilder.CreateIndex(
+                name: "IX_Timeline_ReviewCaseId_Sequence",
+                table: "Timeline",
+                columns: new[] { "ReviewCaseId", "Sequence" },
+                unique: true);
+
             // The append-only guards of the record (decision 010: written out here, never built by live code): the timeline, the sign-in audit, evidence and computation records refuse updates and deletes; sign-offs may only be marked stale; a frozen configuration record refuses every change.
             migrationBuilder.Sql(
                 """
@@ -806,14 +806,6 @@ namespace EventReview.Data.Migrations.Sqlite
             migrationBuilder.Sql(
                 """
                 CREATE TRIGGER er_AccountEvents_no_update BEFORE UPDATE ON "AccountEvents" BEGIN SELECT RAISE(ABORT, 'AccountEvents rows are append-only: they cannot be updated'); END
-                """);
-            migrationBuilder.Sql(
-                """
-                CREATE TRIGGER er_Activity_no_delete BEFORE DELETE ON "Activity" BEGIN SELECT RAISE(ABORT, 'Activity rows are append-only: they cannot be deleted'); END
-                """);
-            migrationBuilder.Sql(
-                """
-                CREATE TRIGGER er_Activity_no_update BEFORE UPDATE ON "Activity" BEGIN SELECT RAISE(ABORT, 'Activity rows are append-only: they cannot be updated'); END
                 """);
             migrationBuilder.Sql(
                 """
@@ -847,6 +839,14 @@ namespace EventReview.Data.Migrations.Sqlite
                 """
                 CREATE TRIGGER er_SignOffs_no_delete BEFORE DELETE ON "SignOffs" BEGIN SELECT RAISE(ABORT, 'Sign-offs cannot be deleted'); END
                 """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_Timeline_no_delete BEFORE DELETE ON "Timeline" BEGIN SELECT RAISE(ABORT, 'Timeline rows are append-only: they cannot be deleted'); END
+                """);
+            migrationBuilder.Sql(
+                """
+                CREATE TRIGGER er_Timeline_no_update BEFORE UPDATE ON "Timeline" BEGIN SELECT RAISE(ABORT, 'Timeline rows are append-only: they cannot be updated'); END
+                """);
         }
 
         /// <inheritdoc />
@@ -854,9 +854,6 @@ namespace EventReview.Data.Migrations.Sqlite
         {
             migrationBuilder.DropTable(
                 name: "AccountEvents");
-
-            migrationBuilder.DropTable(
-                name: "Activity");
 
             migrationBuilder.DropTable(
                 name: "ApiTokens");
@@ -917,6 +914,9 @@ namespace EventReview.Data.Migrations.Sqlite
 
             migrationBuilder.DropTable(
                 name: "Sites");
+
+            migrationBuilder.DropTable(
+                name: "Timeline");
 
             migrationBuilder.DropTable(
                 name: "AspNetRoles");

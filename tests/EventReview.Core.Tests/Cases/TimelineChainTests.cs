@@ -5,7 +5,7 @@ using EventReview.Core.Tests.Builders;
 
 namespace EventReview.Core.Tests.Cases;
 
-public class ActivityChainTests
+public class TimelineChainTests
 {
     /// <summary>A case with a dozen timeline entries of different kinds.</summary>
     private static ReviewCase Worked()
@@ -26,28 +26,28 @@ public class ActivityChainTests
     {
         var c = Worked();
 
-        Assert.Null(ActivityChain.FirstProblem(c.Activity));
-        Assert.Equal(Enumerable.Range(1, c.Activity.Count), c.Activity.Select(a => a.Sequence));
-        for (var i = 1; i < c.Activity.Count; i++)
+        Assert.Null(TimelineChain.FirstProblem(c.Timeline));
+        Assert.Equal(Enumerable.Range(1, c.Timeline.Count), c.Timeline.Select(a => a.Sequence));
+        for (var i = 1; i < c.Timeline.Count; i++)
         {
-            Assert.Equal(c.Activity[i - 1].Hash, c.Activity[i].PreviousHash);
+            Assert.Equal(c.Timeline[i - 1].Hash, c.Timeline[i].PreviousHash);
         }
 
-        Assert.True(c.Activity.Count >= 12);
+        Assert.True(c.Timeline.Count >= 12);
     }
 
     [Fact]
     public void An_empty_timeline_has_nothing_to_report()
     {
-        Assert.Null(ActivityChain.FirstProblem([]));
+        Assert.Null(TimelineChain.FirstProblem([]));
     }
 
     [Fact]
     public void The_entry_hash_is_sha256_of_the_documented_canonical_lines()
     {
-        var e = new CaseBuilder().Build().Activity[0];
+        var e = new CaseBuilder().Build().Timeline[0];
         var lines = "eventreview-activity-v2\n" + string.Concat(new[] { "TC-0001", "1", "2026-03-01T12:00:00.0000000Z",
-            People.Coordinator.UserId, People.Coordinator.DisplayName, "case.opened", "", e.Text, e.Facts!, ActivityEntry.GenesisHash }.Select(f => $"{f.Length}:{f}\n"));
+            People.Coordinator.UserId, People.Coordinator.DisplayName, "case.opened", "", e.Text, e.Facts!, TimelineEntry.GenesisHash }.Select(f => $"{f.Length}:{f}\n"));
 
         // Oracle: the canonical form (version 2: each field as length:value) written out by hand from the doc comment, hashed with the platform's SHA-256.
         Assert.Equal(Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(lines))), e.Hash);
@@ -59,53 +59,53 @@ public class ActivityChainTests
     {
         var c = Worked();
 
-        Assert.Null(ActivityChain.FirstProblem(c.Activity.Reverse()));
+        Assert.Null(TimelineChain.FirstProblem(c.Timeline.Reverse()));
     }
 
     [Fact]
     public void An_altered_text_is_caught_and_the_entry_is_named()
     {
         var c = Worked();
-        Tamper.Set(c.Activity[4], nameof(ActivityEntry.Text), "Nothing happened here.");
+        Tamper.Set(c.Timeline[4], nameof(TimelineEntry.Text), "Nothing happened here.");
 
-        var problem = ActivityChain.FirstProblem(c.Activity);
+        var problem = TimelineChain.FirstProblem(c.Timeline);
 
         Assert.NotNull(problem);
         Assert.StartsWith("Entry 5 ", problem, StringComparison.Ordinal);
         Assert.Contains("altered", problem, StringComparison.Ordinal);
-        Assert.Contains(c.Activity[4].ActorName, problem, StringComparison.Ordinal);
+        Assert.Contains(c.Timeline[4].ActorName, problem, StringComparison.Ordinal);
     }
 
     [Theory]
-    [InlineData(nameof(ActivityEntry.ActorName), "Someone Else")]
-    [InlineData(nameof(ActivityEntry.ActorId), "u-other")]
-    [InlineData(nameof(ActivityEntry.Kind), "item.assigned")]
-    [InlineData(nameof(ActivityEntry.ItemKey), "beta.one")]
-    [InlineData(nameof(ActivityEntry.CandidateId), "TC-9999")]
+    [InlineData(nameof(TimelineEntry.ActorName), "Someone Else")]
+    [InlineData(nameof(TimelineEntry.ActorId), "u-other")]
+    [InlineData(nameof(TimelineEntry.Kind), "item.assigned")]
+    [InlineData(nameof(TimelineEntry.ItemKey), "beta.one")]
+    [InlineData(nameof(TimelineEntry.CandidateId), "TC-9999")]
     public void Altering_any_hashed_field_is_caught(string field, string value)
     {
         var c = Worked();
-        Tamper.Set(c.Activity[2], field, value);
+        Tamper.Set(c.Timeline[2], field, value);
 
-        Assert.StartsWith("Entry 3 ", ActivityChain.FirstProblem(c.Activity), StringComparison.Ordinal);
+        Assert.StartsWith("Entry 3 ", TimelineChain.FirstProblem(c.Timeline), StringComparison.Ordinal);
     }
 
     [Fact]
     public void Moving_an_entry_in_time_is_caught()
     {
         var c = Worked();
-        Tamper.Set(c.Activity[3], nameof(ActivityEntry.At), c.Activity[3].At.AddTicks(1));
+        Tamper.Set(c.Timeline[3], nameof(TimelineEntry.At), c.Timeline[3].At.AddTicks(1));
 
-        Assert.StartsWith("Entry 4 ", ActivityChain.FirstProblem(c.Activity), StringComparison.Ordinal);
+        Assert.StartsWith("Entry 4 ", TimelineChain.FirstProblem(c.Timeline), StringComparison.Ordinal);
     }
 
     [Fact]
     public void A_missing_entry_is_caught_and_named()
     {
         var c = Worked();
-        var withGap = c.Activity.Where(a => a.Sequence != 6).ToList();
+        var withGap = c.Timeline.Where(a => a.Sequence != 6).ToList();
 
-        Assert.Equal("Entry 6 is missing (entry 7 follows entry 5).", ActivityChain.FirstProblem(withGap));
+        Assert.Equal("Entry 6 is missing (entry 7 follows entry 5).", TimelineChain.FirstProblem(withGap));
     }
 
     [Fact]
@@ -114,18 +114,18 @@ public class ActivityChainTests
         // Truncation at the end leaves a valid shorter chain: the case's version counter is what shows it.
         var c = Worked();
 
-        Assert.Null(ActivityChain.FirstProblem(c.Activity.Take(c.Activity.Count - 1)));
+        Assert.Null(TimelineChain.FirstProblem(c.Timeline.Take(c.Timeline.Count - 1)));
     }
 
     [Fact]
     public void Two_entries_swapped_in_sequence_are_caught_as_a_broken_link()
     {
         var c = Worked();
-        var (a, b) = (c.Activity[2], c.Activity[3]);
-        Tamper.Set(a, nameof(ActivityEntry.Sequence), 4);
-        Tamper.Set(b, nameof(ActivityEntry.Sequence), 3);
+        var (a, b) = (c.Timeline[2], c.Timeline[3]);
+        Tamper.Set(a, nameof(TimelineEntry.Sequence), 4);
+        Tamper.Set(b, nameof(TimelineEntry.Sequence), 3);
 
-        var problem = ActivityChain.FirstProblem(c.Activity);
+        var problem = TimelineChain.FirstProblem(c.Timeline);
 
         Assert.Equal($"Entry 3 ({b.Kind}) does not link to entry 2: previous-hash mismatch.", problem);
     }
@@ -134,23 +134,23 @@ public class ActivityChainTests
     public void Rehashing_an_altered_entry_still_breaks_the_link_of_the_next_one()
     {
         var c = Worked();
-        var e = c.Activity[4];
-        Tamper.Set(e, nameof(ActivityEntry.Text), "Rewritten.");
-        Tamper.Set(e, nameof(ActivityEntry.Hash), Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(e.CanonicalContent()))));
+        var e = c.Timeline[4];
+        Tamper.Set(e, nameof(TimelineEntry.Text), "Rewritten.");
+        Tamper.Set(e, nameof(TimelineEntry.Hash), Convert.ToHexStringLower(SHA256.HashData(Encoding.UTF8.GetBytes(e.CanonicalContent()))));
 
         Assert.True(e.HashMatches());
-        Assert.StartsWith("Entry 6 ", ActivityChain.FirstProblem(c.Activity), StringComparison.Ordinal);
+        Assert.StartsWith("Entry 6 ", TimelineChain.FirstProblem(c.Timeline), StringComparison.Ordinal);
     }
 
     [Fact]
     public void Refused_changes_do_not_add_entries_to_the_chain()
     {
         var c = Worked();
-        var count = c.Activity.Count;
+        var count = c.Timeline.Count;
 
         Assert.Throws<DomainRuleException>(() => c.SubmitForDecision(People.Coordinator, Clock.At(20)));
 
-        Assert.Equal(count, c.Activity.Count);
-        Assert.Null(ActivityChain.FirstProblem(c.Activity));
+        Assert.Equal(count, c.Timeline.Count);
+        Assert.Null(TimelineChain.FirstProblem(c.Timeline));
     }
 }
