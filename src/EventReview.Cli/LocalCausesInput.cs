@@ -1,3 +1,4 @@
+using EventReview.Core.Inputs;
 using EventReview.Core.Network;
 using EventReview.Core.Signal;
 using EventReview.Core.Signal.Io;
@@ -132,7 +133,7 @@ internal static class LocalCausesInput
         }
         catch (Exception ex) when (ex is FormatException or ArgumentException or IOException or UnauthorizedAccessException)
         {
-            return CliOutput.Fail(ex.Message.Split(" (Parameter '")[0]);
+            return CliOutput.Fail(UserMessage.From(ex));
         }
     }
 }
