@@ -137,5 +137,7 @@ public static class WriteLoad
         }
     }
 
-    public static string Json(Result r) => JsonSerializer.Serialize(r, new JsonSerializerOptions(JsonSerializerDefaults.Web) { WriteIndented = true, NumberHandling = System.Text.Json.Serialization.JsonNumberHandling.AllowNamedFloatingPointLiterals });
+    private static readonly JsonSerializerOptions ResultJson = new(JsonSerializerDefaults.Web) { WriteIndented = true, NumberHandling = System.Text.Json.Serialization.JsonNumberHandling.AllowNamedFloatingPointLiterals };
+
+    public static string Json(Result r) => JsonSerializer.Serialize(r, ResultJson);
 }

@@ -33,8 +33,8 @@ public sealed class IntegrityVerifier(IDbContextFactory<AppDbContext> dbFactory,
     /// "(sign-in audit)", "(witness)" or "(stored values)". With <paramref name="witnessedBefore"/> (a backup's time), only
     /// heads witnessed before then must be present: later entries are not expected in a copy taken at that time.
     /// </summary>
-    public async Task<(IReadOnlyList<CaseResult> Cases, IReadOnlyList<IntegrityProblem> Database)> VerifyAsync(int? caseId = null, CancellationToken ct = default,
-        DateTimeOffset? witnessedBefore = null)
+    public async Task<(IReadOnlyList<CaseResult> Cases, IReadOnlyList<IntegrityProblem> Database)> VerifyAsync(int? caseId = null,
+        DateTimeOffset? witnessedBefore = null, CancellationToken ct = default)
     {
         await using var db = await dbFactory.CreateDbContextAsync(ct);
         var database = new List<IntegrityProblem>();

@@ -30,8 +30,8 @@ public sealed class DejaVuFontResolver : IFontResolver
     }
 
     /// <inheritdoc />
-    public FontResolverInfo? ResolveTypeface(string familyName, bool isBold, bool isItalic) =>
-        new(isBold ? Bold : Regular);
+    public FontResolverInfo? ResolveTypeface(string familyName, bool bold, bool italic) =>
+        new(bold ? Bold : Regular);
 
     /// <inheritdoc />
     public byte[]? GetFont(string faceName)

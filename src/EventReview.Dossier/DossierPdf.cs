@@ -98,7 +98,7 @@ public static class DossierPdf
                 "the check but no run is recorded, '-' where the section has none. Signed: items with all required sign-offs current.");
         w.Space(4);
         double first = 110, each = kinds.Count == 0 ? 0 : (w.Width - first - 36) / kinds.Count;
-        var columns = new[] { 0.0 }.Concat(kinds.Select((_, k) => first + (k * each))).Append(w.Width - 36).ToArray();
+        var columns = kinds.Select((_, k) => first + (k * each)).Prepend(0.0).Append(w.Width - 36).ToArray();
         var headers = MatrixHeaders(kinds, kind => w.Fits(kind, 7.5, true, each - 4));
         w.Row(columns, true, 7.5, ["Section", .. headers, "Signed"]);
         foreach (var section in Sections(doc))

@@ -11,7 +11,7 @@ namespace EventReview.TestSupport;
 /// stops and deletes it on dispose. Missing binaries fail the tests with a message saying how to get them.
 /// Each test class gets its own database (<see cref="DatabaseAsync"/>).
 /// </summary>
-public sealed class PostgresServer : IAsyncLifetime
+public sealed class PostgresServer : IAsyncLifetime, IDisposable
 {
     public const string EnvironmentVariable = "EVENTREVIEW_TEST_POSTGRES";
 
@@ -89,6 +89,9 @@ public sealed class PostgresServer : IAsyncLifetime
             _lock.Release();
         }
     }
+
+    /// <summary>Releases the database-creation lock (xunit calls this after <see cref="DisposeAsync"/>).</summary>
+    public void Dispose() => _lock.Dispose();
 
     public async Task DisposeAsync()
     {

@@ -72,7 +72,7 @@ public static class TimeCommand
                 isLeapSecond = utc.IsLeapSecond,
                 gpsMinusUtcSeconds = offset,
                 gmstDegrees = Sidereal.GreenwichMeanSiderealDegrees(utc),
-                leapSecondTableExpires = table.ExpiresUtc.ToString("yyyy-MM-dd"),
+                leapSecondTableExpires = table.ExpiresUtc.ToString("yyyy-MM-dd", System.Globalization.CultureInfo.InvariantCulture),
                 leapSecondTableStale = stale,
                 beyondTableExpiry = beyond,
                 gmstFrame = "mean sidereal time (IAU 1982, Meeus eq. 12.4), UTC taken as UT1: GMST, not apparent sidereal time",

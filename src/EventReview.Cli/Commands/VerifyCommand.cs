@@ -28,7 +28,7 @@ public static class VerifyCommand
             {
                 await using var provider = await data.OpenAsync(parse, writes: false);
                 var verifier = provider.GetRequiredService<IntegrityVerifier>();
-                var (cases, database) = await verifier.VerifyAsync(parse.GetValue(caseId), ct);
+                var (cases, database) = await verifier.VerifyAsync(parse.GetValue(caseId), ct: ct);
                 var problems = database.Concat(cases.SelectMany(c => c.Problems)).ToList();
                 try
                 {

@@ -57,7 +57,7 @@ public static class CaseRecordCheck
 
         foreach (var name in recorded.Fields.Keys.Concat(stored.Fields.Keys).Distinct(StringComparer.Ordinal).Order(StringComparer.Ordinal).OrderBy(Rank))
         {
-            FactNames.TryParse(name, out var part, out var key, out var field);
+            _ = FactNames.TryParse(name, out var part, out var key, out var field);
             if (part == "item" && (!recordedItems.Contains(key!) || !storedItems.Contains(key!)))
             {
                 continue;

@@ -107,7 +107,7 @@ public static class BackgroundCheck
             ChirpMassRelativeTolerance = settings.ChirpMassRelativeTolerance,
             LoudestCount = settings.LoudestCount,
         };
-        return TripleTimeSlides.Run(Site(sites, codes[0]), Site(sites, codes[1]), Site(sites, codes[2]), options, progress, ct, windows);
+        return TripleTimeSlides.Run(Site(sites, codes[0]), Site(sites, codes[1]), Site(sites, codes[2]), options, progress, windows, ct);
     }
 
     private static BackgroundPairOutcome Judge(BackgroundPairPlan plan, BackgroundResult r, double elapsedSeconds)
@@ -157,7 +157,7 @@ public static class BackgroundCheck
     private static SiteTriggers Site(IReadOnlyDictionary<string, SiteTriggers> sites, string code) =>
         sites.TryGetValue(code, out var s) ? s : throw new ArgumentException($"No triggers were given for site {code}.", nameof(sites));
 
-    private static IProgress<BackgroundProgress>? Reporter(Action<double, string>? progress, int index, int steps, string label, Stopwatch watch) =>
+    private static SyncProgress? Reporter(Action<double, string>? progress, int index, int steps, string label, Stopwatch watch) =>
         progress is null ? null : new SyncProgress(p => progress(
             (index + p.Fraction) / steps,
             string.Create(Inv, $"{label}slide {p.SlidesDone:N0} of {p.SlidesTotal:N0}, {p.CoincidencesFound:N0} coincidences, {watch.Elapsed.TotalSeconds:F1} s")));

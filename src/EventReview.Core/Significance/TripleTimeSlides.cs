@@ -28,8 +28,8 @@ public static class TripleTimeSlides
         SiteTriggers third,
         TimeSlideOptions options,
         IProgress<BackgroundProgress>? progress = null,
-        CancellationToken cancellationToken = default,
-        TripleWindows? windows = null)
+        TripleWindows? windows = null,
+        CancellationToken cancellationToken = default)
     {
         ArgumentNullException.ThrowIfNull(first);
         ArgumentNullException.ThrowIfNull(second);

@@ -8,13 +8,13 @@ namespace EventReview.Data.Auth;
 /// Appends to and reads the sign-in audit (<see cref="AccountEvent"/>). Appends are serialised in this process and
 /// retried when another process took the same sequence number, so the chain has no gaps or forks.
 /// </summary>
-public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, TimeProvider clock, ILogger<AccountAudit> log)
+public sealed partial class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, TimeProvider clock, ILogger<AccountAudit> log)
 {
     private static readonly SemaphoreSlim Gate = new(1, 1);
 
     /// <summary>Appends one entry (with the <paramref name="facts"/> of what it changed); never pass a password or a token secret in any field.</summary>
-    public async Task RecordAsync(string kind, string? userId, string? account, string? address, string? detail = null, CancellationToken ct = default,
-        IEnumerable<Fact>? facts = null)
+    public async Task RecordAsync(string kind, string? userId, string? account, string? address, string? detail = null,
+        IEnumerable<Fact>? facts = null, CancellationToken ct = default)
     {
         if (kind is AccountEventKinds.SignInSucceeded or AccountEventKinds.SignInFailed or AccountEventKinds.LockedOut)
         {
@@ -31,7 +31,7 @@ public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, Time
                 try
                 {
                     await db.SaveChangesAsync(ct);
-                    log.LogInformation("Account event {Kind} for {Account} from {Address}", kind, account ?? "(none)", address ?? "(unknown)");
+                    LogAccountEvent(log, kind, account ?? "(none)", address ?? "(unknown)");
                     return;
                 }
                 catch (DbUpdateException) when (attempt < 5)
@@ -68,8 +68,11 @@ public sealed class AccountAudit(IDbContextFactory<AppDbContext> dbFactory, Time
         ArgumentNullException.ThrowIfNull(db);
         await AddNextAsync(db, kind, userId, account, address, detail, facts, ct);
         await db.SaveChangesAsync(ct);
-        log.LogInformation("Account event {Kind} for {Account} from {Address}", kind, account ?? "(none)", address ?? "(unknown)");
+        LogAccountEvent(log, kind, account ?? "(none)", address ?? "(unknown)");
     }
+
+    [LoggerMessage(Level = LogLevel.Information, Message = "Account event {Kind} for {Account} from {Address}")]
+    private static partial void LogAccountEvent(ILogger logger, string kind, string account, string address);
 
     private sealed class Held : IAsyncDisposable
     {

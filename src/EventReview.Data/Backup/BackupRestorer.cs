@@ -156,7 +156,7 @@ public static class BackupRestorer
             await DatabaseInitializer.MigrateAsync(factory, ct);
         }
 
-        var (cases, database) = await new IntegrityVerifier(factory, new AttachmentStore(settings), settings, keeping).VerifyAsync(null, ct, backupTime);
+        var (cases, database) = await new IntegrityVerifier(factory, new AttachmentStore(settings), settings, keeping).VerifyAsync(null, backupTime, ct);
 
         // Entries witnessed after the backup was taken are not in it: said plainly, not counted as problems.
         var newest = keeping.Witness.Read().Newest;

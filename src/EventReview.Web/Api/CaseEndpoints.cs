@@ -44,7 +44,7 @@ public static class CaseEndpoints
             CaseState? s = null;
             if (!string.IsNullOrWhiteSpace(state))
             {
-                s = Enum.GetValues<CaseState>().Cast<CaseState?>().FirstOrDefault(x => CaseDtos.Api(x!.Value) == state.Trim().ToLowerInvariant())
+                s = Enum.GetValues<CaseState>().Cast<CaseState?>().FirstOrDefault(x => string.Equals(CaseDtos.Api(x!.Value), state.Trim(), StringComparison.OrdinalIgnoreCase))
                     ?? throw new ArgumentException($"state '{(state.Length > 40 ? state[..40] + "..." : state)}' is not one of open, in-review, awaiting-decision, closed.", nameof(state));
             }
 
@@ -121,7 +121,7 @@ public static class CaseEndpoints
                 }
 
                 var form = await MultipartForms.ReadAsync(request);
-                var file = form.Files.GetFile("file") ?? form.Files.FirstOrDefault()
+                var file = form.Files.GetFile("file") ?? (form.Files.Count > 0 ? form.Files[0] : null)
                     ?? throw new ArgumentException("The form has no file; send it in a field named 'file'.", "file");
                 if (form["description"].Count > 1)
                 {

@@ -89,7 +89,8 @@ public sealed class ReauthenticatedSigning(
         var account = user.Identity?.Name;
         var where = $"case {request.CaseId} item '{request.ItemKey}'";
         await audit.RecordAsync(signed ? AccountEventKinds.SignatureReauthenticated : AccountEventKinds.SignatureRefused, request.UserId, account, address,
-            signed ? $"{where}: provider sign-in at {AuthTime(reauthenticated):yyyy-MM-dd HH:mm:ss} UTC" : $"{where}: {problem}");
+            signed ? $"{where}: provider sign-in at {AuthTime(reauthenticated):yyyy-MM-dd HH:mm:ss} UTC" : $"{where}: {problem}",
+            ct: CancellationToken.None); // the audit line of a sign-in already done is written even when the request is cancelled
         var outcome = signed
             ? $"Signed after you signed in again at {options.Value.SingleSignOn.DisplayName} ({AuthTime(reauthenticated):HH:mm:ss} UTC)."
             : problem!;

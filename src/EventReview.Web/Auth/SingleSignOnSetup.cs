@@ -14,6 +14,8 @@ namespace EventReview.Web.Auth;
 /// </summary>
 public static class SingleSignOnSetup
 {
+    private static readonly string[] BaseScopes = ["openid", "profile", "email"];
+
     /// <summary>Properties item saying why the provider was asked: <see cref="ForSignIn"/> or <see cref="ForSignature"/>.</summary>
     public const string PurposeKey = "eventreview:purpose";
 
@@ -91,7 +93,7 @@ public static class SingleSignOnSetup
             o.GetClaimsFromUserInfoEndpoint = false;
             o.BackchannelTimeout = TimeSpan.FromSeconds(15);
             o.Scope.Clear();
-            foreach (var scope in new[] { "openid", "profile", "email" }.Concat((sso.Scopes ?? string.Empty).Split(' ', StringSplitOptions.RemoveEmptyEntries)).Distinct())
+            foreach (var scope in BaseScopes.Concat((sso.Scopes ?? string.Empty).Split(' ', StringSplitOptions.RemoveEmptyEntries)).Distinct())
             {
                 o.Scope.Add(scope);
             }

@@ -131,7 +131,7 @@ public static class LocalCausesDemoFiles
             foreach (var (channel, kind, location, _) in Channels)
             {
                 var ours = s == couplingSite && channel == Magnetometer;
-                sb.Append($"{s},{ChannelName.Qualified(s, channel)},{kind},{location},{(ours ? CouplingFileName(s) : string.Empty)},{(ours ? SensorDataFileName(s) : string.Empty)}\n");
+                sb.Append(CultureInfo.InvariantCulture, $"{s},{ChannelName.Qualified(s, channel)},{kind},{location},{(ours ? CouplingFileName(s) : string.Empty)},{(ours ? SensorDataFileName(s) : string.Empty)}\n");
             }
         }
 
@@ -173,11 +173,11 @@ public static class LocalCausesDemoFiles
         {
             for (var i = 0; i < InjectionOffsets.Length; i++)
             {
-                sb.Append($"{s},{t.AddSeconds(InjectionOffsets[i])},{t.AddSeconds(InjectionOffsets[i] + 8)},cbc,hw-cbc-{i + 1:00},performed\n");
+                sb.Append(CultureInfo.InvariantCulture, $"{s},{t.AddSeconds(InjectionOffsets[i])},{t.AddSeconds(InjectionOffsets[i] + 8)},cbc,hw-cbc-{i + 1:00},performed\n");
             }
 
-            sb.Append($"{s},{t.AddSeconds(2400)},{t.AddSeconds(2408)},burst,hw-burst-01,aborted\n");
-            sb.Append($"{s},{t.AddSeconds(5400)},{t.AddSeconds(5408)},cbc,hw-cbc-06,scheduled\n");
+            sb.Append(CultureInfo.InvariantCulture, $"{s},{t.AddSeconds(2400)},{t.AddSeconds(2408)},burst,hw-burst-01,aborted\n");
+            sb.Append(CultureInfo.InvariantCulture, $"{s},{t.AddSeconds(5400)},{t.AddSeconds(5408)},cbc,hw-cbc-06,scheduled\n");
         }
 
         return sb.ToString();

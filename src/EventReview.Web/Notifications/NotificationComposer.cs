@@ -17,12 +17,14 @@ public sealed class NotificationComposer(IOptions<NotificationOptions> options)
     private const string Footer = "You get this because of the notification choices in your EventReview profile ({0}). " +
         "EventReview computes and records; decisions rest with the people who sign, under their collaboration's own procedures.";
 
+    private static readonly System.Text.CompositeFormat FooterFormat = System.Text.CompositeFormat.Parse(Footer);
+
     /// <summary><paramref name="path"/> with the server's public address in front, when one is configured.</summary>
     public string Link(string path) =>
         string.IsNullOrWhiteSpace(options.Value.BaseUrl) ? path : options.Value.BaseUrl.TrimEnd('/') + path;
 
     public (string Subject, string Body) Email(Notification n) =>
-        ("[EventReview] " + n.Subject, $"{n.Text}\n\nOpen: {Link(n.Link)}\n\n-- \n{string.Format(System.Globalization.CultureInfo.InvariantCulture, Footer, Link("/profile"))}\n");
+        ("[EventReview] " + n.Subject, $"{n.Text}\n\nOpen: {Link(n.Link)}\n\n-- \n{string.Format(System.Globalization.CultureInfo.InvariantCulture, FooterFormat, Link("/profile"))}\n");
 
     public string Webhook(Notification n, string recipient) => JsonSerializer.Serialize(Item(n, recipient), Json);
 
@@ -31,7 +33,7 @@ public sealed class NotificationComposer(IOptions<NotificationOptions> options)
         var lines = list.OrderBy(n => n.CreatedAt).Select(n =>
             $"- {n.CreatedAt.UtcDateTime:yyyy-MM-dd HH:mm} UTC, {NotificationKind.Label(n.Kind)}: {n.Subject}\n  {n.Text}\n  {Link(n.Link)}");
         return ($"[EventReview] Daily digest for {now.UtcDateTime:yyyy-MM-dd}: {list.Count} notification(s)",
-            $"What happened since your last digest ({list.Count}):\n\n{string.Join("\n\n", lines)}\n\n-- \n{string.Format(System.Globalization.CultureInfo.InvariantCulture, Footer, Link("/profile"))}\n");
+            $"What happened since your last digest ({list.Count}):\n\n{string.Join("\n\n", lines)}\n\n-- \n{string.Format(System.Globalization.CultureInfo.InvariantCulture, FooterFormat, Link("/profile"))}\n");
     }
 
     public string DigestWebhook(IReadOnlyList<Notification> list, string recipient, DateTimeOffset now) => JsonSerializer.Serialize(new

@@ -18,9 +18,12 @@ public sealed class NotificationPump(
     NotificationRouter router,
     OutboxSender sender,
     TimeProvider clock,
-    ILogger<NotificationPump> log)
+    ILogger<NotificationPump> log) : IDisposable
 {
     private readonly SemaphoreSlim _one = new(1, 1);
+
+    /// <summary>Releases the pass lock (the container disposes the singleton at shutdown).</summary>
+    public void Dispose() => _one.Dispose();
 
     /// <summary>Result of one pass.</summary>
     public sealed record Pass(int Notices, int Messages, int Sent, int Failed);

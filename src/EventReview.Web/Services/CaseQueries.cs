@@ -15,6 +15,9 @@ public sealed class CaseQueries(IDbContextFactory<AppDbContext> dbFactory)
 {
     /// <summary>One page of the cases, newest candidate first, optionally filtered by state and text.</summary>
     /// <exception cref="ArgumentOutOfRangeException">When offset or limit is out of range (see <see cref="Paging"/>).</exception>
+    [System.Diagnostics.CodeAnalysis.SuppressMessage("Globalization", "CA1304", Justification = "EF Core translates ToLower() in the query to SQL lower(); no .NET culture is involved")]
+    [System.Diagnostics.CodeAnalysis.SuppressMessage("Globalization", "CA1311", Justification = "EF Core translates ToLower() in the query to SQL lower(); no .NET culture is involved")]
+    [System.Diagnostics.CodeAnalysis.SuppressMessage("Performance", "CA1862", Justification = "EF Core translates ToLower().Contains() to SQL; the StringComparison overload does not translate")]
     public async Task<CaseListPage> ListAsync(ClaimsPrincipal user, CaseState? state = null, string? search = null, int? offset = null, int? limit = null, CancellationToken ct = default)
     {
         Permissions.Require(user, Policies.Read, "read cases");
@@ -28,7 +31,7 @@ public sealed class CaseQueries(IDbContextFactory<AppDbContext> dbFactory)
 
         if (!string.IsNullOrWhiteSpace(search))
         {
-            var s = search.Trim().ToLower();
+            var s = search.Trim().ToLowerInvariant();
             q = q.Where(c => c.CandidateId.ToLower().Contains(s) || c.Summary.ToLower().Contains(s) || c.Search.ToLower().Contains(s));
         }
 

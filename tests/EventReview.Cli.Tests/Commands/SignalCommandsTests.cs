@@ -22,7 +22,11 @@ public class SignalCommandsTests : IDisposable
         File.WriteAllText(Path.Combine(_dir, "bad.txt"), "1 0\n2 0\n3 oops\n");
     }
 
-    public void Dispose() => Directory.Delete(_dir, true);
+    public void Dispose()
+    {
+        Directory.Delete(_dir, true);
+        GC.SuppressFinalize(this);
+    }
 
     private static (int Code, string Out, string Err) Run(Command command, params string[] args)
     {

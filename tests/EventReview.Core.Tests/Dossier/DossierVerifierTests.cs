@@ -128,9 +128,9 @@ public class DossierVerifierTests
 
         var problems = DossierFiles.Verify(files).Problems;
 
-        Assert.Contains(problems, p => p.Where!.StartsWith("item timing.delay, note") && p.What.Contains("note was altered"));
+        Assert.Contains(problems, p => p.Where!.StartsWith("item timing.delay, note", StringComparison.Ordinal) && p.What.Contains("note was altered"));
         Assert.Contains(problems, p => p.Where == "item timing.delay" && p.What.Contains("evidence fingerprint recomputed"));
-        Assert.Contains(problems, p => p.Where!.StartsWith("item timing.delay, sign-off") && p.What.Contains("marked current"));
+        Assert.Contains(problems, p => p.Where!.StartsWith("item timing.delay, sign-off", StringComparison.Ordinal) && p.What.Contains("marked current"));
     }
 
     [Fact]
@@ -204,10 +204,10 @@ public class DossierVerifierTests
         files = Files();
         files["dossier.json"] = Encoding.UTF8.GetBytes("{\"schemaVersion\": ");
         DossierFiles.Reseal(files, "x", "y");
-        Assert.Contains(DossierFiles.Verify(files).Problems, p => p.File == "dossier.json" && p.What.StartsWith("not a valid dossier"));
+        Assert.Contains(DossierFiles.Verify(files).Problems, p => p.File == "dossier.json" && p.What.StartsWith("not a valid dossier", StringComparison.Ordinal));
 
         files = Files();
         files.Remove("manifest.json");
-        Assert.Contains(DossierFiles.Verify(files).Problems, p => p.File == "manifest.json" && p.What.StartsWith("missing"));
+        Assert.Contains(DossierFiles.Verify(files).Problems, p => p.File == "manifest.json" && p.What.StartsWith("missing", StringComparison.Ordinal));
     }
 }

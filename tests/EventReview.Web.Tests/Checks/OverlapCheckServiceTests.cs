@@ -206,8 +206,8 @@ public sealed class OverlapCheckServiceTests : IClassFixture<OverlapCheckService
         var (fromH5, added, _) = await service.RunAsync(_app.Coordinator, setup.CaseId, Item,
             new OverlapCheckParameters(new StrainPick(setup.ShaA), new StrainPick(h5, "/strain", b.Start.Nanoseconds / 1_000_000_000m, b.SampleRateHz), OffSourceTrials: 0));
         Assert.True(added); // another input file: a new record
-        var text = JsonSerializer.Deserialize<OverlapReviewResult>(fromText.Item(Item).Computations.First().ResultJson, CheckRecords.Json)!;
-        var hdf = JsonSerializer.Deserialize<OverlapReviewResult>(fromH5.Item(Item).Computations.Last().ResultJson, CheckRecords.Json)!;
+        var text = JsonSerializer.Deserialize<OverlapReviewResult>(fromText.Item(Item).Computations[0].ResultJson, CheckRecords.Json)!;
+        var hdf = JsonSerializer.Deserialize<OverlapReviewResult>(fromH5.Item(Item).Computations[^1].ResultJson, CheckRecords.Json)!;
         Assert.Equal("MV-strain.h5", hdf.FileB);
         Assert.Equal(text.Overlap.RefinedLagSeconds, hdf.Overlap.RefinedLagSeconds, 1e-12); // same samples, same timing
         Assert.Equal(text.Overlap.Overlap, hdf.Overlap.Overlap, 1e-12);

@@ -59,7 +59,7 @@ public sealed class RecordKeepingTests(EventReviewFactory app) : IClassFixture<E
         Assert.All(cases, c => Assert.True(c.Valid, c.CandidateId + ": " + string.Join("; ", c.Problems.Select(p => p.What))));
         await using var db = app.Db();
         var flagship = db.Cases.Single(c => c.CandidateId == "ER-C-0142").Id;
-        Assert.True(db.ConfigurationSnapshots.Count(s => s.ReviewCaseId == flagship && s.IsFrozen) >= 1);
+        Assert.True(db.ConfigurationSnapshots.Any(s => s.ReviewCaseId == flagship && s.IsFrozen));
         Assert.True(db.SignOffs.Count(s => db.Items.Any(i => i.Id == s.ChecklistItemId && i.ReviewCaseId == flagship)) >= 2);
     }
 }

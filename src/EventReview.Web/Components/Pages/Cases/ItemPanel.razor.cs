@@ -93,15 +93,15 @@ public partial class ItemPanel
     private Task<bool> Run(Func<Task<ReviewCase>> action, string? success = null) =>
         _actions.RunAsync(action, success, c => OnChanged.InvokeAsync(c), () => Cases.GetAsync(User, Case.Id));
 
-    private Task Transition(string action) => Run(() => Workflow.TransitionAsync(User, Case.Id, Item.Key, action, Item.Version));
+    private Task<bool> Transition(string action) => Run(() => Workflow.TransitionAsync(User, Case.Id, Item.Key, action, Item.Version));
 
-    private Task Assign(string ownerId)
+    private Task<bool> Assign(string ownerId)
     {
         var person = _people.FirstOrDefault(p => p.Id == ownerId);
         return Run(() => Workflow.AssignAsync(User, Case.Id, Item.Key, person?.Id, person?.DisplayName, Item.Version), person is null ? "Unassigned." : $"Assigned to {person.DisplayName}.");
     }
 
-    private Task SetDue(DateTime? date) =>
+    private Task<bool> SetDue(DateTime? date) =>
         Run(() => Workflow.SetDueAsync(User, Case.Id, Item.Key, date is null ? null : DateOnly.FromDateTime(date.Value), Item.Version), "Due date saved.");
 
     private async Task Signed(ReviewCase updated)
