@@ -1,3 +1,5 @@
+using EventReview.Core.Time;
+
 namespace EventReview.Core.Live;
 
 /// <summary>
@@ -16,9 +18,5 @@ public static class ReconnectDelay
     /// <summary>Wait after <paramref name="failures"/> failures in a row (1 or more).</summary>
     /// <exception cref="ArgumentOutOfRangeException">When <paramref name="failures"/> is below 1.</exception>
     public static TimeSpan After(int failures)
-    {
-        ArgumentOutOfRangeException.ThrowIfLessThan(failures, 1);
-        var ms = First.TotalMilliseconds * Math.Pow(2, Math.Min(failures - 1, 20));
-        return ms >= Longest.TotalMilliseconds ? Longest : TimeSpan.FromMilliseconds(ms);
-    }
+        => DoublingBackoff.After(First, Longest, failures);
 }

@@ -1,3 +1,5 @@
+using EventReview.Core.Time;
+
 namespace EventReview.Core.Notifications;
 
 /// <summary>
@@ -16,12 +18,7 @@ public static class RetrySchedule
     /// <summary>Wait after the <paramref name="failedAttempts"/>-th failed attempt (1 or more).</summary>
     /// <exception cref="ArgumentOutOfRangeException">When <paramref name="failedAttempts"/> is below 1.</exception>
     public static TimeSpan DelayAfter(int failedAttempts)
-    {
-        ArgumentOutOfRangeException.ThrowIfLessThan(failedAttempts, 1);
-        var exponent = Math.Min(failedAttempts - 1, 20);
-        var seconds = First.TotalSeconds * Math.Pow(2, exponent);
-        return seconds >= Longest.TotalSeconds ? Longest : TimeSpan.FromSeconds(seconds);
-    }
+        => DoublingBackoff.After(First, Longest, failedAttempts);
 
     /// <summary>
     /// When to try again after a failure at <paramref name="failedAt"/>, or null when the message is older than
