@@ -63,7 +63,6 @@ public sealed class SingleSignOnBrowserTests(SsoRunningApp app) : IClassFixture<
             await Assertions.Expect(page.Locator("ul.signoffs")).ToContainTextAsync("Rita Reviewer");
             Assert.Equal(logins + 1, app.Provider.Logins);
             await Shot(page, "sso-4-signed");
-            await page.Locator(".item-panel").ScreenshotAsync(new() { Path = Path.Combine(Screenshots, "sso-4-signed-panel.png") });
 
             // Her profile: how she signed in, her notification choices, a test message the unreachable SMTP server delays.
             await page.GotoAsync($"{app.BaseUrl}/profile");
